@@ -1,0 +1,183 @@
+// Python bindings: a thin layer over libcoil. SI arguments; functions of a ratio or a geometry accept
+// numpy arrays. libcoil::InputError arrives as libcoil.InputError (a ValueError) with the same message.
+#include <pybind11/numpy.h>
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+#include <pybind11/stl/filesystem.h>
+
+#include <optional>
+
+#include "libcoil/libcoil.hpp"
+
+namespace py = pybind11;
+using namespace pybind11::literals;
+
+namespace {
+
+libcoil::Dimension dimension_from_name(const std::string& name) {
+    using D = libcoil::Dimension;
+    static const std::pair<const char*, D> names[] = {
+        {"dimensionless", D::dimensionless}, {"length", D::length},       {"inductance", D::inductance},
+        {"capacitance", D::capacitance},     {"frequency", D::frequency}, {"current", D::current},
+        {"voltage", D::voltage},             {"resistance", D::resistance}, {"power", D::power},
+        {"temperature", D::temperature},     {"time", D::time},
+    };
+    for (const auto& [n, d] : names) {
+        if (name == n) return d;
+    }
+    throw libcoil::InputError("dimension", "\"" + name + "\" is not a known dimension such as \"length\"");
+}
+
+libcoil::Wire make_wire(std::optional<double> diameter, std::optional<std::string> gauge, double insulation,
+                        std::optional<int> enamel_grade) {
+    libcoil::Wire w;
+    if (diameter.has_value() == gauge.has_value()) {
+        throw libcoil::InputError("wire_diameter", "give either wire_diameter or gauge");
+    }
+    if (gauge) {
+        const int g = libcoil::parse_awg(*gauge, "gauge");
+        w.bare_diameter = libcoil::awg_diameter(g);
+        w.label = libcoil::awg_label(g);
+    } else {
+        w.bare_diameter = libcoil::require_positive("wire_diameter", *diameter);
+        w.label = libcoil::format_quantity(w.bare_diameter, libcoil::Dimension::length) + " wire";
+    }
+    w.insulation = enamel_grade ? libcoil::enamel_build(w.bare_diameter, *enamel_grade, "enamel_grade")
+                                : libcoil::require_non_negative("insulation", insulation);
+    return w;
+}
+
+py::dict by_method(const libcoil::InductanceByMethod& m) {
+    return py::dict("wheeler"_a = m.wheeler, "nagaoka"_a = m.nagaoka, "lundin"_a = m.lundin, "rosa"_a = m.rosa,
+                    "filament"_a = m.filament);
+}
+
+}  // namespace
+
+PYBIND11_MODULE(_core, m) {
+    m.doc() = "libcoil: design of single-layer air-core coils (compiled core)";
+    m.attr("__version__") = libcoil::version;
+
+    py::register_exception<libcoil::InputError>(m, "InputError", PyExc_ValueError);
+    py::register_exception<libcoil::DomainError>(m, "DomainError", PyExc_ValueError);
+
+    m.attr("mu0") = libcoil::mu0;
+    m.attr("eps0") = libcoil::eps0;
+    m.attr("speed_of_light") = libcoil::speed_of_light;
+
+    // Units, at the edge.
+    m.def("parse_quantity", [](const std::string& text, const std::string& dimension, const std::string& field) {
+        return libcoil::parse_quantity(text, dimension_from_name(dimension), field);
+    }, "text"_a, "dimension"_a, "field"_a = "value", "Parse '25 mm', '1.2 uH', '25 degC' into SI.");
+    m.def("format_quantity", [](double v, const std::string& dimension, int digits) {
+        return libcoil::format_quantity(v, dimension_from_name(dimension), digits);
+    }, "value"_a, "dimension"_a, "digits"_a = 4);
+
+    // Wire.
+    m.def("parse_awg", [](const std::string& t) { return libcoil::parse_awg(t, "gauge"); }, "text"_a);
+    m.def("awg_diameter", py::vectorize(&libcoil::awg_diameter), "gauge"_a, "Bare diameter in m (ASTM B258).");
+    m.def("enamel_build", [](double d, int grade) { return libcoil::enamel_build(d, grade, "grade"); },
+          "bare_diameter"_a, "grade"_a, "Radial enamel build in m, IEC 60317 grade 1-3.");
+    m.def("metric_wire_diameters", &libcoil::metric_wire_diameters);
+
+    // Inductance models.
+    m.def("nagaoka", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a,
+          "Nagaoka's coefficient K(D/l), exact.");
+    m.def("nagaoka_coefficient", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a);
+    m.def("wheeler_coefficient", py::vectorize(&libcoil::wheeler_coefficient), "diameter_to_length"_a);
+    m.def("lundin_coefficient", py::vectorize(&libcoil::lundin_coefficient), "diameter_to_length"_a);
+    m.def("current_sheet_inductance", py::vectorize(&libcoil::current_sheet_inductance), "mean_diameter"_a,
+          "length"_a, "turns"_a);
+    m.def("wheeler_inductance", py::vectorize(&libcoil::wheeler_inductance), "mean_diameter"_a, "length"_a, "turns"_a);
+    m.def("lundin_inductance", py::vectorize(&libcoil::lundin_inductance), "mean_diameter"_a, "length"_a, "turns"_a);
+    m.def("rosa_self_correction", py::vectorize(&libcoil::rosa_self_correction), "pitch_to_wire"_a);
+    m.def("rosa_mutual_correction", py::vectorize(&libcoil::rosa_mutual_correction), "turns"_a);
+    m.def("rosa_inductance", py::vectorize(&libcoil::rosa_inductance), "mean_diameter"_a, "turns"_a, "pitch"_a,
+          "wire_diameter"_a);
+    m.def("filament_inductance", py::vectorize(&libcoil::filament_inductance), "mean_diameter"_a, "turns"_a,
+          "pitch"_a, "wire_diameter"_a);
+    m.def("coaxial_mutual_inductance", py::vectorize(&libcoil::coaxial_mutual_inductance), "radius_a"_a,
+          "radius_b"_a, "axial_distance"_a, "Maxwell's mutual inductance of coaxial circles, H.");
+    m.def("ring_self_inductance", py::vectorize(&libcoil::ring_self_inductance), "ring_radius"_a, "wire_radius"_a);
+
+    // Materials.
+    py::class_<libcoil::Conductor>(m, "Conductor")
+        .def_readonly("name", &libcoil::Conductor::name)
+        .def_readonly("resistivity_20", &libcoil::Conductor::resistivity_20)
+        .def_readonly("temperature_coefficient", &libcoil::Conductor::temperature_coefficient)
+        .def_readonly("relative_permeability", &libcoil::Conductor::relative_permeability)
+        .def_readonly("source", &libcoil::Conductor::source)
+        .def("resistivity_at", &libcoil::Conductor::resistivity_at, "temperature"_a);
+    py::class_<libcoil::FormerMaterial>(m, "FormerMaterial")
+        .def_readonly("name", &libcoil::FormerMaterial::name)
+        .def_readonly("relative_permittivity", &libcoil::FormerMaterial::relative_permittivity)
+        .def_readonly("loss_tangent", &libcoil::FormerMaterial::loss_tangent)
+        .def_readonly("max_service_temperature", &libcoil::FormerMaterial::max_service_temperature)
+        .def_readonly("source", &libcoil::FormerMaterial::source);
+    m.def("conductor", [](const std::string& n) { return libcoil::conductor(n); }, "name"_a);
+    m.def("former_material", [](const std::string& n) { return libcoil::former_material(n); }, "name"_a);
+    m.def("conductor_names", &libcoil::conductor_names);
+    m.def("former_material_names", &libcoil::former_material_names);
+    m.def("data_directory", &libcoil::data_directory);
+
+    // Geometry.
+    py::class_<libcoil::Wire>(m, "Wire")
+        .def(py::init(&make_wire), py::kw_only(), "diameter"_a = py::none(), "gauge"_a = py::none(),
+             "insulation"_a = 0.0, "enamel_grade"_a = py::none())
+        .def_readonly("bare_diameter", &libcoil::Wire::bare_diameter)
+        .def_readonly("insulation", &libcoil::Wire::insulation)
+        .def_readonly("label", &libcoil::Wire::label)
+        .def_property_readonly("insulated_diameter", &libcoil::Wire::insulated_diameter);
+
+    py::class_<libcoil::Solenoid>(m, "Solenoid")
+        .def(py::init([](double turns, double pitch, const libcoil::Wire& wire, std::optional<double> mean_diameter,
+                         std::optional<double> form_diameter, double lead_length) {
+                 if (mean_diameter.has_value() == form_diameter.has_value()) {
+                     throw libcoil::InputError("mean_diameter", "give either mean_diameter or form_diameter");
+                 }
+                 if (form_diameter) return libcoil::Solenoid::on_form(*form_diameter, turns, pitch, wire, lead_length);
+                 return libcoil::Solenoid(libcoil::Solenoid::Params{*mean_diameter, turns, pitch, wire, lead_length});
+             }),
+             py::kw_only(), "turns"_a, "pitch"_a, "wire"_a, "mean_diameter"_a = py::none(),
+             "form_diameter"_a = py::none(), "lead_length"_a = 0.0)
+        .def_property_readonly("mean_diameter", &libcoil::Solenoid::mean_diameter)
+        .def_property_readonly("mean_radius", &libcoil::Solenoid::mean_radius)
+        .def_property_readonly("turns", &libcoil::Solenoid::turns)
+        .def_property_readonly("pitch", &libcoil::Solenoid::pitch)
+        .def_property_readonly("wire", &libcoil::Solenoid::wire)
+        .def_property_readonly("lead_length", &libcoil::Solenoid::lead_length)
+        .def_property_readonly("form_diameter", &libcoil::Solenoid::form_diameter)
+        .def_property_readonly("outer_diameter", &libcoil::Solenoid::outer_diameter)
+        .def_property_readonly("winding_length", &libcoil::Solenoid::winding_length)
+        .def_property_readonly("overall_length", &libcoil::Solenoid::overall_length)
+        .def_property_readonly("diameter_to_length", &libcoil::Solenoid::diameter_to_length)
+        .def_property_readonly("pitch_angle", &libcoil::Solenoid::pitch_angle)
+        .def_property_readonly("helix_length", &libcoil::Solenoid::helix_length)
+        .def_property_readonly("wire_length", &libcoil::Solenoid::wire_length)
+        .def("inductance", [](const libcoil::Solenoid& s) { return libcoil::recommended_inductance(s); },
+             "The recommended (Rosa-corrected Nagaoka) inductance in H.");
+
+    py::class_<libcoil::InductanceResult>(m, "InductanceResult")
+        .def_readonly("nagaoka_coefficient", &libcoil::InductanceResult::nagaoka_coefficient)
+        .def_readonly("recommended", &libcoil::InductanceResult::recommended)
+        .def_readonly("warnings", &libcoil::InductanceResult::warnings)
+        .def_property_readonly("by_method", [](const libcoil::InductanceResult& r) { return by_method(r.by_method); });
+    m.def("inductance", &libcoil::inductance, "solenoid"_a, "Every inductance model and the recommended value.");
+
+    // Specs, analysis and reports.
+    py::class_<libcoil::CoilSpec>(m, "CoilSpec")
+        .def_readonly("name", &libcoil::CoilSpec::name)
+        .def_readonly("solenoid", &libcoil::CoilSpec::solenoid)
+        .def_readonly("conductor", &libcoil::CoilSpec::conductor)
+        .def_readonly("notes", &libcoil::CoilSpec::notes);
+    m.def("parse_coil_spec", &libcoil::parse_coil_spec, "yaml_text"_a, "source"_a = "spec");
+    m.def("load_coil_spec", &libcoil::load_coil_spec, "path"_a);
+    py::class_<libcoil::Analysis>(m, "Analysis")
+        .def_readonly("spec", &libcoil::Analysis::spec)
+        .def_readonly("inductance", &libcoil::Analysis::inductance)
+        .def_readonly("warnings", &libcoil::Analysis::warnings)
+        .def_readonly("notes", &libcoil::Analysis::notes);
+    m.def("analyze", &libcoil::analyze, "spec"_a);
+    m.def("text_report", &libcoil::text_report, "analysis"_a);
+    m.def("json_report", &libcoil::json_report, "analysis"_a);
+}

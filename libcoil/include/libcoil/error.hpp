@@ -1,0 +1,45 @@
+// Errors raised by libcoil.
+//
+// InputError names the input field (a YAML path such as "coil.pitch", or an argument name), the offending
+// value and what was expected. Every public function validates its inputs and throws InputError rather than
+// let a NaN or an infinity escape. DomainError marks a request that is valid input but lies outside the
+// domain of every model that could answer it.
+#pragma once
+
+#include <stdexcept>
+#include <string>
+#include <string_view>
+
+namespace libcoil {
+
+class InputError : public std::invalid_argument {
+public:
+    InputError(std::string field, std::string detail);
+
+    // The field, e.g. "coil.pitch"; empty when the error concerns the whole input.
+    const std::string& field() const noexcept { return field_; }
+    // The message without the field prefix.
+    const std::string& detail() const noexcept { return detail_; }
+    // The same error with the field placed under `prefix` ("pitch" within "coil" is "coil.pitch").
+    InputError within(std::string_view prefix) const;
+
+private:
+    std::string field_;
+    std::string detail_;
+};
+
+class DomainError : public std::domain_error {
+public:
+    using std::domain_error::domain_error;
+};
+
+// Formats a double for messages with up to 6 significant digits ("nan", "inf" spelled out).
+std::string format_value(double value);
+
+// Validation helpers used by every public entry point. They throw InputError naming `field`.
+double require_finite(std::string_view field, double value);
+double require_positive(std::string_view field, double value);      // finite and > 0
+double require_non_negative(std::string_view field, double value);  // finite and >= 0
+double require_at_least(std::string_view field, double value, double minimum, std::string_view why);
+
+}  // namespace libcoil

@@ -1,0 +1,35 @@
+// The inductance of a solenoid by every model, and the one the library recommends.
+//
+// The recommended value is the Rosa-corrected Nagaoka inductance: exact for the current sheet, corrected
+// for round wire at its pitch. The filament sum is the independent check; Wheeler and Lundin are the
+// handbook formulas a designer knows.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "libcoil/solenoid.hpp"
+
+namespace libcoil {
+
+struct InductanceByMethod {
+    double wheeler = 0;   // H, current sheet, Wheeler 1928
+    double nagaoka = 0;   // H, current sheet, exact
+    double lundin = 0;    // H, current sheet, Lundin 1985
+    double rosa = 0;      // H, Nagaoka with Rosa's round-wire correction (recommended)
+    double filament = 0;  // H, sum over circular filaments
+};
+
+struct InductanceResult {
+    double nagaoka_coefficient = 0;
+    InductanceByMethod by_method;
+    double recommended = 0;              // H
+    std::vector<std::string> warnings;   // models used outside their stated domain
+};
+
+InductanceResult inductance(const Solenoid& coil);
+
+// The recommended inductance alone, without the filament sum: the fast path for design searches.
+double recommended_inductance(const Solenoid& coil);
+
+}  // namespace libcoil

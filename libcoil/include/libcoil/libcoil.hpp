@@ -1,0 +1,22 @@
+// Umbrella header: everything public in libcoil.
+#pragma once
+
+#include "libcoil/analysis.hpp"
+#include "libcoil/coaxial_mutual.hpp"
+#include "libcoil/constants.hpp"
+#include "libcoil/error.hpp"
+#include "libcoil/filament.hpp"
+#include "libcoil/inductance.hpp"
+#include "libcoil/io.hpp"
+#include "libcoil/lundin.hpp"
+#include "libcoil/materials.hpp"
+#include "libcoil/nagaoka.hpp"
+#include "libcoil/report.hpp"
+#include "libcoil/ring_inductance.hpp"
+#include "libcoil/rosa.hpp"
+#include "libcoil/solenoid.hpp"
+#include "libcoil/spec.hpp"
+#include "libcoil/units.hpp"
+#include "libcoil/version.hpp"
+#include "libcoil/wheeler.hpp"
+#include "libcoil/wire.hpp"

@@ -1,0 +1,23 @@
+// Nagaoka's coefficient: the exact inductance of a uniform cylindrical current sheet.
+//
+// Method:  L = mu0 * pi * r^2 * N^2 / l * K(D/l), with k^2 = D^2 / (D^2 + l^2), k'^2 = 1 - k^2 and
+//          K = 4 / (3 pi k') * [ (k'^2 / k^2) (K(k) - E(k)) + E(k) - k ].
+//          K(k) - E(k) is taken as (k^2 / 3) R_D(0, k'^2, 1) (Carlson), which keeps every digit for long
+//          coils. For short coils (k'^2 < 0.1) the bracket cancels to O(k'^2 ln k'), so there the
+//          logarithmic series of K and E about k = 1 (Abramowitz & Stegun 17.3.26 and 17.3.36) is summed
+//          with the leading terms cancelled analytically.
+// Source:  H. Nagaoka, J. Coll. Sci. Tokyo 27 (1909) art. 6; F. W. Grover, "Inductance Calculations" (1946).
+// Domain:  any D / l > 0; the library accepts 1e-3 <= l / D <= 1e3.
+// Accuracy (tests/python/test_nagaoka.py): relative 1e-14 against mpmath at 40 digits for
+//          D / l = 1e-3 .. 1e3, and <= 1e-12 against scipy.special.ellipk/ellipe where that closed form is
+//          well conditioned.
+#pragma once
+
+namespace libcoil {
+
+// Nagaoka's coefficient K as a function of diameter over length. Throws InputError unless D/l > 0.
+double nagaoka_coefficient(double diameter_to_length);
+// Current-sheet inductance in H of N turns of mean diameter D over length l (both in m).
+double current_sheet_inductance(double mean_diameter, double length, double turns);
+
+}  // namespace libcoil

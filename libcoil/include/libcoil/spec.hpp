@@ -1,0 +1,40 @@
+// The coil spec: a YAML document describing one coil, read at the edge and turned into SI geometry.
+//
+//   name: ...                    # optional
+//   coil:
+//     form_diameter: 20 mm       # or mean_diameter: (to the wire centre)
+//     turns: 10                  # may be fractional
+//     pitch: 1.5 mm              # or winding_length: (= turns * pitch)
+//     leads: 2 x 30 mm           # optional: lead_length: 60 mm (both leads together)
+//     wire:
+//       diameter: 1.0 mm         # bare conductor; or gauge: AWG 18
+//       insulation: 0.04 mm      # radial build; or enamel: grade 2; neither means bare wire
+//     conductor: copper
+//
+// Errors name the YAML path: `coil.pitch: "2 mn": unknown unit "mn"; expected a length such as "2 mm"`.
+// Unknown keys are errors with a "did you mean" hint.
+#pragma once
+
+#include <filesystem>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "libcoil/materials.hpp"
+#include "libcoil/solenoid.hpp"
+
+namespace libcoil {
+
+struct CoilSpec {
+    std::string name;
+    Solenoid solenoid;
+    Conductor conductor;
+    std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
+};
+
+// Parses a spec from YAML text; `source` names it in messages (a file name).
+CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source = "spec");
+// Reads and parses a spec file. A missing or unreadable file is an InputError naming the path.
+CoilSpec load_coil_spec(const std::filesystem::path& path);
+
+}  // namespace libcoil

@@ -1,0 +1,65 @@
+#include "libcoil/error.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace libcoil {
+
+namespace {
+std::string compose(const std::string& field, const std::string& detail) {
+    return field.empty() ? detail : field + ": " + detail;
+}
+}  // namespace
+
+InputError::InputError(std::string field, std::string detail)
+    : std::invalid_argument(compose(field, detail)), field_(std::move(field)), detail_(std::move(detail)) {}
+
+InputError InputError::within(std::string_view prefix) const {
+    std::string f(prefix);
+    if (!field_.empty()) {
+        f += f.empty() ? field_ : "." + field_;
+    }
+    return InputError(f, detail_);
+}
+
+std::string format_value(double value) {
+    if (std::isnan(value)) return "nan";
+    if (std::isinf(value)) return value > 0 ? "inf" : "-inf";
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.6g", value);
+    return buf;
+}
+
+double require_finite(std::string_view field, double value) {
+    if (!std::isfinite(value)) {
+        throw InputError(std::string(field), format_value(value) + " is not a finite number");
+    }
+    return value;
+}
+
+double require_positive(std::string_view field, double value) {
+    require_finite(field, value);
+    if (!(value > 0)) {
+        throw InputError(std::string(field), format_value(value) + " must be greater than zero");
+    }
+    return value;
+}
+
+double require_non_negative(std::string_view field, double value) {
+    require_finite(field, value);
+    if (value < 0) {
+        throw InputError(std::string(field), format_value(value) + " must not be negative");
+    }
+    return value;
+}
+
+double require_at_least(std::string_view field, double value, double minimum, std::string_view why) {
+    require_finite(field, value);
+    if (value < minimum) {
+        throw InputError(std::string(field),
+                         format_value(value) + " is below " + format_value(minimum) + ": " + std::string(why));
+    }
+    return value;
+}
+
+}  // namespace libcoil

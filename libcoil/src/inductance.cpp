@@ -1,0 +1,44 @@
+#include "libcoil/inductance.hpp"
+
+#include "libcoil/error.hpp"
+#include "libcoil/filament.hpp"
+#include "libcoil/lundin.hpp"
+#include "libcoil/nagaoka.hpp"
+#include "libcoil/rosa.hpp"
+#include "libcoil/wheeler.hpp"
+
+namespace libcoil {
+
+double recommended_inductance(const Solenoid& c) {
+    return rosa_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
+}
+
+InductanceResult inductance(const Solenoid& c) {
+    InductanceResult r;
+    const double D = c.mean_diameter(), l = c.winding_length(), N = c.turns();
+    const double rho = c.diameter_to_length();
+    r.nagaoka_coefficient = nagaoka_coefficient(rho);
+    r.by_method.wheeler = wheeler_inductance(D, l, N);
+    r.by_method.nagaoka = current_sheet_inductance(D, l, N);
+    r.by_method.lundin = lundin_inductance(D, l, N);
+    r.by_method.rosa = recommended_inductance(c);
+    r.by_method.filament = filament_inductance(D, N, c.pitch(), c.wire().bare_diameter);
+    r.recommended = r.by_method.rosa;
+
+    if (!wheeler_in_domain(rho)) {
+        r.warnings.push_back("Wheeler's formula is outside its stated domain (length " + format_value(l / (D / 2)) +
+                             " radii, needs > 0.8); shown for comparison only");
+    }
+    if (c.mean_radius() < 10 * c.wire().radius()) {
+        r.warnings.push_back("the mean radius is only " + format_value(c.mean_radius() / c.wire().radius()) +
+                             " wire radii; the round-wire correction and the filament model assume >= 10, so "
+                             "expect errors above 0.5 %");
+    }
+    if (!(r.recommended > 0)) {
+        throw DomainError("the round-wire correction exceeds the current-sheet inductance; the wire is too thick "
+                          "for this coil's diameter");
+    }
+    return r;
+}
+
+}  // namespace libcoil

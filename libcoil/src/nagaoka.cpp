@@ -1,0 +1,71 @@
+#include "libcoil/nagaoka.hpp"
+
+#include <cmath>
+
+#include "elliptic.hpp"
+#include "libcoil/constants.hpp"
+#include "libcoil/error.hpp"
+
+namespace libcoil {
+
+namespace {
+
+// The bracket B = (k'^2/k^2)(K - E) + E - k for short coils, from the series of K and E about k = 1
+// (A&S 17.3.26, 17.3.36) in q = k'^2 with L = ln(4 / k'):
+//   K = sum_n a_n q^n (L - d_n),        a_n = ((1/2)_n / n!)^2, d_n = 2 sum_{j<=n} 1/((2j-1) 2j)
+//   E = 1 + sum_{n>=1} c_n q^n (L - e_n), c_n = a_n 2n/(2n-1),  e_n = d_n - 1/((2n-1) 2n)
+//   k = sqrt(1 - q) = 1 - sum_{n>=1} s_n q^n
+// so that E - k = sum_{n>=1} q^n [c_n (L - e_n) + s_n] has its leading 1 cancelled exactly.
+double short_coil_bracket(double q) {
+    const double L = std::log(4.0) - 0.5 * std::log(q);
+    double k_minus_e = L - 1.0;  // n = 0 term of K - E
+    double e_minus_k = 0.0;
+    double a = 1.0, d = 0.0, t = 1.0, qn = 1.0;  // t: signed binomial coefficient of sqrt(1 - q)
+    for (int n = 1; n < 200; ++n) {
+        const double two_n = 2.0 * n;
+        a *= ((two_n - 1) / two_n) * ((two_n - 1) / two_n);
+        d += 2.0 / ((two_n - 1) * two_n);
+        t *= (n - 1.5) / n;
+        qn *= q;
+        const double c = a * two_n / (two_n - 1);
+        const double e = d - 1.0 / ((two_n - 1) * two_n);
+        const double dk = qn * (a * (L - d) - c * (L - e));
+        const double de = qn * (c * (L - e) - t);
+        k_minus_e += dk;
+        e_minus_k += de;
+        if (std::fabs(dk) < 1e-18 * k_minus_e && std::fabs(de) < 1e-18 * e_minus_k) break;
+    }
+    return q / (1.0 - q) * k_minus_e + e_minus_k;
+}
+
+}  // namespace
+
+double nagaoka_coefficient(double rho) {
+    require_positive("diameter_to_length", rho);
+    // q = k'^2 = l^2 / (l^2 + D^2), formed without cancellation.
+    const double q = 1.0 / (1.0 + rho * rho);
+    if (q == 0.0) {
+        throw InputError("diameter_to_length", format_value(rho) + " is too large to evaluate");
+    }
+    const double kc = std::sqrt(q);
+    double bracket;
+    if (q < 0.1) {
+        bracket = short_coil_bracket(q);
+    } else {
+        const double k = rho * kc;                             // sqrt(1 - q)
+        const double kme_m = detail::elliptic_k_minus_e_over_m(q);  // (K - E) / k^2
+        const double E = detail::elliptic_k(q) - (1.0 - q) * kme_m;
+        bracket = q * kme_m + E - k;
+    }
+    return 4.0 / (3.0 * pi * kc) * bracket;
+}
+
+double current_sheet_inductance(double mean_diameter, double length, double turns) {
+    require_positive("mean_diameter", mean_diameter);
+    require_positive("length", length);
+    require_positive("turns", turns);
+    const double r = mean_diameter / 2;
+    return mu0 * pi * r * r * turns * turns / length * nagaoka_coefficient(mean_diameter / length);
+}
+
+}  // namespace libcoil

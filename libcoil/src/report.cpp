@@ -1,0 +1,133 @@
+#include "libcoil/report.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
+
+#include "libcoil/constants.hpp"
+#include "libcoil/units.hpp"
+#include "libcoil/version.hpp"
+
+namespace libcoil {
+
+namespace {
+
+std::string len(double m) { return format_quantity(m, Dimension::length); }
+std::string henry(double h) { return format_quantity(h, Dimension::inductance); }
+
+std::string fixed(double v, int decimals) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
+    return buf;
+}
+
+std::string signed_percent(double v) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%+.3f %%", v * 100);
+    return buf;
+}
+
+// Pads to a display width, counting UTF-8 code points rather than bytes ("µH" is two columns).
+std::string pad(const std::string& s, std::size_t width) {
+    std::size_t cols = 0;
+    for (unsigned char c : s) cols += (c & 0xC0) != 0x80;
+    return cols >= width ? s + " " : s + std::string(width - cols, ' ');
+}
+
+void row(std::ostringstream& o, const std::string& label, const std::string& value, const std::string& note = "") {
+    std::string line = "  " + pad(label, 22) + (note.empty() ? value : pad(value, 14) + note);
+    o << line << "\n";
+}
+
+}  // namespace
+
+std::string text_report(const Analysis& a) {
+    const Solenoid& s = a.spec.solenoid;
+    const Wire& w = s.wire();
+    const auto& ind = a.inductance;
+    std::ostringstream o;
+    o << "libcoil " << version << " \u2014 single-layer coil analysis\n";
+    if (!a.spec.name.empty()) o << a.spec.name << "\n";
+    o << "\nGeometry\n";
+    row(o, "former diameter", len(s.form_diameter()));
+    row(o, "mean diameter", len(s.mean_diameter()), "to the wire centre");
+    row(o, "outer diameter", len(s.outer_diameter()));
+    row(o, "turns", format_quantity(s.turns(), Dimension::dimensionless, 6));
+    row(o, "pitch", len(s.pitch()),
+        fixed(s.pitch_to_wire(), 3) + " x bare wire, " + fixed(s.pitch() / w.insulated_diameter(), 3) + " x insulated");
+    row(o, "winding length", len(s.winding_length()), "current sheet, turns x pitch");
+    row(o, "overall length", len(s.overall_length()), "plus one insulated wire diameter");
+    row(o, "D / l", fixed(s.diameter_to_length(), 4));
+    row(o, "pitch angle", fixed(s.pitch_angle() * 180 / pi, 3) + "\u00b0");
+    o << "\nWire\n";
+    row(o, "wire", w.label);
+    row(o, "bare diameter", len(w.bare_diameter));
+    row(o, "insulated diameter", len(w.insulated_diameter()));
+    row(o, "conductor", a.spec.conductor.name);
+    row(o, "wire length", len(s.wire_length()),
+        s.lead_length() > 0 ? "helix " + len(s.helix_length()) + " + leads " + len(s.lead_length()) : "helix, no leads");
+
+    o << "\nInductance (low frequency)\n";
+    o << "  " << pad("model", 38) << pad("value", 12) << "vs recommended\n";
+    const auto line = [&](const char* name, double v, const std::string& mark = "") {
+        o << "  " << pad(name, 38) << pad(henry(v), 12) << pad(signed_percent(v / ind.recommended - 1), 12) << mark << "\n";
+    };
+    line("Wheeler 1928, current sheet", ind.by_method.wheeler);
+    line("Nagaoka exact, current sheet", ind.by_method.nagaoka);
+    line("Lundin 1985, current sheet", ind.by_method.lundin);
+    line("Nagaoka + Rosa round-wire correction", ind.by_method.rosa, "<- recommended");
+    line("filament sum (Maxwell), round wire", ind.by_method.filament, "independent check");
+    o << "  Nagaoka coefficient K = " << fixed(ind.nagaoka_coefficient, 6) << "\n";
+    o << "\n  Inductance: " << henry(ind.recommended) << "\n";
+
+    if (!a.warnings.empty()) {
+        o << "\nWarnings\n";
+        for (const auto& x : a.warnings) o << "  ! " << x << "\n";
+    }
+    if (!a.notes.empty()) {
+        o << "\nAssumptions\n";
+        for (const auto& x : a.notes) o << "  - " << x << "\n";
+    }
+    return o.str();
+}
+
+std::string json_report(const Analysis& a) {
+    const Solenoid& s = a.spec.solenoid;
+    const Wire& w = s.wire();
+    const auto& ind = a.inductance;
+    nlohmann::ordered_json j;
+    j["libcoil_version"] = version;
+    j["name"] = a.spec.name;
+    j["turns"] = s.turns();
+    j["pitch_m"] = s.pitch();
+    j["form_diameter_m"] = s.form_diameter();
+    j["mean_diameter_m"] = s.mean_diameter();
+    j["outer_diameter_m"] = s.outer_diameter();
+    j["winding_length_m"] = s.winding_length();
+    j["overall_length_m"] = s.overall_length();
+    j["pitch_angle_rad"] = s.pitch_angle();
+    j["helix_length_m"] = s.helix_length();
+    j["lead_length_m"] = s.lead_length();
+    j["wire_length_m"] = s.wire_length();
+    j["wire"] = {{"label", w.label},
+                 {"bare_diameter_m", w.bare_diameter},
+                 {"insulation_m", w.insulation},
+                 {"insulated_diameter_m", w.insulated_diameter()}};
+    j["conductor"] = a.spec.conductor.name;
+    j["nagaoka_coefficient"] = ind.nagaoka_coefficient;
+    j["inductance_current_sheet_H"] = ind.by_method.nagaoka;
+    j["inductance_H"] = ind.recommended;
+    j["inductance_by_method"] = {{"wheeler", ind.by_method.wheeler},
+                                 {"nagaoka", ind.by_method.nagaoka},
+                                 {"lundin", ind.by_method.lundin},
+                                 {"rosa", ind.by_method.rosa},
+                                 {"filament", ind.by_method.filament}};
+    j["inductance_method"] = "rosa";
+    j["warnings"] = a.warnings;
+    j["notes"] = a.notes;
+    return j.dump(2) + "\n";
+}
+
+}  // namespace libcoil

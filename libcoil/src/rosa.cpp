@@ -1,0 +1,106 @@
+#include "libcoil/rosa.hpp"
+
+#include <array>
+#include <cmath>
+
+#include <boost/math/special_functions/digamma.hpp>
+#include <boost/math/special_functions/polygamma.hpp>
+#include <boost/math/special_functions/trigamma.hpp>
+
+#include "libcoil/constants.hpp"
+#include "libcoil/error.hpp"
+#include "libcoil/nagaoka.hpp"
+
+namespace libcoil {
+
+namespace {
+
+// f_k = ln(k p / g_k): filament pair at k pitches against strip pair at its geometric mean distance.
+double pair_correction(int k) {
+    if (k <= 2) {
+        const double kk = k;
+        const double lg = ((kk + 1) * (kk + 1) * std::log(kk + 1) +
+                           (kk > 1 ? (kk - 1) * (kk - 1) * std::log(kk - 1) : 0.0) - 2 * kk * kk * std::log(kk)) / 2 - 1.5;
+        return std::log(kk) - lg;
+    }
+    // sum_{m>=2} 2 / ((2m)(2m-1)(2m-2)) k^(2-2m) = 1/(12k^2) + 1/(60k^4) + 1/(168k^6) + ...
+    const double u = 1.0 / (static_cast<double>(k) * k);
+    double um = u, sum = 0.0;
+    for (int m = 2; m < 60; ++m) {
+        const double term = 2.0 / ((2.0 * m) * (2.0 * m - 1) * (2.0 * m - 2)) * um;
+        sum += term;
+        if (term < 1e-18 * sum) break;
+        um *= u;
+    }
+    return sum;
+}
+
+// Prefix sums S0(M) = sum_{k<=M} f_k and S1(M) = sum_{k<=M} k f_k, tabulated up to kTable.
+constexpr int kTable = 4096;
+
+struct PrefixSums {
+    std::array<double, kTable + 1> s0{}, s1{};
+    PrefixSums() {
+        for (int k = 1; k <= kTable; ++k) {
+            const double f = pair_correction(k);
+            s0[k] = s0[k - 1] + f;
+            s1[k] = s1[k - 1] + k * f;
+        }
+    }
+};
+
+const PrefixSums& prefix_sums() {
+    static const PrefixSums p;
+    return p;
+}
+
+// Beyond the table f_k = 1/(12k^2) + 1/(60k^4) to 1e-25 relative; its sums over K < k <= M are
+// polygamma differences.
+void sums(int M, double& s0, double& s1) {
+    const auto& p = prefix_sums();
+    if (M <= kTable) {
+        s0 = p.s0[M];
+        s1 = p.s1[M];
+        return;
+    }
+    using boost::math::digamma;
+    using boost::math::polygamma;
+    using boost::math::trigamma;
+    const double lo = kTable + 1.0, hi = M + 1.0;
+    const double inv_k2 = trigamma(lo) - trigamma(hi);                  // sum 1/k^2
+    const double inv_k4 = (polygamma(3, lo) - polygamma(3, hi)) / 6.0;  // sum 1/k^4
+    const double inv_k = digamma(hi) - digamma(lo);                     // sum 1/k
+    const double inv_k3 = (polygamma(2, hi) - polygamma(2, lo)) / -2.0; // sum 1/k^3
+    s0 = p.s0[kTable] + inv_k2 / 12.0 + inv_k4 / 60.0;
+    s1 = p.s1[kTable] + inv_k / 12.0 + inv_k3 / 60.0;
+}
+
+}  // namespace
+
+double rosa_self_correction(double pitch_to_wire) {
+    require_finite("pitch_to_wire", pitch_to_wire);
+    require_at_least("pitch_to_wire", pitch_to_wire, 1.0, "the turns would overlap");
+    return 1.25 - std::log(2.0 * pitch_to_wire);
+}
+
+double rosa_mutual_correction(double turns) {
+    require_finite("turns", turns);
+    require_at_least("turns", turns, 1.0, "a coil needs at least one turn");
+    const double M = std::ceil(turns) - 1.0;  // offsets k < N
+    if (M > 2e9) throw InputError("turns", format_value(turns) + " is too many turns to evaluate");
+    double s0 = 0, s1 = 0;
+    sums(static_cast<int>(M), s0, s1);
+    return 2.0 / turns * (turns * s0 - s1);
+}
+
+double rosa_inductance(double mean_diameter, double turns, double pitch, double wire_diameter) {
+    require_positive("mean_diameter", mean_diameter);
+    require_positive("pitch", pitch);
+    require_positive("wire_diameter", wire_diameter);
+    const double A = rosa_self_correction(pitch / wire_diameter);
+    const double B = rosa_mutual_correction(turns);
+    const double a = mean_diameter / 2;
+    return current_sheet_inductance(mean_diameter, turns * pitch, turns) - mu0 * a * turns * (A + B);
+}
+
+}  // namespace libcoil

@@ -1,0 +1,127 @@
+#include "libcoil/spec.hpp"
+
+#include <cctype>
+#include <fstream>
+#include <sstream>
+
+#include "libcoil/error.hpp"
+#include "libcoil/units.hpp"
+#include "libcoil/wire.hpp"
+#include "yaml_reader.hpp"
+
+namespace libcoil {
+
+namespace {
+
+int parse_enamel_grade(const std::string& text, const std::string& field) {
+    std::string s;
+    for (char c : text) s += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    if (s.rfind("grade", 0) == 0) s.erase(0, 5);
+    while (!s.empty() && s.front() == ' ') s.erase(0, 1);
+    if (s == "1" || s == "2" || s == "3") return s[0] - '0';
+    throw InputError(field, "\"" + text + "\": expected an enamel grade such as \"grade 2\" (1, 2 or 3, IEC 60317)");
+}
+
+Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
+    w.allow_only({"diameter", "gauge", "insulation", "enamel"});
+    Wire wire;
+    if (w.one_of("diameter", "gauge") == "gauge") {
+        const int g = parse_awg(w.text("gauge"), w.path_of("gauge"));
+        wire.bare_diameter = awg_diameter(g);
+        wire.label = awg_label(g);
+    } else {
+        wire.bare_diameter = w.quantity("diameter", Dimension::length);
+        require_positive(w.path_of("diameter"), wire.bare_diameter);
+        wire.label = format_quantity(wire.bare_diameter, Dimension::length) + " wire";
+    }
+    w.at_most_one_of("insulation", "enamel");
+    if (w.has("insulation")) {
+        wire.insulation = w.quantity("insulation", Dimension::length);
+        require_non_negative(w.path_of("insulation"), wire.insulation);
+    } else if (w.has("enamel")) {
+        const int grade = parse_enamel_grade(w.text("enamel"), w.path_of("enamel"));
+        wire.insulation = enamel_build(wire.bare_diameter, grade, w.path_of("enamel"));
+        wire.label += ", enamel grade " + std::to_string(grade);
+    } else {
+        notes.push_back("no insulation given: the wire is taken as bare (" + w.path_of("insulation") + " = 0)");
+    }
+    return wire;
+}
+
+// Re-labels a geometry error with the YAML path the user actually wrote.
+InputError relabel(const InputError& e, const std::string& diameter_key, const std::string& pitch_key) {
+    std::string f = e.field();
+    if (f == "mean_diameter") f = diameter_key;
+    if (f == "pitch") f = pitch_key;
+    return InputError(f, e.detail()).within("coil");
+}
+
+CoilSpec read_spec(const YAML::Node& root) {
+    if (!root || root.IsNull()) {
+        throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
+    }
+    const detail::YamlMap top(root, "");
+    top.allow_only({"name", "description", "coil"});
+    std::vector<std::string> notes;
+    std::string name = top.optional_text("name").value_or("");
+
+    const detail::YamlMap c = top.map("coil");
+    c.allow_only({"form_diameter", "mean_diameter", "turns", "pitch", "winding_length", "lead_length", "wire",
+                  "conductor"});
+    const Wire wire = read_wire(c.map("wire"), notes);
+
+    const double turns = c.quantity("turns", Dimension::dimensionless);
+    const std::string diameter_key(c.one_of("form_diameter", "mean_diameter"));
+    const double diameter = c.quantity(diameter_key, Dimension::length);
+    require_positive(c.path_of(diameter_key), diameter);
+    const std::string pitch_key(c.one_of("pitch", "winding_length"));
+    double pitch = c.quantity(pitch_key, Dimension::length);
+    require_positive(c.path_of(pitch_key), pitch);
+    if (pitch_key == "winding_length") {
+        require_at_least(c.path_of("turns"), turns, 1.0, "a coil needs at least one turn");
+        pitch /= turns;
+    }
+    const double leads = c.optional_quantity("lead_length", Dimension::length).value_or(0.0);
+
+    std::string conductor_name = "copper";
+    if (auto t = c.optional_text("conductor")) {
+        conductor_name = *t;
+    } else {
+        notes.push_back("no conductor given: copper assumed");
+    }
+    const Conductor& cond = conductor(conductor_name, c.path_of("conductor"));
+
+    try {
+        const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
+        Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
+        return CoilSpec{std::move(name), s, cond, std::move(notes)};
+    } catch (const InputError& e) {
+        throw relabel(e, diameter_key, pitch_key);
+    }
+}
+
+}  // namespace
+
+CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
+    YAML::Node root;
+    try {
+        root = YAML::Load(std::string(yaml_text));
+    } catch (const YAML::Exception& e) {
+        std::ostringstream where;
+        where << source;
+        if (!e.mark.is_null()) where << ":" << e.mark.line + 1 << ":" << e.mark.column + 1;
+        throw InputError(where.str(), "malformed YAML: " + e.msg);
+    }
+    return read_spec(root);
+}
+
+CoilSpec load_coil_spec(const std::filesystem::path& path) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) throw InputError(path.string(), "cannot open the spec file");
+    std::ostringstream buf;
+    buf << in.rdbuf();
+    if (in.bad()) throw InputError(path.string(), "cannot read the spec file");
+    return parse_coil_spec(buf.str(), path.string());
+}
+
+}  // namespace libcoil
