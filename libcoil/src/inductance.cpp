@@ -10,7 +10,10 @@
 namespace libcoil {
 
 double recommended_inductance(const Solenoid& c) {
-    return rosa_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
+    if (rosa_in_domain(c.pitch(), c.mean_radius())) {
+        return rosa_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
+    }
+    return filament_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
 }
 
 InductanceResult inductance(const Solenoid& c) {
@@ -21,9 +24,17 @@ InductanceResult inductance(const Solenoid& c) {
     r.by_method.wheeler = wheeler_inductance(D, l, N);
     r.by_method.nagaoka = current_sheet_inductance(D, l, N);
     r.by_method.lundin = lundin_inductance(D, l, N);
-    r.by_method.rosa = recommended_inductance(c);
+    r.by_method.rosa = rosa_inductance(D, N, c.pitch(), c.wire().bare_diameter);
     r.by_method.filament = filament_inductance(D, N, c.pitch(), c.wire().bare_diameter);
-    r.recommended = r.by_method.rosa;
+    if (rosa_in_domain(c.pitch(), c.mean_radius())) {
+        r.recommended = r.by_method.rosa;
+    } else {
+        r.recommended = r.by_method.filament;
+        r.method = "filament";
+        r.warnings.push_back("the pitch is " + format_value(c.pitch() / c.mean_radius()) +
+                             " mean radii, beyond the 0.4 where Rosa's round-wire correction holds to 0.5 %; "
+                             "the recommended inductance is the filament sum instead");
+    }
 
     if (!wheeler_in_domain(rho)) {
         r.warnings.push_back("Wheeler's formula is outside its stated domain (length " + format_value(l / (D / 2)) +

@@ -72,13 +72,16 @@ std::string text_report(const Analysis& a) {
     o << "\nInductance (low frequency)\n";
     o << "  " << pad("model", 38) << pad("value", 12) << "vs recommended\n";
     const auto line = [&](const char* name, double v, const std::string& mark = "") {
-        o << "  " << pad(name, 38) << pad(henry(v), 12) << pad(signed_percent(v / ind.recommended - 1), 12) << mark << "\n";
+        std::string s = "  " + pad(name, 38) + pad(henry(v), 12) + pad(signed_percent(v / ind.recommended - 1), 12) + mark;
+        while (s.back() == ' ') s.pop_back();
+        o << s << "\n";
     };
     line("Wheeler 1928, current sheet", ind.by_method.wheeler);
     line("Nagaoka exact, current sheet", ind.by_method.nagaoka);
     line("Lundin 1985, current sheet", ind.by_method.lundin);
-    line("Nagaoka + Rosa round-wire correction", ind.by_method.rosa, "<- recommended");
-    line("filament sum (Maxwell), round wire", ind.by_method.filament, "independent check");
+    const bool rosa = ind.method == "rosa";
+    line("Nagaoka + Rosa round-wire correction", ind.by_method.rosa, rosa ? "<- recommended" : "outside its domain");
+    line("filament sum (Maxwell), round wire", ind.by_method.filament, rosa ? "independent check" : "<- recommended");
     o << "  Nagaoka coefficient K = " << fixed(ind.nagaoka_coefficient, 6) << "\n";
     o << "\n  Inductance: " << henry(ind.recommended) << "\n";
 
@@ -124,7 +127,7 @@ std::string json_report(const Analysis& a) {
                                  {"lundin", ind.by_method.lundin},
                                  {"rosa", ind.by_method.rosa},
                                  {"filament", ind.by_method.filament}};
-    j["inductance_method"] = "rosa";
+    j["inductance_method"] = ind.method;
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;
     return j.dump(2) + "\n";

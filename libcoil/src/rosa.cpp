@@ -70,7 +70,7 @@ void sums(int M, double& s0, double& s1) {
     const double inv_k2 = trigamma(lo) - trigamma(hi);                  // sum 1/k^2
     const double inv_k4 = (polygamma(3, lo) - polygamma(3, hi)) / 6.0;  // sum 1/k^4
     const double inv_k = digamma(hi) - digamma(lo);                     // sum 1/k
-    const double inv_k3 = (polygamma(2, hi) - polygamma(2, lo)) / -2.0; // sum 1/k^3
+    const double inv_k3 = (polygamma(2, hi) - polygamma(2, lo)) / 2.0;  // sum 1/k^3
     s0 = p.s0[kTable] + inv_k2 / 12.0 + inv_k4 / 60.0;
     s1 = p.s1[kTable] + inv_k / 12.0 + inv_k3 / 60.0;
 }
@@ -92,6 +92,8 @@ double rosa_mutual_correction(double turns) {
     sums(static_cast<int>(M), s0, s1);
     return 2.0 / turns * (turns * s0 - s1);
 }
+
+bool rosa_in_domain(double pitch, double mean_radius) { return pitch <= 0.4 * mean_radius; }
 
 double rosa_inductance(double mean_diameter, double turns, double pitch, double wire_diameter) {
     require_positive("mean_diameter", mean_diameter);

@@ -178,37 +178,42 @@ double parse_quantity(std::string_view text, Dimension d, std::string_view field
     return si;
 }
 
-std::string format_quantity(double si_value, Dimension d, int digits) {
-    if (!std::isfinite(si_value)) return format_value(si_value);
+std::string format_quantity(double value, Dimension d, int digits) {
+    if (!std::isfinite(value)) return format_value(value);
     char buf[64];
     if (d == Dimension::temperature) {
-        std::snprintf(buf, sizeof buf, "%.*g \u00b0C", digits, si_value - zero_celsius);
+        std::snprintf(buf, sizeof buf, "%.*g \u00b0C", digits, value - zero_celsius);
         return buf;
     }
     if (d == Dimension::dimensionless) {
-        std::snprintf(buf, sizeof buf, "%.*g", digits, si_value);
+        std::snprintf(buf, sizeof buf, "%.*g", digits, value);
         return buf;
     }
     static constexpr std::array<std::pair<int, std::string_view>, 9> steps{{
         {-15, "f"}, {-12, "p"}, {-9, "n"}, {-6, "\u00b5"}, {-3, "m"}, {0, ""}, {3, "k"}, {6, "M"}, {9, "G"},
     }};
     int exp3 = 0;
-    if (si_value != 0) {
-        exp3 = static_cast<int>(std::floor(std::log10(std::fabs(si_value)) / 3.0)) * 3;
+    bool carried = false;
+    if (value != 0) {
+        exp3 = static_cast<int>(std::floor(std::log10(std::fabs(value)) / 3.0)) * 3;
         // Rounding to `digits` may carry into the next power of 1000 (999.96 -> 1000).
-        const double mant = si_value / std::pow(10.0, exp3);
+        const double mant = value / std::pow(10.0, exp3);
         char probe[64];
         std::snprintf(probe, sizeof probe, "%.*g", digits, std::fabs(mant));
-        if (std::atof(probe) >= 1000.0) exp3 += 3;
+        if (std::atof(probe) >= 1000.0) {
+            exp3 += 3;
+            carried = true;
+        }
     }
     exp3 = std::clamp(exp3, steps.front().first, steps.back().first);
     std::string_view prefix;
     for (const auto& [e, p] : steps) {
         if (e == exp3) prefix = p;
     }
-    const double mant = si_value / std::pow(10.0, exp3);
+    const double mant = value / std::pow(10.0, exp3);
     // %g with `digits` significant digits but without switching to exponent form.
-    int decimals = digits - 1 - (mant == 0 ? 0 : static_cast<int>(std::floor(std::log10(std::fabs(mant)))));
+    const double magnitude = carried ? 1.0 : std::fabs(mant);  // 0.99996 is printed as 1.000
+    int decimals = digits - 1 - (mant == 0 ? 0 : static_cast<int>(std::floor(std::log10(magnitude))));
     decimals = std::max(decimals, 0);
     std::snprintf(buf, sizeof buf, "%.*f %.*s%.*s", decimals, mant, static_cast<int>(prefix.size()),
                   prefix.data(), static_cast<int>(si_unit(d).size()), si_unit(d).data());

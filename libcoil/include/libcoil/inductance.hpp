@@ -1,8 +1,10 @@
 // The inductance of a solenoid by every model, and the one the library recommends.
 //
 // The recommended value is the Rosa-corrected Nagaoka inductance: exact for the current sheet, corrected
-// for round wire at its pitch. The filament sum is the independent check; Wheeler and Lundin are the
-// handbook formulas a designer knows.
+// for round wire at its pitch. Where the pitch exceeds 0.4 mean radii, Rosa's correction loses its 0.5 %
+// (rosa.hpp) and the recommended value is the filament sum instead, with a warning that says so. The
+// filament sum is otherwise the independent check; Wheeler and Lundin are the handbook formulas a
+// designer knows.
 #pragma once
 
 #include <string>
@@ -24,12 +26,14 @@ struct InductanceResult {
     double nagaoka_coefficient = 0;
     InductanceByMethod by_method;
     double recommended = 0;              // H
+    std::string method = "rosa";         // which model gave `recommended`: "rosa" or "filament"
     std::vector<std::string> warnings;   // models used outside their stated domain
 };
 
 InductanceResult inductance(const Solenoid& coil);
 
-// The recommended inductance alone, without the filament sum: the fast path for design searches.
+// The recommended inductance alone: Rosa inside its domain (without evaluating the filament sum, the
+// fast path for design searches), the filament sum outside it.
 double recommended_inductance(const Solenoid& coil);
 
 }  // namespace libcoil

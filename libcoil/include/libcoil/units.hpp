@@ -37,6 +37,6 @@ double parse_quantity(std::string_view text, Dimension d, std::string_view field
 
 // Formats an SI value in engineering notation with `digits` significant digits: "1.234 uH" is written
 // "1.234 µH". Temperatures are written in degrees Celsius.
-std::string format_quantity(double si_value, Dimension d, int digits = 4);
+std::string format_quantity(double value, Dimension d, int digits = 4);
 
 }  // namespace libcoil
