@@ -130,7 +130,7 @@ const T& find_named(const std::vector<T>& items, std::string_view name, std::str
         names.push_back(it.name);
     }
     throw InputError(std::string(field), "unknown " + std::string(what) + " \"" + std::string(name) + "\"" +
-                                             detail::did_you_mean(name, names) + "; known: " + detail::join(names));
+                                             detail::did_you_mean(name, names) + " Known: " + detail::join(names));
 }
 
 }  // namespace

@@ -30,14 +30,12 @@ Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
         wire.bare_diameter = awg_diameter(g);
         wire.label = awg_label(g);
     } else {
-        wire.bare_diameter = w.quantity("diameter", Dimension::length);
-        require_positive(w.path_of("diameter"), wire.bare_diameter);
+        wire.bare_diameter = w.positive_quantity("diameter", Dimension::length);
         wire.label = format_quantity(wire.bare_diameter, Dimension::length) + " wire";
     }
     w.at_most_one_of("insulation", "enamel");
     if (w.has("insulation")) {
-        wire.insulation = w.quantity("insulation", Dimension::length);
-        require_non_negative(w.path_of("insulation"), wire.insulation);
+        wire.insulation = w.non_negative_quantity("insulation", Dimension::length);
     } else if (w.has("enamel")) {
         const int grade = parse_enamel_grade(w.text("enamel"), w.path_of("enamel"));
         wire.insulation = enamel_build(wire.bare_diameter, grade, w.path_of("enamel"));
@@ -50,10 +48,16 @@ Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
 
 // Re-labels a geometry error with the YAML path the user actually wrote.
 InputError relabel(const InputError& e, const std::string& diameter_key, const std::string& pitch_key) {
-    std::string f = e.field();
-    if (f == "mean_diameter") f = diameter_key;
-    if (f == "pitch") f = pitch_key;
-    return InputError(f, e.detail()).within("coil");
+    std::string f = e.field(), detail = e.detail();
+    if (f == "mean_diameter" && diameter_key != f) {
+        f = diameter_key;
+        detail += " (mean diameter = form diameter + insulated wire diameter)";
+    }
+    if (f == "pitch" && pitch_key != f) {
+        f = pitch_key;
+        detail += " (pitch = winding_length / turns)";
+    }
+    return InputError(f, detail).within("coil");
 }
 
 CoilSpec read_spec(const YAML::Node& root) {
@@ -72,16 +76,14 @@ CoilSpec read_spec(const YAML::Node& root) {
 
     const double turns = c.quantity("turns", Dimension::dimensionless);
     const std::string diameter_key(c.one_of("form_diameter", "mean_diameter"));
-    const double diameter = c.quantity(diameter_key, Dimension::length);
-    require_positive(c.path_of(diameter_key), diameter);
+    const double diameter = c.positive_quantity(diameter_key, Dimension::length);
     const std::string pitch_key(c.one_of("pitch", "winding_length"));
-    double pitch = c.quantity(pitch_key, Dimension::length);
-    require_positive(c.path_of(pitch_key), pitch);
+    double pitch = c.positive_quantity(pitch_key, Dimension::length);
     if (pitch_key == "winding_length") {
         require_at_least(c.path_of("turns"), turns, 1.0, "a coil needs at least one turn");
         pitch /= turns;
     }
-    const double leads = c.optional_quantity("lead_length", Dimension::length).value_or(0.0);
+    const double leads = c.has("lead_length") ? c.non_negative_quantity("lead_length", Dimension::length) : 0.0;
 
     std::string conductor_name = "copper";
     if (auto t = c.optional_text("conductor")) {

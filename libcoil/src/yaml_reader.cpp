@@ -83,6 +83,18 @@ double YamlMap::quantity(std::string_view key, Dimension d) const {
     return parse_quantity(text(key), d, path_of(key));
 }
 
+double YamlMap::positive_quantity(std::string_view key, Dimension d) const {
+    const double v = quantity(key, d);
+    if (!(v > 0)) throw InputError(path_of(key), "\"" + text(key) + "\" must be greater than zero");
+    return v;
+}
+
+double YamlMap::non_negative_quantity(std::string_view key, Dimension d) const {
+    const double v = quantity(key, d);
+    if (v < 0) throw InputError(path_of(key), "\"" + text(key) + "\" must not be negative");
+    return v;
+}
+
 std::optional<double> YamlMap::optional_quantity(std::string_view key, Dimension d) const {
     if (!has(key)) return std::nullopt;
     return quantity(key, d);

@@ -31,6 +31,9 @@ public:
     std::optional<std::string> optional_text(std::string_view key) const;
     double quantity(std::string_view key, Dimension d) const;  // required, SI
     std::optional<double> optional_quantity(std::string_view key, Dimension d) const;
+    // A required quantity that must be > 0 (or >= 0); the error quotes the value as written.
+    double positive_quantity(std::string_view key, Dimension d) const;
+    double non_negative_quantity(std::string_view key, Dimension d) const;
 
 private:
     YAML::Node scalar(std::string_view key) const;

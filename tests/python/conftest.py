@@ -1,0 +1,21 @@
+"""Shared fixtures: the built module comes from PYTHONPATH (build/python), the CLI from LIBCOIL_COIL."""
+import os
+import pathlib
+import subprocess
+
+import pytest
+
+SOURCE_DIR = pathlib.Path(os.environ.get("LIBCOIL_SOURCE_DIR", pathlib.Path(__file__).resolve().parents[2]))
+COIL = os.environ.get("LIBCOIL_COIL", str(SOURCE_DIR / "build" / "bin" / "coil"))
+
+
+@pytest.fixture(scope="session")
+def source_dir():
+    return SOURCE_DIR
+
+
+@pytest.fixture(scope="session")
+def run_coil():
+    def run(*args, cwd=None):
+        return subprocess.run([COIL, *map(str, args)], capture_output=True, text=True, cwd=cwd, timeout=120)
+    return run

@@ -1,0 +1,106 @@
+"""The coil command driven as a user drives it: the demo, JSON output, files, help, and the catalogue of
+bad specs in tests/cli/bad (each names the field its error must name in a '# expect:' first line)."""
+import json
+import os
+import pathlib
+
+import pytest
+
+import libcoil
+
+BAD_DIR = pathlib.Path(__file__).resolve().parents[1] / "cli" / "bad"
+BAD_SPECS = sorted(BAD_DIR.glob("*.yaml"))
+JSON_KEYS = {"mean_diameter_m", "winding_length_m", "wire_length_m", "turns", "pitch_m", "nagaoka_coefficient",
+             "inductance_current_sheet_H", "inductance_H", "inductance_by_method"}
+
+
+def expectation(spec):
+    """(field, text) from the spec's '# expect: FIELD | TEXT' line; the empty file carries none."""
+    lines = spec.read_text().splitlines()
+    if not lines:
+        return "spec", "the spec is empty"
+    assert lines[0].startswith("# expect: "), spec
+    field, text = lines[0][len("# expect: "):].split(" | ", 1)
+    return field, text
+
+
+def test_catalogue_is_large_enough():
+    assert len(BAD_SPECS) >= 15
+
+
+@pytest.mark.parametrize("spec", BAD_SPECS, ids=[p.name for p in BAD_SPECS])
+def test_bad_spec_exits_2_names_the_field_and_writes_nothing(spec, run_coil, tmp_path):
+    field, text = expectation(spec)
+    out_dir = tmp_path / "out"
+    for extra in ([], ["--json"], ["--out", out_dir]):
+        r = run_coil("analyze", spec, *extra)
+        assert r.returncode == 2, (r.stdout, r.stderr)
+        assert r.stdout == ""
+        assert r.stderr.startswith("coil: "), r.stderr
+        message = r.stderr[len("coil: "):]
+        # The field leads the message; malformed YAML leads with FILE:LINE:COLUMN instead.
+        head = message.split(": ", 1)[0]
+        assert head == field or pathlib.Path(head).name.startswith(field + ":"), message
+        assert text in message, message
+        assert not out_dir.exists()
+
+
+def test_demo_report(run_coil, source_dir):
+    r = run_coil("analyze", source_dir / "data/examples/bench-network-coil.yaml")
+    assert r.returncode == 0, r.stderr
+    assert r.stderr == ""
+    for words in ("Geometry", "Inductance", "Nagaoka + Rosa round-wire correction", "<- recommended",
+                  "AWG 16, enamel grade 2", "µH"):
+        assert words in r.stdout
+
+
+def test_demo_json_matches_the_library(run_coil, source_dir):
+    spec = source_dir / "data/examples/bench-network-coil.yaml"
+    r = run_coil("analyze", spec, "--json")
+    assert r.returncode == 0, r.stderr
+    j = json.loads(r.stdout)
+    assert JSON_KEYS <= set(j)
+    assert set(j["inductance_by_method"]) == {"wheeler", "nagaoka", "lundin", "rosa", "filament"}
+    a = libcoil.analyze(libcoil.load_coil_spec(str(spec)))
+    assert j["inductance_H"] == a.inductance.recommended  # the same number, to the bit, through JSON
+    assert j["inductance_current_sheet_H"] == a.inductance.by_method["nagaoka"]
+    assert j["turns"] == 18 and j["pitch_m"] == pytest.approx(1.9e-3, rel=1e-15)
+    # Geometry convention: mean = form + bare + 2 * insulation (docs/models.md).
+    w = j["wire"]
+    assert j["mean_diameter_m"] == pytest.approx(j["form_diameter_m"] + w["bare_diameter_m"] + 2 * w["insulation_m"], rel=1e-15)
+    assert j["winding_length_m"] == pytest.approx(18 * 1.9e-3, rel=1e-15)
+
+
+def test_out_directory_gets_whole_files_only(run_coil, source_dir, tmp_path):
+    spec = source_dir / "data/examples/bench-network-coil.yaml"
+    r = run_coil("analyze", spec, "--out", tmp_path / "o")
+    assert r.returncode == 0, r.stderr
+    names = sorted(p.name for p in (tmp_path / "o").iterdir())
+    assert names == ["bench-network-coil.analysis.json", "bench-network-coil.analysis.txt"]  # no temporaries
+    json.loads((tmp_path / "o" / "bench-network-coil.analysis.json").read_text())
+
+
+def test_help_version_and_usage_errors(run_coil):
+    r = run_coil("--help")
+    assert r.returncode == 0 and "analyze" in r.stdout
+    r = run_coil("analyze", "--help")
+    assert r.returncode == 0 and "--json" in r.stdout and "--out" in r.stdout
+    r = run_coil("--version")
+    assert r.returncode == 0 and libcoil.__version__ in r.stdout
+    r = run_coil()
+    assert r.returncode == 2 and r.stdout == ""
+    r = run_coil("analyze", "/nonexistent/spec.yaml")
+    assert r.returncode == 2 and r.stdout == "" and "/nonexistent/spec.yaml" in r.stderr
+    r = run_coil("frobnicate")
+    assert r.returncode == 2
+
+
+def test_wide_pitch_falls_back_to_filament_and_says_so(run_coil, tmp_path):
+    spec = tmp_path / "wide.yaml"
+    spec.write_text("coil: {mean_diameter: 25 mm, turns: 5, pitch: 10 mm, wire: {diameter: 1 mm}}\n")
+    r = run_coil("analyze", spec, "--json")
+    j = json.loads(r.stdout)
+    assert j["inductance_method"] == "filament"
+    assert j["inductance_H"] == j["inductance_by_method"]["filament"]
+    assert any("filament sum instead" in w for w in j["warnings"])
+    assert any("bare" in n for n in j["notes"])  # no insulation given
