@@ -38,7 +38,7 @@ double coaxial_mutual_inductance(double a, double b, double z) {
     } else {
         bracket = k * (2.0 * detail::elliptic_k_minus_e_over_m(mc) - detail::elliptic_k(mc));
     }
-    return mu0 * std::sqrt(a * b) * bracket;
+    return finite_result("Maxwell's formula", mu0 * std::sqrt(a * b) * bracket);
 }
 
 }  // namespace libcoil

@@ -62,4 +62,12 @@ double require_at_least(std::string_view field, double value, double minimum, st
     return value;
 }
 
+double finite_result(std::string_view model, double value) {
+    if (!std::isfinite(value)) {
+        throw DomainError(std::string(model) + ": the inputs are outside the range this model can evaluate in "
+                          "double precision (result " + format_value(value) + ")");
+    }
+    return value;
+}
+
 }  // namespace libcoil

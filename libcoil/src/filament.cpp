@@ -22,7 +22,7 @@ double filament_inductance(double mean_diameter, double turns, double pitch, dou
     for (long k = offsets; k >= 1; --k) {
         mutual += (turns - static_cast<double>(k)) * coaxial_mutual_inductance(a, a, static_cast<double>(k) * pitch);
     }
-    return turns * self + 2.0 * mutual;
+    return finite_result("filament sum", turns * self + 2.0 * mutual);
 }
 
 }  // namespace libcoil

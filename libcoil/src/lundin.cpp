@@ -4,6 +4,7 @@
 
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "libcoil/nagaoka.hpp"
 
 namespace libcoil {
 
@@ -19,15 +20,11 @@ double lundin_coefficient(double rho) {
     }
     const double s = 1.0 / rho;  // l / D
     const double x = s * s;
-    return 2.0 / pi * s * ((std::log(4.0 * rho) - 0.5) * f1(x) + f2(x));
+    return finite_result("Lundin's formula", 2.0 / pi * s * ((std::log(4.0) + std::log(rho) - 0.5) * f1(x) + f2(x)));
 }
 
 double lundin_inductance(double mean_diameter, double length, double turns) {
-    require_positive("mean_diameter", mean_diameter);
-    require_positive("length", length);
-    require_positive("turns", turns);
-    const double r = mean_diameter / 2;
-    return mu0 * pi * r * r * turns * turns / length * lundin_coefficient(mean_diameter / length);
+    return sheet_inductance(mean_diameter, length, turns, &lundin_coefficient, "Lundin's formula");
 }
 
 }  // namespace libcoil

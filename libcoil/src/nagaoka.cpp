@@ -60,12 +60,17 @@ double nagaoka_coefficient(double rho) {
     return 4.0 / (3.0 * pi * kc) * bracket;
 }
 
-double current_sheet_inductance(double mean_diameter, double length, double turns) {
+double sheet_inductance(double mean_diameter, double length, double turns, double (*coefficient)(double),
+                        const char* model) {
     require_positive("mean_diameter", mean_diameter);
     require_positive("length", length);
     require_positive("turns", turns);
     const double r = mean_diameter / 2;
-    return mu0 * pi * r * r * turns * turns / length * nagaoka_coefficient(mean_diameter / length);
+    return finite_result(model, mu0 * pi * r * r * turns * turns / length * coefficient(mean_diameter / length));
+}
+
+double current_sheet_inductance(double mean_diameter, double length, double turns) {
+    return sheet_inductance(mean_diameter, length, turns, &nagaoka_coefficient, "current-sheet inductance");
 }
 
 }  // namespace libcoil

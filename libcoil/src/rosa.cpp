@@ -80,7 +80,7 @@ void sums(int M, double& s0, double& s1) {
 double rosa_self_correction(double pitch_to_wire) {
     require_finite("pitch_to_wire", pitch_to_wire);
     require_at_least("pitch_to_wire", pitch_to_wire, 1.0, "the turns would overlap");
-    return 1.25 - std::log(2.0 * pitch_to_wire);
+    return 1.25 - std::log(2.0) - std::log(pitch_to_wire);  // log(2 x) would overflow near DBL_MAX
 }
 
 double rosa_mutual_correction(double turns) {
@@ -102,7 +102,8 @@ double rosa_inductance(double mean_diameter, double turns, double pitch, double 
     const double A = rosa_self_correction(pitch / wire_diameter);
     const double B = rosa_mutual_correction(turns);
     const double a = mean_diameter / 2;
-    return current_sheet_inductance(mean_diameter, turns * pitch, turns) - mu0 * a * turns * (A + B);
+    return finite_result("Rosa's correction",
+                         current_sheet_inductance(mean_diameter, turns * pitch, turns) - mu0 * a * turns * (A + B));
 }
 
 }  // namespace libcoil

@@ -100,56 +100,39 @@ std::optional<Resolved> resolve(std::string_view symbol) {
 
 }  // namespace
 
-std::string_view dimension_noun(Dimension d) {
-    switch (d) {
-        case Dimension::dimensionless: return "a plain number";
-        case Dimension::length: return "a length";
-        case Dimension::inductance: return "an inductance";
-        case Dimension::capacitance: return "a capacitance";
-        case Dimension::frequency: return "a frequency";
-        case Dimension::current: return "a current";
-        case Dimension::voltage: return "a voltage";
-        case Dimension::resistance: return "a resistance";
-        case Dimension::power: return "a power";
-        case Dimension::temperature: return "a temperature";
-        case Dimension::time: return "a time";
+namespace {
+
+struct DimensionInfo {
+    Dimension dimension;
+    std::string_view noun, example, unit;
+};
+
+constexpr std::array dimensions{
+    DimensionInfo{Dimension::dimensionless, "a plain number", "1.5", ""},
+    DimensionInfo{Dimension::length, "a length", "2 mm", "m"},
+    DimensionInfo{Dimension::inductance, "an inductance", "1.2 uH", "H"},
+    DimensionInfo{Dimension::capacitance, "a capacitance", "2.5 pF", "F"},
+    DimensionInfo{Dimension::frequency, "a frequency", "30 MHz", "Hz"},
+    DimensionInfo{Dimension::current, "a current", "4 A", "A"},
+    DimensionInfo{Dimension::voltage, "a voltage", "230 V", "V"},
+    DimensionInfo{Dimension::resistance, "a resistance", "50 ohm", "\u03a9"},
+    DimensionInfo{Dimension::power, "a power", "10 W", "W"},
+    DimensionInfo{Dimension::temperature, "a temperature", "25 degC", "K"},
+    DimensionInfo{Dimension::time, "a time", "1 ms", "s"},
+};
+
+const DimensionInfo& info(Dimension d) {
+    for (const auto& i : dimensions) {
+        if (i.dimension == d) return i;
     }
-    return "a quantity";
+    return dimensions.front();
 }
 
-std::string_view dimension_example(Dimension d) {
-    switch (d) {
-        case Dimension::dimensionless: return "1.5";
-        case Dimension::length: return "2 mm";
-        case Dimension::inductance: return "1.2 uH";
-        case Dimension::capacitance: return "2.5 pF";
-        case Dimension::frequency: return "30 MHz";
-        case Dimension::current: return "4 A";
-        case Dimension::voltage: return "230 V";
-        case Dimension::resistance: return "50 ohm";
-        case Dimension::power: return "10 W";
-        case Dimension::temperature: return "25 degC";
-        case Dimension::time: return "1 ms";
-    }
-    return "1";
-}
+}  // namespace
 
-std::string_view si_unit(Dimension d) {
-    switch (d) {
-        case Dimension::dimensionless: return "";
-        case Dimension::length: return "m";
-        case Dimension::inductance: return "H";
-        case Dimension::capacitance: return "F";
-        case Dimension::frequency: return "Hz";
-        case Dimension::current: return "A";
-        case Dimension::voltage: return "V";
-        case Dimension::resistance: return "\u03a9";
-        case Dimension::power: return "W";
-        case Dimension::temperature: return "K";
-        case Dimension::time: return "s";
-    }
-    return "";
-}
+std::string_view dimension_noun(Dimension d) { return info(d).noun; }
+std::string_view dimension_example(Dimension d) { return info(d).example; }
+std::string_view si_unit(Dimension d) { return info(d).unit; }
 
 double parse_quantity(std::string_view text, Dimension d, std::string_view field) {
     const std::string_view s = trim(text);

@@ -1,7 +1,7 @@
 #include "libcoil/wheeler.hpp"
 
-#include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "libcoil/nagaoka.hpp"
 
 namespace libcoil {
 
@@ -10,12 +10,9 @@ double wheeler_coefficient(double rho) {
     return 1.0 / (1.0 + 0.45 * rho);
 }
 
+// mu0 pi r^2 N^2 / (l + 0.9 r), written through its coefficient.
 double wheeler_inductance(double mean_diameter, double length, double turns) {
-    require_positive("mean_diameter", mean_diameter);
-    require_positive("length", length);
-    require_positive("turns", turns);
-    const double r = mean_diameter / 2;
-    return mu0 * pi * r * r * turns * turns / (length + 0.9 * r);
+    return sheet_inductance(mean_diameter, length, turns, &wheeler_coefficient, "Wheeler's formula");
 }
 
 bool wheeler_in_domain(double rho) { return rho < 2.5; }  // l > 0.8 r

@@ -30,8 +30,8 @@ int run_analyze(const AnalyzeOptions& o) {
     }
     std::cout << (o.json ? json : text);
     if (!o.out_dir.empty() && !o.json) {
-        std::cout << "\nWritten: " << (std::filesystem::path(o.out_dir) / "").string() << "{"
-                  << std::filesystem::path(o.spec).stem().string() << ".analysis.txt, .analysis.json}\n";
+        const auto base = std::filesystem::path(o.out_dir) / std::filesystem::path(o.spec).stem();
+        std::cout << "\nWritten: " << base.string() << ".analysis.txt\n         " << base.string() << ".analysis.json\n";
     }
     return 0;
 }

@@ -41,5 +41,8 @@ double require_finite(std::string_view field, double value);
 double require_positive(std::string_view field, double value);      // finite and > 0
 double require_non_negative(std::string_view field, double value);  // finite and >= 0
 double require_at_least(std::string_view field, double value, double minimum, std::string_view why);
+// A model's result must be finite: inputs that are each valid can still overflow (a 1e200 m coil).
+// Throws DomainError naming the model when it is not.
+double finite_result(std::string_view model, double value);
 
 }  // namespace libcoil

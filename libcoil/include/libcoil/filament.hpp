@@ -8,8 +8,9 @@
 //          the offsets as Rosa's B does.
 // Source:  the superposition of Maxwell's formula (Grover 1946 ch. 16, "summation of mutual inductances").
 // Domain:  p >= wire diameter, a >> wire radius, small pitch angle.
-// Accuracy: agrees with the Rosa-corrected Nagaoka value within 0.2 % for N >= 5, a >= 10 wire radii
-//          (tests/cpp/test_inductance.cpp).
+// Accuracy: agrees with the Rosa-corrected Nagaoka value within 0.46 % inside Rosa's domain p <= 0.4 a
+//          (tests/cpp/test_inductance.cpp); its own approximations are in r / a alone (the ring formula and
+//          filament mutuals between round wires), plus the neglected pitch angle.
 #pragma once
 
 namespace libcoil {
