@@ -127,7 +127,11 @@ PYBIND11_MODULE(_core, m) {
         .def_readonly("bare_diameter", &libcoil::Wire::bare_diameter)
         .def_readonly("insulation", &libcoil::Wire::insulation)
         .def_readonly("label", &libcoil::Wire::label)
-        .def_property_readonly("insulated_diameter", &libcoil::Wire::insulated_diameter);
+        .def_property_readonly("insulated_diameter", &libcoil::Wire::insulated_diameter)
+        .def("__repr__", [](const libcoil::Wire& w) {
+            return "Wire(" + w.label + ", bare " + libcoil::format_quantity(w.bare_diameter, libcoil::Dimension::length) +
+                   ", insulated " + libcoil::format_quantity(w.insulated_diameter(), libcoil::Dimension::length) + ")";
+        });
 
     py::class_<libcoil::Solenoid>(m, "Solenoid")
         .def(py::init([](double turns, double pitch, const libcoil::Wire& wire, std::optional<double> mean_diameter,
@@ -155,7 +159,13 @@ PYBIND11_MODULE(_core, m) {
         .def_property_readonly("helix_length", &libcoil::Solenoid::helix_length)
         .def_property_readonly("wire_length", &libcoil::Solenoid::wire_length)
         .def("inductance", [](const libcoil::Solenoid& s) { return libcoil::recommended_inductance(s); },
-             "The recommended (Rosa-corrected Nagaoka) inductance in H.");
+             "The recommended inductance in H (Rosa-corrected Nagaoka, or the filament sum at wide pitch).")
+        .def("__repr__", [](const libcoil::Solenoid& s) {
+            using libcoil::Dimension;
+            return "Solenoid(turns " + libcoil::format_quantity(s.turns(), Dimension::dimensionless, 6) + ", mean diameter " +
+                   libcoil::format_quantity(s.mean_diameter(), Dimension::length) + ", pitch " +
+                   libcoil::format_quantity(s.pitch(), Dimension::length) + ", " + s.wire().label + ")";
+        });
 
     py::class_<libcoil::InductanceResult>(m, "InductanceResult")
         .def_readonly("nagaoka_coefficient", &libcoil::InductanceResult::nagaoka_coefficient)
@@ -167,6 +177,7 @@ PYBIND11_MODULE(_core, m) {
     // Specs, analysis and reports.
     py::class_<libcoil::CoilSpec>(m, "CoilSpec")
         .def_readonly("name", &libcoil::CoilSpec::name)
+        .def_readonly("description", &libcoil::CoilSpec::description)
         .def_readonly("solenoid", &libcoil::CoilSpec::solenoid)
         .def_readonly("conductor", &libcoil::CoilSpec::conductor)
         .def_readonly("notes", &libcoil::CoilSpec::notes);

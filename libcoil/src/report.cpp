@@ -50,6 +50,7 @@ std::string text_report(const Analysis& a) {
     std::ostringstream o;
     o << "libcoil " << version << " \u2014 single-layer coil analysis\n";
     if (!a.spec.name.empty()) o << a.spec.name << "\n";
+    if (!a.spec.description.empty()) o << a.spec.description << "\n";
     o << "\nGeometry\n";
     row(o, "former diameter", len(s.form_diameter()));
     row(o, "mean diameter", len(s.mean_diameter()), "to the wire centre");
@@ -103,6 +104,7 @@ std::string json_report(const Analysis& a) {
     nlohmann::ordered_json j;
     j["libcoil_version"] = version;
     j["name"] = a.spec.name;
+    j["description"] = a.spec.description;
     j["turns"] = s.turns();
     j["pitch_m"] = s.pitch();
     j["form_diameter_m"] = s.form_diameter();

@@ -68,6 +68,7 @@ CoilSpec read_spec(const YAML::Node& root) {
     top.allow_only({"name", "description", "coil"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
+    std::string description = top.optional_text("description").value_or("");
 
     const detail::YamlMap c = top.map("coil");
     c.allow_only({"form_diameter", "mean_diameter", "turns", "pitch", "winding_length", "lead_length", "wire",
@@ -96,7 +97,7 @@ CoilSpec read_spec(const YAML::Node& root) {
     try {
         const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
         Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
-        return CoilSpec{std::move(name), s, cond, std::move(notes)};
+        return CoilSpec{std::move(name), std::move(description), s, cond, std::move(notes)};
     } catch (const InputError& e) {
         throw relabel(e, diameter_key, pitch_key);
     }

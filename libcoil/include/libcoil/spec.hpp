@@ -27,6 +27,7 @@ namespace libcoil {
 
 struct CoilSpec {
     std::string name;
+    std::string description;
     Solenoid solenoid;
     Conductor conductor;
     std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
