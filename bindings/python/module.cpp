@@ -100,6 +100,25 @@ PYBIND11_MODULE(_core, m) {
           "radius_b"_a, "axial_distance"_a, "Maxwell's mutual inductance of coaxial circles, H.");
     m.def("ring_self_inductance", py::vectorize(&libcoil::ring_self_inductance), "ring_radius"_a, "wire_radius"_a);
 
+    // Losses.
+    m.def("kelvin", [](double x) {
+        const auto k = libcoil::kelvin(x);
+        return py::make_tuple(k.ber, k.bei, k.ber_prime, k.bei_prime);
+    }, "x"_a, "(ber, bei, ber', bei') at x.");
+    m.def("ber", py::vectorize([](double x) { return libcoil::kelvin(x).ber; }), "x"_a);
+    m.def("bei", py::vectorize([](double x) { return libcoil::kelvin(x).bei; }), "x"_a);
+    m.def("berp", py::vectorize([](double x) { return libcoil::kelvin(x).ber_prime; }), "x"_a);
+    m.def("beip", py::vectorize([](double x) { return libcoil::kelvin(x).bei_prime; }), "x"_a);
+    m.def("skin_depth", py::vectorize(&libcoil::skin_depth), "resistivity"_a, "frequency"_a,
+          "relative_permeability"_a = 1.0);
+    m.def("skin_resistance_ratio", py::vectorize([](double x) { return libcoil::skin_ratios(x).resistance; }), "x"_a,
+          "R_ac / R_dc of an isolated round wire, x = sqrt(2) r / delta.");
+    m.def("skin_inductance_ratio", py::vectorize([](double x) { return libcoil::skin_ratios(x).internal_inductance; }),
+          "x"_a, "L_int(f) / L_int(0) of an isolated round wire.");
+    m.def("dc_resistance", [](const libcoil::Conductor& c, double d, double length, double t) {
+        return libcoil::dc_resistance(c, d, length, t);
+    }, "conductor"_a, "diameter"_a, "length"_a, "temperature"_a);
+
     // Materials.
     py::class_<libcoil::Conductor>(m, "Conductor")
         .def_readonly("name", &libcoil::Conductor::name)
