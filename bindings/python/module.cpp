@@ -119,6 +119,25 @@ PYBIND11_MODULE(_core, m) {
         return libcoil::dc_resistance(c, d, length, t);
     }, "conductor"_a, "diameter"_a, "length"_a, "temperature"_a);
 
+    py::class_<libcoil::Subdivision>(m, "Subdivision")
+        .def(py::init([](int layers, double grading, int sectors) { return libcoil::Subdivision{layers, grading, sectors}; }),
+             "layers"_a = 8, "grading"_a = 1.3, "sectors"_a = 16)
+        .def_readwrite("layers", &libcoil::Subdivision::layers)
+        .def_readwrite("grading", &libcoil::Subdivision::grading)
+        .def_readwrite("sectors", &libcoil::Subdivision::sectors);
+    py::class_<libcoil::CrossSectionSolver>(m, "CrossSectionSolver")
+        .def(py::init<const libcoil::Solenoid&, double, libcoil::Subdivision>(), "solenoid"_a, "resistivity"_a,
+             "subdivision"_a = libcoil::Subdivision{})
+        .def(py::init<std::vector<std::pair<double, double>>, double, double, libcoil::Subdivision>(), "rings"_a,
+             "wire_radius"_a, "resistivity"_a, "subdivision"_a = libcoil::Subdivision{})
+        .def("solve", [](const libcoil::CrossSectionSolver& s, double f) {
+            const auto r = s.solve(f);
+            return py::dict("frequency"_a = r.frequency, "resistance"_a = r.resistance, "inductance"_a = r.inductance,
+                            "resolved"_a = r.resolved);
+        }, "frequency"_a, "R and L (H) of the coil at one frequency, skin and proximity effect together.")
+        .def_property_readonly("filaments", &libcoil::CrossSectionSolver::filaments)
+        .def_property_readonly("unknowns", &libcoil::CrossSectionSolver::unknowns);
+
     // Materials.
     py::class_<libcoil::Conductor>(m, "Conductor")
         .def_readonly("name", &libcoil::Conductor::name)

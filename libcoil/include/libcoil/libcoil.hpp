@@ -4,6 +4,7 @@
 #include "libcoil/analysis.hpp"
 #include "libcoil/coaxial_mutual.hpp"
 #include "libcoil/constants.hpp"
+#include "libcoil/cross_section.hpp"
 #include "libcoil/dc_resistance.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/filament.hpp"

@@ -12,7 +12,8 @@
 // Domain:  straight, isolated round wire; for a coil turn the curvature correction is O((r/a)^2) and
 //          the proximity of other turns is a separate model (proximity.hpp).
 // Accuracy (tests/python/test_skin.py): against the same expressions in mpmath at 30 digits, x = 0..100,
-//          measured 2e-15, enforced 1e-12; limits 1 + x^4/192 and x/(2 sqrt 2) + 1/4 + 3/(32 x/sqrt 2).
+//          measured 9e-15, enforced 1e-12; scipy.special.jv at complex argument to 1e-10; limits
+//          1 + x^4/192 and r/(2 delta) + 1/4 + 3 delta/(32 r).
 #pragma once
 
 namespace libcoil {
