@@ -119,6 +119,14 @@ PYBIND11_MODULE(_core, m) {
         return libcoil::dc_resistance(c, d, length, t);
     }, "conductor"_a, "diameter"_a, "length"_a, "temperature"_a);
 
+    m.def("proximity_loss_function", py::vectorize(&libcoil::proximity_loss_function), "x"_a);
+    m.def("mean_square_field_per_ampere", &libcoil::mean_square_field_per_ampere, "solenoid"_a);
+    m.def("ac_resistance", [](const libcoil::Solenoid& s, const libcoil::Conductor& c, double t, double f) {
+        const auto r = libcoil::ac_resistance(s, c, t, f);
+        return py::dict("frequency"_a = r.frequency, "dc"_a = r.dc, "skin_ratio"_a = r.skin_ratio,
+                        "proximity_ratio"_a = r.proximity_ratio, "resistance"_a = r.resistance,
+                        "internal_inductance_ratio"_a = r.internal_inductance_ratio);
+    }, "solenoid"_a, "conductor"_a, "temperature"_a, "frequency"_a);
     py::class_<libcoil::Subdivision>(m, "Subdivision")
         .def(py::init([](int layers, double grading, int sectors) { return libcoil::Subdivision{layers, grading, sectors}; }),
              "layers"_a = 8, "grading"_a = 1.3, "sectors"_a = 16)

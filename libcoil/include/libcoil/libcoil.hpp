@@ -14,6 +14,7 @@
 #include "libcoil/lundin.hpp"
 #include "libcoil/materials.hpp"
 #include "libcoil/nagaoka.hpp"
+#include "libcoil/proximity.hpp"
 #include "libcoil/report.hpp"
 #include "libcoil/ring_inductance.hpp"
 #include "libcoil/rosa.hpp"

@@ -1,0 +1,101 @@
+#include "libcoil/proximity.hpp"
+
+#include <boost/math/special_functions/ellint_rd.hpp>
+#include <boost/math/special_functions/ellint_rf.hpp>
+#include <cmath>
+#include <complex>
+#include <vector>
+
+#include "libcoil/constants.hpp"
+#include "libcoil/dc_resistance.hpp"
+#include "libcoil/error.hpp"
+#include "libcoil/kelvin.hpp"
+#include "libcoil/skin_effect.hpp"
+
+namespace libcoil {
+
+namespace {
+
+using cd = std::complex<double>;
+
+// Field per ampere of a ring of radius b at a point of the same radius, axial distance z != 0
+// (Smythe, "Static and Dynamic Electricity" (1950) 7.10; Jackson 5.37), written with Carlson's forms:
+//   H_z = 1 / (2 pi sqrt(4 b^2 + z^2)) [K - E],
+//   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2).
+void ring_field(double b, double z, double& hz, double& hr) {
+    const double s = 4 * b * b + z * z;
+    const double mc = z * z / s;                       // k'^2
+    const double K = boost::math::ellint_rf(0.0, mc, 1.0);
+    const double kme = (1 - mc) * boost::math::ellint_rd(0.0, mc, 1.0) / 3;  // K - E, no cancellation
+    const double E = K - kme;
+    const double root = std::sqrt(s);
+    hz = kme / (2 * pi * root);
+    hr = z / (2 * pi * b * root) * (-K + (2 * b * b + z * z) / (z * z) * E);
+}
+
+constexpr double own_field_constant = 1.75;
+
+}  // namespace
+
+double proximity_loss_function(double x) {
+    require_non_negative("x", x);
+    if (x < 1e-3) return x * x * x * x / 16;  // next term O(x^8)
+    const auto s = scaled_kelvin_bessel(x);
+    // u = x e^(-i pi/4): J0(u) = ber + i bei (J0 is even), J1(u) = d e^(-3 pi i/4); scaled alike.
+    const cd u = std::polar(x, -pi / 4);
+    const cd j0 = s.j0;
+    const cd j1 = s.d * std::polar(1.0, -3 * pi / 4);
+    const cd j1p = j0 - j1 / u;
+    const double lambda = -(std::conj(u) * j1 * std::conj(j1p)).imag() / (x * x);
+    return finite_result("proximity loss function", x * x * lambda / std::norm(j0));
+}
+
+double mean_square_field_per_ampere(const Solenoid& c) {
+    const long n = std::max(1L, std::lround(c.turns()));
+    if (n > 10'000'000) throw InputError("turns", "too many turns for the proximity field sum");
+    const double b = c.mean_radius(), p = c.pitch();
+    // Prefix sums over offsets k = 1 .. n-1 of the field of one turn at another.
+    std::vector<double> sz(n, 0.0), sr(n, 0.0);
+    for (long k = 1; k < n; ++k) {
+        double hz, hr;
+        ring_field(b, static_cast<double>(k) * p, hz, hr);
+        sz[k] = sz[k - 1] + hz;
+        sr[k] = sr[k - 1] + hr;
+    }
+    // The turn's own curvature field, uniform over its wire: (1 / (4 pi a)) (ln(8 a / r) - c). Averaging the
+    // ring's exact field over its own cross-section gives c = 0; c = 1.75 is fitted to the cross-section
+    // solver (docs/models.md), which the uniform-field picture otherwise overestimates for spaced turns.
+    const double own = (std::log(8 * b / c.wire().radius()) - own_field_constant) / (4 * pi * b);
+    double sum = 0;
+    for (long i = 0; i < n; ++i) {
+        const double hz = own + sz[i] + sz[n - 1 - i];  // turns below and above add axially
+        const double hr = sr[i] - sr[n - 1 - i];  // and oppose radially
+        sum += hz * hz + hr * hr;
+    }
+    return sum / static_cast<double>(n);
+}
+
+AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temperature, double frequency) {
+    require_non_negative("frequency", frequency);
+    AcResistance r;
+    r.frequency = frequency;
+    const double d = c.wire().bare_diameter;
+    const double per_m = dc_resistance_per_length(cond, d, temperature);
+    const double helix = per_m * c.helix_length(), leads = per_m * c.lead_length();
+    r.dc = helix + leads;
+    if (frequency == 0) {
+        r.resistance = r.dc;
+        return r;
+    }
+    const double rho = cond.resistivity_at(temperature);
+    const double x = std::sqrt(2.0) * c.wire().radius() / skin_depth(rho, frequency, cond.relative_permeability);
+    const SkinRatios s = skin_ratios(x);
+    r.skin_ratio = s.resistance;
+    r.internal_inductance_ratio = s.internal_inductance;
+    const double rw = c.wire().radius();
+    r.proximity_ratio = 4 * pi * pi * rw * rw * proximity_loss_function(x) * mean_square_field_per_ampere(c);
+    r.resistance = finite_result("AC resistance", helix * (r.skin_ratio + r.proximity_ratio) + leads * r.skin_ratio);
+    return r;
+}
+
+}  // namespace libcoil
