@@ -52,6 +52,12 @@ py::dict by_method(const libcoil::InductanceByMethod& m) {
                     "filament"_a = m.filament);
 }
 
+py::dict at_frequency_dict(const libcoil::CoilAtFrequency& p) {
+    return py::dict("frequency"_a = p.frequency, "resistance"_a = p.resistance, "skin_ratio"_a = p.skin_ratio,
+                    "proximity_ratio"_a = p.proximity_ratio, "inductance"_a = p.inductance, "q_factor"_a = p.q_factor,
+                    "resolved"_a = p.resolved);
+}
+
 }  // namespace
 
 PYBIND11_MODULE(_core, m) {
@@ -119,6 +125,23 @@ PYBIND11_MODULE(_core, m) {
         return libcoil::dc_resistance(c, d, length, t);
     }, "conductor"_a, "diameter"_a, "length"_a, "temperature"_a);
 
+    m.def("coil_at_frequencies", [](const libcoil::Solenoid& s, const libcoil::Conductor& c, double t,
+                                     py::array_t<double, py::array::c_style | py::array::forcecast> f) {
+        const std::vector<double> fs(f.data(), f.data() + f.size());
+        const auto pts = libcoil::coil_at_frequencies(s, c, t, libcoil::recommended_inductance(s), fs);
+        py::array_t<double> r(f.request().shape), l(f.request().shape), q(f.request().shape), skin(f.request().shape),
+            prox(f.request().shape);
+        for (std::size_t i = 0; i < pts.size(); ++i) {
+            r.mutable_data()[i] = pts[i].resistance;
+            l.mutable_data()[i] = pts[i].inductance;
+            q.mutable_data()[i] = pts[i].q_factor;
+            skin.mutable_data()[i] = pts[i].skin_ratio;
+            prox.mutable_data()[i] = pts[i].proximity_ratio;
+        }
+        return py::dict("resistance"_a = r, "inductance"_a = l, "q_factor"_a = q, "skin_ratio"_a = skin,
+                        "proximity_ratio"_a = prox);
+    }, "solenoid"_a, "conductor"_a, "temperature"_a, "frequency"_a,
+       "Closed-form R(f), L(f), Q(f) over an array of frequencies (arrays of the same shape).");
     m.def("proximity_loss_function", py::vectorize(&libcoil::proximity_loss_function), "x"_a);
     m.def("mean_square_field_per_ampere", &libcoil::mean_square_field_per_ampere, "solenoid"_a);
     m.def("ac_resistance", [](const libcoil::Solenoid& s, const libcoil::Conductor& c, double t, double f) {
@@ -232,9 +255,22 @@ PYBIND11_MODULE(_core, m) {
     py::class_<libcoil::Analysis>(m, "Analysis")
         .def_readonly("spec", &libcoil::Analysis::spec)
         .def_readonly("inductance", &libcoil::Analysis::inductance)
+        .def_readonly("dc_resistance", &libcoil::Analysis::dc_resistance)
+        .def_readonly("loss_method", &libcoil::Analysis::loss_method)
+        .def_property_readonly("at_frequency", [](const libcoil::Analysis& a) {
+            py::list out;
+            for (const auto& p : a.at_frequency) out.append(at_frequency_dict(p));
+            return out;
+        })
         .def_readonly("warnings", &libcoil::Analysis::warnings)
         .def_readonly("notes", &libcoil::Analysis::notes);
-    m.def("analyze", &libcoil::analyze, "spec"_a);
+    m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, const libcoil::Subdivision& sub) {
+        libcoil::AnalysisOptions o;
+        if (solver == "filaments") o.solver = libcoil::LossSolver::filaments;
+        else if (solver != "closed-form") throw libcoil::InputError("solver", "\"" + solver + "\": expected \"closed-form\" or \"filaments\"");
+        o.subdivision = sub;
+        return libcoil::analyze(spec, o);
+    }, "spec"_a, "solver"_a = "closed-form", "subdivision"_a = libcoil::Subdivision{});
     m.def("text_report", &libcoil::text_report, "analysis"_a);
     m.def("json_report", &libcoil::json_report, "analysis"_a);
 }

@@ -86,6 +86,28 @@ std::string text_report(const Analysis& a) {
     o << "  Nagaoka coefficient K = " << fixed(ind.nagaoka_coefficient, 6) << "\n";
     o << "\n  Inductance: " << henry(ind.recommended) << "\n";
 
+    const Operating& op = a.spec.operating;
+    o << "\nResistance and Q\n";
+    row(o, "wire temperature", format_quantity(op.temperature, Dimension::temperature, 4));
+    row(o, "DC resistance", format_quantity(a.dc_resistance, Dimension::resistance), "whole wire, leads included");
+    if (!a.at_frequency.empty()) {
+        o << "  losses by " << (a.loss_method == "filaments" ? "the cross-section filament solver"
+                                                                : "closed forms: Bessel skin effect + Butterworth proximity")
+          << "\n";
+        o << "  " << pad("frequency", 13) << pad("R", 13) << pad("skin", 9) << pad("proximity", 11) << pad("L", 12)
+          << "Q\n";
+        for (const auto& p : a.at_frequency) {
+            std::string s = "  " + pad(format_quantity(p.frequency, Dimension::frequency), 13) +
+                            pad(format_quantity(p.resistance, Dimension::resistance), 13) + pad(fixed(p.skin_ratio, 3), 9) +
+                            pad(fixed(p.proximity_ratio, 3), 11) + pad(henry(p.inductance), 12) +
+                            (p.frequency > 0 ? fixed(p.q_factor, 1) : "-");
+            o << s << "\n";
+        }
+        o << "  R = R_dc x (skin + proximity); L includes the internal inductance left by the skin effect\n";
+    } else {
+        o << "  (add operating.frequencies to the spec for R, L and Q at frequency)\n";
+    }
+
     if (!a.warnings.empty()) {
         o << "\nWarnings\n";
         for (const auto& x : a.warnings) o << "  ! " << x << "\n";
@@ -130,9 +152,81 @@ std::string json_report(const Analysis& a) {
                                  {"rosa", ind.by_method.rosa},
                                  {"filament", ind.by_method.filament}};
     j["inductance_method"] = ind.method;
+    j["temperature_K"] = a.spec.operating.temperature;
+    j["dc_resistance_ohm"] = a.dc_resistance;
+    j["loss_method"] = a.loss_method;
+    nlohmann::ordered_json points = nlohmann::ordered_json::array();
+    for (const auto& p : a.at_frequency) {
+        points.push_back({{"frequency_Hz", p.frequency},
+                          {"resistance_ohm", p.resistance},
+                          {"skin_ratio", p.skin_ratio},
+                          {"proximity_ratio", p.proximity_ratio},
+                          {"inductance_H", p.inductance},
+                          {"q_factor", p.q_factor}});
+    }
+    j["at_frequency"] = points;
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;
     return j.dump(2) + "\n";
 }
 
+std::string wire_text_report(const Wire& w, const Conductor& c, double temperature, double frequency) {
+    const WireAtFrequency r = wire_at_frequency(w, c, temperature, frequency);
+    std::ostringstream o;
+    o << "libcoil " << version << " \u2014 wire\n\n";
+    row(o, "wire", w.label);
+    row(o, "conductor", c.name);
+    row(o, "bare diameter", len(r.bare_diameter));
+    row(o, "insulated diameter", len(r.insulated_diameter));
+    row(o, "temperature", format_quantity(temperature, Dimension::temperature));
+    row(o, "DC resistance", format_quantity(r.dc_resistance_per_length, Dimension::resistance) + "/m");
+    if (frequency > 0) {
+        row(o, "frequency", format_quantity(frequency, Dimension::frequency));
+        row(o, "skin depth", len(r.skin_depth), fixed(r.bare_diameter / r.skin_depth, 2) + " per wire diameter");
+        row(o, "R_ac / R_dc", fixed(r.skin_ratio, 4), "isolated straight wire (Bessel solution)");
+    }
+    row(o, "skin effect +10 % at", format_quantity(r.skin_onset_frequency, Dimension::frequency));
+    return o.str();
+}
+
+std::string wire_json_report(const Wire& w, const Conductor& c, double temperature, double frequency) {
+    const WireAtFrequency r = wire_at_frequency(w, c, temperature, frequency);
+    nlohmann::ordered_json j;
+    j["libcoil_version"] = version;
+    j["label"] = w.label;
+    j["conductor"] = c.name;
+    j["temperature_K"] = temperature;
+    j["frequency_Hz"] = frequency;
+    j["bare_diameter_m"] = r.bare_diameter;
+    j["insulated_diameter_m"] = r.insulated_diameter;
+    j["dc_resistance_per_m_ohm"] = r.dc_resistance_per_length;
+    j["skin_depth_m"] = r.skin_depth;
+    j["skin_ac_dc_ratio"] = r.skin_ratio;
+    j["skin_onset_frequency_Hz"] = r.skin_onset_frequency;
+    return j.dump(2) + "\n";
+}
+
+std::string wire_table_text(const Conductor& c, double temperature, double frequency) {
+    std::ostringstream o;
+    o << "libcoil " << version << " \u2014 wire table, " << c.name << " at "
+      << format_quantity(temperature, Dimension::temperature) << ", R_ac/R_dc at "
+      << format_quantity(frequency, Dimension::frequency) << ", enamel grade 1\n\n";
+    o << "  " << pad("wire", 10) << pad("bare", 11) << pad("enamelled", 11) << pad("R_dc / m", 13) << pad("R_ac/R_dc", 11)
+      << "+10 % skin at\n";
+    const auto line = [&](const std::string& label, double d) {
+        Wire w{d, enamel_build(d, 1), label};
+        const WireAtFrequency r = wire_at_frequency(w, c, temperature, frequency);
+        o << "  " << pad(label, 10) << pad(len(d), 11) << pad(len(r.insulated_diameter), 11)
+          << pad(format_quantity(r.dc_resistance_per_length, Dimension::resistance), 13) << pad(fixed(r.skin_ratio, 3), 11)
+          << format_quantity(r.skin_onset_frequency, Dimension::frequency) << "\n";
+    };
+    for (int g = 10; g <= 40; g += 2) line(awg_label(g), awg_diameter(g));
+    o << "\n";
+    for (double d : metric_wire_diameters()) {
+        if (d >= 0.1e-3 - 1e-12 && d <= 3.15e-3 + 1e-12) line(fixed(d * 1e3, 3) + " mm", d);
+    }
+    return o.str();
+}
+
 }  // namespace libcoil
+

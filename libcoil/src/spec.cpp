@@ -46,6 +46,27 @@ Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
     return wire;
 }
 
+Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& notes) {
+    m.allow_only({"frequencies", "temperature", "current"});
+    Operating op;
+    if (m.has("frequencies")) {
+        op.frequencies = m.quantity_list("frequencies", Dimension::frequency);
+        for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
+            if (op.frequencies[i] < 0) {
+                throw InputError(m.path_of("frequencies") + "[" + std::to_string(i) + "]", "must not be negative");
+            }
+        }
+    }
+    if (m.has("temperature")) {
+        op.temperature = m.positive_quantity("temperature", Dimension::temperature);
+        op.temperature_given = true;
+    } else {
+        notes.push_back("no operating.temperature given: the wire is taken at 20 degC");
+    }
+    if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);
+    return op;
+}
+
 // Re-labels a geometry error with the YAML path the user actually wrote.
 InputError relabel(const InputError& e, const std::string& diameter_key, const std::string& pitch_key) {
     std::string f = e.field(), detail = e.detail();
@@ -65,7 +86,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
     }
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "coil"});
+    top.allow_only({"name", "description", "coil", "operating"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
     std::string description = top.optional_text("description").value_or("");
@@ -94,10 +115,13 @@ CoilSpec read_spec(const YAML::Node& root) {
     }
     const Conductor& cond = conductor(conductor_name, c.path_of("conductor"));
 
+    Operating op;
+    if (top.has("operating")) op = read_operating(top.map("operating"), notes);
+
     try {
         const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
         Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
-        return CoilSpec{std::move(name), std::move(description), s, cond, std::move(notes)};
+        return CoilSpec{std::move(name), std::move(description), s, cond, op, std::move(notes)};
     } catch (const InputError& e) {
         throw relabel(e, diameter_key, pitch_key);
     }

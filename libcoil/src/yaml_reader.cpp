@@ -83,6 +83,21 @@ double YamlMap::quantity(std::string_view key, Dimension d) const {
     return parse_quantity(text(key), d, path_of(key));
 }
 
+std::vector<double> YamlMap::quantity_list(std::string_view key, Dimension d) const {
+    const YAML::Node n = node_[std::string(key)];
+    if (!n) throw InputError(path_of(key), "missing; this value is required");
+    if (n.IsScalar()) return {parse_quantity(n.Scalar(), d, path_of(key))};
+    if (!n.IsSequence()) throw InputError(path_of(key), "expected a list of values, got " + describe(n));
+    std::vector<double> out;
+    for (std::size_t i = 0; i < n.size(); ++i) {
+        const std::string where = path_of(key) + "[" + std::to_string(i) + "]";
+        if (!n[i].IsScalar()) throw InputError(where, "expected a single value, got " + describe(n[i]));
+        out.push_back(parse_quantity(n[i].Scalar(), d, where));
+    }
+    if (out.empty()) throw InputError(path_of(key), "the list is empty");
+    return out;
+}
+
 double YamlMap::positive_quantity(std::string_view key, Dimension d) const {
     const double v = quantity(key, d);
     if (!(v > 0)) throw InputError(path_of(key), "\"" + text(key) + "\" must be greater than zero");

@@ -5,6 +5,7 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include <yaml-cpp/yaml.h>
 
@@ -33,6 +34,8 @@ public:
     std::optional<double> optional_quantity(std::string_view key, Dimension d) const;
     // A required quantity that must be > 0 (or >= 0); the error quotes the value as written.
     double positive_quantity(std::string_view key, Dimension d) const;
+    // A list of quantities (a single value counts as a list of one); errors name the element, key[i].
+    std::vector<double> quantity_list(std::string_view key, Dimension d) const;
     double non_negative_quantity(std::string_view key, Dimension d) const;
 
 private:

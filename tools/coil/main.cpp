@@ -1,7 +1,12 @@
 // coil: the command-line face of libcoil. It parses arguments, calls the library and prints; the physics
 // lives in libcoil. Exit codes: 0 done, 2 bad input (nothing written to stdout or to files), 1 other failure.
+#include <unistd.h>
+
+#include <chrono>
+#include <cstdio>
 #include <filesystem>
 #include <iostream>
+#include <memory>
 #include <string>
 
 #include <CLI/CLI.hpp>
@@ -16,10 +21,37 @@ struct AnalyzeOptions {
     std::string spec;
     bool json = false;
     std::string out_dir;
+    std::string solver = "closed-form";
+    int layers = libcoil::Subdivision{}.layers;
+    int sectors = libcoil::Subdivision{}.sectors;
+};
+
+// Progress on stderr once a numerical solve has run for more than a second.
+struct Progress {
+    std::chrono::steady_clock::time_point start = std::chrono::steady_clock::now();
+    bool shown = false;
+    void operator()(std::size_t done, std::size_t total) {
+        const double s = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+        if (s < 1.0 && !shown) return;
+        shown = true;
+        // On a terminal one line is redrawn; elsewhere each update is its own line.
+        const bool tty = ::isatty(STDERR_FILENO) != 0;
+        std::fprintf(stderr, "%scoil: cross-section solver, frequency %zu of %zu (%.0f s)%s", tty ? "\r" : "", done, total, s,
+                     (!tty || done == total) ? "\n" : "");
+        std::fflush(stderr);
+    }
 };
 
 int run_analyze(const AnalyzeOptions& o) {
-    const libcoil::Analysis a = libcoil::analyze(libcoil::load_coil_spec(o.spec));
+    libcoil::AnalysisOptions opt;
+    if (o.solver == "filaments") {
+        opt.solver = libcoil::LossSolver::filaments;
+        opt.subdivision.layers = o.layers;
+        opt.subdivision.sectors = o.sectors;
+        auto progress = std::make_shared<Progress>();
+        opt.progress = [progress](std::size_t d, std::size_t t) { (*progress)(d, t); };
+    }
+    const libcoil::Analysis a = libcoil::analyze(libcoil::load_coil_spec(o.spec), opt);
     const std::string text = libcoil::text_report(a);
     const std::string json = libcoil::json_report(a);
     if (!o.out_dir.empty()) {
@@ -36,6 +68,45 @@ int run_analyze(const AnalyzeOptions& o) {
     return 0;
 }
 
+struct WireOptions {
+    std::string gauge, diameter, insulation, enamel = "1";
+    std::string frequency = "1 MHz", temperature = "20 degC", conductor = "copper";
+    bool json = false, table = false;
+};
+
+int run_wire(const WireOptions& o) {
+    using libcoil::Dimension;
+    const double f = libcoil::parse_quantity(o.frequency, Dimension::frequency, "--frequency");
+    const double t = libcoil::parse_quantity(o.temperature, Dimension::temperature, "--temperature");
+    const libcoil::Conductor& c = libcoil::conductor(o.conductor, "--conductor");
+    if (o.table) {
+        std::cout << libcoil::wire_table_text(c, t, f);
+        return 0;
+    }
+    if (o.gauge.empty() == o.diameter.empty()) {
+        throw libcoil::InputError("--gauge", "give either --gauge (\"AWG 18\") or --diameter (\"1 mm\"), or --table");
+    }
+    libcoil::Wire w;
+    if (!o.gauge.empty()) {
+        const int g = libcoil::parse_awg(o.gauge, "--gauge");
+        w.bare_diameter = libcoil::awg_diameter(g);
+        w.label = libcoil::awg_label(g);
+    } else {
+        w.bare_diameter = libcoil::require_positive("--diameter", libcoil::parse_quantity(o.diameter, Dimension::length, "--diameter"));
+        w.label = libcoil::format_quantity(w.bare_diameter, Dimension::length) + " wire";
+    }
+    if (!o.insulation.empty()) {
+        w.insulation = libcoil::require_non_negative("--insulation", libcoil::parse_quantity(o.insulation, Dimension::length, "--insulation"));
+    } else {
+        const int grade = o.enamel == "1" ? 1 : o.enamel == "2" ? 2 : o.enamel == "3" ? 3 : 0;
+        if (grade == 0) throw libcoil::InputError("--enamel", "\"" + o.enamel + "\": expected 1, 2 or 3");
+        w.insulation = libcoil::enamel_build(w.bare_diameter, grade, "--enamel");
+        w.label += ", enamel grade " + o.enamel;
+    }
+    std::cout << (o.json ? libcoil::wire_json_report(w, c, t, f) : libcoil::wire_text_report(w, c, t, f));
+    return 0;
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -49,6 +120,25 @@ int main(int argc, char** argv) {
     a->add_option("spec", analyze.spec, "Coil spec (YAML)")->required()->check(CLI::ExistingFile);
     a->add_flag("--json", analyze.json, "Print one JSON object with SI values instead of the report");
     a->add_option("--out", analyze.out_dir, "Also write the report and the JSON into this directory");
+    a->add_option("--solver", analyze.solver,
+                  "Losses by 'closed-form' (Bessel skin + Butterworth proximity) or 'filaments' (numerical "
+                  "cross-section solver)")
+        ->check(CLI::IsMember({"closed-form", "filaments"}))
+        ->capture_default_str();
+    a->add_option("--layers", analyze.layers, "Solver: radial layers across the wire")->capture_default_str();
+    a->add_option("--sectors", analyze.sectors, "Solver: angular cells per layer")->capture_default_str();
+
+    WireOptions wire;
+    CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");
+    w->add_option("--gauge", wire.gauge, "AWG gauge, e.g. \"AWG 18\"");
+    w->add_option("--diameter", wire.diameter, "Bare diameter, e.g. \"1 mm\"");
+    w->add_option("--insulation", wire.insulation, "Radial insulation build, e.g. \"0.04 mm\"");
+    w->add_option("--enamel", wire.enamel, "IEC 60317 enamel grade 1, 2 or 3 (when no --insulation)")->capture_default_str();
+    w->add_option("--frequency", wire.frequency, "Frequency")->capture_default_str();
+    w->add_option("--temperature", wire.temperature, "Wire temperature")->capture_default_str();
+    w->add_option("--conductor", wire.conductor, "copper, aluminium or silver")->capture_default_str();
+    w->add_flag("--json", wire.json, "Print one JSON object with SI values");
+    w->add_flag("--table", wire.table, "Print a table of AWG and metric wires instead");
 
     try {
         app.parse(argc, argv);
@@ -65,6 +155,7 @@ int main(int argc, char** argv) {
 
     try {
         if (a->parsed()) return run_analyze(analyze);
+        if (w->parsed()) return run_wire(wire);
     } catch (const libcoil::InputError& e) {
         std::cerr << "coil: " << e.what() << "\n";
         return exit_bad_input;

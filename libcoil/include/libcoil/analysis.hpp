@@ -1,21 +1,36 @@
 // One coil, analysed: the geometry and every model's result, ready for a report.
 #pragma once
 
+#include <cstddef>
+#include <functional>
 #include <string>
 #include <vector>
 
+#include "libcoil/cross_section.hpp"
 #include "libcoil/inductance.hpp"
+#include "libcoil/losses.hpp"
 #include "libcoil/spec.hpp"
 
 namespace libcoil {
 
+enum class LossSolver { closed_form, filaments };
+
+struct AnalysisOptions {
+    LossSolver solver = LossSolver::closed_form;
+    Subdivision subdivision{};                                   // for LossSolver::filaments
+    std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
+};
+
 struct Analysis {
     CoilSpec spec;
     InductanceResult inductance;
+    double dc_resistance = 0;                 // ohm, whole wire at the operating temperature
+    std::vector<CoilAtFrequency> at_frequency;
+    std::string loss_method = "closed-form";  // or "filaments"
     std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs, cautions
     std::vector<std::string> notes;     // assumptions
 };
 
-Analysis analyze(const CoilSpec& spec);
+Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options = {});
 
 }  // namespace libcoil

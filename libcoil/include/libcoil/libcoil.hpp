@@ -11,6 +11,7 @@
 #include "libcoil/inductance.hpp"
 #include "libcoil/io.hpp"
 #include "libcoil/kelvin.hpp"
+#include "libcoil/losses.hpp"
 #include "libcoil/lundin.hpp"
 #include "libcoil/materials.hpp"
 #include "libcoil/nagaoka.hpp"

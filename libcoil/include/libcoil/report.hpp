@@ -4,11 +4,19 @@
 #include <string>
 
 #include "libcoil/analysis.hpp"
+#include "libcoil/losses.hpp"
+#include "libcoil/wire.hpp"
 
 namespace libcoil {
 
 std::string text_report(const Analysis& a);
 // JSON keys carry their unit: mean_diameter_m, inductance_H, ... (docs/cli.md lists them).
 std::string json_report(const Analysis& a);
+
+// `coil wire`: one wire, and a table of gauges to choose from.
+std::string wire_text_report(const Wire& w, const Conductor& c, double temperature, double frequency);
+std::string wire_json_report(const Wire& w, const Conductor& c, double temperature, double frequency);
+// AWG 10 .. 40 and the metric sizes 0.1 .. 3.15 mm, enamel grade 1, at the temperature and frequency.
+std::string wire_table_text(const Conductor& c, double temperature, double frequency);
 
 }  // namespace libcoil

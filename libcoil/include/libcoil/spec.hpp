@@ -10,6 +10,10 @@
 //       diameter: 1.0 mm         # bare conductor; or gauge: AWG 18
 //       insulation: 0.04 mm      # radial build; or enamel: grade 2; neither means bare wire
 //     conductor: copper
+//   operating:                   # optional
+//     frequencies: [1 MHz, 10 MHz]   # or one value
+//     temperature: 40 degC       # of the wire; 20 degC if not given
+//     current: 4 A               # RMS or DC, kept for the thermal and caution checks
 //
 // Errors name the YAML path: `coil.pitch: "2 mn": unknown unit "mn"; expected a length such as "2 mm"`.
 // Unknown keys are errors with a "did you mean" hint.
@@ -25,11 +29,19 @@
 
 namespace libcoil {
 
+struct Operating {
+    std::vector<double> frequencies;  // Hz
+    double temperature = 293.15;      // K
+    double current = 0;               // A, 0 when not given
+    bool temperature_given = false;
+};
+
 struct CoilSpec {
     std::string name;
     std::string description;
     Solenoid solenoid;
     Conductor conductor;
+    Operating operating;
     std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
 };
 
