@@ -156,6 +156,7 @@ PYBIND11_MODULE(_core, m) {
         .def_readwrite("layers", &libcoil::Subdivision::layers)
         .def_readwrite("grading", &libcoil::Subdivision::grading)
         .def_readwrite("sectors", &libcoil::Subdivision::sectors);
+    m.def("subdivision_for", &libcoil::subdivision_for, "wire_radius"_a, "skin_depth"_a);
     py::class_<libcoil::CrossSectionSolver>(m, "CrossSectionSolver")
         .def(py::init<const libcoil::Solenoid&, double, libcoil::Subdivision>(), "solenoid"_a, "resistivity"_a,
              "subdivision"_a = libcoil::Subdivision{})
@@ -264,13 +265,16 @@ PYBIND11_MODULE(_core, m) {
         })
         .def_readonly("warnings", &libcoil::Analysis::warnings)
         .def_readonly("notes", &libcoil::Analysis::notes);
-    m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, const libcoil::Subdivision& sub) {
+    m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<libcoil::Subdivision> sub) {
         libcoil::AnalysisOptions o;
         if (solver == "filaments") o.solver = libcoil::LossSolver::filaments;
         else if (solver != "closed-form") throw libcoil::InputError("solver", "\"" + solver + "\": expected \"closed-form\" or \"filaments\"");
-        o.subdivision = sub;
+        if (sub) {
+            o.auto_subdivision = false;
+            o.subdivision = *sub;
+        }
         return libcoil::analyze(spec, o);
-    }, "spec"_a, "solver"_a = "closed-form", "subdivision"_a = libcoil::Subdivision{});
+    }, "spec"_a, "solver"_a = "closed-form", "subdivision"_a = py::none());
     m.def("text_report", &libcoil::text_report, "analysis"_a);
     m.def("json_report", &libcoil::json_report, "analysis"_a);
 }

@@ -1,5 +1,6 @@
 #include "libcoil/analysis.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "libcoil/dc_resistance.hpp"
@@ -10,7 +11,7 @@
 namespace libcoil {
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
-    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, spec.notes};
+    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, spec.notes};
     a.warnings = a.inductance.warnings;
     const Solenoid& s = spec.solenoid;
     const Operating& op = spec.operating;
@@ -19,8 +20,13 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
 
     if (options.solver == LossSolver::filaments) {
         a.loss_method = "filaments";
+        a.subdivision = options.subdivision;
+        const double f_max = *std::max_element(op.frequencies.begin(), op.frequencies.end());
+        if (options.auto_subdivision && f_max > 0) {
+            a.subdivision = subdivision_for(s.wire().radius(), skin_depth(spec.conductor.resistivity_at(op.temperature), f_max));
+        }
         a.at_frequency = coil_at_frequencies_numerical(s, spec.conductor, op.temperature, a.inductance.recommended,
-                                                       op.frequencies, options.subdivision, options.progress);
+                                                       op.frequencies, a.subdivision, options.progress);
         for (const auto& p : a.at_frequency) {
             if (!p.resolved) {
                 a.warnings.push_back("at " + format_quantity(p.frequency, Dimension::frequency) +

@@ -48,6 +48,15 @@ std::vector<std::pair<double, double>> coil_rings(const Solenoid& c) {
 
 }  // namespace
 
+Subdivision subdivision_for(double wire_radius, double skin_depth) {
+    require_positive("wire_radius", wire_radius);
+    require_positive("skin_depth", skin_depth);
+    Subdivision s{8, 1.3, 16};
+    while (s.layers < 24 && wire_radius * (s.grading - 1) / (std::pow(s.grading, s.layers) - 1) > skin_depth) ++s.layers;
+    s.sectors = 2 * s.layers;
+    return s;
+}
+
 CrossSectionSolver::CrossSectionSolver(const Solenoid& coil, double resistivity, Subdivision sub)
     : CrossSectionSolver(coil_rings(coil), coil.wire().radius(), resistivity, sub) {}
 

@@ -91,9 +91,12 @@ std::string text_report(const Analysis& a) {
     row(o, "wire temperature", format_quantity(op.temperature, Dimension::temperature, 4));
     row(o, "DC resistance", format_quantity(a.dc_resistance, Dimension::resistance), "whole wire, leads included");
     if (!a.at_frequency.empty()) {
-        o << "  losses by " << (a.loss_method == "filaments" ? "the cross-section filament solver"
-                                                                : "closed forms: Bessel skin effect + Butterworth proximity")
-          << "\n";
+        if (a.loss_method == "filaments") {
+            o << "  losses by the cross-section filament solver (" << a.subdivision.layers << " layers, grading "
+              << fixed(a.subdivision.grading, 2) << ", " << a.subdivision.sectors << " sectors)\n";
+        } else {
+            o << "  losses by closed forms: Bessel skin effect + Butterworth proximity\n";
+        }
         o << "  " << pad("frequency", 13) << pad("R", 13) << pad("skin", 9) << pad("proximity", 11) << pad("L", 12)
           << "Q\n";
         for (const auto& p : a.at_frequency) {
@@ -155,6 +158,9 @@ std::string json_report(const Analysis& a) {
     j["temperature_K"] = a.spec.operating.temperature;
     j["dc_resistance_ohm"] = a.dc_resistance;
     j["loss_method"] = a.loss_method;
+    if (a.loss_method == "filaments") {
+        j["subdivision"] = {{"layers", a.subdivision.layers}, {"grading", a.subdivision.grading}, {"sectors", a.subdivision.sectors}};
+    }
     nlohmann::ordered_json points = nlohmann::ordered_json::array();
     for (const auto& p : a.at_frequency) {
         points.push_back({{"frequency_Hz", p.frequency},

@@ -22,8 +22,8 @@ struct AnalyzeOptions {
     bool json = false;
     std::string out_dir;
     std::string solver = "closed-form";
-    int layers = libcoil::Subdivision{}.layers;
-    int sectors = libcoil::Subdivision{}.sectors;
+    int layers = 0;   // 0: chosen from the highest frequency
+    int sectors = 0;
 };
 
 // Progress on stderr once a numerical solve has run for more than a second.
@@ -46,8 +46,11 @@ int run_analyze(const AnalyzeOptions& o) {
     libcoil::AnalysisOptions opt;
     if (o.solver == "filaments") {
         opt.solver = libcoil::LossSolver::filaments;
-        opt.subdivision.layers = o.layers;
-        opt.subdivision.sectors = o.sectors;
+        if (o.layers > 0) {
+            opt.auto_subdivision = false;
+            opt.subdivision.layers = o.layers;
+            opt.subdivision.sectors = o.sectors > 0 ? o.sectors : 2 * o.layers;
+        }
         auto progress = std::make_shared<Progress>();
         opt.progress = [progress](std::size_t d, std::size_t t) { (*progress)(d, t); };
     }
@@ -125,8 +128,9 @@ int main(int argc, char** argv) {
                   "cross-section solver)")
         ->check(CLI::IsMember({"closed-form", "filaments"}))
         ->capture_default_str();
-    a->add_option("--layers", analyze.layers, "Solver: radial layers across the wire")->capture_default_str();
-    a->add_option("--sectors", analyze.sectors, "Solver: angular cells per layer")->capture_default_str();
+    a->add_option("--layers", analyze.layers,
+                  "Solver: radial layers across the wire (default: enough to resolve the skin depth)");
+    a->add_option("--sectors", analyze.sectors, "Solver: angular cells per layer (default: twice the layers)");
 
     WireOptions wire;
     CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");

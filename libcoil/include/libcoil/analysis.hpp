@@ -17,7 +17,8 @@ enum class LossSolver { closed_form, filaments };
 
 struct AnalysisOptions {
     LossSolver solver = LossSolver::closed_form;
-    Subdivision subdivision{};                                   // for LossSolver::filaments
+    bool auto_subdivision = true;  // choose it from the highest frequency (subdivision_for)
+    Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
 };
 
@@ -27,6 +28,7 @@ struct Analysis {
     double dc_resistance = 0;                 // ohm, whole wire at the operating temperature
     std::vector<CoilAtFrequency> at_frequency;
     std::string loss_method = "closed-form";  // or "filaments"
+    Subdivision subdivision{};                // what the solver used
     std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs, cautions
     std::vector<std::string> notes;     // assumptions
 };
