@@ -30,23 +30,50 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
         for (const auto& p : a.at_frequency) {
             if (!p.resolved) {
                 a.warnings.push_back("at " + format_quantity(p.frequency, Dimension::frequency) +
-                                     " the cross-section subdivision is coarser than the skin depth; refine it");
+                                     " the cross-section subdivision does not resolve the skin depth to 1 %; refine it");
             }
         }
     } else {
         a.at_frequency = coil_at_frequencies(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies);
         // The closed-form proximity model holds to 3 % for p/d >= 2.5; closer turns at x > 3 spread wider
-        // (proximity.hpp, docs/models.md).
+        // (proximity.hpp, docs/models.md). There the solver takes over when it is small enough.
         const double rho = spec.conductor.resistivity_at(op.temperature);
         double worst_x = 0;
+        std::vector<double> outside;
         for (double f : op.frequencies) {
-            if (f > 0) worst_x = std::max(worst_x, std::sqrt(2.0) * s.wire().radius() / skin_depth(rho, f));
+            if (f <= 0) continue;
+            const double x = std::sqrt(2.0) * s.wire().radius() / skin_depth(rho, f);
+            worst_x = std::max(worst_x, x);
+            if (s.pitch_to_wire() < 2.5 && x > 3) outside.push_back(f);
         }
-        if (s.pitch_to_wire() < 2.5 && worst_x > 3) {
+        bool fell_back = false;
+        if (!outside.empty()) {
+            const double f_max = *std::max_element(outside.begin(), outside.end());
+            const Subdivision sub = subdivision_for(s.wire().radius(), skin_depth(rho, f_max));
+            const double turns = std::max(1.0, std::round(s.turns()));
+            const double estimate = turns * (1 + (sub.layers - 1) * sub.sectors) / 2;
+            if (estimate <= static_cast<double>(options.fallback_unknowns)) {
+                const auto numeric = coil_at_frequencies_numerical(s, spec.conductor, op.temperature,
+                                                                   a.inductance.recommended, outside, sub, options.progress);
+                std::string at;
+                for (auto& p : a.at_frequency) {
+                    for (const auto& q : numeric) {
+                        if (q.frequency == p.frequency) p = q;
+                    }
+                }
+                for (double f : outside) at += (at.empty() ? "" : ", ") + format_quantity(f, Dimension::frequency);
+                a.warnings.push_back("close-wound turns (pitch " + format_value(s.pitch_to_wire()) +
+                                     " wire diameters): at " + at + " the closed-form proximity model is outside its "
+                                     "3 % domain, so those points come from the cross-section solver (marked *)");
+                a.subdivision = sub;
+                fell_back = true;
+            }
+        }
+        if (!outside.empty() && !fell_back) {
             a.warnings.push_back("close-wound turns (pitch " + format_value(s.pitch_to_wire()) +
                                  " wire diameters) at wire diameter / skin depth up to " + format_value(worst_x * std::sqrt(2.0)) +
                                  ": for such coils the closed-form proximity model was measured between -22 % and "
-                                 "+12 % of the numerical solver (for wire diameter / skin depth up to 14); run with "
+                                 "+12 % of the numerical solver (for wire diameter / skin depth up to 42); run with "
                                  "--solver filaments to check");
         }
     }

@@ -52,7 +52,7 @@ Subdivision subdivision_for(double wire_radius, double skin_depth) {
     require_positive("wire_radius", wire_radius);
     require_positive("skin_depth", skin_depth);
     Subdivision s{8, 1.3, 16};
-    while (s.layers < 24 && wire_radius * (s.grading - 1) / (std::pow(s.grading, s.layers) - 1) > skin_depth) ++s.layers;
+    while (s.layers < 24 && wire_radius * (s.grading - 1) / (std::pow(s.grading, s.layers) - 1) > skin_depth / 3) ++s.layers;
     s.sectors = 2 * s.layers;
     return s;
 }
@@ -220,7 +220,7 @@ RingImpedance CrossSectionSolver::solve(double frequency) const {
     out.frequency = frequency;
     if (frequency > 0) {
         const double delta = std::sqrt(resistivity_ / (pi * frequency * mu0));
-        out.resolved = outer_layer_ <= delta;
+        out.resolved = outer_layer_ <= delta / 3;
     }
 
     using cd = std::complex<double>;

@@ -88,6 +88,7 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, co
         CoilAtFrequency p;
         p.frequency = f;
         p.resolved = z.resolved;
+        p.numerical = true;
         p.resistance = z.resistance * scale + per_m * c.lead_length() * skin;
         p.skin_ratio = skin;
         p.proximity_ratio = z.resistance / dc.resistance - skin;

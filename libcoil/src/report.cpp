@@ -103,10 +103,17 @@ std::string text_report(const Analysis& a) {
             std::string s = "  " + pad(format_quantity(p.frequency, Dimension::frequency), 13) +
                             pad(format_quantity(p.resistance, Dimension::resistance), 13) + pad(fixed(p.skin_ratio, 3), 9) +
                             pad(fixed(p.proximity_ratio, 3), 11) + pad(henry(p.inductance), 12) +
-                            (p.frequency > 0 ? fixed(p.q_factor, 1) : "-");
+                            (p.frequency > 0 ? fixed(p.q_factor, 1) : "-") +
+                            (p.numerical && a.loss_method != "filaments" ? "  *" : "");
             o << s << "\n";
         }
         o << "  R = R_dc x (skin + proximity); L includes the internal inductance left by the skin effect\n";
+        bool starred = false;
+        for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method != "filaments");
+        if (starred) {
+            o << "  * from the cross-section filament solver (" << a.subdivision.layers << " layers, "
+              << a.subdivision.sectors << " sectors): the closed form is outside its domain there\n";
+        }
     } else {
         o << "  (add operating.frequencies to the spec for R, L and Q at frequency)\n";
     }
@@ -168,7 +175,8 @@ std::string json_report(const Analysis& a) {
                           {"skin_ratio", p.skin_ratio},
                           {"proximity_ratio", p.proximity_ratio},
                           {"inductance_H", p.inductance},
-                          {"q_factor", p.q_factor}});
+                          {"q_factor", p.q_factor},
+                          {"method", p.numerical ? "filaments" : "closed-form"}});
     }
     j["at_frequency"] = points;
     j["warnings"] = a.warnings;

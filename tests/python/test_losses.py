@@ -62,7 +62,8 @@ def test_analyze_json_at_frequency(run_coil, tmp_path):
     assert j["dc_resistance_ohm"] > 0 and j["temperature_K"] == pytest.approx(333.15)
     assert [p["frequency_Hz"] for p in j["at_frequency"]] == [0.0, 1e6, 1e7]
     for p in j["at_frequency"]:
-        assert set(p) == {"frequency_Hz", "resistance_ohm", "skin_ratio", "proximity_ratio", "inductance_H", "q_factor"}
+        assert set(p) == {"frequency_Hz", "resistance_ohm", "skin_ratio", "proximity_ratio", "inductance_H", "q_factor", "method"}
+        assert p["method"] == "closed-form"  # p/d = 3: inside the closed form's domain
     assert j["at_frequency"][0]["resistance_ohm"] == pytest.approx(j["dc_resistance_ohm"], rel=1e-15)
     assert j["loss_method"] == "closed-form"
     text = run_coil("analyze", spec).stdout
@@ -109,3 +110,23 @@ def test_wire_verb(run_coil):
     bad = run_coil("wire", "--gauge", "AWG 18", "--frequency", "1 mm")
     assert bad.returncode == 2 and bad.stderr.startswith("coil: --frequency") and bad.stdout == ""
     assert run_coil("wire").returncode == 2
+
+
+def test_close_wound_small_coil_falls_back_to_the_solver(run_coil, tmp_path):
+    # p/d = 1.2 at x > 3: outside the closed form's 3 % domain; a 5-turn coil is small enough to solve.
+    p = tmp_path / "close.yaml"
+    p.write_text("coil: {mean_diameter: 20 mm, turns: 5, pitch: 1.2 mm, wire: {diameter: 1 mm}}\n"
+                 "operating: {frequencies: [10 kHz, 2 MHz]}\n")
+    j = json.loads(run_coil("analyze", p, "--json").stdout)
+    low, high = j["at_frequency"]
+    assert low["method"] == "closed-form"   # x = 0.5: inside the domain
+    assert high["method"] == "filaments"
+    assert any("come from the cross-section solver" in w for w in j["warnings"])
+    text = run_coil("analyze", p).stdout
+    assert "* from the cross-section filament solver" in text
+    # A big close-wound coil keeps the closed form and warns instead.
+    p.write_text("coil: {mean_diameter: 20 mm, turns: 60, pitch: 1.2 mm, wire: {diameter: 1 mm}}\n"
+                 "operating: {frequencies: [2 MHz]}\n")
+    j = json.loads(run_coil("analyze", p, "--json").stdout)
+    assert j["at_frequency"][0]["method"] == "closed-form"
+    assert any("--solver filaments" in w for w in j["warnings"])

@@ -18,6 +18,9 @@ enum class LossSolver { closed_form, filaments };
 struct AnalysisOptions {
     LossSolver solver = LossSolver::closed_form;
     bool auto_subdivision = true;  // choose it from the highest frequency (subdivision_for)
+    // closed_form only: where the closed-form proximity model is outside its 3 % domain (close-wound
+    // turns, x > 3), take those points from the solver if it has at most this many unknowns; else warn.
+    std::size_t fallback_unknowns = 1200;
     Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
 };

@@ -29,6 +29,7 @@ struct CoilAtFrequency {
     double inductance = 0;       // H, effective, including the internal-inductance change
     double q_factor = 0;         // omega L / R (0 at DC)
     bool resolved = true;        // solver only: the subdivision resolves the skin depth
+    bool numerical = false;      // this point came from the cross-section solver
 };
 
 // One wire on its own: what `coil wire` prints.
