@@ -30,21 +30,11 @@ libcoil::Dimension dimension_from_name(const std::string& name) {
 
 libcoil::Wire make_wire(std::optional<double> diameter, std::optional<std::string> gauge, double insulation,
                         std::optional<int> enamel_grade) {
-    libcoil::Wire w;
-    if (diameter.has_value() == gauge.has_value()) {
-        throw libcoil::InputError("wire_diameter", "give either wire_diameter or gauge");
-    }
-    if (gauge) {
-        const int g = libcoil::parse_awg(*gauge, "gauge");
-        w.bare_diameter = libcoil::awg_diameter(g);
-        w.label = libcoil::awg_label(g);
-    } else {
-        w.bare_diameter = libcoil::require_positive("wire_diameter", *diameter);
-        w.label = libcoil::format_quantity(w.bare_diameter, libcoil::Dimension::length) + " wire";
-    }
-    w.insulation = enamel_grade ? libcoil::enamel_build(w.bare_diameter, *enamel_grade, "enamel_grade")
-                                : libcoil::require_non_negative("insulation", insulation);
-    return w;
+    libcoil::WireChoice c;
+    c.diameter = diameter;
+    if (gauge) c.gauge = libcoil::parse_awg(*gauge, "gauge");
+    if (enamel_grade) c.enamel_grade = enamel_grade; else c.insulation = insulation;
+    return libcoil::make_wire(c, "");
 }
 
 py::dict by_method(const libcoil::InductanceByMethod& m) {

@@ -24,26 +24,21 @@ int parse_enamel_grade(const std::string& text, const std::string& field) {
 
 Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
     w.allow_only({"diameter", "gauge", "insulation", "enamel"});
-    Wire wire;
+    WireChoice c;
     if (w.one_of("diameter", "gauge") == "gauge") {
-        const int g = parse_awg(w.text("gauge"), w.path_of("gauge"));
-        wire.bare_diameter = awg_diameter(g);
-        wire.label = awg_label(g);
+        c.gauge = parse_awg(w.text("gauge"), w.path_of("gauge"));
     } else {
-        wire.bare_diameter = w.positive_quantity("diameter", Dimension::length);
-        wire.label = format_quantity(wire.bare_diameter, Dimension::length) + " wire";
+        c.diameter = w.positive_quantity("diameter", Dimension::length);
     }
     w.at_most_one_of("insulation", "enamel");
     if (w.has("insulation")) {
-        wire.insulation = w.non_negative_quantity("insulation", Dimension::length);
+        c.insulation = w.non_negative_quantity("insulation", Dimension::length);
     } else if (w.has("enamel")) {
-        const int grade = parse_enamel_grade(w.text("enamel"), w.path_of("enamel"));
-        wire.insulation = enamel_build(wire.bare_diameter, grade, w.path_of("enamel"));
-        wire.label += ", enamel grade " + std::to_string(grade);
+        c.enamel_grade = parse_enamel_grade(w.text("enamel"), w.path_of("enamel"));
     } else {
         notes.push_back("no insulation given: the wire is taken as bare (" + w.path_of("insulation") + " = 0)");
     }
-    return wire;
+    return make_wire(c, w.path_of(""));
 }
 
 Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& notes) {

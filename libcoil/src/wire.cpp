@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cctype>
 #include <cmath>
+#include <cstdio>
 #include <string>
 
 #include "libcoil/constants.hpp"
@@ -40,6 +41,31 @@ int parse_awg(std::string_view text, std::string_view field) {
     }
     if (gauge < -3 || gauge > 56) throw bad("gauge outside AWG 4/0 .. AWG 56");
     return gauge;
+}
+
+Wire make_wire(const WireChoice& c, std::string_view prefix) {
+    const auto field = [&](const char* name) { return std::string(prefix) + name; };
+    if (c.gauge.has_value() == c.diameter.has_value()) {
+        throw InputError(field("diameter"), c.gauge ? "give either diameter or gauge, not both" : "missing; give diameter or gauge");
+    }
+    if (c.insulation && c.enamel_grade) throw InputError(field("insulation"), "give either insulation or enamel, not both");
+    Wire w;
+    if (c.gauge) {
+        w.bare_diameter = awg_diameter(*c.gauge);
+        w.label = awg_label(*c.gauge);
+    } else {
+        w.bare_diameter = require_positive(field("diameter"), *c.diameter);
+        char buf[32];
+        std::snprintf(buf, sizeof buf, "%.4g mm wire", w.bare_diameter * 1e3);
+        w.label = buf;
+    }
+    if (c.insulation) {
+        w.insulation = require_non_negative(field("insulation"), *c.insulation);
+    } else if (c.enamel_grade) {
+        w.insulation = enamel_build(w.bare_diameter, *c.enamel_grade, field("enamel"));
+        w.label += ", enamel grade " + std::to_string(*c.enamel_grade);
+    }
+    return w;
 }
 
 double awg_diameter(int gauge) {

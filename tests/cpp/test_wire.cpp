@@ -94,3 +94,35 @@ TEST(Materials, FormerPlastics) {
     EXPECT_DOUBLE_EQ(former_material("polystyrene").relative_permittivity, 2.55);
     EXPECT_TRUE(std::filesystem::is_regular_file(data_directory() / "wires.yaml"));
 }
+
+TEST(Wire, MakeWireFromAChoice) {
+    WireChoice c;
+    c.gauge = 18;
+    c.enamel_grade = 2;
+    const Wire w = make_wire(c, "coil.wire.");
+    EXPECT_EQ(w.label, "AWG 18, enamel grade 2");
+    EXPECT_DOUBLE_EQ(w.insulation, enamel_build(awg_diameter(18), 2));
+    const auto field_of = [](const WireChoice& ch) {
+        try {
+            make_wire(ch, "coil.wire.");
+        } catch (const InputError& e) {
+            return e.field();
+        }
+        return std::string("(no error)");
+    };
+    WireChoice none;
+    EXPECT_EQ(field_of(none), "coil.wire.diameter");  // neither gauge nor diameter
+    WireChoice both;
+    both.gauge = 18;
+    both.diameter = 1e-3;
+    EXPECT_EQ(field_of(both), "coil.wire.diameter");
+    WireChoice twice;
+    twice.diameter = 1e-3;
+    twice.insulation = 40e-6;
+    twice.enamel_grade = 1;
+    EXPECT_EQ(field_of(twice), "coil.wire.insulation");
+    WireChoice bare;
+    bare.diameter = 0.5e-3;
+    EXPECT_EQ(make_wire(bare).insulation, 0.0);
+    EXPECT_EQ(make_wire(bare).label, "0.5 mm wire");
+}

@@ -89,23 +89,17 @@ int run_wire(const WireOptions& o) {
     if (o.gauge.empty() == o.diameter.empty()) {
         throw libcoil::InputError("--gauge", "give either --gauge (\"AWG 18\") or --diameter (\"1 mm\"), or --table");
     }
-    libcoil::Wire w;
-    if (!o.gauge.empty()) {
-        const int g = libcoil::parse_awg(o.gauge, "--gauge");
-        w.bare_diameter = libcoil::awg_diameter(g);
-        w.label = libcoil::awg_label(g);
-    } else {
-        w.bare_diameter = libcoil::require_positive("--diameter", libcoil::parse_quantity(o.diameter, Dimension::length, "--diameter"));
-        w.label = libcoil::format_quantity(w.bare_diameter, Dimension::length) + " wire";
-    }
+    libcoil::WireChoice choice;
+    if (!o.gauge.empty()) choice.gauge = libcoil::parse_awg(o.gauge, "--gauge");
+    if (!o.diameter.empty()) choice.diameter = libcoil::parse_quantity(o.diameter, Dimension::length, "--diameter");
     if (!o.insulation.empty()) {
-        w.insulation = libcoil::require_non_negative("--insulation", libcoil::parse_quantity(o.insulation, Dimension::length, "--insulation"));
+        choice.insulation = libcoil::parse_quantity(o.insulation, Dimension::length, "--insulation");
     } else {
         const int grade = o.enamel == "1" ? 1 : o.enamel == "2" ? 2 : o.enamel == "3" ? 3 : 0;
         if (grade == 0) throw libcoil::InputError("--enamel", "\"" + o.enamel + "\": expected 1, 2 or 3");
-        w.insulation = libcoil::enamel_build(w.bare_diameter, grade, "--enamel");
-        w.label += ", enamel grade " + o.enamel;
+        choice.enamel_grade = grade;
     }
+    const libcoil::Wire w = libcoil::make_wire(choice, "--");
     std::cout << (o.json ? libcoil::wire_json_report(w, c, t, f) : libcoil::wire_text_report(w, c, t, f));
     return 0;
 }

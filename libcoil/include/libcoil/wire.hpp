@@ -6,6 +6,7 @@
 // bare diameter.
 #pragma once
 
+#include <optional>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -20,6 +21,16 @@ struct Wire {
     double insulated_diameter() const { return bare_diameter + 2 * insulation; }
     double radius() const { return bare_diameter / 2; }
 };
+
+// How a user names a wire: a gauge or a bare diameter, and an insulation build or an enamel grade
+// (neither means bare). make_wire checks the choice and names fields as `prefix` + "gauge", ...
+struct WireChoice {
+    std::optional<int> gauge;          // AWG number
+    std::optional<double> diameter;    // m, bare
+    std::optional<double> insulation;  // m, radial build
+    std::optional<int> enamel_grade;   // IEC 60317 grade 1..3
+};
+Wire make_wire(const WireChoice& choice, std::string_view prefix = "wire.");
 
 // AWG gauge number from text: "AWG 18", "18 AWG", "AWG 4/0", "AWG 0000", "awg18". AWG 4/0 is -3.
 int parse_awg(std::string_view text, std::string_view field);
