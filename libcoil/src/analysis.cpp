@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 
 #include "libcoil/dc_resistance.hpp"
 #include "libcoil/error.hpp"
@@ -9,6 +10,14 @@
 #include "libcoil/units.hpp"
 
 namespace libcoil {
+
+namespace {
+std::string three_digits(double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.3g", v);
+    return buf;
+}
+}  // namespace
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, spec.notes};
@@ -62,7 +71,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
                     }
                 }
                 for (double f : outside) at += (at.empty() ? "" : ", ") + format_quantity(f, Dimension::frequency);
-                a.warnings.push_back("close-wound turns (pitch " + format_value(s.pitch_to_wire()) +
+                a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
                                      " wire diameters): at " + at + " the closed-form proximity model is outside its "
                                      "3 % domain, so those points come from the cross-section solver (marked *)");
                 a.subdivision = sub;
@@ -70,8 +79,8 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
             }
         }
         if (!outside.empty() && !fell_back) {
-            a.warnings.push_back("close-wound turns (pitch " + format_value(s.pitch_to_wire()) +
-                                 " wire diameters) at wire diameter / skin depth up to " + format_value(worst_x * std::sqrt(2.0)) +
+            a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
+                                 " wire diameters) at wire diameter / skin depth up to " + three_digits(worst_x * std::sqrt(2.0)) +
                                  ": for such coils the closed-form proximity model was measured between -22 % and "
                                  "+12 % of the numerical solver (for wire diameter / skin depth up to 42); run with "
                                  "--solver filaments to check");

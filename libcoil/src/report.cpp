@@ -108,6 +108,7 @@ std::string text_report(const Analysis& a) {
             o << s << "\n";
         }
         o << "  R = R_dc x (skin + proximity); L includes the internal inductance left by the skin effect\n";
+        o << "  Self-capacitance is not modelled yet: L and Q hold only well below the self-resonance\n";
         bool starred = false;
         for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method != "filaments");
         if (starred) {
