@@ -1,11 +1,10 @@
 #include "libcoil/proximity.hpp"
 
-#include <boost/math/special_functions/ellint_rd.hpp>
-#include <boost/math/special_functions/ellint_rf.hpp>
 #include <cmath>
 #include <complex>
 #include <vector>
 
+#include "elliptic.hpp"
 #include "libcoil/constants.hpp"
 #include "libcoil/dc_resistance.hpp"
 #include "libcoil/error.hpp"
@@ -25,8 +24,8 @@ using cd = std::complex<double>;
 void ring_field(double b, double z, double& hz, double& hr) {
     const double s = 4 * b * b + z * z;
     const double mc = z * z / s;                       // k'^2
-    const double K = boost::math::ellint_rf(0.0, mc, 1.0);
-    const double kme = (1 - mc) * boost::math::ellint_rd(0.0, mc, 1.0) / 3;  // K - E, no cancellation
+    const double K = detail::elliptic_k(mc);
+    const double kme = (1 - mc) * detail::elliptic_k_minus_e_over_m(mc);  // K - E, no cancellation
     const double E = K - kme;
     const double root = std::sqrt(s);
     hz = kme / (2 * pi * root);
