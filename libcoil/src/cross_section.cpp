@@ -12,22 +12,11 @@
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/ring_inductance.hpp"
+#include "libcoil/skin_effect.hpp"
 
 namespace libcoil {
 
 namespace {
-
-// Geometric mean distance of an a x b rectangle from itself (Rosa; Grover 1946 ch. 2, eq. (23)):
-//   ln g = ln d - (a^2/12b^2) ln(1 + b^2/a^2) - (b^2/12a^2) ln(1 + a^2/b^2)
-//          + (2a/3b) atan(b/a) + (2b/3a) atan(a/b) - 25/12,  d^2 = a^2 + b^2.
-// A square gives g = 0.44705 a, a thin strip a e^(-3/2). The ring formula takes the round-wire radius of
-// the same GMD, r = g e^(1/4).
-double rectangle_gmd(double a, double b) {
-    const double a2 = a * a, b2 = b * b;
-    const double lg = 0.5 * std::log(a2 + b2) - a2 / (12 * b2) * std::log1p(b2 / a2) - b2 / (12 * a2) * std::log1p(a2 / b2) +
-                      2 * a / (3 * b) * std::atan(b / a) + 2 * b / (3 * a) * std::atan(a / b) - 25.0 / 12;
-    return std::exp(lg);
-}
 
 // Gauss-Legendre nodes and weights on [0, 1]: 4 points across a cell's thickness, 8 along its arc (the
 // graded cells are long and thin).
@@ -126,6 +115,7 @@ void CrossSectionSolver::build(const Subdivision& sub) {
         const int S = sub.sectors;
         for (int s = 0; s < S; ++s) {
             Offset o = sector(r0, r1, 2 * pi * s / S, 2 * pi * (s + 1) / S);
+            // The ring formula takes the round-wire radius of the same GMD, r = g e^(1/4).
             o.req = rectangle_gmd(r1 - r0, 2 * pi * rm / S) * std::exp(0.25);
             o.size = std::max(r1 - r0, 2 * pi * r1 / S);
             tmpl.push_back(o);
@@ -219,8 +209,7 @@ RingImpedance CrossSectionSolver::solve(double frequency) const {
     RingImpedance out;
     out.frequency = frequency;
     if (frequency > 0) {
-        const double delta = std::sqrt(resistivity_ / (pi * frequency * mu0));
-        out.resolved = outer_layer_ <= delta / 3;
+        out.resolved = outer_layer_ <= skin_depth(resistivity_, frequency) / 3;
     }
 
     using cd = std::complex<double>;

@@ -17,4 +17,13 @@ double ring_self_inductance(double a, double r) {
     return finite_result("ring self-inductance", mu0 * a * (lg - 1.75 + r * r / (8.0 * a * a) * (lg + 1.0 / 3.0)));
 }
 
+double rectangle_gmd(double a, double b) {
+    require_positive("a", a);
+    require_positive("b", b);
+    const double a2 = a * a, b2 = b * b;
+    const double lg = 0.5 * std::log(a2 + b2) - a2 / (12 * b2) * std::log1p(b2 / a2) - b2 / (12 * a2) * std::log1p(a2 / b2) +
+                      2 * a / (3 * b) * std::atan(b / a) + 2 * b / (3 * a) * std::atan(a / b) - 25.0 / 12;
+    return finite_result("rectangle GMD", std::exp(lg));
+}
+
 }  // namespace libcoil

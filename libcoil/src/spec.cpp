@@ -1,6 +1,5 @@
 #include "libcoil/spec.hpp"
 
-#include <cctype>
 #include <fstream>
 #include <sstream>
 
@@ -12,15 +11,6 @@
 namespace libcoil {
 
 namespace {
-
-int parse_enamel_grade(const std::string& text, const std::string& field) {
-    std::string s;
-    for (char c : text) s += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
-    if (s.rfind("grade", 0) == 0) s.erase(0, 5);
-    while (!s.empty() && s.front() == ' ') s.erase(0, 1);
-    if (s == "1" || s == "2" || s == "3") return s[0] - '0';
-    throw InputError(field, "\"" + text + "\": expected an enamel grade such as \"grade 2\" (1, 2 or 3, IEC 60317)");
-}
 
 Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
     w.allow_only({"diameter", "gauge", "insulation", "enamel"});

@@ -43,6 +43,16 @@ int parse_awg(std::string_view text, std::string_view field) {
     return gauge;
 }
 
+int parse_enamel_grade(std::string_view text, std::string_view field) {
+    std::string s;
+    for (char c : text) s += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    if (s.rfind("grade", 0) == 0) s.erase(0, 5);
+    while (!s.empty() && s.front() == ' ') s.erase(0, 1);
+    if (s == "1" || s == "2" || s == "3") return s[0] - '0';
+    throw InputError(std::string(field), "\"" + std::string(text) +
+                                             "\": expected an enamel grade such as \"grade 2\" (1, 2 or 3, IEC 60317)");
+}
+
 Wire make_wire(const WireChoice& c, std::string_view prefix) {
     const auto field = [&](const char* name) { return std::string(prefix) + name; };
     if (c.gauge.has_value() == c.diameter.has_value()) {

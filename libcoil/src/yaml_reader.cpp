@@ -110,9 +110,5 @@ double YamlMap::non_negative_quantity(std::string_view key, Dimension d) const {
     return v;
 }
 
-std::optional<double> YamlMap::optional_quantity(std::string_view key, Dimension d) const {
-    if (!has(key)) return std::nullopt;
-    return quantity(key, d);
-}
 
 }  // namespace libcoil::detail

@@ -31,7 +31,6 @@ public:
     std::string text(std::string_view key) const;  // required scalar, as written
     std::optional<std::string> optional_text(std::string_view key) const;
     double quantity(std::string_view key, Dimension d) const;  // required, SI
-    std::optional<double> optional_quantity(std::string_view key, Dimension d) const;
     // A required quantity that must be > 0 (or >= 0); the error quotes the value as written.
     double positive_quantity(std::string_view key, Dimension d) const;
     // A list of quantities (a single value counts as a list of one); errors name the element, key[i].

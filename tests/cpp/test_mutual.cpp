@@ -65,6 +65,16 @@ TEST(Maxwell, SymmetryAndDomain) {
                 1.0, 4e-15);
 }
 
+TEST(Gmd, Rectangle) {
+    // Maxwell's values: a square of side s has GMD 0.44705 s, a thin strip of width w has w e^(-3/2)
+    // (Maxwell 1873 art. 692; Grover 1946 ch. 2, quoted from memory).
+    EXPECT_NEAR(rectangle_gmd(1.0, 1.0), 0.44705, 1e-5);
+    EXPECT_NEAR(rectangle_gmd(1.0, 1e-6) / std::exp(-1.5), 1.0, 1e-5);
+    EXPECT_DOUBLE_EQ(rectangle_gmd(2.0, 0.5), rectangle_gmd(0.5, 2.0));  // symmetric in its sides
+    EXPECT_DOUBLE_EQ(rectangle_gmd(3.0, 1.5), 3.0 * rectangle_gmd(1.0, 0.5));  // scales with size
+    EXPECT_THROW(rectangle_gmd(0.0, 1.0), InputError);
+}
+
 TEST(Ring, MatchesMaxwellAtTheGeometricMeanDistance) {
     // Maxwell's method of geometric mean distances: a ring of round wire with uniform current has, to first
     // order in r/a, the mutual inductance of two filaments at the GMD r e^(-1/4) of its cross-section

@@ -17,8 +17,14 @@ constexpr double temperature = 293.15;
 
 TEST(Proximity, LossFunctionLowFrequencyLimit) {
     // Round wire in a uniform transverse field, low frequency: P' = pi omega^2 sigma mu0^2 H^2 a^4 / 8
-    // (derived in docs/models.md from E = -j omega B y), i.e. G = x^4 / 16.
-    for (double x : {1e-3, 1e-2, 0.1}) EXPECT_NEAR(proximity_loss_function(x) / (std::pow(x, 4) / 16), 1.0, 2e-3 * x * x + 1e-12);
+    // (derived in docs/models.md from E = -j omega B y), i.e. G = x^4 / 16, with the next term
+    // -11 x^4 / 384 relative (coefficient from mpmath quadrature, tests/python/test_proximity.py).
+    for (double x : {1e-3, 0.02, 0.1, 0.3}) {
+        const double x4 = std::pow(x, 4);
+        EXPECT_NEAR(proximity_loss_function(x) / (x4 / 16 * (1 - 11 * x4 / 384)), 1.0, 1e-3 * x4 * x4 + 1e-14) << x;
+    }
+    // The series branch and the closed form meet at x = 0.05 to rounding.
+    EXPECT_NEAR(proximity_loss_function(std::nextafter(0.05, 0.0)) / proximity_loss_function(std::nextafter(0.05, 1.0)), 1.0, 1e-12);
     // High frequency: the loss grows like x (surface currents), as the skin ratio does.
     EXPECT_NEAR(proximity_loss_function(400) / proximity_loss_function(200), 2.0, 0.01);
 }
@@ -26,12 +32,21 @@ TEST(Proximity, LossFunctionLowFrequencyLimit) {
 TEST(Proximity, FieldOfALongCoil) {
     // Inside a long solenoid H = N I / l; a turn in the middle sits halfway between inside and outside, so
     // the field from the others at its centre tends to N I / (2 l) (Ampere's law; common practice).
-    const Solenoid c(Solenoid::Params{10e-3, 400, 1e-3, Wire{0.5e-3, 0, "w"}, 0});
-    const double h_half = 1 / (2 * c.pitch());
-    // The mean over all turns includes the ends, where the field is lower; the middle dominates.
-    const double rms = std::sqrt(mean_square_field_per_ampere(c));
-    EXPECT_GT(rms, 0.9 * h_half);
-    EXPECT_LT(rms, 1.1 * h_half);
+    // The mean over all turns includes the ends, where the field is lower, so the rms field rises with the
+    // number of turns and settles. It settles at 0.961 of the current-sheet value N I / (2 l), not at 1:
+    // discrete rings plus the fitted own-turn curvature term (c = 1.75) read 3.9 % below the sheet here
+    // (the derived c = 0 would read about 2 % above). The bound holds that to within 5 %.
+    double previous = 0, last_step = 1;
+    for (double n : {100.0, 400.0, 1600.0, 6400.0}) {
+        const Solenoid c(Solenoid::Params{10e-3, n, 1e-3, Wire{0.5e-3, 0, "w"}, 0});
+        const double ratio = std::sqrt(mean_square_field_per_ampere(c)) * 2 * c.pitch();
+        EXPECT_LT(ratio, 1.0) << n;
+        EXPECT_GT(ratio, previous) << n;
+        last_step = ratio - previous;
+        previous = ratio;
+    }
+    EXPECT_LT(last_step, 0.005);  // converged
+    EXPECT_NEAR(previous, 1.0, 0.05);
 }
 
 TEST(Proximity, ClosedFormAgainstCrossSectionSolver) {

@@ -95,9 +95,7 @@ int run_wire(const WireOptions& o) {
     if (!o.insulation.empty()) {
         choice.insulation = libcoil::parse_quantity(o.insulation, Dimension::length, "--insulation");
     } else {
-        const int grade = o.enamel == "1" ? 1 : o.enamel == "2" ? 2 : o.enamel == "3" ? 3 : 0;
-        if (grade == 0) throw libcoil::InputError("--enamel", "\"" + o.enamel + "\": expected 1, 2 or 3");
-        choice.enamel_grade = grade;
+        choice.enamel_grade = libcoil::parse_enamel_grade(o.enamel, "--enamel");
     }
     const libcoil::Wire w = libcoil::make_wire(choice, "--");
     std::cout << (o.json ? libcoil::wire_json_report(w, c, t, f) : libcoil::wire_text_report(w, c, t, f));

@@ -59,7 +59,6 @@ public:
 
     std::size_t filaments() const { return cells_.size(); }
     std::size_t unknowns() const { return orbits_.size(); }
-    double outer_layer_thickness() const { return outer_layer_; }
 
 private:
     struct Cell {

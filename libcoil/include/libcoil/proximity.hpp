@@ -27,7 +27,8 @@
 
 namespace libcoil {
 
-// G(x) for a round wire in a uniform transverse field, x = sqrt(2) r / delta. G -> x^4 / 16 at low x.
+// G(x) for a round wire in a uniform transverse field, x = sqrt(2) r / delta.
+// G = (x^4 / 16)(1 - 11 x^4 / 384 + O(x^8)) at low x.
 double proximity_loss_function(double x);
 
 // (1/N) sum_i |H_i / I|^2 over the whole turns: the squared transverse field per ampere, (A/m / A)^2,

@@ -12,4 +12,10 @@ namespace libcoil {
 
 double ring_self_inductance(double ring_radius, double wire_radius);
 
+// Geometric mean distance of an a x b rectangle from itself (Rosa; Grover 1946 ch. 2):
+//   ln g = ln d - (a^2/12b^2) ln(1 + b^2/a^2) - (b^2/12a^2) ln(1 + a^2/b^2)
+//          + (2a/3b) atan(b/a) + (2b/3a) atan(a/b) - 25/12,  d^2 = a^2 + b^2.
+// A square gives 0.44705 a, a thin strip a e^(-3/2). Used for the cells of the cross-section solver.
+double rectangle_gmd(double a, double b);
+
 }  // namespace libcoil

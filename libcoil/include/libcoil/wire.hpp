@@ -32,6 +32,9 @@ struct WireChoice {
 };
 Wire make_wire(const WireChoice& choice, std::string_view prefix = "wire.");
 
+// IEC 60317 enamel grade from text: "grade 2", "Grade 2" or "2". InputError names `field` otherwise.
+int parse_enamel_grade(std::string_view text, std::string_view field);
+
 // AWG gauge number from text: "AWG 18", "18 AWG", "AWG 4/0", "AWG 0000", "awg18". AWG 4/0 is -3.
 int parse_awg(std::string_view text, std::string_view field);
 // Bare diameter in m of AWG gauge n, -3 (0000) <= n <= 56 (ASTM B258).
