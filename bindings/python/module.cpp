@@ -48,6 +48,52 @@ py::dict at_frequency_dict(const libcoil::CoilAtFrequency& p) {
                     "resolved"_a = p.resolved);
 }
 
+py::dict method_dict(const libcoil::SelfResonanceMethod& m) {
+    return py::dict("available"_a = m.available, "frequency"_a = m.frequency, "capacitance"_a = m.capacitance);
+}
+
+py::dict self_resonance_dict(const libcoil::SelfResonance& r) {
+    return py::dict("frequency"_a = r.frequency, "capacitance"_a = r.capacitance, "method"_a = r.method,
+                    "helical_line"_a = method_dict(r.helical_line), "kandoian_sichak"_a = method_dict(r.kandoian_sichak),
+                    "medhurst"_a = method_dict(r.medhurst), "low_frequency_capacitance"_a = r.low_frequency_capacitance,
+                    "inductance"_a = r.inductance, "winding_length"_a = r.winding_length,
+                    "resonance_wavenumber"_a = r.resonance_wavenumber, "phase_velocity"_a = r.phase_velocity,
+                    "pitch_angle"_a = r.pitch_angle, "radius"_a = r.radius, "inner_permittivity"_a = r.medium.inner,
+                    "outer_permittivity"_a = r.medium.outer, "mounting"_a = libcoil::mounting_name(r.mounting),
+                    "half_wave_wire_frequency"_a = r.half_wave_wire_frequency, "warnings"_a = r.warnings,
+                    "notes"_a = r.notes);
+}
+
+libcoil::Mounting mounting_from_name(const std::string& n) {
+    if (n == "floating") return libcoil::Mounting::floating;
+    if (n == "grounded-end") return libcoil::Mounting::grounded_end;
+    throw libcoil::InputError("mounting", "\"" + n + "\": expected \"floating\" or \"grounded-end\"");
+}
+
+libcoil::ImpedanceModel model_from_name(const std::string& n) {
+    if (n == "helical-line") return libcoil::ImpedanceModel::helical_line;
+    if (n == "lumped") return libcoil::ImpedanceModel::lumped;
+    throw libcoil::InputError("model", "\"" + n + "\": expected \"helical-line\" or \"lumped\"");
+}
+
+// Z(f) of a sweep as numpy arrays.
+py::dict sweep_dict(const std::vector<libcoil::ImpedancePoint>& pts) {
+    const auto n = static_cast<py::ssize_t>(pts.size());
+    py::array_t<double> f(n), r(n), l(n), la(n), q(n);
+    py::array_t<std::complex<double>> z(n);
+    for (py::ssize_t i = 0; i < n; ++i) {
+        const auto& p = pts[static_cast<std::size_t>(i)];
+        f.mutable_at(i) = p.frequency;
+        z.mutable_at(i) = p.impedance;
+        r.mutable_at(i) = p.wire_resistance;
+        l.mutable_at(i) = p.wire_inductance;
+        la.mutable_at(i) = p.apparent_inductance;
+        q.mutable_at(i) = p.q_factor;
+    }
+    return py::dict("frequency"_a = f, "impedance"_a = z, "wire_resistance"_a = r, "wire_inductance"_a = l,
+                    "apparent_inductance"_a = la, "q_factor"_a = q);
+}
+
 }  // namespace
 
 PYBIND11_MODULE(_core, m) {
@@ -234,6 +280,39 @@ PYBIND11_MODULE(_core, m) {
         .def_property_readonly("by_method", [](const libcoil::InductanceResult& r) { return by_method(r.by_method); });
     m.def("inductance", &libcoil::inductance, "solenoid"_a, "Every inductance model and the recommended value.");
 
+    // Self-capacitance, self-resonance and impedance.
+    m.def("medhurst_h", py::vectorize(&libcoil::medhurst_h), "length_to_diameter"_a,
+          "Medhurst's H (pF per cm of diameter), interpolated in his table.");
+    m.def("medhurst_h_formula", py::vectorize(&libcoil::medhurst_h_formula), "length_to_diameter"_a);
+    m.def("medhurst_capacitance", py::vectorize(&libcoil::medhurst_capacitance), "mean_diameter"_a, "winding_length"_a);
+    m.def("kandoian_sichak_velocity_factor", py::vectorize(&libcoil::kandoian_sichak_velocity_factor), "diameter"_a,
+          "pitch"_a, "wavelength"_a);
+    py::class_<libcoil::SheathHelix>(m, "SheathHelix")
+        .def(py::init([](double a, double psi, double inner, double outer) {
+                 return libcoil::SheathHelix(a, psi, libcoil::HelixMedium{inner, outer});
+             }),
+             "radius"_a, "pitch_angle"_a, "inner_permittivity"_a = 1.0, "outer_permittivity"_a = 1.0)
+        .def("dispersion", &libcoil::SheathHelix::dispersion, "beta"_a, "k"_a)
+        .def("wavenumber_for", &libcoil::SheathHelix::wavenumber_for, "beta"_a)
+        .def("axial_wavenumber", &libcoil::SheathHelix::axial_wavenumber, "k"_a)
+        .def("phase_velocity", &libcoil::SheathHelix::phase_velocity, "beta"_a);
+    m.def("sheath_inner_energy_share", &libcoil::sheath_inner_energy_share, "a"_a, "r_in"_a, "r_out"_a, "gamma"_a,
+          "beta"_a);
+    m.def("self_resonance", [](const libcoil::Solenoid& s, double inductance, double former_permittivity,
+                               double former_wall, double former_fill, double surroundings_permittivity,
+                               const std::string& mounting) {
+        return self_resonance_dict(libcoil::self_resonance(
+            s, inductance, libcoil::FormerDielectric{former_permittivity, former_wall, former_fill},
+            libcoil::Surroundings{surroundings_permittivity, mounting_from_name(mounting)}));
+    }, "solenoid"_a, "inductance"_a, "former_permittivity"_a = 1.0, "former_wall"_a = 0.0, "former_fill"_a = 0.0,
+       "surroundings_permittivity"_a = 1.0, "mounting"_a = "floating",
+       "Self-resonance by each model (dict); former_* describe the dielectric shell under the winding.");
+    m.def("lumped_impedance", py::vectorize(&libcoil::lumped_impedance), "angular_frequency"_a, "resistance"_a,
+          "inductance"_a, "capacitance"_a);
+    m.def("line_impedance", [](double w, double r, double l, double v, double len, const std::string& mounting) {
+        return libcoil::line_impedance(w, r, l, v, len, mounting_from_name(mounting));
+    }, "angular_frequency"_a, "resistance"_a, "inductance"_a, "phase_velocity"_a, "length"_a, "mounting"_a = "floating");
+
     // Specs, analysis and reports.
     py::class_<libcoil::CoilSpec>(m, "CoilSpec")
         .def_readonly("name", &libcoil::CoilSpec::name)
@@ -253,8 +332,26 @@ PYBIND11_MODULE(_core, m) {
             for (const auto& p : a.at_frequency) out.append(at_frequency_dict(p));
             return out;
         })
+        .def_property_readonly("self_resonance", [](const libcoil::Analysis& a) { return self_resonance_dict(a.self_resonance); })
+        .def_property_readonly("impedance", [](const libcoil::Analysis& a) { return sweep_dict(a.impedance); })
         .def_readonly("warnings", &libcoil::Analysis::warnings)
         .def_readonly("notes", &libcoil::Analysis::notes);
+    m.def("sweep", [](const libcoil::Analysis& a, const std::vector<double>& frequencies, const std::string& model,
+                      const std::string& capacitance) {
+        double c = 0;
+        if (capacitance == "medhurst") {
+            if (!a.self_resonance.medhurst.available) throw libcoil::InputError("capacitance", "outside Medhurst's table");
+            c = a.self_resonance.medhurst.capacitance;
+        } else if (capacitance != "helical-line") {
+            throw libcoil::InputError("capacitance", "\"" + capacitance + "\": expected \"helical-line\" or \"medhurst\"");
+        }
+        return sweep_dict(libcoil::coil_impedance(a).sweep(frequencies, model_from_name(model), c));
+    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "capacitance"_a = "helical-line",
+       "Z(f) of an analysed coil: dict of numpy arrays (frequency, impedance, ...).");
+    m.def("frequency_grid", &libcoil::frequency_grid, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);
+    m.def("touchstone_s1p", [](const libcoil::Analysis& a, const std::vector<double>& f, const std::string& model) {
+        return libcoil::touchstone_s1p(libcoil::coil_impedance(a).sweep(f, model_from_name(model)), {"libcoil"});
+    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line");
     m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<libcoil::Subdivision> sub) {
         libcoil::AnalysisOptions o;
         if (solver == "filaments") o.solver = libcoil::LossSolver::filaments;

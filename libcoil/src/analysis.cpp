@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "libcoil/constants.hpp"
 #include "libcoil/dc_resistance.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/skin_effect.hpp"
@@ -17,10 +18,87 @@ std::string three_digits(double v) {
     std::snprintf(buf, sizeof buf, "%.3g", v);
     return buf;
 }
+
+CoilImpedance coil_impedance_of(const Analysis& a);
+
+void add_self_resonance(Analysis& a) {
+    const CoilSpec& spec = a.spec;
+    const Solenoid& s = spec.solenoid;
+    const FormerDielectric former = spec.former ? spec.former->dielectric(s.form_diameter()) : FormerDielectric{};
+    a.self_resonance = self_resonance(s, a.inductance.recommended, former, spec.surroundings);
+    const SelfResonance& sr = a.self_resonance;
+    for (const auto& w : sr.warnings) a.warnings.push_back(w);
+    for (const auto& n : sr.notes) a.notes.push_back(n);
+    const CoilImpedance zc = coil_impedance_of(a);
+    for (const auto& p : a.at_frequency) {
+        const double w = 2 * pi * p.frequency;
+        ImpedancePoint z;
+        z.frequency = p.frequency;
+        z.wire_resistance = p.resistance;
+        z.wire_inductance = p.inductance;
+        z.impedance = line_impedance(w, p.resistance, p.inductance, zc.phase_velocity(p.frequency), s.winding_length(),
+                                     sr.mounting);
+        z.apparent_inductance = p.frequency > 0 ? z.impedance.imag() / w : p.inductance;
+        z.q_factor = z.impedance.imag() / z.impedance.real();
+        a.impedance.push_back(z);
+        if (p.frequency >= sr.frequency) {
+            a.warnings.push_back("at " + format_quantity(p.frequency, Dimension::frequency) +
+                                 " the coil is above its self-resonance (" + format_quantity(sr.frequency, Dimension::frequency) +
+                                 "): it is capacitive there");
+        }
+    }
+    if (spec.band) {
+        a.band = check_band(*spec.band, zc);
+        for (const auto& c : a.band->criteria) {
+            if (c.name != "srf_margin" || !sr.medhurst.available) continue;
+            a.band_srf_by_medhurst = check_srf_margin(sr.medhurst.frequency, a.band->ceiling, c.required);
+            if (a.band_srf_by_medhurst->pass != c.pass) {
+                a.warnings.push_back(std::string("the SRF margin ") + (c.pass ? "passes" : "fails") +
+                                     " by the helical line but " + (c.pass ? "fails" : "passes") +
+                                     " by Medhurst's measured capacitance (SRF " +
+                                     format_quantity(sr.medhurst.frequency, Dimension::frequency) +
+                                     ", one end grounded); near grounded metal expect the lower figure");
+            }
+        }
+    }
+}
+
+Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options);
+
+CoilImpedance coil_impedance_of(const Analysis& a) {
+    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended,
+                         a.self_resonance);
+}
+
 }  // namespace
 
+CoilImpedance coil_impedance(const Analysis& a) { return coil_impedance_of(a); }
+
+std::vector<double> frequency_grid(double from, double to, int points, bool logarithmic) {
+    require_non_negative("--from", from);
+    require_positive("--to", to);
+    if (!(to > from)) throw InputError("--to", format_value(to) + " Hz is not above --from (" + format_value(from) + " Hz)");
+    if (points < 2 || points > 1000000) throw InputError("--points", std::to_string(points) + "; expected 2 .. 1000000");
+    if (logarithmic && !(from > 0)) throw InputError("--from", "a log sweep must start above 0 Hz");
+    std::vector<double> f(points);
+    for (int i = 0; i < points; ++i) {
+        const double t = static_cast<double>(i) / (points - 1);
+        f[i] = logarithmic ? from * std::pow(to / from, t) : from + (to - from) * t;
+    }
+    f.back() = to;
+    return f;
+}
+
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
-    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, spec.notes};
+    Analysis a = analyze_losses(spec, options);
+    add_self_resonance(a);
+    return a;
+}
+
+namespace {
+
+Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options) {
+    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, {}, {}, {}, {}, spec.notes};
     a.warnings = a.inductance.warnings;
     const Solenoid& s = spec.solenoid;
     const Operating& op = spec.operating;
@@ -88,5 +166,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     }
     return a;
 }
+
+}  // namespace
 
 }  // namespace libcoil

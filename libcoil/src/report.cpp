@@ -41,6 +41,82 @@ void row(std::ostringstream& o, const std::string& label, const std::string& val
     o << line << "\n";
 }
 
+std::string hz(double f) { return format_quantity(f, Dimension::frequency); }
+std::string farad(double c) { return format_quantity(c, Dimension::capacitance); }
+
+void self_resonance_text(std::ostringstream& o, const Analysis& a) {
+    const SelfResonance& sr = a.self_resonance;
+    o << "\nSelf-resonance (" << mounting_name(sr.mounting)
+      << (sr.mounting == Mounting::floating ? ": both terminals free of ground" : ": one terminal on a ground plane")
+      << ")\n";
+    o << "  " << pad("model", 44) << pad("SRF", 13) << "self-capacitance\n";
+    const auto line = [&](const std::string& name, const SelfResonanceMethod& m, const std::string& mark) {
+        if (!m.available) return;
+        std::string s = "  " + pad(name, 44) + pad(hz(m.frequency), 13) + pad(farad(m.capacitance), 12) + mark;
+        while (s.back() == ' ') s.pop_back();
+        o << s << "\n";
+    };
+    line("helical line (sheath helix)", sr.helical_line, "<- recommended");
+    line("helical line, Kandoian & Sichak velocity", sr.kandoian_sichak, "cross-check");
+    line("lumped, Medhurst 1947 C (end grounded)", sr.medhurst, "measured cross-check");
+    row(o, "wire half-wave", hz(sr.half_wave_wire_frequency), "rule of thumb: SRF lies near it, within about 2x");
+    row(o, "axial phase velocity", fixed(sr.phase_velocity / speed_of_light, 4) + " c", "at the first resonance");
+    row(o, "permittivity", fixed(sr.medium.inner, 3) + " inside, " + fixed(sr.medium.outer, 3) + " outside");
+    row(o, "C far below SRF", farad(sr.low_frequency_capacitance), "what a low-frequency measurement extrapolates to");
+    if (a.spec.former) {
+        const FormerSpec& f = *a.spec.former;
+        std::string what = f.material.name + " " + former_kind_name(f.kind) + ", wall " + len(f.wall);
+        if (f.kind == FormerKind::ribbed) what += ", " + std::to_string(f.ribs) + " ribs of " + len(f.rib_width);
+        row(o, "former", what);
+    }
+    if (!a.impedance.empty()) {
+        o << "\n  Impedance between the terminals (helical-line model, with the R and L above)\n";
+        o << "  " << pad("frequency", 13) << pad("|Z|", 13) << pad("phase", 10) << pad("apparent L", 13) << "apparent Q\n";
+        for (const auto& p : a.impedance) {
+            o << "  " << pad(hz(p.frequency), 13) << pad(format_quantity(p.magnitude(), Dimension::resistance), 13)
+              << pad(fixed(p.phase() * 180 / pi, 2) + "\u00b0", 10) << pad(henry(p.apparent_inductance), 13)
+              << (p.frequency > 0 ? fixed(p.q_factor, 1) : "-") << "\n";
+        }
+    }
+}
+
+std::string criterion_label(const CriterionResult& c) {
+    if (c.name == "srf_margin") return "SRF >= " + fixed(c.required, 2) + " x ceiling" + (c.defaulted ? " (default)" : "");
+    if (c.name == "max_deviation") return "|Z| within " + format_quantity(c.required * 100, Dimension::dimensionless) + " % of wL";
+    return "|Z| >= " + format_quantity(c.required, Dimension::resistance);
+}
+
+std::string criterion_detail(const CriterionResult& c) {
+    if (c.name == "srf_margin") {
+        return "SRF " + hz(c.worst) + " = " + fixed(c.margin * c.required, 2) + " x ceiling" +
+               (c.first_failure ? "; passes only up to a ceiling of " + hz(*c.first_failure) : "");
+    }
+    if (c.name == "max_deviation") {
+        std::string s = "worst " + fixed(c.worst * 100, 2) + " % at " + hz(c.worst_frequency) + ", margin " +
+                        fixed(c.margin * 100, 2) + " points";
+        if (c.first_failure) s += "; first fails at " + hz(*c.first_failure);
+        return s;
+    }
+    std::string s = "lowest " + format_quantity(c.worst, Dimension::resistance) + " at " + hz(c.worst_frequency) + " (" +
+                    fixed(20 * std::log10(c.margin), 1) + " dB)";
+    if (c.first_failure) s += "; first fails at " + hz(*c.first_failure);
+    return s;
+}
+
+void band_text(std::ostringstream& o, const Analysis& a) {
+    if (!a.band) return;
+    const BandCheck& b = *a.band;
+    o << "\nBand check, " << hz(b.low) << " to " << hz(b.ceiling) << ": " << (b.pass ? "PASS" : "FAIL") << "\n";
+    for (const auto& c : b.criteria) {
+        o << "  " << pad(c.pass ? "pass" : "FAIL", 6) << pad(criterion_label(c), 30) << criterion_detail(c) << "\n";
+    }
+    if (a.band_srf_by_medhurst) {
+        const auto& m = *a.band_srf_by_medhurst;
+        o << "  " << pad(m.pass ? "pass" : "fail", 6) << pad("same SRF margin, Medhurst C", 30) << criterion_detail(m)
+          << "\n";
+    }
+}
+
 }  // namespace
 
 std::string text_report(const Analysis& a) {
@@ -108,7 +184,6 @@ std::string text_report(const Analysis& a) {
             o << s << "\n";
         }
         o << "  R = R_dc x (skin + proximity); L includes the internal inductance left by the skin effect\n";
-        o << "  Self-capacitance is not modelled yet: L and Q hold only well below the self-resonance\n";
         bool starred = false;
         for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method != "filaments");
         if (starred) {
@@ -118,6 +193,9 @@ std::string text_report(const Analysis& a) {
     } else {
         o << "  (add operating.frequencies to the spec for R, L and Q at frequency)\n";
     }
+
+    self_resonance_text(o, a);
+    band_text(o, a);
 
     if (!a.warnings.empty()) {
         o << "\nWarnings\n";
@@ -180,6 +258,72 @@ std::string json_report(const Analysis& a) {
                           {"method", p.numerical ? "filaments" : "closed-form"}});
     }
     j["at_frequency"] = points;
+
+    const SelfResonance& sr = a.self_resonance;
+    j["self_capacitance_F"] = sr.capacitance;
+    j["self_resonance_Hz"] = sr.frequency;
+    j["self_resonance_method"] = sr.method;
+    nlohmann::ordered_json cap, srf;
+    const auto method = [&](const char* name, const SelfResonanceMethod& m) {
+        if (!m.available) return;
+        cap[name] = m.capacitance;
+        srf[name] = m.frequency;
+    };
+    method("helical_line", sr.helical_line);
+    method("kandoian_sichak", sr.kandoian_sichak);
+    method("medhurst", sr.medhurst);
+    j["self_capacitance_by_method"] = cap;
+    j["self_resonance_by_method"] = srf;
+    j["self_resonance_detail"] = {{"mounting", mounting_name(sr.mounting)},
+                                  {"low_frequency_capacitance_F", sr.low_frequency_capacitance},
+                                  {"phase_velocity_m_per_s", sr.phase_velocity},
+                                  {"inner_relative_permittivity", sr.medium.inner},
+                                  {"outer_relative_permittivity", sr.medium.outer},
+                                  {"half_wave_wire_frequency_Hz", sr.half_wave_wire_frequency}};
+    if (a.spec.former) {
+        const FormerSpec& f = *a.spec.former;
+        j["former"] = {{"material", f.material.name},
+                       {"kind", former_kind_name(f.kind)},
+                       {"wall_m", f.wall},
+                       {"ribs", f.ribs},
+                       {"rib_width_m", f.rib_width},
+                       {"relative_permittivity", f.material.relative_permittivity}};
+    }
+    nlohmann::ordered_json zs = nlohmann::ordered_json::array();
+    for (const auto& p : a.impedance) {
+        zs.push_back({{"frequency_Hz", p.frequency},
+                      {"resistance_ohm", p.impedance.real()},
+                      {"reactance_ohm", p.impedance.imag()},
+                      {"magnitude_ohm", p.magnitude()},
+                      {"phase_deg", p.phase() * 180 / pi},
+                      {"apparent_inductance_H", p.apparent_inductance},
+                      {"q_factor", p.q_factor}});
+    }
+    j["impedance"] = zs;
+    if (a.band) {
+        const auto criterion = [](const CriterionResult& c) {
+            nlohmann::ordered_json r{{"name", c.name},
+                                     {"required", c.required},
+                                     {"pass", c.pass},
+                                     {"margin", c.margin},
+                                     {"worst", c.worst},
+                                     {"worst_frequency_Hz", c.worst_frequency},
+                                     {"first_failure_Hz", nullptr},
+                                     {"default", c.defaulted}};
+            if (c.first_failure) r["first_failure_Hz"] = *c.first_failure;
+            return r;
+        };
+        nlohmann::ordered_json crit = nlohmann::ordered_json::array();
+        std::optional<double> first;
+        for (const auto& c : a.band->criteria) {
+            crit.push_back(criterion(c));
+            if (c.first_failure && (!first || *c.first_failure < *first)) first = *c.first_failure;
+        }
+        j["band"] = {{"low_Hz", a.band->low}, {"ceiling_Hz", a.band->ceiling}, {"pass", a.band->pass},
+                     {"first_failure_Hz", nullptr}, {"criteria", crit}};
+        if (first) j["band"]["first_failure_Hz"] = *first;
+        if (a.band_srf_by_medhurst) j["band"]["srf_margin_by_medhurst"] = criterion(*a.band_srf_by_medhurst);
+    }
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;
     return j.dump(2) + "\n";

@@ -3,6 +3,9 @@
 #include <fstream>
 #include <sstream>
 
+#include <algorithm>
+
+#include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/units.hpp"
 #include "libcoil/wire.hpp"
@@ -52,6 +55,91 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
     return op;
 }
 
+FormerSpec read_former(const detail::YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
+    m.allow_only({"material", "kind", "wall", "ribs", "rib_width"});
+    FormerSpec f;
+    f.material = former_material(m.text("material"), m.path_of("material"));
+    if (auto k = m.optional_text("kind")) {
+        if (*k == "grooved-tube") {
+            f.kind = FormerKind::grooved_tube;
+        } else if (*k == "ribbed") {
+            f.kind = FormerKind::ribbed;
+        } else {
+            throw InputError(m.path_of("kind"), "\"" + *k + "\"; expected grooved-tube or ribbed");
+        }
+    }
+    const double form_radius = form_diameter / 2;
+    if (m.has("wall")) {
+        f.wall = m.positive_quantity("wall", Dimension::length);
+        if (f.wall > form_radius) {
+            throw InputError(m.path_of("wall"), "\"" + m.text("wall") + "\" is thicker than the former's radius (" +
+                                                    format_quantity(form_radius, Dimension::length) + ")");
+        }
+    } else {
+        f.wall = std::min(3e-3, form_radius);
+        notes.push_back("no former.wall given: " + format_quantity(f.wall, Dimension::length) +
+                        " of solid under the winding assumed");
+    }
+    if (f.kind == FormerKind::ribbed) {
+        const double ribs = m.quantity("ribs", Dimension::dimensionless);
+        if (!(ribs >= 3) || ribs != std::floor(ribs) || ribs > 360) {
+            throw InputError(m.path_of("ribs"), "\"" + m.text("ribs") + "\"; expected a whole number of ribs, 3 or more");
+        }
+        f.ribs = static_cast<int>(ribs);
+        f.rib_width = m.positive_quantity("rib_width", Dimension::length);
+        const double fill = f.ribs * f.rib_width / (pi * form_diameter);
+        if (!(fill < 1)) {
+            throw InputError(m.path_of("rib_width"), std::to_string(f.ribs) + " ribs of " + m.text("rib_width") +
+                                                         " cover the whole circumference of the former (" +
+                                                         format_quantity(pi * form_diameter, Dimension::length) +
+                                                         "); expected gaps between the ribs");
+        }
+    } else if (m.has("ribs") || m.has("rib_width")) {
+        throw InputError(m.path_of(m.has("ribs") ? "ribs" : "rib_width"), "applies to kind: ribbed only");
+    }
+    return f;
+}
+
+Surroundings read_surroundings(const detail::YamlMap& m) {
+    m.allow_only({"relative_permittivity", "mounting"});
+    Surroundings s;
+    if (m.has("relative_permittivity")) {
+        s.relative_permittivity = m.quantity("relative_permittivity", Dimension::dimensionless);
+        if (!(s.relative_permittivity >= 1)) {
+            throw InputError(m.path_of("relative_permittivity"),
+                             "\"" + m.text("relative_permittivity") + "\"; expected a relative permittivity of 1 or more");
+        }
+    }
+    if (auto t = m.optional_text("mounting")) {
+        if (*t == "floating") {
+            s.mounting = Mounting::floating;
+        } else if (*t == "grounded-end") {
+            s.mounting = Mounting::grounded_end;
+        } else {
+            throw InputError(m.path_of("mounting"), "\"" + *t + "\"; expected floating or grounded-end");
+        }
+    }
+    return s;
+}
+
+BandSpec read_band(const detail::YamlMap& m) {
+    m.allow_only({"low", "ceiling", "srf_margin", "max_deviation", "min_impedance"});
+    BandSpec b;
+    b.low = m.positive_quantity("low", Dimension::frequency);
+    b.ceiling = m.positive_quantity("ceiling", Dimension::frequency);
+    if (m.has("srf_margin")) b.srf_margin = m.quantity("srf_margin", Dimension::dimensionless);
+    if (m.has("max_deviation")) {
+        if (m.text("max_deviation").find('%') == std::string::npos) {
+            throw InputError(m.path_of("max_deviation"),
+                             "\"" + m.text("max_deviation") + "\"; expected a percentage such as \"10 %\"");
+        }
+        b.max_deviation = m.quantity("max_deviation", Dimension::dimensionless);
+    }
+    if (m.has("min_impedance")) b.min_impedance = m.quantity("min_impedance", Dimension::resistance);
+    validate_band(b);
+    return b;
+}
+
 // Re-labels a geometry error with the YAML path the user actually wrote.
 InputError relabel(const InputError& e, const std::string& diameter_key, const std::string& pitch_key) {
     std::string f = e.field(), detail = e.detail();
@@ -71,7 +159,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
     }
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "coil", "operating"});
+    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
     std::string description = top.optional_text("description").value_or("");
@@ -106,13 +194,29 @@ CoilSpec read_spec(const YAML::Node& root) {
     try {
         const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
         Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
-        return CoilSpec{std::move(name), std::move(description), s, cond, op, std::move(notes)};
+        CoilSpec spec{std::move(name), std::move(description), s, cond, op, {}, {}, {}, {}};
+        if (top.has("former")) spec.former = read_former(top.map("former"), s.form_diameter(), notes);
+        if (top.has("surroundings")) spec.surroundings = read_surroundings(top.map("surroundings"));
+        if (top.has("band")) spec.band = read_band(top.map("band"));
+        spec.notes = std::move(notes);
+        return spec;
     } catch (const InputError& e) {
+        if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 ||
+            e.field().rfind("surroundings", 0) == 0) {
+            throw;
+        }
         throw relabel(e, diameter_key, pitch_key);
     }
 }
 
 }  // namespace
+
+const char* former_kind_name(FormerKind k) { return k == FormerKind::ribbed ? "ribbed" : "grooved-tube"; }
+
+FormerDielectric FormerSpec::dielectric(double form_diameter) const {
+    const double fill = kind == FormerKind::ribbed ? ribs * rib_width / (pi * form_diameter) : 1.0;
+    return FormerDielectric{material.relative_permittivity, wall, fill};
+}
 
 CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
     YAML::Node root;

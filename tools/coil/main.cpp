@@ -2,12 +2,14 @@
 // lives in libcoil. Exit codes: 0 done, 2 bad input (nothing written to stdout or to files), 1 other failure.
 #include <unistd.h>
 
+#include <algorithm>
 #include <chrono>
 #include <cstdio>
 #include <filesystem>
 #include <iostream>
 #include <memory>
 #include <string>
+#include <vector>
 
 #include <CLI/CLI.hpp>
 
@@ -71,6 +73,69 @@ int run_analyze(const AnalyzeOptions& o) {
     return 0;
 }
 
+struct SweepOptions {
+    std::string spec, from, to, out_dir;
+    int points = 401;
+    std::string spacing = "log", model = "helical-line", capacitance = "helical-line";
+};
+
+int run_sweep(const SweepOptions& o) {
+    using libcoil::Dimension;
+    const libcoil::Analysis a = libcoil::analyze(libcoil::load_coil_spec(o.spec));
+    const libcoil::SelfResonance& sr = a.self_resonance;
+    const auto& band = a.spec.band;
+    // Defaults: from below the band (or 1/1000 of the SRF) to past the SRF (and the band).
+    const double from = !o.from.empty() ? libcoil::parse_quantity(o.from, Dimension::frequency, "--from")
+                        : band            ? band->low / 2
+                                          : sr.frequency / 1000;
+    const double to = !o.to.empty() ? libcoil::parse_quantity(o.to, Dimension::frequency, "--to")
+                                    : std::max(3 * sr.frequency, band ? 2 * band->ceiling : 0.0);
+    const auto freqs = libcoil::frequency_grid(from, to, o.points, o.spacing == "log");
+    const auto model = o.model == "lumped" ? libcoil::ImpedanceModel::lumped : libcoil::ImpedanceModel::helical_line;
+    double c = 0;
+    if (o.capacitance == "medhurst") {
+        if (model != libcoil::ImpedanceModel::lumped) {
+            throw libcoil::InputError("--capacitance", "medhurst applies to --model lumped only");
+        }
+        if (!sr.medhurst.available) throw libcoil::InputError("--capacitance", "this coil is outside Medhurst's table");
+        c = sr.medhurst.capacitance;
+    }
+    const auto points = libcoil::coil_impedance(a).sweep(freqs, model, c);
+    const double srf = c > 0 ? sr.medhurst.frequency : sr.frequency;
+    const std::string csv = libcoil::sweep_csv(points);
+    if (o.out_dir.empty()) {
+        std::cout << csv;
+        return 0;
+    }
+    const std::string title = a.spec.name.empty() ? std::filesystem::path(o.spec).stem().string() : a.spec.name;
+    std::vector<std::string> comments{
+        "libcoil " + std::string(libcoil::version) + " one-port S11 of the coil, " + title,
+        std::string("impedance model: ") + libcoil::impedance_model_name(model) + ", self-resonance " +
+            libcoil::format_quantity(srf, Dimension::frequency) + ", " + libcoil::mounting_name(sr.mounting),
+        "inductance " + libcoil::format_quantity(a.inductance.recommended, Dimension::inductance) + ", wire at " +
+            libcoil::format_quantity(a.spec.operating.temperature, Dimension::temperature)};
+    libcoil::SweepPicture pic{title, a.inductance.recommended, srf, {}, {}, libcoil::impedance_model_name(model)};
+    if (band) {
+        pic.band_low = band->low;
+        pic.band_ceiling = band->ceiling;
+    }
+    const std::string svg = libcoil::impedance_svg(points, pic);
+    const std::filesystem::path dir(o.out_dir);
+    const std::string stem = std::filesystem::path(o.spec).stem().string();
+    const auto csv_path = dir / (stem + ".sweep.csv"), s1p_path = dir / (stem + ".s1p"), svg_path = dir / (stem + ".sweep.svg");
+    const std::string s1p = libcoil::touchstone_s1p(points, comments);
+    libcoil::write_file_atomically(csv_path, csv);
+    libcoil::write_file_atomically(s1p_path, s1p);
+    libcoil::write_file_atomically(svg_path, svg);
+    std::cout << "coil sweep: " << points.size() << " points, " << libcoil::format_quantity(from, Dimension::frequency)
+              << " to " << libcoil::format_quantity(to, Dimension::frequency) << " (" << o.spacing << "), "
+              << libcoil::impedance_model_name(model) << " model; self-resonance "
+              << libcoil::format_quantity(srf, Dimension::frequency) << "\n";
+    std::cout << "Written: " << csv_path.string() << "\n         " << s1p_path.string() << "\n         " << svg_path.string()
+              << "\n";
+    return 0;
+}
+
 struct WireOptions {
     std::string gauge, diameter, insulation, enamel = "1";
     std::string frequency = "1 MHz", temperature = "20 degC", conductor = "copper";
@@ -124,6 +189,21 @@ int main(int argc, char** argv) {
                   "Solver: radial layers across the wire (default: enough to resolve the skin depth)");
     a->add_option("--sectors", analyze.sectors, "Solver: angular cells per layer (default: twice the layers)");
 
+    SweepOptions sweep;
+    CLI::App* sw = app.add_subcommand("sweep", "Impedance of the coil over frequency: CSV, Touchstone (.s1p) and a picture");
+    sw->add_option("spec", sweep.spec, "Coil spec (YAML)")->required()->check(CLI::ExistingFile);
+    sw->add_option("--from", sweep.from, "First frequency (default: half the band's low edge, or SRF / 1000)");
+    sw->add_option("--to", sweep.to, "Last frequency (default: 3 x SRF, or twice the band ceiling if higher)");
+    sw->add_option("--points", sweep.points, "Number of frequencies")->capture_default_str();
+    sw->add_option("--spacing", sweep.spacing, "log or linear")->check(CLI::IsMember({"log", "linear"}))->capture_default_str();
+    sw->add_option("--model", sweep.model, "Impedance model: helical-line (distributed) or lumped (R + jwL parallel C)")
+        ->check(CLI::IsMember({"helical-line", "lumped"}))
+        ->capture_default_str();
+    sw->add_option("--capacitance", sweep.capacitance, "Lumped model only: self-capacitance by helical-line or medhurst")
+        ->check(CLI::IsMember({"helical-line", "medhurst"}))
+        ->capture_default_str();
+    sw->add_option("--out", sweep.out_dir, "Write STEM.sweep.csv, STEM.s1p and STEM.sweep.svg here (else CSV to stdout)");
+
     WireOptions wire;
     CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");
     w->add_option("--gauge", wire.gauge, "AWG gauge, e.g. \"AWG 18\"");
@@ -152,6 +232,7 @@ int main(int argc, char** argv) {
     try {
         if (a->parsed()) return run_analyze(analyze);
         if (w->parsed()) return run_wire(wire);
+        if (sw->parsed()) return run_sweep(sweep);
     } catch (const libcoil::InputError& e) {
         std::cerr << "coil: " << e.what() << "\n";
         return exit_bad_input;

@@ -6,7 +6,11 @@
 #include <string>
 #include <vector>
 
+#include <optional>
+
+#include "libcoil/band_check.hpp"
 #include "libcoil/cross_section.hpp"
+#include "libcoil/impedance.hpp"
 #include "libcoil/inductance.hpp"
 #include "libcoil/losses.hpp"
 #include "libcoil/spec.hpp"
@@ -32,10 +36,21 @@ struct Analysis {
     std::vector<CoilAtFrequency> at_frequency;
     std::string loss_method = "closed-form";  // or "filaments"
     Subdivision subdivision{};                // what the solver used
+    SelfResonance self_resonance;
+    // Z between the terminals at each operating frequency: the helical-line form with the R and L above.
+    std::vector<ImpedancePoint> impedance;
+    std::optional<BandCheck> band;
+    // The srf_margin criterion judged with Medhurst's SRF instead (when the band asks for it).
+    std::optional<CriterionResult> band_srf_by_medhurst;
     std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs, cautions
     std::vector<std::string> notes;     // assumptions
 };
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options = {});
+
+// The impedance evaluator of an analysed coil (closed-form R and L), for sweeps and plots.
+CoilImpedance coil_impedance(const Analysis& a);
+// Frequencies from `from` to `to` (Hz), `points` >= 2, log (from > 0) or linear spacing.
+std::vector<double> frequency_grid(double from, double to, int points, bool logarithmic);
 
 }  // namespace libcoil

@@ -14,6 +14,21 @@
 //     frequencies: [1 MHz, 10 MHz]   # or one value
 //     temperature: 40 degC       # of the wire; 20 degC if not given
 //     current: 4 A               # RMS or DC, kept for the thermal and caution checks
+//   former:                      # optional: what the wire is wound on (none: self-supporting in air)
+//     material: PETG             # data/former_materials.yaml
+//     kind: grooved-tube         # or ribbed
+//     wall: 3 mm                 # radial thickness of solid under the winding (3 mm if not given)
+//     ribs: 6                    # ribbed only: number of axial ribs
+//     rib_width: 3 mm            # ribbed only: width of each rib where the wire rests
+//   surroundings:                # optional
+//     relative_permittivity: 1   # of the medium around the coil
+//     mounting: floating         # or grounded-end (one terminal on a ground plane)
+//   band:                        # optional: the band check (band_check.hpp)
+//     low: 150 kHz
+//     ceiling: 30 MHz
+//     srf_margin: 2              # SRF >= 2 x ceiling
+//     max_deviation: 10 %        # | |Z| / (w L) - 1 | <= 10 % up to the ceiling
+//     min_impedance: 250 ohm     # |Z| >= 250 ohm across the band
 //
 // Errors name the YAML path: `coil.pitch: "2 mn": unknown unit "mn"; expected a length such as "2 mm"`.
 // Unknown keys are errors with a "did you mean" hint.
@@ -24,7 +39,11 @@
 #include <string_view>
 #include <vector>
 
+#include <optional>
+
+#include "libcoil/band_check.hpp"
 #include "libcoil/materials.hpp"
+#include "libcoil/self_resonance.hpp"
 #include "libcoil/solenoid.hpp"
 
 namespace libcoil {
@@ -36,12 +55,29 @@ struct Operating {
     bool temperature_given = false;
 };
 
+enum class FormerKind { grooved_tube, ribbed };
+
+struct FormerSpec {
+    FormerMaterial material;
+    FormerKind kind = FormerKind::grooved_tube;
+    double wall = 3e-3;    // m
+    int ribs = 0;          // ribbed only
+    double rib_width = 0;  // m, ribbed only
+    // What the capacitance models see: the solid share of the circumference at the form diameter.
+    FormerDielectric dielectric(double form_diameter) const;
+};
+
+const char* former_kind_name(FormerKind k);  // "grooved-tube", "ribbed"
+
 struct CoilSpec {
     std::string name;
     std::string description;
     Solenoid solenoid;
     Conductor conductor;
     Operating operating;
+    std::optional<FormerSpec> former;
+    Surroundings surroundings;
+    std::optional<BandSpec> band;
     std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
 };
 

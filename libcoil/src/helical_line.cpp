@@ -1,0 +1,137 @@
+#include "libcoil/helical_line.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+#include <limits>
+
+#include <boost/math/special_functions/bessel.hpp>
+#include <boost/math/tools/roots.hpp>
+
+#include "libcoil/constants.hpp"
+#include "libcoil/error.hpp"
+
+namespace libcoil {
+
+namespace {
+
+// Above this argument the ratios come from the asymptotic series (I0 overflows near 713).
+constexpr double asymptotic_from = 500.0;
+
+// sum_k (+-1)^k a_k(nu) / x^k, a_k(nu) = prod_{j<=k} (4 nu^2 - (2j - 1)^2) / (k! 8^k); Abramowitz &
+// Stegun 9.7.1 and 9.7.2. At x >= 500 eight terms leave an error far below 1e-16.
+double hankel_sum(int nu, double x, double sign) {
+    double term = 1, sum = 1;
+    for (int k = 1; k <= 8; ++k) {
+        term *= (4.0 * nu * nu - (2.0 * k - 1) * (2.0 * k - 1)) / (k * 8.0 * x) * sign;
+        sum += term;
+    }
+    return sum;
+}
+
+double ratio_i(double x) {  // I1(x) / I0(x)
+    if (x >= asymptotic_from) return hankel_sum(1, x, -1) / hankel_sum(0, x, -1);
+    return boost::math::cyl_bessel_i(1, x) / boost::math::cyl_bessel_i(0, x);
+}
+
+double ratio_k(double x) {  // K1(x) / K0(x)
+    if (x >= asymptotic_from) return hankel_sum(1, x, 1) / hankel_sum(0, x, 1);
+    return boost::math::cyl_bessel_k(1, x) / boost::math::cyl_bessel_k(0, x);
+}
+
+constexpr std::uintmax_t max_iterations = 200;
+
+template <class F>
+double root_between(F f, double lo, double hi, double f_lo, double f_hi) {
+    std::uintmax_t it = max_iterations;
+    const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi,
+                                                     boost::math::tools::eps_tolerance<double>(44), it);
+    return 0.5 * (r.first + r.second);
+}
+
+}  // namespace
+
+SheathHelix::SheathHelix(double radius, double pitch_angle, HelixMedium medium)
+    : a_(require_positive("radius", radius)), psi_(require_positive("pitch_angle", pitch_angle)), m_(medium) {
+    if (!(pitch_angle < pi / 2)) throw InputError("pitch_angle", format_value(pitch_angle) + " rad; expected below pi/2");
+    require_at_least("medium.inner", require_finite("medium.inner", m_.inner), 1.0, "a relative permittivity");
+    require_at_least("medium.outer", require_finite("medium.outer", m_.outer), 1.0, "a relative permittivity");
+    const double t = std::tan(psi_);
+    tan2_ = t * t;
+}
+
+double SheathHelix::dispersion(double beta, double k) const {
+    const double x1 = a_ * std::sqrt(beta * beta - m_.inner * k * k);
+    const double x2 = a_ * std::sqrt(beta * beta - m_.outer * k * k);
+    if (!(x1 > 0) || !(x2 > 0)) throw DomainError("sheath helix: beta must exceed k sqrt(e) (a slow wave)");
+    const double ri = ratio_i(x1), rk = ratio_k(x2), ka = k * a_;
+    return tan2_ * (x1 / ri + x2 / rk) - ka * ka * (m_.inner * ri / x1 + m_.outer * rk / x2);
+}
+
+double SheathHelix::wavenumber_for(double beta) const {
+    require_positive("beta", beta);
+    const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
+    const auto g = [&](double k) { return dispersion(beta, k); };
+    // At k -> 0 the function is tan^2(psi) (x/rI + x/rK) > 0; at the light line it is negative for a slow wave.
+    const double lo = k_max * 1e-12, g_lo = g(lo), g_hi = g(k_max);
+    if (!(g_hi < 0)) {
+        throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(psi_ * 180 / pi) +
+                          " deg) and permittivity; the helical-line model does not hold");
+    }
+    if (!(g_lo > 0)) return lo;  // vanishing pitch angle: the wave is arbitrarily slow
+    return finite_result("sheath helix", root_between(g, lo, k_max, g_lo, g_hi));
+}
+
+double SheathHelix::axial_wavenumber(double k) const {
+    require_positive("k", k);
+    const double lo = k * std::sqrt(std::max(m_.inner, m_.outer)) * (1 + 1e-13);
+    const auto g = [&](double beta) { return dispersion(beta, k); };
+    const double g_lo = g(lo);
+    if (!(g_lo < 0)) {
+        throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(psi_ * 180 / pi) +
+                          " deg) and permittivity; the helical-line model does not hold");
+    }
+    double hi = 2 * lo, g_hi = g(hi);
+    for (int i = 0; i < 2000 && !(g_hi > 0); ++i) {
+        hi *= 2;
+        g_hi = g(hi);
+    }
+    if (!(g_hi > 0)) throw DomainError("sheath helix: the axial wavenumber could not be bracketed");
+    return finite_result("sheath helix", root_between(g, lo, hi, g_lo, g_hi));
+}
+
+double SheathHelix::phase_velocity(double beta) const { return speed_of_light * wavenumber_for(beta) / beta; }
+
+double sheath_inner_energy_share(double a, double r_in, double r_out, double gamma, double beta) {
+    require_positive("a", a);
+    require_non_negative("r_in", r_in);
+    require_positive("gamma", gamma);
+    require_positive("beta", beta);
+    if (!(r_in < r_out) || r_out > a) throw InputError("r_out", "expected r_in < r_out <= a");
+    using boost::math::cyl_bessel_i;
+    const long double g = gamma, b2 = static_cast<long double>(beta / gamma) * (beta / gamma);
+    // Antiderivatives of r I0(g r)^2 and r I1(g r)^2, times g^2 (which cancels in the share):
+    // u^2/2 (I0^2 - I1^2) and u^2/2 (I1^2 - I0 I2), u = g r. Long double carries I0 to u ~ 1e4.
+    const auto energy = [&](double r) {
+        const long double u = g * r;
+        if (u == 0) return 0.0L;
+        const long double i0 = cyl_bessel_i(0, u), i1 = cyl_bessel_i(1, u), i2 = cyl_bessel_i(2, u);
+        return u * u / 2 * ((i0 * i0 - i1 * i1) + b2 * (i1 * i1 - i0 * i2));
+    };
+    const long double total = energy(a);
+    if (!(total > 0) || !std::isfinite(static_cast<double>(std::log(total)))) {
+        throw DomainError("sheath helix: the inner field energy could not be evaluated");
+    }
+    const double share = static_cast<double>((energy(r_out) - energy(r_in)) / total);
+    return std::clamp(share, 0.0, 1.0);
+}
+
+double kandoian_sichak_velocity_factor(double diameter, double pitch, double wavelength) {
+    require_positive("diameter", diameter);
+    require_positive("pitch", pitch);
+    require_positive("wavelength", wavelength);
+    const double v = 1 / std::sqrt(1 + 20 * std::pow(diameter / pitch, 2.5) * std::sqrt(diameter / wavelength));
+    return finite_result("Kandoian & Sichak", v);
+}
+
+}  // namespace libcoil

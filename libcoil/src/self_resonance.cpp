@@ -1,0 +1,116 @@
+#include "libcoil/self_resonance.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+
+#include <boost/math/tools/roots.hpp>
+
+#include "libcoil/constants.hpp"
+#include "libcoil/error.hpp"
+#include "libcoil/medhurst.hpp"
+#include "libcoil/units.hpp"
+
+namespace libcoil {
+
+const char* mounting_name(Mounting m) { return m == Mounting::floating ? "floating" : "grounded-end"; }
+
+namespace {
+
+double equivalent_capacitance(double f, double inductance) {
+    const double w = 2 * pi * f;
+    return 1 / (w * w * inductance);
+}
+
+// Kandoian & Sichak's resonance: f = v(f) / (2 l) or v(f) / (4 l), with v = c VF / sqrt(e) and the
+// wavelength in the medium. f - v(f) / (m l) rises through zero once on (0, c / (m l sqrt e)].
+double kandoian_sichak_resonance(const Solenoid& s, double waves, double eps) {
+    const double l = s.winding_length(), D = s.mean_diameter(), c = speed_of_light / std::sqrt(eps);
+    const auto h = [&](double f) { return f - kandoian_sichak_velocity_factor(D, s.pitch(), c / f) * c / (waves * l); };
+    const double hi = c / (waves * l), lo = hi * 1e-9;
+    std::uintmax_t it = 200;
+    const auto r = boost::math::tools::toms748_solve(h, lo, hi, h(lo), h(hi), boost::math::tools::eps_tolerance<double>(44), it);
+    return 0.5 * (r.first + r.second);
+}
+
+}  // namespace
+
+SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerDielectric& former,
+                             const Surroundings& surroundings) {
+    require_positive("inductance", inductance);
+    const double eps_out = require_at_least("surroundings.relative_permittivity",
+                                            require_finite("surroundings.relative_permittivity",
+                                                           surroundings.relative_permittivity),
+                                            1.0, "a relative permittivity");
+    require_non_negative("former.wall", former.wall);
+    if (former.wall > 0) {
+        require_at_least("former.relative_permittivity", require_finite("former.relative_permittivity",
+                                                                        former.relative_permittivity),
+                         1.0, "a relative permittivity");
+        if (!(former.fill > 0 && former.fill <= 1)) {
+            throw InputError("former.fill", format_value(former.fill) + "; expected a share in (0, 1]");
+        }
+    }
+
+    SelfResonance r;
+    r.inductance = inductance;
+    r.mounting = surroundings.mounting;
+    r.winding_length = s.winding_length();
+    r.pitch_angle = s.pitch_angle();
+    r.radius = s.mean_radius();
+    r.half_wave_wire_frequency = speed_of_light / (2 * s.helix_length());
+    const double waves = surroundings.mounting == Mounting::floating ? 2.0 : 4.0;  // l = lambda / 2 or / 4
+    r.resonance_wavenumber = 2 * pi / (waves * r.winding_length);
+
+    // The former shell enters the inner permittivity by its share of the mode's inner field energy,
+    // which itself depends on the mode: a fixed point, reached in a few steps.
+    const double form_radius = s.form_diameter() / 2;
+    const double shell_in = std::max(0.0, form_radius - former.wall);
+    HelixMedium medium{eps_out, eps_out};
+    const double beta = r.resonance_wavenumber;
+    double k = 0;
+    for (int i = 0; i < 50; ++i) {
+        k = SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta);
+        if (!(former.wall > 0) || former.relative_permittivity == eps_out) break;
+        const double gamma = std::sqrt(beta * beta - medium.inner * k * k);
+        const double share = sheath_inner_energy_share(r.radius, shell_in, form_radius, gamma, beta);
+        const double next = eps_out + (former.relative_permittivity - eps_out) * former.fill * share;
+        const bool done = std::fabs(next - medium.inner) < 1e-12 * next;
+        medium.inner = next;
+        if (done) break;
+    }
+    r.medium = medium;
+    r.phase_velocity = speed_of_light * k / beta;
+    r.helical_line.available = true;
+    r.helical_line.frequency = finite_result("helical line", speed_of_light * k / (2 * pi));
+    r.helical_line.capacitance = equivalent_capacitance(r.helical_line.frequency, inductance);
+    r.low_frequency_capacitance = pi * pi / 12 * r.helical_line.capacitance;
+
+    r.kandoian_sichak.available = true;
+    r.kandoian_sichak.frequency = kandoian_sichak_resonance(s, waves, 0.5 * (medium.inner + medium.outer));
+    r.kandoian_sichak.capacitance = equivalent_capacitance(r.kandoian_sichak.frequency, inductance);
+
+    const double ratio = s.winding_length() / s.mean_diameter();
+    if (ratio >= medhurst_min_ratio && ratio <= medhurst_max_ratio) {
+        r.medhurst.available = true;
+        r.medhurst.capacitance = medhurst_capacitance(s.mean_diameter(), s.winding_length());
+        r.medhurst.frequency = 1 / (2 * pi * std::sqrt(inductance * r.medhurst.capacitance));
+    } else {
+        r.warnings.push_back("l/D = " + format_value(ratio) +
+                             " is outside Medhurst's table (0.1 .. 50): no empirical cross-check of the self-capacitance");
+    }
+
+    r.frequency = r.helical_line.frequency;
+    r.capacitance = r.helical_line.capacitance;
+    if (former.wall > 0 && former.relative_permittivity != eps_out) {
+        r.notes.push_back("the former raises the inner permittivity the helical line sees to " +
+                          format_value(medium.inner) + " (its share of the inner field energy)");
+    }
+    if (s.pitch_to_wire() < 1.5) {
+        r.notes.push_back("close-wound turns: the turn-to-turn capacitance, which no model here holds, lowers the "
+                          "self-resonance further");
+    }
+    return r;
+}
+
+}  // namespace libcoil
