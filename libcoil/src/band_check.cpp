@@ -5,6 +5,7 @@
 
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "libcoil/units.hpp"
 
 namespace libcoil {
 
@@ -52,8 +53,8 @@ void validate_band(const BandSpec& b) {
     require_positive("band.low", b.low);
     require_positive("band.ceiling", b.ceiling);
     if (!(b.ceiling > b.low)) {
-        throw InputError("band.ceiling", format_value(b.ceiling) + " Hz is not above band.low (" + format_value(b.low) +
-                                             " Hz); expected the top of the band");
+        throw InputError("band.ceiling", format_quantity(b.ceiling, Dimension::frequency) + " is not above band.low (" +
+                                             format_quantity(b.low, Dimension::frequency) + "); expected the top of the band");
     }
     if (b.srf_margin) {
         require_finite("band.srf_margin", *b.srf_margin);

@@ -54,3 +54,44 @@ def test_maxwell(a, b, z):
 def test_quantity_parser_never_returns_non_finite(text):
     for dim in ("length", "inductance", "temperature", "dimensionless"):
         finite_or_error(libcoil.parse_quantity, text, dim, "f")
+
+
+@settings(max_examples=300, deadline=None)
+@given(anything, anything, anything)
+def test_capacitance_models(r, d, p):
+    finite_or_error(libcoil.medhurst_h, r)
+    finite_or_error(libcoil.medhurst_h_formula, r)
+    finite_or_error(libcoil.medhurst_capacitance, d, p)
+    finite_or_error(libcoil.kandoian_sichak_velocity_factor, d, p, r)
+
+
+@settings(max_examples=300, deadline=None)
+@given(anything, anything, st.floats(min_value=1, max_value=100), anything)
+def test_sheath_helix(a, psi, eps, beta):
+    try:
+        h = libcoil.SheathHelix(a, psi, eps, 1.0)
+    except ERRORS:
+        return
+    finite_or_error(h.wavenumber_for, beta)
+    finite_or_error(h.axial_wavenumber, beta)
+
+
+@settings(max_examples=150, deadline=None)
+@given(st.floats(min_value=1e-4, max_value=10), st.floats(min_value=1, max_value=3000),
+       st.floats(min_value=1.0, max_value=30), st.floats(min_value=1e-5, max_value=5e-3),
+       st.floats(min_value=1, max_value=10), st.sampled_from(["floating", "grounded-end"]))
+def test_self_resonance_is_finite(D, N, spacing, d, eps, mounting):
+    # Any buildable coil: the self-resonance by every model is finite, or a clear error.
+    wire = libcoil.Wire(diameter=d, insulation=0.0)
+    try:
+        s = libcoil.Solenoid(mean_diameter=D, turns=N, pitch=spacing * d, wire=wire)
+        r = libcoil.self_resonance(s, libcoil.inductance(s).recommended, former_permittivity=eps,
+                                   former_wall=min(D / 2 - d, 3e-3) if D / 2 > d else 0.0, former_fill=0.5,
+                                   mounting=mounting)
+    except ERRORS:
+        return
+    for key in ("frequency", "capacitance", "low_frequency_capacitance", "phase_velocity", "inner_permittivity"):
+        assert math.isfinite(r[key]) and r[key] > 0, (key, r[key])
+    for m in ("helical_line", "kandoian_sichak", "medhurst"):
+        if r[m]["available"]:
+            assert math.isfinite(r[m]["frequency"]) and r[m]["frequency"] > 0
