@@ -36,8 +36,10 @@ void add_self_resonance(Analysis& a) {
         z.frequency = p.frequency;
         z.wire_resistance = p.resistance;
         z.wire_inductance = p.inductance;
-        z.impedance = line_impedance(w, p.resistance, p.inductance, zc.phase_velocity(p.frequency), s.winding_length(),
-                                     sr.mounting);
+        z.impedance = sr.helical_line.available
+                          ? line_impedance(w, p.resistance, p.inductance, zc.phase_velocity(p.frequency),
+                                           s.winding_length(), sr.mounting)
+                          : lumped_impedance(w, p.resistance, p.inductance, sr.capacitance);
         z.apparent_inductance = p.frequency > 0 ? z.impedance.imag() / w : p.inductance;
         z.q_factor = z.impedance.imag() / z.impedance.real();
         a.impedance.push_back(z);

@@ -78,7 +78,7 @@ double SheathHelix::wavenumber_for(double beta) const {
         throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(psi_ * 180 / pi) +
                           " deg) and permittivity; the helical-line model does not hold");
     }
-    if (!(g_lo > 0)) return lo;  // vanishing pitch angle: the wave is arbitrarily slow
+    if (!(g_lo > 0)) throw DomainError("sheath helix: the pitch angle is too small to resolve the wave");
     return finite_result("sheath helix", root_between(g, lo, k_max, g_lo, g_hi));
 }
 

@@ -76,6 +76,7 @@ CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, d
 
 double CoilImpedance::phase_velocity(double frequency) const {
     require_non_negative("frequency", frequency);
+    if (!sr_.helical_line.available) throw DomainError("the helical-line model does not hold for this coil");
     if (frequency <= sr_.frequency) return sr_.phase_velocity;
     const double k = 2 * pi * frequency / speed_of_light;
     const double beta = helix_.axial_wavenumber(k);
@@ -91,6 +92,8 @@ std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& freq
                                                  double capacitance) const {
     require_non_negative("capacitance", capacitance);
     const double c = capacitance > 0 ? capacitance : sr_.capacitance;
+    // Without a helical-line solution (outside the sheath helix's domain) the lumped form stands in.
+    if (!sr_.helical_line.available) model = ImpedanceModel::lumped;
     const auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies);
     std::vector<ImpedancePoint> out;
     out.reserve(frequencies.size());

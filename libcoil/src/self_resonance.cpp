@@ -75,27 +75,36 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     const double shell_in = std::max(0.0, form_radius - former.wall);
     HelixMedium medium{eps_out, eps_out};
     const double beta = r.resonance_wavenumber;
-    double k = 0;
-    for (int i = 0; i < 50; ++i) {
-        k = SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta);
-        if (!(former.wall > 0) || former.relative_permittivity == eps_out) break;
-        const double gamma = std::sqrt(beta * beta - medium.inner * k * k);
-        const double share = sheath_inner_energy_share(r.radius, shell_in, form_radius, gamma, beta);
-        const double next = eps_out + (former.relative_permittivity - eps_out) * former.fill * share;
-        const bool done = std::fabs(next - medium.inner) < 1e-12 * next;
-        medium.inner = next;
-        if (done) break;
+    std::string line_failure;
+    try {
+        double k = 0;
+        for (int i = 0; i < 50; ++i) {
+            k = SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta);
+            if (!(former.wall > 0) || former.relative_permittivity == eps_out) break;
+            const double gamma = std::sqrt(beta * beta - medium.inner * k * k);
+            const double share = sheath_inner_energy_share(r.radius, shell_in, form_radius, gamma, beta);
+            const double next = eps_out + (former.relative_permittivity - eps_out) * former.fill * share;
+            const bool done = std::fabs(next - medium.inner) < 1e-12 * next;
+            medium.inner = next;
+            if (done) break;
+        }
+        r.phase_velocity = speed_of_light * k / beta;
+        r.helical_line.available = true;
+        r.helical_line.frequency = finite_result("helical line", speed_of_light * k / (2 * pi));
+        r.helical_line.capacitance = equivalent_capacitance(r.helical_line.frequency, inductance);
+        r.low_frequency_capacitance = pi * pi / 12 * r.helical_line.capacitance;
+    } catch (const DomainError& e) {
+        line_failure = e.what();
     }
     r.medium = medium;
-    r.phase_velocity = speed_of_light * k / beta;
-    r.helical_line.available = true;
-    r.helical_line.frequency = finite_result("helical line", speed_of_light * k / (2 * pi));
-    r.helical_line.capacitance = equivalent_capacitance(r.helical_line.frequency, inductance);
-    r.low_frequency_capacitance = pi * pi / 12 * r.helical_line.capacitance;
 
-    r.kandoian_sichak.available = true;
-    r.kandoian_sichak.frequency = kandoian_sichak_resonance(s, waves, 0.5 * (medium.inner + medium.outer));
-    r.kandoian_sichak.capacitance = equivalent_capacitance(r.kandoian_sichak.frequency, inductance);
+    try {
+        r.kandoian_sichak.frequency = kandoian_sichak_resonance(s, waves, 0.5 * (medium.inner + medium.outer));
+        r.kandoian_sichak.capacitance = equivalent_capacitance(r.kandoian_sichak.frequency, inductance);
+        r.kandoian_sichak.available = true;
+    } catch (const DomainError&) {
+        r.warnings.push_back("Kandoian & Sichak's velocity gave no resonance for this coil");
+    }
 
     const double ratio = s.winding_length() / s.mean_diameter();
     if (ratio >= medhurst_min_ratio && ratio <= medhurst_max_ratio) {
@@ -107,8 +116,20 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
                              " is outside Medhurst's table (0.1 .. 50): no empirical cross-check of the self-capacitance");
     }
 
-    r.frequency = r.helical_line.frequency;
-    r.capacitance = r.helical_line.capacitance;
+    if (r.helical_line.available) {
+        r.frequency = r.helical_line.frequency;
+        r.capacitance = r.helical_line.capacitance;
+    } else if (r.medhurst.available) {
+        // Outside the sheath helix's domain, Medhurst's measured capacitance is the model that holds.
+        r.method = "medhurst";
+        r.frequency = r.medhurst.frequency;
+        r.capacitance = r.medhurst.capacitance;
+        r.low_frequency_capacitance = r.medhurst.capacitance;
+        r.warnings.push_back(line_failure + "; the self-resonance comes from Medhurst's capacitance instead, and the "
+                             "impedance from the lumped model");
+    } else {
+        throw DomainError(line_failure + ", and l/D is outside Medhurst's table: no self-resonance model holds");
+    }
     if (former.wall > 0 && former.relative_permittivity != eps_out) {
         r.notes.push_back("the former raises the inner permittivity the helical line sees to " +
                           three_digits(medium.inner) + " (its share of the inner field energy)");

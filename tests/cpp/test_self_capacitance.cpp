@@ -7,6 +7,7 @@
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/helical_line.hpp"
+#include "libcoil/impedance.hpp"
 #include "libcoil/inductance.hpp"
 #include "libcoil/medhurst.hpp"
 #include "libcoil/self_resonance.hpp"
@@ -243,4 +244,21 @@ TEST(SelfResonance, FormersAndSurroundingsLowerTheSrf) {
     EXPECT_GT(tube.medium.inner, 1.0);
     EXPECT_LT(tube.medium.inner, 2.9);
     EXPECT_THROW(srf_of(s, FormerDielectric{2.9, 3e-3, 1.5}), InputError);
+}
+
+TEST(SelfResonance, OutsideTheSheathHelixFallsBackToMedhurst) {
+    // Turns two diameters apart over a solid dielectric core: the inner light line is slower than any helix
+    // wave, so no slow wave exists. Medhurst's measured C is the model that holds; the report says so.
+    const Solenoid s = coil(0.02, 5, 0.04);
+    const double L = inductance(s).recommended;
+    const auto r = self_resonance(s, L, FormerDielectric{3.0, 9e-3, 1.0});
+    EXPECT_FALSE(r.helical_line.available);
+    EXPECT_EQ(r.method, "medhurst");
+    EXPECT_EQ(r.frequency, r.medhurst.frequency);
+    ASSERT_FALSE(r.warnings.empty());
+    EXPECT_NE(r.warnings.back().find("Medhurst"), std::string::npos);
+    const CoilImpedance z(s, conductor("copper"), 293.15, L, r);
+    const auto p = z.at(0.5 * r.frequency);  // the lumped form stands in for the line
+    EXPECT_NEAR(p.impedance.imag(), std::imag(lumped_impedance(2 * pi * p.frequency, p.wire_resistance,
+                                                                p.wire_inductance, r.capacitance)), 1e-9);
 }

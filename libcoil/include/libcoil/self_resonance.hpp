@@ -11,13 +11,15 @@
 // Why the helical line is recommended: it holds the pitch, the former, the surroundings and the mounting,
 //          and has the right physical limits; Medhurst's table is an empirical figure for one arrangement
 //          (one end on a grounded plate) with no pitch or dielectric. It is reported beside it as the
-//          measured cross-check, and the band check says when the two disagree on a verdict.
+//          measured cross-check, and the band check says when the two disagree on a verdict. Where the
+//          sheath helix has no slow wave (steep pitch over a dense core) Medhurst's value is recommended
+//          instead, with a warning; outside both, DomainError.
 // Source:  medhurst.hpp, helical_line.hpp. D. W. Knight, "The self-resonance and self-capacitance of
 //          solenoid coils" (2016, from memory) for the line view of self-capacitance.
 // Domain:  single-layer coils below and near the first resonance. Neither model holds the turn-to-turn
 //          capacitance of close-wound enamelled turns, which adds to C; leads and nearby metal add more.
-// Accuracy: see docs/models.md: Kandoian & Sichak within 16 % of the sheath helix on the test grid; the
-//          helical line's grounded-end low-frequency C is 0.39 .. 0.69 of Medhurst's table for l/D 0.4 .. 50.
+// Accuracy: see docs/models.md: Kandoian & Sichak 3 .. 15 % below the sheath helix on the test grid; the
+//          helical line's grounded-end low-frequency C is 0.39 .. 0.70 of Medhurst's table for l/D 0.4 .. 50.
 #pragma once
 
 #include <string>
