@@ -9,15 +9,12 @@
 #include "libcoil/error.hpp"
 #include "libcoil/skin_effect.hpp"
 #include "libcoil/units.hpp"
+#include "text_format.hpp"
 
 namespace libcoil {
 
 namespace {
-std::string three_digits(double v) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.3g", v);
-    return buf;
-}
+std::string three_digits(double v) { return detail::significant(v, 3); }
 
 CoilImpedance coil_impedance_of(const Analysis& a);
 

@@ -9,6 +9,7 @@
 #include "libcoil/constants.hpp"
 #include "libcoil/units.hpp"
 #include "libcoil/version.hpp"
+#include "text_format.hpp"
 
 namespace libcoil {
 
@@ -17,11 +18,7 @@ namespace {
 std::string len(double m) { return format_quantity(m, Dimension::length); }
 std::string henry(double h) { return format_quantity(h, Dimension::inductance); }
 
-std::string fixed(double v, int decimals) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
-    return buf;
-}
+using detail::fixed;
 
 std::string signed_percent(double v) {
     char buf[64];

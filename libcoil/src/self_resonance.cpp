@@ -11,18 +11,13 @@
 #include "libcoil/error.hpp"
 #include "libcoil/medhurst.hpp"
 #include "libcoil/units.hpp"
+#include "text_format.hpp"
 
 namespace libcoil {
 
 const char* mounting_name(Mounting m) { return m == Mounting::floating ? "floating" : "grounded-end"; }
 
 namespace {
-
-std::string three_digits(double v) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.3g", v);
-    return buf;
-}
 
 double equivalent_capacitance(double f, double inductance) {
     const double w = 2 * pi * f;
@@ -132,7 +127,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     }
     if (former.wall > 0 && former.relative_permittivity != eps_out) {
         r.notes.push_back("the former raises the inner permittivity the helical line sees to " +
-                          three_digits(medium.inner) + " (its share of the inner field energy)");
+                          detail::significant(medium.inner, 3) + " (its share of the inner field energy)");
     }
     if (s.pitch_to_wire() < 1.5) {
         r.notes.push_back("close-wound turns: the turn-to-turn capacitance, which no model here holds, lowers the "

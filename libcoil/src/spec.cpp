@@ -59,14 +59,8 @@ FormerSpec read_former(const detail::YamlMap& m, double form_diameter, std::vect
     m.allow_only({"material", "kind", "wall", "ribs", "rib_width"});
     FormerSpec f;
     f.material = former_material(m.text("material"), m.path_of("material"));
-    if (auto k = m.optional_text("kind")) {
-        if (*k == "grooved-tube") {
-            f.kind = FormerKind::grooved_tube;
-        } else if (*k == "ribbed") {
-            f.kind = FormerKind::ribbed;
-        } else {
-            throw InputError(m.path_of("kind"), "\"" + *k + "\"; expected grooved-tube or ribbed");
-        }
+    if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
+        f.kind = *k == 0 ? FormerKind::grooved_tube : FormerKind::ribbed;
     }
     const double form_radius = form_diameter / 2;
     if (m.has("wall")) {
@@ -110,14 +104,8 @@ Surroundings read_surroundings(const detail::YamlMap& m) {
                              "\"" + m.text("relative_permittivity") + "\"; expected a relative permittivity of 1 or more");
         }
     }
-    if (auto t = m.optional_text("mounting")) {
-        if (*t == "floating") {
-            s.mounting = Mounting::floating;
-        } else if (*t == "grounded-end") {
-            s.mounting = Mounting::grounded_end;
-        } else {
-            throw InputError(m.path_of("mounting"), "\"" + *t + "\"; expected floating or grounded-end");
-        }
+    if (auto k = m.optional_choice("mounting", {"floating", "grounded-end"})) {
+        s.mounting = *k == 0 ? Mounting::floating : Mounting::grounded_end;
     }
     return s;
 }

@@ -8,22 +8,14 @@
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/units.hpp"
+#include "text_format.hpp"
 
 namespace libcoil {
 
 namespace {
 
-std::string g(double v, int digits) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.*g", digits, v);
-    return buf;
-}
-
-std::string px(double v) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.2f", v);
-    return buf;
-}
+std::string g(double v, int digits) { return detail::significant(v, digits); }
+std::string px(double v) { return detail::fixed(v, 2); }
 
 std::string xml_escape(const std::string& s) {
     std::string o;

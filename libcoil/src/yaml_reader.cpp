@@ -98,6 +98,20 @@ std::vector<double> YamlMap::quantity_list(std::string_view key, Dimension d) co
     return out;
 }
 
+std::optional<std::size_t> YamlMap::optional_choice(std::string_view key,
+                                                    std::initializer_list<std::string_view> words) const {
+    const auto t = optional_text(key);
+    if (!t) return std::nullopt;
+    std::string expected;
+    std::size_t i = 0;
+    for (auto w : words) {
+        if (*t == w) return i;
+        expected += (i == 0 ? "" : i + 1 == words.size() ? " or " : ", ") + std::string(w);
+        ++i;
+    }
+    throw InputError(path_of(key), "\"" + *t + "\"; expected " + expected);
+}
+
 double YamlMap::positive_quantity(std::string_view key, Dimension d) const {
     const double v = quantity(key, d);
     if (!(v > 0)) throw InputError(path_of(key), "\"" + text(key) + "\" must be greater than zero");

@@ -36,6 +36,9 @@ public:
     // A list of quantities (a single value counts as a list of one); errors name the element, key[i].
     std::vector<double> quantity_list(std::string_view key, Dimension d) const;
     double non_negative_quantity(std::string_view key, Dimension d) const;
+    // An optional word from a fixed list: its index, or nullopt when the key is absent. Any other word is
+    // an InputError listing the choices.
+    std::optional<std::size_t> optional_choice(std::string_view key, std::initializer_list<std::string_view> words) const;
 
 private:
     YAML::Node scalar(std::string_view key) const;

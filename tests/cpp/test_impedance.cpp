@@ -1,6 +1,8 @@
 // Impedance over frequency (lumped and helical-line forms) and the band check.
 #include <gtest/gtest.h>
 
+#include "spec_errors.hpp"
+
 #include <cmath>
 
 #include "libcoil/analysis.hpp"
@@ -21,15 +23,6 @@ struct Fixture {
     SelfResonance sr = self_resonance(coil, L);
     CoilImpedance z{coil, conductor("copper"), 293.15, L, sr};
 };
-
-std::string error_of(const std::string& yaml) {
-    try {
-        parse_coil_spec(yaml, "test.yaml");
-    } catch (const InputError& e) {
-        return e.what();
-    }
-    return "(no error)";
-}
 
 const std::string coil_yaml = R"(
 coil:

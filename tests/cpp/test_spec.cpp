@@ -1,6 +1,8 @@
 // The YAML coil spec: what it accepts, and the errors it gives.
 #include <gtest/gtest.h>
 
+#include "spec_errors.hpp"
+
 #include "libcoil/analysis.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/spec.hpp"
@@ -9,15 +11,6 @@
 using namespace libcoil;
 
 namespace {
-
-std::string error_of(const std::string& yaml) {
-    try {
-        parse_coil_spec(yaml, "test.yaml");
-    } catch (const InputError& e) {
-        return e.what();
-    }
-    return "(no error)";
-}
 
 const char* base = R"(
 coil:
