@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdint>
 #include <limits>
+#include <numbers>
 
 #include <boost/math/special_functions/bessel.hpp>
 #include <boost/math/tools/roots.hpp>
@@ -29,12 +30,17 @@ double hankel_sum(int nu, double x, double sign) {
     return sum;
 }
 
+// Below this argument the leading small-argument forms hold to 1e-16 (and K1 ~ 1/x would overflow near 1e-308).
+constexpr double small_from = 1e-8;
+
 double ratio_i(double x) {  // I1(x) / I0(x)
+    if (x < small_from) return x / 2;  // A&S 9.6.7: I0 ~ 1, I1 ~ x/2
     if (x >= asymptotic_from) return hankel_sum(1, x, -1) / hankel_sum(0, x, -1);
     return boost::math::cyl_bessel_i(1, x) / boost::math::cyl_bessel_i(0, x);
 }
 
 double ratio_k(double x) {  // K1(x) / K0(x)
+    if (x < small_from) return 1 / (x * (std::log(2 / x) - std::numbers::egamma));  // A&S 9.6.8, 9.6.9
     if (x >= asymptotic_from) return hankel_sum(1, x, 1) / hankel_sum(0, x, 1);
     return boost::math::cyl_bessel_k(1, x) / boost::math::cyl_bessel_k(0, x);
 }

@@ -53,10 +53,19 @@ void self_resonance_text(std::ostringstream& o, const Analysis& a) {
         while (s.back() == ' ') s.pop_back();
         o << s << "\n";
     };
+    const bool by_line = sr.method == "helical_line";
     line("helical line (sheath helix)", sr.helical_line, "<- recommended");
     line("helical line, Kandoian & Sichak velocity", sr.kandoian_sichak, "cross-check");
-    line("lumped, Medhurst 1947 C (end grounded)", sr.medhurst, "measured cross-check");
-    row(o, "wire half-wave", hz(sr.half_wave_wire_frequency), "rule of thumb: SRF lies near it, within about 2x");
+    line("lumped, Medhurst 1947 C (end grounded)", sr.medhurst, by_line ? "measured cross-check" : "<- recommended");
+    if (by_line) {
+        o << "  The helical line holds the pitch, the former and the mounting; Medhurst's table is a measurement\n"
+             "  of coils with one end grounded, shown as the cross-check.\n";
+    }
+    if (sr.mounting == Mounting::floating) {
+        row(o, "wire half-wave", hz(sr.half_wave_wire_frequency), "rule of thumb: SRF lies near it, within about 2x");
+    } else {
+        row(o, "wire quarter-wave", hz(sr.half_wave_wire_frequency / 2), "rule of thumb: SRF lies near it, within about 2x");
+    }
     row(o, "axial phase velocity", fixed(sr.phase_velocity / speed_of_light, 4) + " c", "at the first resonance");
     row(o, "permittivity", fixed(sr.medium.inner, 3) + " inside, " + fixed(sr.medium.outer, 3) + " outside");
     row(o, "C far below SRF", farad(sr.low_frequency_capacitance), "what a low-frequency measurement extrapolates to");

@@ -62,7 +62,7 @@ struct SelfResonance {
     double inductance = 0;                 // H, the low-frequency L used
     double winding_length = 0;             // m
     double resonance_wavenumber = 0;       // rad/m, axial beta at the first resonance
-    double phase_velocity = 0;             // m/s, axial, at the first resonance
+    double phase_velocity = 0;             // m/s, axial, at the first resonance (0 without a helical line)
     double pitch_angle = 0;                // rad
     double radius = 0;                     // m, sheath radius (mean radius)
     HelixMedium medium;                    // effective permittivities inside and outside
