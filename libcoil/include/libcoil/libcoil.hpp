@@ -28,6 +28,7 @@
 #include "libcoil/solenoid.hpp"
 #include "libcoil/spec.hpp"
 #include "libcoil/sweep_output.hpp"
+#include "libcoil/thermal.hpp"
 #include "libcoil/units.hpp"
 #include "libcoil/version.hpp"
 #include "libcoil/wheeler.hpp"
