@@ -9,6 +9,7 @@
 #include "libcoil/error.hpp"
 #include "libcoil/units.hpp"
 #include "libcoil/wire.hpp"
+#include "spec_sections.hpp"
 #include "yaml_reader.hpp"
 
 namespace libcoil {
@@ -53,79 +54,6 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
     }
     if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);
     return op;
-}
-
-FormerSpec read_former(const detail::YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
-    m.allow_only({"material", "kind", "wall", "ribs", "rib_width"});
-    FormerSpec f;
-    f.material = former_material(m.text("material"), m.path_of("material"));
-    if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
-        f.kind = *k == 0 ? FormerKind::grooved_tube : FormerKind::ribbed;
-    }
-    const double form_radius = form_diameter / 2;
-    if (m.has("wall")) {
-        f.wall = m.positive_quantity("wall", Dimension::length);
-        if (f.wall > form_radius) {
-            throw InputError(m.path_of("wall"), "\"" + m.text("wall") + "\" is thicker than the former's radius (" +
-                                                    format_quantity(form_radius, Dimension::length) + ")");
-        }
-    } else {
-        f.wall = std::min(3e-3, form_radius);
-        notes.push_back("no former.wall given: " + format_quantity(f.wall, Dimension::length) +
-                        " of solid under the winding assumed");
-    }
-    if (f.kind == FormerKind::ribbed) {
-        const double ribs = m.quantity("ribs", Dimension::dimensionless);
-        if (!(ribs >= 3) || ribs != std::floor(ribs) || ribs > 360) {
-            throw InputError(m.path_of("ribs"), "\"" + m.text("ribs") + "\"; expected a whole number of ribs, 3 or more");
-        }
-        f.ribs = static_cast<int>(ribs);
-        f.rib_width = m.positive_quantity("rib_width", Dimension::length);
-        const double fill = f.ribs * f.rib_width / (pi * form_diameter);
-        if (!(fill < 1)) {
-            throw InputError(m.path_of("rib_width"), std::to_string(f.ribs) + " ribs of " + m.text("rib_width") +
-                                                         " cover the whole circumference of the former (" +
-                                                         format_quantity(pi * form_diameter, Dimension::length) +
-                                                         "); expected gaps between the ribs");
-        }
-    } else if (m.has("ribs") || m.has("rib_width")) {
-        throw InputError(m.path_of(m.has("ribs") ? "ribs" : "rib_width"), "applies to kind: ribbed only");
-    }
-    return f;
-}
-
-Surroundings read_surroundings(const detail::YamlMap& m) {
-    m.allow_only({"relative_permittivity", "mounting"});
-    Surroundings s;
-    if (m.has("relative_permittivity")) {
-        s.relative_permittivity = m.quantity("relative_permittivity", Dimension::dimensionless);
-        if (!(s.relative_permittivity >= 1)) {
-            throw InputError(m.path_of("relative_permittivity"),
-                             "\"" + m.text("relative_permittivity") + "\"; expected a relative permittivity of 1 or more");
-        }
-    }
-    if (auto k = m.optional_choice("mounting", {"floating", "grounded-end"})) {
-        s.mounting = *k == 0 ? Mounting::floating : Mounting::grounded_end;
-    }
-    return s;
-}
-
-BandSpec read_band(const detail::YamlMap& m) {
-    m.allow_only({"low", "ceiling", "srf_margin", "max_deviation", "min_impedance"});
-    BandSpec b;
-    b.low = m.positive_quantity("low", Dimension::frequency);
-    b.ceiling = m.positive_quantity("ceiling", Dimension::frequency);
-    if (m.has("srf_margin")) b.srf_margin = m.quantity("srf_margin", Dimension::dimensionless);
-    if (m.has("max_deviation")) {
-        if (m.text("max_deviation").find('%') == std::string::npos) {
-            throw InputError(m.path_of("max_deviation"),
-                             "\"" + m.text("max_deviation") + "\"; expected a percentage such as \"10 %\"");
-        }
-        b.max_deviation = m.quantity("max_deviation", Dimension::dimensionless);
-    }
-    if (m.has("min_impedance")) b.min_impedance = m.quantity("min_impedance", Dimension::resistance);
-    validate_band(b);
-    return b;
 }
 
 // Re-labels a geometry error with the YAML path the user actually wrote.
@@ -183,9 +111,9 @@ CoilSpec read_spec(const YAML::Node& root) {
         const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
         Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
         CoilSpec spec{std::move(name), std::move(description), s, cond, op, {}, {}, {}, {}};
-        if (top.has("former")) spec.former = read_former(top.map("former"), s.form_diameter(), notes);
-        if (top.has("surroundings")) spec.surroundings = read_surroundings(top.map("surroundings"));
-        if (top.has("band")) spec.band = read_band(top.map("band"));
+        if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
+        if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
+        if (top.has("band")) spec.band = detail::read_band(top.map("band"));
         spec.notes = std::move(notes);
         return spec;
     } catch (const InputError& e) {
@@ -206,26 +134,109 @@ FormerDielectric FormerSpec::dielectric(double form_diameter) const {
     return FormerDielectric{material.relative_permittivity, wall, fill};
 }
 
-CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
-    YAML::Node root;
+namespace detail {
+
+FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
+    m.allow_only({"material", "kind", "wall", "ribs", "rib_width"});
+    FormerSpec f;
+    f.material = former_material(m.text("material"), m.path_of("material"));
+    if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
+        f.kind = *k == 0 ? FormerKind::grooved_tube : FormerKind::ribbed;
+    }
+    const double form_radius = form_diameter / 2;
+    if (m.has("wall")) {
+        f.wall = m.positive_quantity("wall", Dimension::length);
+        if (f.wall > form_radius) {
+            throw InputError(m.path_of("wall"), "\"" + m.text("wall") + "\" is thicker than the former's radius (" +
+                                                    format_quantity(form_radius, Dimension::length) + ")");
+        }
+    } else {
+        f.wall = std::min(3e-3, form_radius);
+        notes.push_back("no former.wall given: " + format_quantity(f.wall, Dimension::length) +
+                        " of solid under the winding assumed");
+    }
+    if (f.kind == FormerKind::ribbed) {
+        const double ribs = m.quantity("ribs", Dimension::dimensionless);
+        if (!(ribs >= 3) || ribs != std::floor(ribs) || ribs > 360) {
+            throw InputError(m.path_of("ribs"), "\"" + m.text("ribs") + "\"; expected a whole number of ribs, 3 or more");
+        }
+        f.ribs = static_cast<int>(ribs);
+        f.rib_width = m.positive_quantity("rib_width", Dimension::length);
+        const double fill = f.ribs * f.rib_width / (pi * form_diameter);
+        if (!(fill < 1)) {
+            throw InputError(m.path_of("rib_width"), std::to_string(f.ribs) + " ribs of " + m.text("rib_width") +
+                                                         " cover the whole circumference of the former (" +
+                                                         format_quantity(pi * form_diameter, Dimension::length) +
+                                                         "); expected gaps between the ribs");
+        }
+    } else if (m.has("ribs") || m.has("rib_width")) {
+        throw InputError(m.path_of(m.has("ribs") ? "ribs" : "rib_width"), "applies to kind: ribbed only");
+    }
+    return f;
+}
+
+Surroundings read_surroundings(const YamlMap& m) {
+    m.allow_only({"relative_permittivity", "mounting"});
+    Surroundings s;
+    if (m.has("relative_permittivity")) {
+        s.relative_permittivity = m.quantity("relative_permittivity", Dimension::dimensionless);
+        if (!(s.relative_permittivity >= 1)) {
+            throw InputError(m.path_of("relative_permittivity"),
+                             "\"" + m.text("relative_permittivity") + "\"; expected a relative permittivity of 1 or more");
+        }
+    }
+    if (auto k = m.optional_choice("mounting", {"floating", "grounded-end"})) {
+        s.mounting = *k == 0 ? Mounting::floating : Mounting::grounded_end;
+    }
+    return s;
+}
+
+BandSpec read_band(const YamlMap& m) {
+    m.allow_only({"low", "ceiling", "srf_margin", "max_deviation", "min_impedance"});
+    BandSpec b;
+    b.low = m.positive_quantity("low", Dimension::frequency);
+    b.ceiling = m.positive_quantity("ceiling", Dimension::frequency);
+    if (m.has("srf_margin")) b.srf_margin = m.quantity("srf_margin", Dimension::dimensionless);
+    if (m.has("max_deviation")) {
+        if (m.text("max_deviation").find('%') == std::string::npos) {
+            throw InputError(m.path_of("max_deviation"),
+                             "\"" + m.text("max_deviation") + "\"; expected a percentage such as \"10 %\"");
+        }
+        b.max_deviation = m.quantity("max_deviation", Dimension::dimensionless);
+    }
+    if (m.has("min_impedance")) b.min_impedance = m.quantity("min_impedance", Dimension::resistance);
+    validate_band(b);
+    return b;
+}
+
+YAML::Node load_yaml(std::string_view text, std::string_view source) {
     try {
-        root = YAML::Load(std::string(yaml_text));
+        return YAML::Load(std::string(text));
     } catch (const YAML::Exception& e) {
         std::ostringstream where;
         where << source;
         if (!e.mark.is_null()) where << ":" << e.mark.line + 1 << ":" << e.mark.column + 1;
         throw InputError(where.str(), "malformed YAML: " + e.msg);
     }
-    return read_spec(root);
+}
+
+std::string read_text_file(const std::filesystem::path& path, std::string_view what) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) throw InputError(path.string(), "cannot open the " + std::string(what));
+    std::ostringstream buf;
+    buf << in.rdbuf();
+    if (in.bad()) throw InputError(path.string(), "cannot read the " + std::string(what));
+    return buf.str();
+}
+
+}  // namespace detail
+
+CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
+    return read_spec(detail::load_yaml(yaml_text, source));
 }
 
 CoilSpec load_coil_spec(const std::filesystem::path& path) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) throw InputError(path.string(), "cannot open the spec file");
-    std::ostringstream buf;
-    buf << in.rdbuf();
-    if (in.bad()) throw InputError(path.string(), "cannot read the spec file");
-    return parse_coil_spec(buf.str(), path.string());
+    return parse_coil_spec(detail::read_text_file(path, "spec file"), path.string());
 }
 
 }  // namespace libcoil

@@ -136,6 +136,54 @@ int run_sweep(const SweepOptions& o) {
     return 0;
 }
 
+struct DesignCliOptions {
+    std::string requirement, out_dir;
+    bool json = false;
+    int top = 10;
+    unsigned threads = 0;
+};
+
+int run_design(const DesignCliOptions& o) {
+    const libcoil::Requirement q = libcoil::load_requirement(o.requirement);
+    libcoil::DesignOptions opt;
+    opt.threads = o.threads;
+    opt.top = static_cast<std::size_t>(std::max(1, o.top));
+    // Progress on stderr, on a terminal only, once the search has run for a second.
+    const auto start = std::chrono::steady_clock::now();
+    if (::isatty(STDERR_FILENO) != 0) {
+        opt.progress = [start](std::size_t done, std::size_t total) {
+            const double s = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+            if (s < 1.0) return;
+            std::fprintf(stderr, "\rcoil: design search, %zu of %zu candidates (%.0f s)%s", done, total, s,
+                         done == total ? "\n" : "");
+            std::fflush(stderr);
+        };
+    }
+    const libcoil::DesignResult r = libcoil::design(q, opt);
+    const std::string text = libcoil::design_text_report(q, r, opt.top);
+    const std::string json = libcoil::design_json_report(q, r, opt.top);
+    std::vector<std::string> written;
+    if (!o.out_dir.empty()) {
+        const std::filesystem::path dir(o.out_dir);
+        const std::string stem = std::filesystem::path(o.requirement).stem().string();
+        libcoil::write_file_atomically(dir / (stem + ".design.txt"), text);
+        libcoil::write_file_atomically(dir / (stem + ".design.json"), json);
+        written = {(dir / (stem + ".design.txt")).string(), (dir / (stem + ".design.json")).string()};
+        if (r.chosen) {
+            const auto& d = r.pareto[*r.chosen];
+            const auto path = dir / (stem + ".chosen.yaml");
+            libcoil::write_file_atomically(path, libcoil::coil_spec_yaml(libcoil::design_spec(q, d), q.wires[d.wire_index].choice));
+            written.push_back(path.string());
+        }
+    }
+    std::cout << (o.json ? json : text);
+    if (!o.json && !written.empty()) {
+        std::cout << "\nWritten: ";
+        for (std::size_t i = 0; i < written.size(); ++i) std::cout << (i ? "         " : "") << written[i] << "\n";
+    }
+    return 0;
+}
+
 struct WireOptions {
     std::string gauge, diameter, insulation, enamel = "1";
     std::string frequency = "1 MHz", temperature = "20 degC", conductor = "copper";
@@ -204,6 +252,14 @@ int main(int argc, char** argv) {
         ->capture_default_str();
     sw->add_option("--out", sweep.out_dir, "Write STEM.sweep.csv, STEM.s1p and STEM.sweep.svg here (else CSV to stdout)");
 
+    DesignCliOptions dsg;
+    CLI::App* de = app.add_subcommand("design", "Search for the coils that meet a requirement (YAML) and rank them");
+    de->add_option("requirement", dsg.requirement, "Design requirement (YAML)")->required()->check(CLI::ExistingFile);
+    de->add_flag("--json", dsg.json, "Print one JSON object with SI values instead of the report");
+    de->add_option("--out", dsg.out_dir, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)");
+    de->add_option("--top", dsg.top, "Designs to list")->capture_default_str();
+    de->add_option("--threads", dsg.threads, "Search threads (default: all cores)");
+
     WireOptions wire;
     CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");
     w->add_option("--gauge", wire.gauge, "AWG gauge, e.g. \"AWG 18\"");
@@ -233,6 +289,7 @@ int main(int argc, char** argv) {
         if (a->parsed()) return run_analyze(analyze);
         if (w->parsed()) return run_wire(wire);
         if (sw->parsed()) return run_sweep(sweep);
+        if (de->parsed()) return run_design(dsg);
     } catch (const libcoil::InputError& e) {
         std::cerr << "coil: " << e.what() << "\n";
         return exit_bad_input;

@@ -1,0 +1,512 @@
+#include "libcoil/design.hpp"
+
+#include <algorithm>
+#include <atomic>
+#include <chrono>
+#include <cmath>
+#include <cstdint>
+#include <sstream>
+#include <thread>
+
+#include <boost/math/tools/roots.hpp>
+
+#include "libcoil/constants.hpp"
+#include "libcoil/dc_resistance.hpp"
+#include "libcoil/error.hpp"
+#include "libcoil/impedance.hpp"
+#include "libcoil/inductance.hpp"
+#include "libcoil/proximity.hpp"
+#include "libcoil/thermal.hpp"
+#include "libcoil/units.hpp"
+#include "text_format.hpp"
+
+namespace libcoil {
+
+namespace {
+
+constexpr double near_limit = 10.0;  // K: a winding this close to a thermal limit gets a warning
+constexpr int screen_points = 9;     // band screening points during the search
+
+std::string mm(double m) { return detail::fixed(m * 1e3, 2) + " mm"; }
+
+double root(const std::function<double(double)>& f, double lo, double hi, double f_lo, double f_hi) {
+    std::uintmax_t it = 100;
+    const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, boost::math::tools::eps_tolerance<double>(40), it);
+    return 0.5 * (r.first + r.second);
+}
+
+struct Candidate {
+    std::size_t wire;
+    double form_diameter, ratio;
+};
+
+// One thread's share of the search: its Pareto set, counts and closest miss.
+struct Tally {
+    std::vector<DesignFigures> front;
+    std::map<std::string, std::size_t> rejected;
+    std::optional<Rejection> closest;
+    std::size_t feasible = 0;
+
+    void reject(std::string reason, double excess, const std::string& detail) {
+        ++rejected[reason];
+        if (!closest || excess < closest->excess) closest = Rejection{std::move(reason), excess, detail};
+    }
+};
+
+bool dominates(const DesignFigures& a, const DesignFigures& b, double ceiling) {
+    const double la = a.loss_metric(), lb = b.loss_metric(), va = a.volume, vb = b.volume;
+    const double sa = a.srf_metric(ceiling), sb = b.srf_metric(ceiling);
+    return la <= lb && va <= vb && sa <= sb && (la < lb || va < vb || sa < sb);
+}
+
+void add_to_front(std::vector<DesignFigures>& front, const DesignFigures& d, double ceiling) {
+    for (const auto& f : front) {
+        if (dominates(f, d, ceiling)) return;
+    }
+    std::erase_if(front, [&](const DesignFigures& f) { return dominates(d, f, ceiling); });
+    front.push_back(d);
+}
+
+class Evaluator {
+public:
+    explicit Evaluator(const Requirement& q) : q_(q) {
+        ceiling_ = q.band ? q.band->ceiling : 0;
+        reference_ = q.band ? q.band->ceiling : q.current_frequency.value_or(0);
+        limit_ = q.enamel_class;
+        if (q.former) limit_ = std::min(limit_, q.former->material.max_service_temperature);
+    }
+
+    double ceiling() const { return ceiling_; }
+
+    void evaluate(const Candidate& c, Tally& t) const {
+        const WireOption& wo = q_.wires[c.wire];
+        const Wire& w = wo.wire;
+        const double d_ins = w.insulated_diameter();
+        const double mean = c.form_diameter + d_ins;
+        const std::string what = w.label + " on " + mm(c.form_diameter) + " at pitch ratio " + detail::fixed(c.ratio, 2);
+        const double outer = mean + d_ins;
+        if (outer > q_.max_outer_diameter) {
+            t.reject("outer_diameter", outer / q_.max_outer_diameter, what + ": outer diameter " + mm(outer));
+            return;
+        }
+        const double room = q_.max_length - 2 * q_.former_ends - d_ins;  // for N * p
+        if (!(room > 0)) {
+            t.reject("length", (2 * q_.former_ends + d_ins) / q_.max_length, what + ": no room for a winding");
+            return;
+        }
+        const auto L = [&](double n, double p) {
+            return recommended_inductance(Solenoid(Solenoid::Params{mean, n, p, w, q_.lead_length}));
+        };
+        const double target = q_.inductance;
+        double n = 0, p = c.ratio * d_ins, n_solved = 0;
+        const double p_grid = p;
+        try {
+            if (q_.turns) {
+                n = n_solved = *q_.turns;
+                if (!solve_pitch(n, d_ins, room, L, p)) {
+                    const double l_touch = L(n, d_ins);
+                    if (l_touch < target) {
+                        t.reject("inductance_out_of_reach", target / l_touch, what + ": " + format_quantity(l_touch, Dimension::inductance) +
+                                 " at most with the fixed turns");
+                    } else {
+                        t.reject("length", n * d_ins / room, what + ": the fixed turns do not fit the length");
+                    }
+                    return;
+                }
+            } else {
+                const double n_max = room / p;
+                if (n_max < 1) {
+                    t.reject("length", 1 / n_max, what + ": not one turn fits");
+                    return;
+                }
+                const double l_max = L(n_max, p);
+                if (l_max < target) {
+                    t.reject("length", target / l_max, what + ": " + format_quantity(l_max, Dimension::inductance) +
+                             " with the longest winding that fits");
+                    return;
+                }
+                const double l_one = L(1, p);
+                if (l_one > target) {
+                    t.reject("inductance_out_of_reach", l_one / target, what + ": one turn already gives " +
+                             format_quantity(l_one, Dimension::inductance));
+                    return;
+                }
+                n_solved = root([&](double x) { return L(x, p) - target; }, 1, n_max, l_one - target, l_max - target);
+                // Snap to the step; trim the pitch. The nearest step first, then its neighbours.
+                const double step = q_.turns_step;
+                const double nearest = std::max(std::ceil(1 / step - 1e-9) * step, std::round(n_solved / step) * step);
+                bool done = false;
+                for (double k : {0.0, -1.0, 1.0}) {
+                    n = nearest + k * step;
+                    if (n < 1) continue;
+                    if (solve_pitch(n, d_ins, room, L, p)) {
+                        done = true;
+                        break;
+                    }
+                }
+                if (!done) {
+                    t.reject("snapping", 1.0 + step / n_solved, what + ": no pitch meets the target after snapping the turns");
+                    return;
+                }
+            }
+        } catch (const InputError&) {
+            t.reject("model_domain", 10, what + ": outside the geometry the models accept");
+            return;
+        } catch (const DomainError&) {
+            t.reject("model_domain", 10, what + ": outside every inductance model's domain");
+            return;
+        }
+
+        const Solenoid s(Solenoid::Params{mean, n, p, w, q_.lead_length});
+        DesignFigures d;
+        d.wire_index = c.wire;
+        d.wire_label = w.label;
+        d.form_diameter = c.form_diameter;
+        d.mean_diameter = mean;
+        d.outer_diameter = outer;
+        d.turns = n;
+        d.turns_solved = n_solved;
+        d.pitch = p;
+        d.pitch_ratio = p / d_ins;
+        d.pitch_before_trim = p_grid;
+        d.winding_length = s.winding_length();
+        d.overall_length = s.overall_length();
+        d.length_with_ends = d.overall_length + 2 * q_.former_ends;
+        d.wire_length = s.wire_length();
+        d.inductance = recommended_inductance(s);
+        d.volume = pi / 4 * outer * outer * d.length_with_ends;
+        if (q_.max_wire_length && d.wire_length > *q_.max_wire_length) {
+            t.reject("wire_length", d.wire_length / *q_.max_wire_length, what + ": wire " + detail::fixed(d.wire_length, 2) + " m");
+            return;
+        }
+
+        // Thermal: I^2 R(T), with the AC/DC ratio of the current's frequency taken at ambient.
+        double ac_ratio = 1;
+        if (q_.current_frequency && *q_.current_frequency > 0) {
+            const auto r = ac_resistance(s, q_.conductor, q_.ambient, *q_.current_frequency);
+            ac_ratio = r.resistance / r.dc;
+        }
+        const double bare = w.bare_diameter, wire_len = s.wire_length();
+        try {
+            const auto power = [&](double temp) {
+                return q_.current * q_.current * ac_ratio * dc_resistance(q_.conductor, bare, wire_len, temp);
+            };
+            const auto th = winding_temperature(power, ThermalSurface{outer, d.overall_length, 0.85, CoilAxis::horizontal},
+                                                q_.ambient);
+            d.temperature = th.temperature;
+            d.rise = th.rise;
+        } catch (const DomainError&) {
+            t.reject("thermal", 10, what + ": the winding would run away thermally");
+            return;
+        }
+        d.temperature_limit = limit_;
+        if (d.temperature > limit_) {
+            t.reject("thermal", (d.temperature - q_.ambient) / (limit_ - q_.ambient),
+                     what + ": winding at " + format_quantity(d.temperature, Dimension::temperature) + ", limit " +
+                         format_quantity(limit_, Dimension::temperature));
+            return;
+        }
+        d.near_thermal_limit = d.temperature > limit_ - near_limit;
+        d.dc_resistance = dc_resistance(q_.conductor, bare, wire_len, d.temperature);
+
+        // Self-resonance and the band.
+        SelfResonance sr;
+        try {
+            const FormerDielectric fd = q_.former ? q_.former->dielectric(c.form_diameter) : FormerDielectric{};
+            sr = self_resonance(s, d.inductance, fd, q_.surroundings);
+        } catch (const DomainError&) {
+            t.reject("model_domain", 10, what + ": no self-resonance model holds");
+            return;
+        }
+        d.self_resonance = sr.frequency;
+        if (q_.band) {
+            const BandSpec& b = *q_.band;
+            d.srf_margin = sr.frequency / b.ceiling;
+            const bool none = !b.srf_margin && !b.max_deviation && !b.min_impedance;
+            const double k = b.srf_margin.value_or(none ? default_srf_margin : 0);
+            if (k > 0 && sr.frequency < k * b.ceiling) {
+                t.reject("srf_margin", k * b.ceiling / sr.frequency, what + ": SRF " + format_quantity(sr.frequency, Dimension::frequency));
+                return;
+            }
+            if (b.max_deviation || b.min_impedance) {
+                const CoilImpedance z(s, q_.conductor, d.temperature, d.inductance, sr);
+                std::vector<double> f(screen_points);
+                for (int i = 0; i < screen_points; ++i) f[i] = b.low * std::pow(b.ceiling / b.low, i / (screen_points - 1.0));
+                for (const auto& pt : z.sweep(f)) {
+                    const double mag = pt.magnitude();
+                    const double dev = std::fabs(mag / (2 * pi * pt.frequency * d.inductance) - 1);
+                    if (b.max_deviation && dev > *b.max_deviation) {
+                        t.reject("max_deviation", dev / *b.max_deviation, what + ": |Z| off wL by " + detail::fixed(dev * 100, 1) +
+                                 " % at " + format_quantity(pt.frequency, Dimension::frequency));
+                        return;
+                    }
+                    if (b.min_impedance && mag < *b.min_impedance) {
+                        t.reject("min_impedance", *b.min_impedance / mag, what + ": |Z| " +
+                                 format_quantity(mag, Dimension::resistance) + " at " + format_quantity(pt.frequency, Dimension::frequency));
+                        return;
+                    }
+                }
+            }
+        }
+        // Loss and Q at the reference frequency.
+        d.reference_frequency = reference_;
+        if (reference_ > 0) {
+            const auto r = ac_resistance(s, q_.conductor, d.temperature, reference_);
+            d.resistance = r.resistance;
+            d.q_factor = 2 * pi * reference_ * d.inductance / r.resistance;
+        } else {
+            d.resistance = d.dc_resistance;
+        }
+        ++t.feasible;
+        add_to_front(t.front, d, ceiling_);
+    }
+
+private:
+    // Pitch in [d_ins, room / n] with L(n, p) = target; L falls as p grows.
+    template <class F>
+    bool solve_pitch(double n, double d_ins, double room, const F& L, double& p) const {
+        const double p_max = room / n;
+        if (p_max < d_ins) return false;
+        const double target = q_.inductance;
+        const double at_min = L(n, d_ins) - target, at_max = L(n, p_max) - target;
+        if (at_min < 0 || at_max > 0) return false;
+        if (at_min == 0) {
+            p = d_ins;
+            return true;
+        }
+        if (at_max == 0) {
+            p = p_max;
+            return true;
+        }
+        p = root([&](double x) { return L(n, x) - target; }, d_ins, p_max, at_min, at_max);
+        return true;
+    }
+
+    const Requirement& q_;
+    double ceiling_ = 0, reference_ = 0, limit_ = 0;
+};
+
+std::string reason_words(const std::string& r) {
+    if (r == "outer_diameter") return "the outer diameter limit";
+    if (r == "length") return "the length limit (the target needs more winding than fits)";
+    if (r == "wire_length") return "the wire length limit";
+    if (r == "thermal") return "the thermal limit (enamel class or former service temperature)";
+    if (r == "srf_margin") return "the band's SRF margin";
+    if (r == "max_deviation") return "the band's deviation limit";
+    if (r == "min_impedance") return "the band's minimum impedance";
+    if (r == "inductance_out_of_reach") return "the target inductance (out of reach with these turns)";
+    if (r == "snapping") return "snapping the turns to the step";
+    return "the models' domain";
+}
+
+}  // namespace
+
+std::string yaml_quoted(const std::string& text);
+
+std::vector<std::string> design_cautions(const Requirement& q, double temperature, double limit) {
+    std::vector<std::string> c;
+    if (q.supply_voltage > 50) {
+        c.push_back("The supply (" + format_quantity(q.supply_voltage, Dimension::voltage) +
+                    ") is above extra-low voltage (50 V AC, 120 V ripple-free DC; IEC 61140). Build in an earthed "
+                    "enclosure with wire, former and terminals rated for it, with the creepage and clearance your "
+                    "standard asks for, and have a qualified person check it. Local codes and licensed practice come first.");
+    }
+    if (q.rf_power > 0) {
+        c.push_back("RF power (" + format_quantity(q.rf_power, Dimension::power) +
+                    ") is given: a coil near resonance can carry high voltage and its field burns deep and painlessly. "
+                    "Never touch it energised; rate nearby parts and the former for the voltage.");
+    }
+    if (temperature > 0 && limit > 0 && temperature > limit - near_limit) {
+        c.push_back("The winding is estimated at " + format_quantity(temperature, Dimension::temperature) + ", within " +
+                    detail::fixed(near_limit, 0) + " K of its limit (" + format_quantity(limit, Dimension::temperature) +
+                    "). The estimate is for still air with no enclosure; measure the real part under load.");
+    }
+    return c;
+}
+
+DesignResult design(const Requirement& q, const DesignOptions& options) {
+    require_positive("target.inductance", q.inductance);
+    if (q.wires.empty()) throw InputError("search.wires", "the list is empty");
+    std::vector<Candidate> grid;
+    for (std::size_t w = 0; w < q.wires.size(); ++w) {
+        for (double D : q.form_diameter.values()) {
+            for (double r : q.pitch_ratio.values()) grid.push_back({w, D, r});
+        }
+    }
+    const Evaluator ev(q);
+    unsigned threads = options.threads ? options.threads : std::max(1u, std::thread::hardware_concurrency());
+    threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(1, grid.size() / 64 + 1)));
+    std::vector<Tally> tallies(threads);
+    std::atomic<std::size_t> done{0};
+    const auto work = [&](unsigned k) {
+        for (std::size_t i = k; i < grid.size(); i += threads) {
+            ev.evaluate(grid[i], tallies[k]);
+            done.fetch_add(1, std::memory_order_relaxed);
+        }
+    };
+    std::vector<std::thread> pool;
+    for (unsigned k = 1; k < threads; ++k) pool.emplace_back(work, k);
+    if (options.progress && threads > 1) {
+        // The calling thread reports progress while the others work, then does its share.
+        while (done.load() < grid.size() * (threads - 1) / threads) {
+            std::this_thread::sleep_for(std::chrono::milliseconds(200));
+            options.progress(done.load(), grid.size());
+        }
+    }
+    work(0);
+    for (auto& t : pool) t.join();
+    if (options.progress) options.progress(grid.size(), grid.size());
+
+    DesignResult out;
+    out.candidates_evaluated = grid.size();
+    out.notes = q.notes;
+    std::vector<DesignFigures> front;
+    for (auto& t : tallies) {
+        out.feasible += t.feasible;
+        for (const auto& [r, n] : t.rejected) out.rejected_by_reason[r] += n;
+        for (const auto& d : t.front) add_to_front(front, d, ev.ceiling());
+        if (t.closest && (!out.closest || t.closest->excess < out.closest->excess)) out.closest = t.closest;
+    }
+    if (front.empty()) {
+        std::string top_reason;
+        std::size_t most = 0;
+        for (const auto& [r, n] : out.rejected_by_reason) {
+            if (n > most) {
+                most = n;
+                top_reason = r;
+            }
+        }
+        out.binding = "No candidate meets the requirement. Most were stopped by " + reason_words(top_reason) + " (" +
+                      std::to_string(most) + " of " + std::to_string(grid.size()) + ").";
+        if (out.closest) {
+            out.binding += " The closest attempt, " + out.closest->detail + ", misses " + reason_words(out.closest->reason) +
+                           " by " + detail::fixed((out.closest->excess - 1) * 100, 1) + " %.";
+        }
+        out.cautions = design_cautions(q, 0, 0);
+        return out;
+    }
+    // Score relative to the best of each figure.
+    double best_loss = front[0].loss_metric(), best_vol = front[0].volume, best_srf = front[0].srf_metric(ev.ceiling());
+    for (const auto& d : front) {
+        best_loss = std::min(best_loss, d.loss_metric());
+        best_vol = std::min(best_vol, d.volume);
+        best_srf = std::min(best_srf, d.srf_metric(ev.ceiling()));
+    }
+    for (auto& d : front) {
+        d.score = q.objective.loss * d.loss_metric() / best_loss + q.objective.size * d.volume / best_vol +
+                  q.objective.srf * d.srf_metric(ev.ceiling()) / best_srf;
+    }
+    std::sort(front.begin(), front.end(), [](const auto& a, const auto& b) { return a.score < b.score; });
+    out.pareto = std::move(front);
+
+    // Re-analyse the leaders in full; the first that passes is chosen.
+    const std::size_t tries = std::min<std::size_t>(out.pareto.size(), std::max<std::size_t>(options.top, 1));
+    for (std::size_t i = 0; i < tries; ++i) {
+        const DesignFigures& d = out.pareto[i];
+        Analysis a = analyze(design_spec(q, d));
+        const bool l_ok = std::fabs(a.inductance.recommended / q.inductance - 1) <= q.tolerance;
+        const bool band_ok = !a.band || a.band->pass;
+        if (l_ok && band_ok) {
+            out.chosen = i;
+            out.chosen_analysis = std::move(a);
+            break;
+        }
+        out.warnings.push_back("design " + std::to_string(i + 1) + " passed the search's screening but not the full " +
+                               std::string(l_ok ? "band check" : "inductance check") + "; the next one is taken");
+    }
+    if (out.chosen) {
+        const DesignFigures& d = out.pareto[*out.chosen];
+        std::ostringstream why;
+        why << "lowest weighted score " << detail::fixed(d.score, 3) << " (weights: loss " << q.objective.loss << ", size "
+            << q.objective.size << ", SRF " << q.objective.srf << "): its loss is " << detail::fixed(d.loss_metric() / best_loss, 2)
+            << " x the best feasible, its volume " << detail::fixed(d.volume / best_vol, 2) << " x the smallest, and its "
+            << (ev.ceiling() > 0 ? "ceiling / SRF " : "1 MHz / SRF ") << detail::fixed(d.srf_metric(ev.ceiling()) / best_srf, 2)
+            << " x the best";
+        out.why_chosen = why.str();
+        out.cautions = design_cautions(q, d.temperature, d.temperature_limit);
+    } else {
+        out.cautions = design_cautions(q, 0, 0);
+    }
+    return out;
+}
+
+CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
+    const Wire& w = q.wires[d.wire_index].wire;
+    CoilSpec s{q.name.empty() ? "design" : q.name, "", Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, w, q.lead_length}),
+               q.conductor, {}, q.former, q.surroundings, q.band, {}};
+    s.description = "Designed by libcoil for " + format_quantity(q.inductance, Dimension::inductance) + " within " +
+                    detail::fixed(q.tolerance * 100, 2) + " %";
+    Operating op;
+    if (q.band) op.frequencies = {q.band->low, q.band->ceiling};
+    if (q.current_frequency && *q.current_frequency > 0) op.frequencies.push_back(*q.current_frequency);
+    std::sort(op.frequencies.begin(), op.frequencies.end());
+    op.frequencies.erase(std::unique(op.frequencies.begin(), op.frequencies.end()), op.frequencies.end());
+    op.temperature = d.temperature > 0 ? d.temperature : q.ambient;
+    op.temperature_given = true;
+    op.current = q.current;
+    s.operating = op;
+    return s;
+}
+
+std::string yaml_quoted(const std::string& text) {
+    std::string o = "\"";
+    for (char ch : text) {
+        if (ch == '"' || ch == '\\') o += '\\';
+        o += ch == '\n' ? ' ' : ch;
+    }
+    return o + "\"";
+}
+
+std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {
+    const auto q = [](double v, const char* unit, double scale) { return detail::significant(v * scale, 10) + " " + unit; };
+    const auto hz = [&](double f) { return f >= 1e6 ? q(f, "MHz", 1e-6) : f >= 1e3 ? q(f, "kHz", 1e-3) : q(f, "Hz", 1); };
+    std::ostringstream o;
+    o << "# libcoil design spec: coil analyze, coil sweep and the former generator accept it unchanged.\n";
+    o << "name: " << yaml_quoted(s.name) << "\n";
+    if (!s.description.empty()) o << "description: " << yaml_quoted(s.description) << "\n";
+    const Solenoid& c = s.solenoid;
+    o << "coil:\n";
+    o << "  form_diameter: " << q(c.form_diameter(), "mm", 1e3) << "\n";
+    o << "  turns: " << detail::significant(c.turns(), 12) << "\n";
+    o << "  pitch: " << q(c.pitch(), "mm", 1e3) << "\n";
+    if (c.lead_length() > 0) o << "  lead_length: " << q(c.lead_length(), "mm", 1e3) << "\n";
+    o << "  wire:\n";
+    if (wc.gauge) {
+        o << "    gauge: AWG " << *wc.gauge << "\n";
+    } else {
+        o << "    diameter: " << q(c.wire().bare_diameter, "mm", 1e3) << "\n";
+    }
+    if (wc.enamel_grade) {
+        o << "    enamel: grade " << *wc.enamel_grade << "\n";
+    } else {
+        o << "    insulation: " << q(c.wire().insulation, "mm", 1e3) << "\n";
+    }
+    o << "  conductor: " << s.conductor.name << "\n";
+    const Operating& op = s.operating;
+    o << "operating:\n";
+    if (!op.frequencies.empty()) {
+        o << "  frequencies: [";
+        for (std::size_t i = 0; i < op.frequencies.size(); ++i) o << (i ? ", " : "") << hz(op.frequencies[i]);
+        o << "]\n";
+    }
+    o << "  temperature: " << detail::fixed(op.temperature - zero_celsius, 2) << " degC\n";
+    if (op.current > 0) o << "  current: " << detail::significant(op.current, 10) << " A\n";
+    if (s.former) {
+        const FormerSpec& f = *s.former;
+        o << "former:\n  material: " << f.material.name << "\n  kind: " << former_kind_name(f.kind) << "\n  wall: "
+          << q(f.wall, "mm", 1e3) << "\n";
+        if (f.kind == FormerKind::ribbed) o << "  ribs: " << f.ribs << "\n  rib_width: " << q(f.rib_width, "mm", 1e3) << "\n";
+    }
+    o << "surroundings:\n  relative_permittivity: " << detail::significant(s.surroundings.relative_permittivity, 10)
+      << "\n  mounting: " << mounting_name(s.surroundings.mounting) << "\n";
+    if (s.band) {
+        const BandSpec& b = *s.band;
+        o << "band:\n  low: " << hz(b.low) << "\n  ceiling: " << hz(b.ceiling) << "\n";
+        if (b.srf_margin) o << "  srf_margin: " << detail::significant(*b.srf_margin, 10) << "\n";
+        if (b.max_deviation) o << "  max_deviation: " << detail::significant(*b.max_deviation * 100, 10) << " %\n";
+        if (b.min_impedance) o << "  min_impedance: " << detail::significant(*b.min_impedance, 10) << " ohm\n";
+    }
+    return o.str();
+}
+
+}  // namespace libcoil

@@ -1,0 +1,158 @@
+// Reports of a design search: text and JSON. Formatting only.
+#include <cmath>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
+
+#include "libcoil/report.hpp"
+#include "libcoil/units.hpp"
+#include "libcoil/version.hpp"
+#include "text_format.hpp"
+
+namespace libcoil {
+
+namespace {
+
+using detail::fixed;
+
+std::string pad(const std::string& s, std::size_t width) {
+    std::size_t cols = 0;
+    for (unsigned char c : s) cols += (c & 0xC0) != 0x80;
+    return cols >= width ? s + " " : s + std::string(width - cols, ' ');
+}
+
+std::string mm(double m) { return fixed(m * 1e3, 2); }
+
+}  // namespace
+
+std::string design_text_report(const Requirement& q, const DesignResult& r, std::size_t top) {
+    std::ostringstream o;
+    o << "libcoil " << version << " \u2014 coil design\n";
+    if (!q.name.empty()) o << q.name << "\n";
+    o << "\nRequirement\n";
+    o << "  target " << format_quantity(q.inductance, Dimension::inductance) << " within " << fixed(q.tolerance * 100, 2)
+      << " %, " << format_quantity(q.current, Dimension::current) << " at "
+      << format_quantity(q.ambient, Dimension::temperature) << " ambient\n";
+    if (q.band) {
+        o << "  band " << format_quantity(q.band->low, Dimension::frequency) << " to "
+          << format_quantity(q.band->ceiling, Dimension::frequency);
+        if (q.band->srf_margin) o << ", SRF >= " << fixed(*q.band->srf_margin, 2) << " x ceiling";
+        if (q.band->max_deviation) o << ", |Z| within " << fixed(*q.band->max_deviation * 100, 1) << " % of wL";
+        if (q.band->min_impedance) o << ", |Z| >= " << format_quantity(*q.band->min_impedance, Dimension::resistance);
+        o << "\n";
+    }
+    o << "  limits: outer diameter " << mm(q.max_outer_diameter) << " mm, length " << mm(q.max_length)
+      << " mm with " << mm(q.former_ends) << " mm former ends";
+    if (q.max_wire_length) o << ", wire " << fixed(*q.max_wire_length, 2) << " m";
+    o << "\n";
+
+    o << "\nSearch: " << r.candidates_evaluated << " candidates, " << r.feasible << " feasible, " << r.pareto.size()
+      << " on the Pareto front (loss, size, SRF margin)\n";
+    for (const auto& [reason, n] : r.rejected_by_reason) o << "  rejected by " << pad(reason, 24) << n << "\n";
+
+    if (r.pareto.empty()) {
+        o << "\n" << r.binding << "\n";
+    } else {
+        o << "\nBest designs (turns snapped to " << fixed(q.turns_step, 2) << ", pitch trimmed to meet the target)\n";
+        o << "  " << pad("#", 4) << pad("wire", 30) << pad("form mm", 9) << pad("turns", 8) << pad("pitch mm", 10)
+          << pad("length mm", 11) << pad("outer mm", 10) << pad("SRF", 12) << pad("R at ref", 12) << pad("winding", 10)
+          << "score\n";
+        for (std::size_t i = 0; i < std::min(top, r.pareto.size()); ++i) {
+            const auto& d = r.pareto[i];
+            o << "  " << pad(std::to_string(i + 1) + (r.chosen && *r.chosen == i ? "*" : ""), 4) << pad(d.wire_label, 30)
+              << pad(mm(d.form_diameter), 9) << pad(fixed(d.turns, 2), 8) << pad(fixed(d.pitch * 1e3, 3), 10)
+              << pad(mm(d.length_with_ends), 11) << pad(mm(d.outer_diameter), 10)
+              << pad(format_quantity(d.self_resonance, Dimension::frequency), 12)
+              << pad(format_quantity(d.resistance, Dimension::resistance), 12)
+              << pad(format_quantity(d.temperature, Dimension::temperature, 3), 10) << fixed(d.score, 3) << "\n";
+        }
+        const double f = r.pareto.front().reference_frequency;
+        o << "  R at ref: at " << (f > 0 ? format_quantity(f, Dimension::frequency) : std::string("DC"))
+          << "; length includes the former ends; * chosen\n";
+        if (r.chosen) {
+            const auto& d = r.pareto[*r.chosen];
+            o << "\nChosen: design " << *r.chosen + 1 << ", " << d.wire_label << ", " << fixed(d.turns, 2) << " turns on a "
+              << mm(d.form_diameter) << " mm former at " << fixed(d.pitch * 1e3, 4) << " mm pitch\n";
+            o << "  why: " << r.why_chosen << "\n";
+            o << "  the search solved " << fixed(d.turns_solved, 3) << " turns at " << fixed(d.pitch_before_trim * 1e3, 4)
+              << " mm pitch, snapped them to " << fixed(d.turns, 2) << " and trimmed the pitch to " << fixed(d.pitch * 1e3, 4)
+              << " mm so that L = " << format_quantity(d.inductance, Dimension::inductance) << " exactly\n";
+            o << "  winding estimated at " << format_quantity(d.temperature, Dimension::temperature) << " (rise "
+              << fixed(d.rise, 1) << " K, limit " << format_quantity(d.temperature_limit, Dimension::temperature)
+              << ") in still air; an estimate, not a rating\n";
+            if (r.chosen_analysis && r.chosen_analysis->band) {
+                o << "  full re-analysis: L " << format_quantity(r.chosen_analysis->inductance.recommended, Dimension::inductance)
+                  << ", SRF " << format_quantity(r.chosen_analysis->self_resonance.frequency, Dimension::frequency)
+                  << ", band check " << (r.chosen_analysis->band->pass ? "PASS" : "FAIL") << "\n";
+            }
+        } else {
+            o << "\nNo design passed the full re-analysis; see the warnings.\n";
+        }
+    }
+    if (!r.cautions.empty()) {
+        o << "\nCautions\n";
+        for (const auto& c : r.cautions) o << "  ! " << c << "\n";
+    }
+    if (!r.warnings.empty()) {
+        o << "\nWarnings\n";
+        for (const auto& w : r.warnings) o << "  ! " << w << "\n";
+    }
+    if (!r.notes.empty()) {
+        o << "\nAssumptions\n";
+        for (const auto& n : r.notes) o << "  - " << n << "\n";
+    }
+    return o.str();
+}
+
+std::string design_json_report(const Requirement& q, const DesignResult& r, std::size_t top) {
+    nlohmann::ordered_json j;
+    j["libcoil_version"] = version;
+    j["name"] = q.name;
+    j["target_inductance_H"] = q.inductance;
+    j["tolerance"] = q.tolerance;
+    j["candidates_evaluated"] = r.candidates_evaluated;
+    j["feasible"] = r.feasible;
+    j["pareto_size"] = r.pareto.size();
+    j["rejected_by_reason"] = r.rejected_by_reason;
+    nlohmann::ordered_json designs = nlohmann::ordered_json::array();
+    for (std::size_t i = 0; i < std::min(top, r.pareto.size()); ++i) {
+        const auto& d = r.pareto[i];
+        designs.push_back({{"rank", i + 1},
+                           {"wire", d.wire_label},
+                           {"form_diameter_m", d.form_diameter},
+                           {"mean_diameter_m", d.mean_diameter},
+                           {"outer_diameter_m", d.outer_diameter},
+                           {"turns", d.turns},
+                           {"turns_solved", d.turns_solved},
+                           {"pitch_m", d.pitch},
+                           {"pitch_before_trim_m", d.pitch_before_trim},
+                           {"pitch_ratio", d.pitch_ratio},
+                           {"winding_length_m", d.winding_length},
+                           {"length_with_ends_m", d.length_with_ends},
+                           {"wire_length_m", d.wire_length},
+                           {"inductance_H", d.inductance},
+                           {"self_resonance_Hz", d.self_resonance},
+                           {"srf_margin", d.srf_margin},
+                           {"dc_resistance_ohm", d.dc_resistance},
+                           {"reference_frequency_Hz", d.reference_frequency},
+                           {"resistance_ohm", d.resistance},
+                           {"q_factor", d.q_factor},
+                           {"temperature_K", d.temperature},
+                           {"temperature_rise_K", d.rise},
+                           {"temperature_limit_K", d.temperature_limit},
+                           {"volume_m3", d.volume},
+                           {"score", d.score},
+                           {"spec", coil_spec_yaml(design_spec(q, d), q.wires[d.wire_index].choice)}});
+    }
+    j["designs"] = designs;
+    j["chosen"] = r.chosen ? nlohmann::ordered_json(*r.chosen) : nlohmann::ordered_json(nullptr);
+    j["why_chosen"] = r.why_chosen;
+    j["binding"] = r.binding;
+    if (r.closest) j["closest"] = {{"reason", r.closest->reason}, {"excess", r.closest->excess}, {"detail", r.closest->detail}};
+    j["cautions"] = r.cautions;
+    j["warnings"] = r.warnings;
+    j["notes"] = r.notes;
+    return j.dump(2) + "\n";
+}
+
+}  // namespace libcoil

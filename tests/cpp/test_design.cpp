@@ -1,0 +1,160 @@
+// Design synthesis: the requirement, the search, and the designs it returns.
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+#include "libcoil/analysis.hpp"
+#include "libcoil/design.hpp"
+#include "libcoil/error.hpp"
+#include "libcoil/inductance.hpp"
+#include "libcoil/requirement.hpp"
+
+using namespace libcoil;
+
+namespace {
+
+const std::string base = R"(
+name: test requirement
+target: {inductance: 5 uH, tolerance: 2 %}
+band: {low: 150 kHz, ceiling: 30 MHz, srf_margin: 2.5, max_deviation: 8 %}
+operating: {current: 4 A, ambient: 25 degC}
+limits: {max_outer_diameter: 40 mm, max_length: 60 mm}
+search:
+  wires: [AWG 16, AWG 18, 1.25 mm grade 2]
+  form_diameter: {min: 15 mm, max: 35 mm, step: 2 mm}
+  pitch_ratio: {min: 1.05, max: 2.5, step: 0.1}
+  lead_length: 60 mm
+former: {material: PETG, kind: grooved-tube, wall: 3 mm}
+)";
+
+std::string requirement_error(const std::string& yaml) {
+    try {
+        parse_requirement(yaml, "req.yaml");
+    } catch (const InputError& e) {
+        return e.what();
+    }
+    return "(no error)";
+}
+
+}  // namespace
+
+TEST(Requirement, ReadsTheIssueKeys) {
+    const Requirement q = parse_requirement(base);
+    EXPECT_DOUBLE_EQ(q.inductance, 5e-6);
+    EXPECT_DOUBLE_EQ(q.tolerance, 0.02);
+    ASSERT_EQ(q.wires.size(), 3u);
+    EXPECT_EQ(*q.wires[2].choice.enamel_grade, 2);
+    EXPECT_EQ(q.form_diameter.values().size(), 11u);
+    EXPECT_EQ(q.pitch_ratio.values().size(), 15u);
+    EXPECT_EQ(q.turns_step, 0.25);
+    ASSERT_TRUE(q.former.has_value());
+    EXPECT_NEAR(q.ambient, 298.15, 1e-12);
+}
+
+TEST(Requirement, BadInputNamesTheField) {
+    EXPECT_NE(requirement_error("target: {inductance: 5 uH}").find("target.tolerance"), std::string::npos);
+    EXPECT_NE(requirement_error(base + "objective: {loss: 0, size: 0, srf: 0}").find("objective.loss"), std::string::npos);
+    std::string bad = base;
+    bad.replace(bad.find("AWG 18"), 6, "AWG 99");
+    EXPECT_NE(requirement_error(bad).find("search.wires[1]"), std::string::npos);
+    bad = base;
+    bad.replace(bad.find("max: 35 mm"), 10, "max: 5 mm");
+    EXPECT_NE(requirement_error(bad).find("search.form_diameter.max"), std::string::npos);
+    EXPECT_NE(requirement_error(base + "colour: red").find("unknown key"), std::string::npos);
+    EXPECT_NE(requirement_error(base + "objectve: {loss: 1}").find("did you mean \"objective\""), std::string::npos);
+}
+
+TEST(Design, TurnsRootAgainstABruteForceScan) {
+    // Every design's unsnapped turns hit the target at the grid pitch; a scan of N in steps of 1e-4 turns
+    // finds the same crossing (common practice: a brute-force check of a root finder).
+    const Requirement q = parse_requirement(base);
+    const DesignResult r = design(q);
+    ASSERT_FALSE(r.pareto.empty());
+    for (std::size_t i = 0; i < std::min<std::size_t>(3, r.pareto.size()); ++i) {
+        const auto& d = r.pareto[i];
+        const Wire& w = q.wires[d.wire_index].wire;
+        const auto L = [&](double n) {
+            return recommended_inductance(Solenoid(Solenoid::Params{d.mean_diameter, n, d.pitch_before_trim, w, q.lead_length}));
+        };
+        double n = 1;
+        while (L(n + 1e-4) < q.inductance) n += 1e-4;
+        EXPECT_NEAR(d.turns_solved, n, 2e-4) << i;
+        // After snapping and the pitch trim, the target holds to 1e-9.
+        EXPECT_NEAR(d.inductance / q.inductance, 1.0, 1e-9) << i;
+        EXPECT_NEAR(std::fmod(d.turns, q.turns_step), 0.0, 1e-12) << i;
+    }
+}
+
+TEST(Design, EveryReturnedDesignPassesTheFullAnalysis) {
+    const Requirement q = parse_requirement(base);
+    const DesignResult r = design(q);
+    ASSERT_TRUE(r.chosen.has_value());
+    EXPECT_EQ(r.candidates_evaluated, 3u * 11u * 15u);
+    std::size_t rejected = 0;
+    for (const auto& [reason, n] : r.rejected_by_reason) rejected += n;
+    EXPECT_EQ(rejected + r.feasible, r.candidates_evaluated);
+    for (std::size_t i = 0; i < std::min<std::size_t>(10, r.pareto.size()); ++i) {
+        const auto& d = r.pareto[i];
+        // Through the YAML a user would save: the spec text parses and analyses to the same coil.
+        const CoilSpec spec = parse_coil_spec(coil_spec_yaml(design_spec(q, d), q.wires[d.wire_index].choice));
+        const Analysis a = analyze(spec);
+        EXPECT_NEAR(a.inductance.recommended / q.inductance, 1.0, q.tolerance) << i;
+        EXPECT_NEAR(a.inductance.recommended / q.inductance, 1.0, 1e-8) << i;  // the written digits suffice
+        ASSERT_TRUE(a.band.has_value());
+        EXPECT_TRUE(a.band->pass) << i;
+        EXPECT_LE(spec.solenoid.outer_diameter(), q.max_outer_diameter);
+        EXPECT_LE(spec.solenoid.overall_length() + 2 * q.former_ends, q.max_length * (1 + 1e-12));
+        EXPECT_LE(d.temperature, d.temperature_limit);
+        if (i > 0) EXPECT_GE(d.score, r.pareto[i - 1].score);
+    }
+}
+
+TEST(Design, ThreadsDoNotChangeTheAnswer) {
+    const Requirement q = parse_requirement(base);
+    DesignOptions one;
+    one.threads = 1;
+    DesignOptions two;
+    two.threads = 2;
+    const DesignResult a = design(q, one), b = design(q, two);
+    EXPECT_EQ(a.feasible, b.feasible);
+    EXPECT_EQ(a.rejected_by_reason, b.rejected_by_reason);
+    ASSERT_EQ(a.pareto.size(), b.pareto.size());
+    ASSERT_TRUE(a.chosen && b.chosen);
+    EXPECT_EQ(a.pareto[*a.chosen].turns, b.pareto[*b.chosen].turns);
+    EXPECT_EQ(a.pareto[*a.chosen].pitch, b.pareto[*b.chosen].pitch);
+}
+
+TEST(Design, InfeasibleRequirementSaysWhatBinds) {
+    // 1 mH cannot fit in 20 mm by 30 mm: the answer names the binding limit and the closest attempt.
+    std::string yaml = base;
+    yaml.replace(yaml.find("5 uH"), 4, "1 mH");
+    Requirement q = parse_requirement(yaml);
+    q.max_outer_diameter = 20e-3;
+    q.max_length = 30e-3;
+    const DesignResult r = design(q);
+    EXPECT_TRUE(r.pareto.empty());
+    EXPECT_FALSE(r.chosen.has_value());
+    EXPECT_EQ(r.feasible, 0u);
+    EXPECT_NE(r.binding.find("No candidate meets the requirement"), std::string::npos);
+    EXPECT_NE(r.binding.find("closest attempt"), std::string::npos);
+    ASSERT_TRUE(r.closest.has_value());
+    EXPECT_GT(r.closest->excess, 1.0);
+    // A ceiling far above any reachable SRF binds on the SRF margin.
+    Requirement high = parse_requirement(base);
+    high.band->ceiling = 3e9;
+    const DesignResult h = design(high);
+    EXPECT_TRUE(h.pareto.empty());
+    EXPECT_NE(h.binding.find("SRF margin"), std::string::npos);
+}
+
+TEST(Design, Cautions) {
+    Requirement q = parse_requirement(base);
+    EXPECT_TRUE(design_cautions(q, 0, 0).empty());
+    q.supply_voltage = 230;
+    q.rf_power = 100;
+    const auto c = design_cautions(q, 340, 343.15);
+    ASSERT_EQ(c.size(), 3u);
+    EXPECT_NE(c[0].find("extra-low voltage"), std::string::npos);
+    EXPECT_NE(c[1].find("RF power"), std::string::npos);
+    EXPECT_NE(c[2].find("still air"), std::string::npos);
+}

@@ -1,0 +1,55 @@
+"""coil design driven as a user drives it: the demo requirement, its JSON, the chosen spec fed back to
+analyze and sweep, and bad requirements."""
+import json
+import time
+
+import libcoil  # noqa: F401  (the module must import beside the CLI)
+
+DEMO = "data/examples/bench-network-requirement.yaml"
+
+
+def test_demo_requirement_designs_a_coil_that_analyze_accepts(run_coil, source_dir, tmp_path):
+    start = time.monotonic()
+    r = run_coil("design", source_dir / DEMO, "--out", tmp_path)
+    elapsed = time.monotonic() - start
+    assert r.returncode == 0, r.stderr
+    assert elapsed < 60  # the issue's bound for the demo; it takes well under a second
+    assert "Chosen: design" in r.stdout and "why:" in r.stdout
+    chosen = tmp_path / "bench-network-requirement.chosen.yaml"
+    a = run_coil("analyze", chosen, "--json")
+    assert a.returncode == 0, a.stderr
+    j = json.loads(a.stdout)
+    assert abs(j["inductance_H"] / 5e-6 - 1) < 0.02
+    assert j["band"]["pass"]
+    s = run_coil("sweep", chosen, "--out", tmp_path)
+    assert s.returncode == 0, s.stderr
+    assert sorted(p.name for p in tmp_path.iterdir()) == sorted([
+        "bench-network-requirement.chosen.yaml", "bench-network-requirement.chosen.s1p",
+        "bench-network-requirement.chosen.sweep.csv", "bench-network-requirement.chosen.sweep.svg",
+        "bench-network-requirement.design.json", "bench-network-requirement.design.txt"])
+
+
+def test_design_json_keys(run_coil, source_dir):
+    r = run_coil("design", source_dir / DEMO, "--json", "--top", "5")
+    assert r.returncode == 0, r.stderr
+    j = json.loads(r.stdout)
+    for key in ("candidates_evaluated", "feasible", "rejected_by_reason", "designs", "chosen"):
+        assert key in j
+    assert len(j["designs"]) == 5
+    assert j["feasible"] + sum(j["rejected_by_reason"].values()) == j["candidates_evaluated"]
+    scores = [d["score"] for d in j["designs"]]
+    assert scores == sorted(scores)
+    chosen = j["designs"][j["chosen"]]
+    assert "coil:" in chosen["spec"] and "band:" in chosen["spec"]
+
+
+def test_bad_requirement_exits_2(run_coil, tmp_path):
+    bad = tmp_path / "bad.yaml"
+    bad.write_text("target: {inductance: 5 uH, tolerance: 2 %}\noperating: {current: 1 A}\n"
+                   "limits: {max_outer_diameter: 40 mm, max_length: 60 mm}\n"
+                   "search: {wires: [AWG 16], form_diameter: 20 mm, pitch_ratio: 0.5}\n")
+    r = run_coil("design", bad, "--out", tmp_path / "o")
+    assert r.returncode == 2
+    assert r.stdout == ""
+    assert r.stderr.startswith("coil: search.pitch_ratio")
+    assert not (tmp_path / "o").exists()
