@@ -3,6 +3,7 @@
 #include <pybind11/numpy.h>
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
+#include <pybind11/functional.h>
 #include <pybind11/stl/filesystem.h>
 
 #include <optional>
@@ -312,6 +313,61 @@ PYBIND11_MODULE(_core, m) {
     m.def("line_impedance", [](double w, double r, double l, double v, double len, const std::string& mounting) {
         return libcoil::line_impedance(w, r, l, v, len, mounting_from_name(mounting));
     }, "angular_frequency"_a, "resistance"_a, "inductance"_a, "phase_velocity"_a, "length"_a, "mounting"_a = "floating");
+
+    // Thermal estimate.
+    m.def("churchill_chu_horizontal", py::vectorize(&libcoil::churchill_chu_horizontal), "rayleigh"_a, "prandtl"_a);
+    m.def("churchill_chu_vertical", py::vectorize(&libcoil::churchill_chu_vertical), "rayleigh"_a, "prandtl"_a);
+    m.def("winding_temperature", [](const std::function<double(double)>& power, double outer_diameter, double length,
+                                    double ambient, double emissivity, bool vertical) {
+        const auto r = libcoil::winding_temperature(
+            power, libcoil::ThermalSurface{outer_diameter, length, emissivity,
+                                           vertical ? libcoil::CoilAxis::vertical : libcoil::CoilAxis::horizontal},
+            ambient);
+        return py::dict("temperature"_a = r.temperature, "rise"_a = r.rise, "power"_a = r.power,
+                        "convection"_a = r.convection, "radiation"_a = r.radiation,
+                        "convection_coefficient"_a = r.convection_coefficient, "rayleigh"_a = r.rayleigh);
+    }, "power"_a, "outer_diameter"_a, "length"_a, "ambient"_a, "emissivity"_a = 0.85, "vertical"_a = false,
+       "Steady winding temperature (K) for a loss power(T) in W.");
+
+    // Design search.
+    py::class_<libcoil::Requirement>(m, "Requirement")
+        .def_readonly("name", &libcoil::Requirement::name)
+        .def_readonly("inductance", &libcoil::Requirement::inductance)
+        .def_readonly("tolerance", &libcoil::Requirement::tolerance)
+        .def_readonly("notes", &libcoil::Requirement::notes);
+    m.def("parse_requirement", &libcoil::parse_requirement, "yaml_text"_a, "source"_a = "requirement");
+    m.def("load_requirement", &libcoil::load_requirement, "path"_a);
+    m.def("design", [](const libcoil::Requirement& q, unsigned threads, std::size_t top, bool spread,
+                       std::size_t samples, std::uint64_t seed) {
+        libcoil::DesignOptions o;
+        o.threads = threads;
+        o.top = top;
+        o.spread = spread;
+        o.samples = samples;
+        o.seed = seed;
+        std::string json;
+        {
+            py::gil_scoped_release release;
+            json = libcoil::design_json_report(q, libcoil::design(q, o), top);
+        }
+        return py::module_::import("json").attr("loads")(json);
+    }, "requirement"_a, "threads"_a = 0, "top"_a = 10, "spread"_a = false, "samples"_a = 2000, "seed"_a = 1,
+       "The ranked designs for a requirement, as the dict `coil design --json` prints.");
+    m.def("tolerance_spread", [](const libcoil::Solenoid& s, double target, double tolerance, double form_sd,
+                                 double pitch_sd, double wire_sd, double turns_sd, std::size_t samples, std::uint64_t seed) {
+        const auto r = libcoil::tolerance_spread(s, target, tolerance, {}, {},
+                                                 libcoil::BuildTolerances{form_sd, pitch_sd, wire_sd, turns_sd}, samples, seed);
+        py::dict sens;
+        for (const auto& x : r.sensitivities) sens[py::str(x.input)] = py::make_tuple(x.inductance, x.self_resonance);
+        const auto stat = [](const libcoil::SpreadStatistics& st) {
+            return py::dict("nominal"_a = st.nominal, "mean"_a = st.mean, "sd"_a = st.standard_deviation,
+                            "low"_a = st.low, "high"_a = st.high);
+        };
+        return py::dict("samples"_a = r.samples, "left_out"_a = r.left_out, "inductance"_a = stat(r.inductance),
+                        "self_resonance"_a = stat(r.self_resonance), "within_tolerance"_a = r.within_tolerance,
+                        "sensitivities"_a = sens, "first_order_inductance_sd"_a = r.first_order_inductance_deviation);
+    }, "solenoid"_a, "target"_a, "tolerance"_a, "form_diameter_sd"_a = 0.1e-3, "pitch_sd"_a = 0.02e-3,
+       "wire_diameter_sd"_a = 0.005, "turns_sd"_a = 0.1, "samples"_a = 2000, "seed"_a = 1);
 
     // Specs, analysis and reports.
     py::class_<libcoil::CoilSpec>(m, "CoilSpec")

@@ -424,6 +424,16 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
             << " x the best";
         out.why_chosen = why.str();
         out.cautions = design_cautions(q, d.temperature, d.temperature_limit);
+        if (options.spread) {
+            const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, q.wires[d.wire_index].wire, q.lead_length});
+            const FormerDielectric fd = q.former ? q.former->dielectric(d.form_diameter) : FormerDielectric{};
+            out.spread = tolerance_spread(s, q.inductance, q.tolerance, fd, q.surroundings, q.tolerances, options.samples,
+                                          options.seed);
+            if (!q.tolerances_given) {
+                out.notes.push_back("no tolerances given: the spread uses typical printing and winding values "
+                                    "(form diameter 0.1 mm, pitch 0.02 mm, wire 0.5 %, turns 0.1, one standard deviation each)");
+            }
+        }
     } else {
         out.cautions = design_cautions(q, 0, 0);
     }

@@ -89,6 +89,23 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
             o << "\nNo design passed the full re-analysis; see the warnings.\n";
         }
     }
+    if (r.spread) {
+        const Spread& s = *r.spread;
+        o << "\nTolerance spread of the chosen design (" << s.samples << " samples, seed " << s.seed << ")\n";
+        const auto stat = [&](const char* name, const SpreadStatistics& st, Dimension d) {
+            o << "  " << pad(name, 6) << "nominal " << pad(format_quantity(st.nominal, d), 12) << "mean "
+              << pad(format_quantity(st.mean, d), 12) << "sd " << pad(fixed(st.standard_deviation / st.nominal * 100, 2) + " %", 9)
+              << "95 % in " << format_quantity(st.low, d) << " .. " << format_quantity(st.high, d) << "\n";
+        };
+        stat("L", s.inductance, Dimension::inductance);
+        stat("SRF", s.self_resonance, Dimension::frequency);
+        o << "  within the target tolerance: " << fixed(s.within_tolerance * 100, 1) << " % of samples";
+        if (s.left_out) o << " (" << s.left_out << " samples left out: outside the models)";
+        o << "\n  sensitivities (% per %)   L        SRF\n";
+        for (const auto& x : s.sensitivities) {
+            o << "    " << pad(x.input, 22) << pad(fixed(x.inductance, 3), 9) << fixed(x.self_resonance, 3) << "\n";
+        }
+    }
     if (!r.cautions.empty()) {
         o << "\nCautions\n";
         for (const auto& c : r.cautions) o << "  ! " << c << "\n";
@@ -149,6 +166,29 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
     j["why_chosen"] = r.why_chosen;
     j["binding"] = r.binding;
     if (r.closest) j["closest"] = {{"reason", r.closest->reason}, {"excess", r.closest->excess}, {"detail", r.closest->detail}};
+    if (r.spread) {
+        const Spread& s = *r.spread;
+        const auto stat = [](const SpreadStatistics& st) {
+            return nlohmann::ordered_json{{"nominal", st.nominal}, {"mean", st.mean}, {"standard_deviation", st.standard_deviation},
+                                          {"low_2_5_percent", st.low}, {"high_97_5_percent", st.high}};
+        };
+        nlohmann::ordered_json sens = nlohmann::ordered_json::array();
+        for (const auto& x : s.sensitivities) {
+            sens.push_back({{"input", x.input}, {"inductance", x.inductance}, {"self_resonance", x.self_resonance}});
+        }
+        j["spread"] = {{"samples", s.samples},
+                       {"left_out", s.left_out},
+                       {"seed", s.seed},
+                       {"tolerances", {{"form_diameter_m", s.tolerances.form_diameter},
+                                       {"pitch_m", s.tolerances.pitch},
+                                       {"wire_diameter_fraction", s.tolerances.wire_diameter},
+                                       {"turns", s.tolerances.turns}}},
+                       {"inductance_H", stat(s.inductance)},
+                       {"self_resonance_Hz", stat(s.self_resonance)},
+                       {"within_tolerance", s.within_tolerance},
+                       {"sensitivities", sens},
+                       {"first_order_inductance_sd_H", s.first_order_inductance_deviation}};
+    }
     j["cautions"] = r.cautions;
     j["warnings"] = r.warnings;
     j["notes"] = r.notes;

@@ -1,5 +1,6 @@
 #include "libcoil/losses.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "libcoil/constants.hpp"
@@ -53,9 +54,11 @@ std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conduc
     check_frequencies(fs);
     require_positive("dc_inductance", l_dc);
     const double l_int_dc = mu0 * cond.relative_permeability / (8 * pi) * c.helix_length();
+    const bool any_ac = std::any_of(fs.begin(), fs.end(), [](double f) { return f > 0; });
+    const double field = any_ac ? mean_square_field_per_ampere(c) : 0.0;  // once for all frequencies
     std::vector<CoilAtFrequency> out;
     for (double f : fs) {
-        const AcResistance r = ac_resistance(c, cond, temperature, f);
+        const AcResistance r = ac_resistance(c, cond, temperature, f, field);
         CoilAtFrequency p;
         p.frequency = f;
         p.resistance = r.resistance;

@@ -81,7 +81,13 @@ double mean_square_field_per_ampere(const Solenoid& c) {
 }
 
 AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temperature, double frequency) {
+    return ac_resistance(c, cond, temperature, frequency, frequency > 0 ? mean_square_field_per_ampere(c) : 0.0);
+}
+
+AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temperature, double frequency,
+                           double mean_square_field) {
     require_non_negative("frequency", frequency);
+    require_non_negative("mean_square_field", mean_square_field);
     AcResistance r;
     r.frequency = frequency;
     const double d = c.wire().bare_diameter;
@@ -98,7 +104,7 @@ AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temp
     r.skin_ratio = s.resistance;
     r.internal_inductance_ratio = s.internal_inductance;
     const double rw = c.wire().radius();
-    r.proximity_ratio = 4 * pi * pi * rw * rw * proximity_loss_function(x) * mean_square_field_per_ampere(c);
+    r.proximity_ratio = 4 * pi * pi * rw * rw * proximity_loss_function(x) * mean_square_field;
     r.resistance = finite_result("AC resistance", helix * (r.skin_ratio + r.proximity_ratio) + leads * r.skin_ratio);
     return r;
 }

@@ -69,7 +69,7 @@ Requirement read_requirement(const YAML::Node& root) {
     if (!root || root.IsNull()) throw InputError("requirement", "the requirement is empty; expected a mapping with \"target:\"");
     const detail::YamlMap top(root, "");
     top.allow_only({"name", "description", "target", "band", "operating", "limits", "search", "objective", "former",
-                    "surroundings", "conductor"});
+                    "surroundings", "conductor", "tolerances"});
     Requirement q;
     q.name = top.optional_text("name").value_or("");
     q.description = top.optional_text("description").value_or("");
@@ -151,6 +151,21 @@ Requirement read_requirement(const YAML::Node& root) {
     if (top.has("former")) q.former = detail::read_former(top.map("former"), q.form_diameter.min, q.notes);
     if (top.has("surroundings")) q.surroundings = detail::read_surroundings(top.map("surroundings"));
     q.conductor = conductor(top.optional_text("conductor").value_or("copper"), "conductor");
+    if (top.has("tolerances")) {
+        const detail::YamlMap tol = top.map("tolerances");
+        tol.allow_only({"form_diameter", "pitch", "wire_diameter", "turns"});
+        if (tol.has("form_diameter")) q.tolerances.form_diameter = tol.non_negative_quantity("form_diameter", Dimension::length);
+        if (tol.has("pitch")) q.tolerances.pitch = tol.non_negative_quantity("pitch", Dimension::length);
+        if (tol.has("wire_diameter")) {
+            if (tol.text("wire_diameter").find('%') == std::string::npos) {
+                throw InputError(tol.path_of("wire_diameter"), "\"" + tol.text("wire_diameter") +
+                                                                   "\"; expected a percentage such as \"0.5 %\"");
+            }
+            q.tolerances.wire_diameter = tol.non_negative_quantity("wire_diameter", Dimension::dimensionless);
+        }
+        if (tol.has("turns")) q.tolerances.turns = tol.non_negative_quantity("turns", Dimension::dimensionless);
+        q.tolerances_given = true;
+    }
     return q;
 }
 

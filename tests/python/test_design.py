@@ -53,3 +53,20 @@ def test_bad_requirement_exits_2(run_coil, tmp_path):
     assert r.stdout == ""
     assert r.stderr.startswith("coil: search.pitch_ratio")
     assert not (tmp_path / "o").exists()
+
+
+def test_python_design_matches_the_cli(run_coil, source_dir):
+    q = libcoil.load_requirement(str(source_dir / DEMO))
+    py = libcoil.design(q, top=3)
+    cli = json.loads(run_coil("design", source_dir / DEMO, "--json", "--top", "3").stdout)
+    assert py["candidates_evaluated"] == cli["candidates_evaluated"]
+    assert [d["score"] for d in py["designs"]] == [d["score"] for d in cli["designs"]]
+    spread = libcoil.design(q, top=1, spread=True, samples=200, seed=3)["spread"]
+    assert spread["samples"] + spread["left_out"] == 200
+    assert spread["inductance_H"]["low_2_5_percent"] < spread["inductance_H"]["mean"] < spread["inductance_H"]["high_97_5_percent"]
+
+
+def test_thermal_energy_balance_from_python():
+    # Churchill & Chu (1975) with grey-body radiation: dissipated = convected + radiated at the answer.
+    r = libcoil.winding_temperature(lambda t: 3.0, 0.03, 0.05, 298.15)
+    assert abs((r["convection"] + r["radiation"]) / r["power"] - 1) < 1e-9

@@ -141,6 +141,9 @@ struct DesignCliOptions {
     bool json = false;
     int top = 10;
     unsigned threads = 0;
+    bool spread = false;
+    std::size_t samples = 2000;
+    std::uint64_t seed = 1;
 };
 
 int run_design(const DesignCliOptions& o) {
@@ -148,6 +151,9 @@ int run_design(const DesignCliOptions& o) {
     libcoil::DesignOptions opt;
     opt.threads = o.threads;
     opt.top = static_cast<std::size_t>(std::max(1, o.top));
+    opt.spread = o.spread;
+    opt.samples = o.samples;
+    opt.seed = o.seed;
     // Progress on stderr, on a terminal only, once the search has run for a second.
     const auto start = std::chrono::steady_clock::now();
     if (::isatty(STDERR_FILENO) != 0) {
@@ -259,6 +265,9 @@ int main(int argc, char** argv) {
     de->add_option("--out", dsg.out_dir, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)");
     de->add_option("--top", dsg.top, "Designs to list")->capture_default_str();
     de->add_option("--threads", dsg.threads, "Search threads (default: all cores)");
+    de->add_flag("--spread", dsg.spread, "Monte Carlo of the build tolerances on the chosen design");
+    de->add_option("--samples", dsg.samples, "Spread: number of samples")->capture_default_str();
+    de->add_option("--seed", dsg.seed, "Spread: random seed (the same seed gives the same samples)")->capture_default_str();
 
     WireOptions wire;
     CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");

@@ -29,6 +29,7 @@
 #include "libcoil/analysis.hpp"
 #include "libcoil/requirement.hpp"
 #include "libcoil/spec.hpp"
+#include "libcoil/spread.hpp"
 
 namespace libcoil {
 
@@ -64,6 +65,9 @@ struct DesignOptions {
     unsigned threads = 0;         // 0: all hardware threads
     std::size_t top = 10;         // designs to rank and report
     std::function<void(std::size_t, std::size_t)> progress;  // (done, total) candidates, from the calling thread
+    bool spread = false;          // run the tolerance spread on the chosen design
+    std::size_t samples = 2000;
+    std::uint64_t seed = 1;
 };
 
 struct DesignResult {
@@ -79,6 +83,7 @@ struct DesignResult {
     std::vector<std::string> notes;     // assumptions
     std::vector<std::string> warnings;
     std::optional<Analysis> chosen_analysis;  // the full re-analysis of the chosen design
+    std::optional<Spread> spread;             // with DesignOptions::spread and a chosen design
 };
 
 DesignResult design(const Requirement& requirement, const DesignOptions& options = {});

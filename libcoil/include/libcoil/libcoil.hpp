@@ -29,6 +29,7 @@
 #include "libcoil/skin_effect.hpp"
 #include "libcoil/solenoid.hpp"
 #include "libcoil/spec.hpp"
+#include "libcoil/spread.hpp"
 #include "libcoil/sweep_output.hpp"
 #include "libcoil/thermal.hpp"
 #include "libcoil/units.hpp"

@@ -46,5 +46,9 @@ struct AcResistance {
 
 // The closed-form chain: DC resistance at `temperature` K, skin ratio and proximity ratio at `frequency`.
 AcResistance ac_resistance(const Solenoid& coil, const Conductor& conductor, double temperature, double frequency);
+// The same with the coil's mean_square_field_per_ampere given: for many frequencies of one coil, the
+// O(N) field sum is computed once.
+AcResistance ac_resistance(const Solenoid& coil, const Conductor& conductor, double temperature, double frequency,
+                           double mean_square_field);
 
 }  // namespace libcoil

@@ -26,6 +26,11 @@
 //   former: {material: PETG, kind: grooved-tube, wall: 3 mm}
 //   surroundings: {mounting: floating}
 //   conductor: copper
+//   tolerances:                      # optional, one standard deviation each (defaults: spread.hpp)
+//     form_diameter: 0.1 mm
+//     pitch: 0.02 mm
+//     wire_diameter: 0.5 %
+//     turns: 0.1
 #pragma once
 
 #include <filesystem>
@@ -38,6 +43,7 @@
 #include "libcoil/materials.hpp"
 #include "libcoil/self_resonance.hpp"
 #include "libcoil/spec.hpp"
+#include "libcoil/spread.hpp"
 #include "libcoil/wire.hpp"
 
 namespace libcoil {
@@ -82,6 +88,8 @@ struct Requirement {
     std::optional<FormerSpec> former;
     Surroundings surroundings;
     Conductor conductor;
+    BuildTolerances tolerances;
+    bool tolerances_given = false;
     std::vector<std::string> notes;
 };
 
