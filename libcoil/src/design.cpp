@@ -40,16 +40,38 @@ struct Candidate {
     double form_diameter, ratio;
 };
 
-// One thread's share of the search: its Pareto set, counts and closest miss.
+// The Pareto set is kept as an epsilon-Pareto archive (Laumanns, Thiele, Deb & Zitzler, Evolutionary
+// Computation 10 (2002) 263): each figure is binned on a log scale of ratio 1 + epsilon, a design whose
+// box is dominated by an archived box is dropped, and one box holds one design. Designs within 0.5 %
+// on all three figures count as one, which keeps the set small and the insertion cheap.
+constexpr double archive_epsilon = 0.005;
+
+struct Box {
+    long loss, size, srf;
+    bool operator==(const Box&) const = default;
+};
+
+bool box_dominates(const Box& a, const Box& b) {
+    return a.loss <= b.loss && a.size <= b.size && a.srf <= b.srf && !(a == b);
+}
+
+struct Archived {
+    Box box;
+    DesignFigures design;
+};
+
+// One thread's share of the search: its Pareto archive, counts and closest miss.
 struct Tally {
-    std::vector<DesignFigures> front;
+    std::vector<Archived> front;
     std::map<std::string, std::size_t> rejected;
     std::optional<Rejection> closest;
     std::size_t feasible = 0;
 
-    void reject(std::string reason, double excess, const std::string& detail) {
+    // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).
+    template <class Detail>
+    void reject(std::string reason, double excess, const Detail& detail) {
         ++rejected[reason];
-        if (!closest || excess < closest->excess) closest = Rejection{std::move(reason), excess, detail};
+        if (!closest || excess < closest->excess) closest = Rejection{std::move(reason), excess, detail()};
     }
 };
 
@@ -59,12 +81,36 @@ bool dominates(const DesignFigures& a, const DesignFigures& b, double ceiling) {
     return la <= lb && va <= vb && sa <= sb && (la < lb || va < vb || sa < sb);
 }
 
-void add_to_front(std::vector<DesignFigures>& front, const DesignFigures& d, double ceiling) {
-    for (const auto& f : front) {
-        if (dominates(f, d, ceiling)) return;
+Box box_of(const DesignFigures& d, double ceiling) {
+    static const double step = std::log1p(archive_epsilon);
+    return {static_cast<long>(std::floor(std::log(d.loss_metric()) / step)),
+            static_cast<long>(std::floor(std::log(d.volume) / step)),
+            static_cast<long>(std::floor(std::log(d.srf_metric(ceiling)) / step))};
+}
+
+// Distance of a design from its box's lower corner, in bins: the tie-break within one box.
+double corner_distance(const DesignFigures& d, const Box& b, double ceiling) {
+    static const double step = std::log1p(archive_epsilon);
+    const double x = std::log(d.loss_metric()) / step - static_cast<double>(b.loss);
+    const double y = std::log(d.volume) / step - static_cast<double>(b.size);
+    const double z = std::log(d.srf_metric(ceiling)) / step - static_cast<double>(b.srf);
+    return x * x + y * y + z * z;
+}
+
+void add_to_front(std::vector<Archived>& front, const DesignFigures& d, double ceiling) {
+    const Box b = box_of(d, ceiling);
+    for (auto& f : front) {
+        if (box_dominates(f.box, b)) return;
+        if (f.box == b) {
+            if (dominates(f.design, d, ceiling)) return;
+            if (dominates(d, f.design, ceiling) || corner_distance(d, b, ceiling) < corner_distance(f.design, b, ceiling)) {
+                f.design = d;
+            }
+            return;
+        }
     }
-    std::erase_if(front, [&](const DesignFigures& f) { return dominates(d, f, ceiling); });
-    front.push_back(d);
+    std::erase_if(front, [&](const Archived& f) { return box_dominates(b, f.box); });
+    front.push_back({b, d});
 }
 
 class Evaluator {
@@ -83,15 +129,15 @@ public:
         const Wire& w = wo.wire;
         const double d_ins = w.insulated_diameter();
         const double mean = c.form_diameter + d_ins;
-        const std::string what = w.label + " on " + mm(c.form_diameter) + " at pitch ratio " + detail::fixed(c.ratio, 2);
+        const auto what = [&] { return w.label + " on " + mm(c.form_diameter) + " at pitch ratio " + detail::fixed(c.ratio, 2); };
         const double outer = mean + d_ins;
         if (outer > q_.max_outer_diameter) {
-            t.reject("outer_diameter", outer / q_.max_outer_diameter, what + ": outer diameter " + mm(outer));
+            t.reject("outer_diameter", outer / q_.max_outer_diameter, [&] { return what() + ": outer diameter " + mm(outer); });
             return;
         }
         const double room = q_.max_length - 2 * q_.former_ends - d_ins;  // for N * p
         if (!(room > 0)) {
-            t.reject("length", (2 * q_.former_ends + d_ins) / q_.max_length, what + ": no room for a winding");
+            t.reject("length", (2 * q_.former_ends + d_ins) / q_.max_length, [&] { return what() + ": no room for a winding"; });
             return;
         }
         const auto L = [&](double n, double p) {
@@ -106,29 +152,29 @@ public:
                 if (!solve_pitch(n, d_ins, room, L, p)) {
                     const double l_touch = L(n, d_ins);
                     if (l_touch < target) {
-                        t.reject("inductance_out_of_reach", target / l_touch, what + ": " + format_quantity(l_touch, Dimension::inductance) +
-                                 " at most with the fixed turns");
+                        t.reject("inductance_out_of_reach", target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
+                                 " at most with the fixed turns"; });
                     } else {
-                        t.reject("length", n * d_ins / room, what + ": the fixed turns do not fit the length");
+                        t.reject("length", n * d_ins / room, [&] { return what() + ": the fixed turns do not fit the length"; });
                     }
                     return;
                 }
             } else {
                 const double n_max = room / p;
                 if (n_max < 1) {
-                    t.reject("length", 1 / n_max, what + ": not one turn fits");
+                    t.reject("length", 1 / n_max, [&] { return what() + ": not one turn fits"; });
                     return;
                 }
                 const double l_max = L(n_max, p);
                 if (l_max < target) {
-                    t.reject("length", target / l_max, what + ": " + format_quantity(l_max, Dimension::inductance) +
-                             " with the longest winding that fits");
+                    t.reject("length", target / l_max, [&] { return what() + ": " + format_quantity(l_max, Dimension::inductance) +
+                             " with the longest winding that fits"; });
                     return;
                 }
                 const double l_one = L(1, p);
                 if (l_one > target) {
-                    t.reject("inductance_out_of_reach", l_one / target, what + ": one turn already gives " +
-                             format_quantity(l_one, Dimension::inductance));
+                    t.reject("inductance_out_of_reach", l_one / target, [&] { return what() + ": one turn already gives " +
+                             format_quantity(l_one, Dimension::inductance); });
                     return;
                 }
                 n_solved = root([&](double x) { return L(x, p) - target; }, 1, n_max, l_one - target, l_max - target);
@@ -145,15 +191,15 @@ public:
                     }
                 }
                 if (!done) {
-                    t.reject("snapping", 1.0 + step / n_solved, what + ": no pitch meets the target after snapping the turns");
+                    t.reject("snapping", 1.0 + step / n_solved, [&] { return what() + ": no pitch meets the target after snapping the turns"; });
                     return;
                 }
             }
         } catch (const InputError&) {
-            t.reject("model_domain", 10, what + ": outside the geometry the models accept");
+            t.reject("model_domain", 10, [&] { return what() + ": outside the geometry the models accept"; });
             return;
         } catch (const DomainError&) {
-            t.reject("model_domain", 10, what + ": outside every inductance model's domain");
+            t.reject("model_domain", 10, [&] { return what() + ": outside every inductance model's domain"; });
             return;
         }
 
@@ -176,7 +222,7 @@ public:
         d.inductance = recommended_inductance(s);
         d.volume = pi / 4 * outer * outer * d.length_with_ends;
         if (q_.max_wire_length && d.wire_length > *q_.max_wire_length) {
-            t.reject("wire_length", d.wire_length / *q_.max_wire_length, what + ": wire " + detail::fixed(d.wire_length, 2) + " m");
+            t.reject("wire_length", d.wire_length / *q_.max_wire_length, [&] { return what() + ": wire " + detail::fixed(d.wire_length, 2) + " m"; });
             return;
         }
 
@@ -196,14 +242,13 @@ public:
             d.temperature = th.temperature;
             d.rise = th.rise;
         } catch (const DomainError&) {
-            t.reject("thermal", 10, what + ": the winding would run away thermally");
+            t.reject("thermal", 10, [&] { return what() + ": the winding would run away thermally"; });
             return;
         }
         d.temperature_limit = limit_;
         if (d.temperature > limit_) {
-            t.reject("thermal", (d.temperature - q_.ambient) / (limit_ - q_.ambient),
-                     what + ": winding at " + format_quantity(d.temperature, Dimension::temperature) + ", limit " +
-                         format_quantity(limit_, Dimension::temperature));
+            t.reject("thermal", (d.temperature - q_.ambient) / (limit_ - q_.ambient), [&] { return what() + ": winding at " + format_quantity(d.temperature, Dimension::temperature) + ", limit " +
+                         format_quantity(limit_, Dimension::temperature); });
             return;
         }
         d.near_thermal_limit = d.temperature > limit_ - near_limit;
@@ -213,9 +258,9 @@ public:
         SelfResonance sr;
         try {
             const FormerDielectric fd = q_.former ? q_.former->dielectric(c.form_diameter) : FormerDielectric{};
-            sr = self_resonance(s, d.inductance, fd, q_.surroundings);
+            sr = self_resonance(s, d.inductance, fd, q_.surroundings, false);
         } catch (const DomainError&) {
-            t.reject("model_domain", 10, what + ": no self-resonance model holds");
+            t.reject("model_domain", 10, [&] { return what() + ": no self-resonance model holds"; });
             return;
         }
         d.self_resonance = sr.frequency;
@@ -225,7 +270,7 @@ public:
             const bool none = !b.srf_margin && !b.max_deviation && !b.min_impedance;
             const double k = b.srf_margin.value_or(none ? default_srf_margin : 0);
             if (k > 0 && sr.frequency < k * b.ceiling) {
-                t.reject("srf_margin", k * b.ceiling / sr.frequency, what + ": SRF " + format_quantity(sr.frequency, Dimension::frequency));
+                t.reject("srf_margin", k * b.ceiling / sr.frequency, [&] { return what() + ": SRF " + format_quantity(sr.frequency, Dimension::frequency); });
                 return;
             }
             if (b.max_deviation || b.min_impedance) {
@@ -236,13 +281,13 @@ public:
                     const double mag = pt.magnitude();
                     const double dev = std::fabs(mag / (2 * pi * pt.frequency * d.inductance) - 1);
                     if (b.max_deviation && dev > *b.max_deviation) {
-                        t.reject("max_deviation", dev / *b.max_deviation, what + ": |Z| off wL by " + detail::fixed(dev * 100, 1) +
-                                 " % at " + format_quantity(pt.frequency, Dimension::frequency));
+                        t.reject("max_deviation", dev / *b.max_deviation, [&] { return what() + ": |Z| off wL by " + detail::fixed(dev * 100, 1) +
+                                 " % at " + format_quantity(pt.frequency, Dimension::frequency); });
                         return;
                     }
                     if (b.min_impedance && mag < *b.min_impedance) {
-                        t.reject("min_impedance", *b.min_impedance / mag, what + ": |Z| " +
-                                 format_quantity(mag, Dimension::resistance) + " at " + format_quantity(pt.frequency, Dimension::frequency));
+                        t.reject("min_impedance", *b.min_impedance / mag, [&] { return what() + ": |Z| " +
+                                 format_quantity(mag, Dimension::resistance) + " at " + format_quantity(pt.frequency, Dimension::frequency); });
                         return;
                     }
                 }
@@ -360,13 +405,15 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     DesignResult out;
     out.candidates_evaluated = grid.size();
     out.notes = q.notes;
-    std::vector<DesignFigures> front;
+    std::vector<Archived> archive;
     for (auto& t : tallies) {
         out.feasible += t.feasible;
         for (const auto& [r, n] : t.rejected) out.rejected_by_reason[r] += n;
-        for (const auto& d : t.front) add_to_front(front, d, ev.ceiling());
+        for (const auto& a : t.front) add_to_front(archive, a.design, ev.ceiling());
         if (t.closest && (!out.closest || t.closest->excess < out.closest->excess)) out.closest = t.closest;
     }
+    std::vector<DesignFigures> front;
+    for (auto& a : archive) front.push_back(std::move(a.design));
     if (front.empty()) {
         std::string top_reason;
         std::size_t most = 0;

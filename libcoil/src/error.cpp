@@ -30,28 +30,23 @@ std::string format_value(double value) {
     return buf;
 }
 
-double require_finite(std::string_view field, double value) {
-    if (!std::isfinite(value)) {
-        throw InputError(std::string(field), format_value(value) + " is not a finite number");
-    }
-    return value;
+namespace detail {
+
+[[noreturn]] void throw_not_finite(std::string_view field, double value) {
+    throw InputError(std::string(field), format_value(value) + " is not a finite number");
 }
 
-double require_positive(std::string_view field, double value) {
-    require_finite(field, value);
-    if (!(value > 0)) {
-        throw InputError(std::string(field), format_value(value) + " must be greater than zero");
-    }
-    return value;
+[[noreturn]] void throw_not_positive(std::string_view field, double value) {
+    if (!std::isfinite(value)) throw_not_finite(field, value);
+    throw InputError(std::string(field), format_value(value) + " must be greater than zero");
 }
 
-double require_non_negative(std::string_view field, double value) {
-    require_finite(field, value);
-    if (value < 0) {
-        throw InputError(std::string(field), format_value(value) + " must not be negative");
-    }
-    return value;
+[[noreturn]] void throw_negative(std::string_view field, double value) {
+    if (!std::isfinite(value)) throw_not_finite(field, value);
+    throw InputError(std::string(field), format_value(value) + " must not be negative");
 }
+
+}  // namespace detail
 
 double require_at_least(std::string_view field, double value, double minimum, std::string_view why) {
     require_finite(field, value);

@@ -16,6 +16,10 @@ namespace libcoil {
 
 namespace {
 
+// Double-precision evaluation throughout: Boost promotes double to long double by default, which costs
+// a factor of 2-3 here for digits the dispersion does not need (it is solved to 1e-13).
+using fast = boost::math::policies::policy<boost::math::policies::promote_double<false>>;
+
 // Above this argument the ratios come from the asymptotic series (I0 overflows near 713).
 constexpr double asymptotic_from = 500.0;
 
@@ -36,13 +40,19 @@ constexpr double small_from = 1e-8;
 double ratio_i(double x) {  // I1(x) / I0(x)
     if (x < small_from) return x / 2;  // A&S 9.6.7: I0 ~ 1, I1 ~ x/2
     if (x >= asymptotic_from) return hankel_sum(1, x, -1) / hankel_sum(0, x, -1);
-    return boost::math::cyl_bessel_i(1, x) / boost::math::cyl_bessel_i(0, x);
+    return boost::math::cyl_bessel_i(1, x, fast()) / boost::math::cyl_bessel_i(0, x, fast());
 }
 
 double ratio_k(double x) {  // K1(x) / K0(x)
     if (x < small_from) return 1 / (x * (std::log(2 / x) - std::numbers::egamma));  // A&S 9.6.8, 9.6.9
     if (x >= asymptotic_from) return hankel_sum(1, x, 1) / hankel_sum(0, x, 1);
-    return boost::math::cyl_bessel_k(1, x) / boost::math::cyl_bessel_k(0, x);
+    return boost::math::cyl_bessel_k(1, x, fast()) / boost::math::cyl_bessel_k(0, x, fast());
+}
+
+// I_n(x) exp(-x) for n = 0, 1: Boost below the asymptotic switch, Hankel's series above.
+double scaled_i(int n, double x) {
+    if (x >= asymptotic_from) return hankel_sum(n, x, -1) / std::sqrt(2 * pi * x);
+    return boost::math::cyl_bessel_i(n, x, fast()) * std::exp(-x);
 }
 
 constexpr std::uintmax_t max_iterations = 200;
@@ -76,6 +86,14 @@ double SheathHelix::dispersion(double beta, double k) const {
 
 double SheathHelix::wavenumber_for(double beta) const {
     require_positive("beta", beta);
+    // The slow-wave estimate (gamma = beta in both regions) makes the dispersion explicit in k:
+    // (k a)^2 = tan^2(psi) x^2 (1/rI + 1/rK) / (e1 rI + e2 rK), x = beta a. Its error is O((v/c)^2).
+    const double x = beta * a_, ri = ratio_i(x), rk = ratio_k(x);
+    const double guess = std::sqrt(tan2_ * (1 / ri + 1 / rk) / (m_.inner * ri + m_.outer * rk)) * x / a_;
+    return wavenumber_for(beta, guess);
+}
+
+double SheathHelix::full_bracket(double beta) const {
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
     const auto g = [&](double k) { return dispersion(beta, k); };
     // At k -> 0 the function is tan^2(psi) (x/rI + x/rK) > 0; at the light line it is negative for a slow wave.
@@ -86,6 +104,18 @@ double SheathHelix::wavenumber_for(double beta) const {
     }
     if (!(g_lo > 0)) throw DomainError("sheath helix: the pitch angle is too small to resolve the wave");
     return finite_result("sheath helix", root_between(g, lo, k_max, g_lo, g_hi));
+}
+
+double SheathHelix::wavenumber_for(double beta, double guess) const {
+    require_positive("beta", beta);
+    const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
+    if (guess > 0 && guess < k_max) {
+        const auto g = [&](double k) { return dispersion(beta, k); };
+        const double lo = 0.97 * guess, hi = std::min(1.03 * guess, k_max);
+        const double g_lo = g(lo), g_hi = g(hi);
+        if (g_lo > 0 && g_hi < 0) return finite_result("sheath helix", root_between(g, lo, hi, g_lo, g_hi));
+    }
+    return full_bracket(beta);
 }
 
 double SheathHelix::axial_wavenumber(double k) const {
@@ -114,21 +144,21 @@ double sheath_inner_energy_share(double a, double r_in, double r_out, double gam
     require_positive("gamma", gamma);
     require_positive("beta", beta);
     if (!(r_in < r_out) || r_out > a) throw InputError("r_out", "expected r_in < r_out <= a");
-    using boost::math::cyl_bessel_i;
-    const long double g = gamma, b2 = static_cast<long double>(beta / gamma) * (beta / gamma);
+    const double b2 = (beta / gamma) * (beta / gamma), ua = gamma * a;
     // Antiderivatives of r I0(g r)^2 and r I1(g r)^2, times g^2 (which cancels in the share):
-    // u^2/2 (I0^2 - I1^2) and u^2/2 (I1^2 - I0 I2), u = g r. Long double carries I0 to u ~ 1e4.
+    // u^2/2 (I0^2 - I1^2) and u^2/2 (I1^2 - I0 I2), u = g r, I2 = I0 - 2 I1 / u. All are scaled by
+    // exp(-2 g a) through the exponentially scaled e_n(u) = I_n(u) exp(-u), so nothing overflows.
     const auto energy = [&](double r) {
-        const long double u = g * r;
-        if (u == 0) return 0.0L;
-        const long double i0 = cyl_bessel_i(0, u), i1 = cyl_bessel_i(1, u), i2 = cyl_bessel_i(2, u);
-        return u * u / 2 * ((i0 * i0 - i1 * i1) + b2 * (i1 * i1 - i0 * i2));
+        const double u = gamma * r;
+        if (u == 0) return 0.0;
+        const double e0 = scaled_i(0, u), e1 = scaled_i(1, u), e2 = e0 - 2 * e1 / u;
+            return u * u / 2 * ((e0 * e0 - e1 * e1) + b2 * (e1 * e1 - e0 * e2)) * std::exp(2 * (u - ua));
     };
-    const long double total = energy(a);
-    if (!(total > 0) || !std::isfinite(static_cast<double>(std::log(total)))) {
+    const double total = energy(a);
+    if (!(total > 0) || !std::isfinite(total)) {
         throw DomainError("sheath helix: the inner field energy could not be evaluated");
     }
-    const double share = static_cast<double>((energy(r_out) - energy(r_in)) / total);
+    const double share = (energy(r_out) - energy(r_in)) / total;
     return std::clamp(share, 0.0, 1.0);
 }
 

@@ -38,7 +38,7 @@ double kandoian_sichak_resonance(const Solenoid& s, double waves, double eps) {
 }  // namespace
 
 SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerDielectric& former,
-                             const Surroundings& surroundings) {
+                             const Surroundings& surroundings, bool cross_checks) {
     require_positive("inductance", inductance);
     const double eps_out = require_at_least("surroundings.relative_permittivity",
                                             require_finite("surroundings.relative_permittivity",
@@ -74,7 +74,8 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     try {
         double k = 0;
         for (int i = 0; i < 50; ++i) {
-            k = SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta);
+            k = i == 0 ? SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta)
+                       : SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta, k);
             if (!(former.wall > 0) || former.relative_permittivity == eps_out) break;
             const double gamma = std::sqrt(beta * beta - medium.inner * k * k);
             const double share = sheath_inner_energy_share(r.radius, shell_in, form_radius, gamma, beta);
@@ -93,7 +94,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     }
     r.medium = medium;
 
-    try {
+    if (cross_checks) try {
         r.kandoian_sichak.frequency = kandoian_sichak_resonance(s, waves, 0.5 * (medium.inner + medium.outer));
         r.kandoian_sichak.capacitance = equivalent_capacitance(r.kandoian_sichak.frequency, inductance);
         r.kandoian_sichak.available = true;

@@ -6,6 +6,7 @@
 // domain of every model that could answer it.
 #pragma once
 
+#include <cmath>
 #include <stdexcept>
 #include <string>
 #include <string_view>
@@ -36,10 +37,26 @@ public:
 // Formats a double for messages with up to 6 significant digits ("nan", "inf" spelled out).
 std::string format_value(double value);
 
-// Validation helpers used by every public entry point. They throw InputError naming `field`.
-double require_finite(std::string_view field, double value);
-double require_positive(std::string_view field, double value);      // finite and > 0
-double require_non_negative(std::string_view field, double value);  // finite and >= 0
+namespace detail {
+[[noreturn]] void throw_not_finite(std::string_view field, double value);
+[[noreturn]] void throw_not_positive(std::string_view field, double value);
+[[noreturn]] void throw_negative(std::string_view field, double value);
+}  // namespace detail
+
+// Validation helpers used by every public entry point. They throw InputError naming `field`. The checks
+// are inline (they sit on every hot path); the messages are built only when they throw.
+inline double require_finite(std::string_view field, double value) {
+    if (!std::isfinite(value)) detail::throw_not_finite(field, value);
+    return value;
+}
+inline double require_positive(std::string_view field, double value) {  // finite and > 0
+    if (!(value > 0 && std::isfinite(value))) detail::throw_not_positive(field, value);
+    return value;
+}
+inline double require_non_negative(std::string_view field, double value) {  // finite and >= 0
+    if (!(value >= 0 && std::isfinite(value))) detail::throw_negative(field, value);
+    return value;
+}
 double require_at_least(std::string_view field, double value, double minimum, std::string_view why);
 // A model's result must be finite: inputs that are each valid can still overflow (a 1e200 m coil).
 // Throws DomainError naming the model when it is not.

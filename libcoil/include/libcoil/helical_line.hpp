@@ -41,6 +41,8 @@ public:
     // Free-space wavenumber k (rad/m) at which the slow wave has axial wavenumber beta (rad/m).
     // Throws DomainError when no slow wave exists there.
     double wavenumber_for(double beta) const;
+    // The same, starting from a nearby solution `guess` (a warm start; falls back to the full bracket).
+    double wavenumber_for(double beta, double guess) const;
     // Axial wavenumber beta of the slow wave at free-space wavenumber k.
     double axial_wavenumber(double k) const;
     // Phase velocity omega / beta (m/s) of the wave with axial wavenumber beta.
@@ -51,6 +53,7 @@ public:
     const HelixMedium& medium() const { return m_; }
 
 private:
+    double full_bracket(double beta) const;
     double a_, psi_, tan2_;
     HelixMedium m_;
 };

@@ -73,8 +73,9 @@ struct SelfResonance {
 };
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
+// `cross_checks` false leaves out Kandoian & Sichak (the design search needs only the recommended SRF).
 SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
-                             const Surroundings& surroundings = {});
+                             const Surroundings& surroundings = {}, bool cross_checks = true);
 
 const char* mounting_name(Mounting m);  // "floating", "grounded-end"
 
