@@ -158,3 +158,20 @@ TEST(Design, Cautions) {
     EXPECT_NE(c[1].find("RF power"), std::string::npos);
     EXPECT_NE(c[2].find("still air"), std::string::npos);
 }
+
+TEST(Design, FixedTurnsAndFixedFormDiameterNarrowTheSearch) {
+    // Fixed turns: the pitch is solved; a fixed form diameter (one value) leaves one diameter in the grid.
+    std::string yaml = base;
+    yaml.replace(yaml.find("form_diameter: {min: 15 mm, max: 35 mm, step: 2 mm}"), 51, "form_diameter: 25 mm\n  turns: 16");
+    const Requirement q = parse_requirement(yaml);
+    ASSERT_TRUE(q.turns.has_value());
+    EXPECT_EQ(q.form_diameter.values().size(), 1u);
+    const DesignResult r = design(q);
+    EXPECT_EQ(r.candidates_evaluated, 3u * 15u);
+    ASSERT_FALSE(r.pareto.empty());
+    for (const auto& d : r.pareto) {
+        EXPECT_EQ(d.turns, 16.0);
+        EXPECT_EQ(d.form_diameter, 25e-3);
+        EXPECT_NEAR(d.inductance / q.inductance, 1.0, 1e-9);
+    }
+}
