@@ -15,11 +15,7 @@ namespace {
 
 using detail::fixed;
 
-std::string pad(const std::string& s, std::size_t width) {
-    std::size_t cols = 0;
-    for (unsigned char c : s) cols += (c & 0xC0) != 0x80;
-    return cols >= width ? s + " " : s + std::string(width - cols, ' ');
-}
+using detail::pad;
 
 std::string mm(double m) { return fixed(m * 1e3, 2); }
 
@@ -106,18 +102,9 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
             o << "    " << pad(x.input, 22) << pad(fixed(x.inductance, 3), 9) << fixed(x.self_resonance, 3) << "\n";
         }
     }
-    if (!r.cautions.empty()) {
-        o << "\nCautions\n";
-        for (const auto& c : r.cautions) o << "  ! " << c << "\n";
-    }
-    if (!r.warnings.empty()) {
-        o << "\nWarnings\n";
-        for (const auto& w : r.warnings) o << "  ! " << w << "\n";
-    }
-    if (!r.notes.empty()) {
-        o << "\nAssumptions\n";
-        for (const auto& n : r.notes) o << "  - " << n << "\n";
-    }
+    detail::list_section(o, "Cautions", r.cautions, "!");
+    detail::list_section(o, "Warnings", r.warnings, "!");
+    detail::list_section(o, "Assumptions", r.notes, "-");
     return o.str();
 }
 

@@ -26,12 +26,7 @@ std::string signed_percent(double v) {
     return buf;
 }
 
-// Pads to a display width, counting UTF-8 code points rather than bytes ("µH" is two columns).
-std::string pad(const std::string& s, std::size_t width) {
-    std::size_t cols = 0;
-    for (unsigned char c : s) cols += (c & 0xC0) != 0x80;
-    return cols >= width ? s + " " : s + std::string(width - cols, ' ');
-}
+using detail::pad;
 
 void row(std::ostringstream& o, const std::string& label, const std::string& value, const std::string& note = "") {
     std::string line = "  " + pad(label, 22) + (note.empty() ? value : pad(value, 14) + note);
@@ -203,14 +198,8 @@ std::string text_report(const Analysis& a) {
     self_resonance_text(o, a);
     band_text(o, a);
 
-    if (!a.warnings.empty()) {
-        o << "\nWarnings\n";
-        for (const auto& x : a.warnings) o << "  ! " << x << "\n";
-    }
-    if (!a.notes.empty()) {
-        o << "\nAssumptions\n";
-        for (const auto& x : a.notes) o << "  - " << x << "\n";
-    }
+    detail::list_section(o, "Warnings", a.warnings, "!");
+    detail::list_section(o, "Assumptions", a.notes, "-");
     return o.str();
 }
 

@@ -2,7 +2,9 @@
 #pragma once
 
 #include <cstdio>
+#include <ostream>
 #include <string>
+#include <vector>
 
 namespace libcoil::detail {
 
@@ -18,6 +20,20 @@ inline std::string fixed(double v, int decimals) {
     char buf[64];
     std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
     return buf;
+}
+
+// Pads to a display width, counting UTF-8 code points rather than bytes ("µH" is two columns).
+inline std::string pad(const std::string& s, std::size_t width) {
+    std::size_t cols = 0;
+    for (unsigned char c : s) cols += (c & 0xC0) != 0x80;
+    return cols >= width ? s + " " : s + std::string(width - cols, ' ');
+}
+
+// A report section of one line per item: "\nTitle\n  ! item" (nothing when empty).
+inline void list_section(std::ostream& o, const char* title, const std::vector<std::string>& items, const char* mark) {
+    if (items.empty()) return;
+    o << "\n" << title << "\n";
+    for (const auto& x : items) o << "  " << mark << " " << x << "\n";
 }
 
 }  // namespace libcoil::detail
