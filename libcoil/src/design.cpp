@@ -372,38 +372,39 @@ std::vector<std::string> design_cautions(const Requirement& q, double temperatur
 DesignResult design(const Requirement& q, const DesignOptions& options) {
     require_positive("target.inductance", q.inductance);
     if (q.wires.empty()) throw InputError("search.wires", "the list is empty");
-    std::vector<Candidate> grid;
-    for (std::size_t w = 0; w < q.wires.size(); ++w) {
-        for (double D : q.form_diameter.values()) {
-            for (double r : q.pitch_ratio.values()) grid.push_back({w, D, r});
-        }
-    }
+    // The grid is enumerated by index, never stored: candidate i is (wire, diameter, ratio) in row-major order.
+    const std::vector<double> diameters = q.form_diameter.values(), ratios = q.pitch_ratio.values();
+    const std::size_t per_wire = diameters.size() * ratios.size(), total = q.wires.size() * per_wire;
+    const auto candidate = [&](std::size_t i) {
+        return Candidate{i / per_wire, diameters[(i % per_wire) / ratios.size()], ratios[i % ratios.size()]};
+    };
     const Evaluator ev(q);
     unsigned threads = options.threads ? options.threads : std::max(1u, std::thread::hardware_concurrency());
-    threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(1, grid.size() / 64 + 1)));
+    threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(1, total / 64 + 1)));
     std::vector<Tally> tallies(threads);
-    std::atomic<std::size_t> done{0};
-    const auto work = [&](unsigned k) {
-        for (std::size_t i = k; i < grid.size(); i += threads) {
-            ev.evaluate(grid[i], tallies[k]);
-            done.fetch_add(1, std::memory_order_relaxed);
+    // Workers take chunks from a shared counter; the calling thread works too and reports progress.
+    constexpr std::size_t chunk = 256;
+    std::atomic<std::size_t> next{0}, done{0};
+    const auto work = [&](unsigned k, bool report) {
+        auto last = std::chrono::steady_clock::now();
+        for (std::size_t start; (start = next.fetch_add(chunk)) < total;) {
+            const std::size_t end = std::min(total, start + chunk);
+            for (std::size_t i = start; i < end; ++i) ev.evaluate(candidate(i), tallies[k]);
+            done.fetch_add(end - start);
+            if (report && std::chrono::steady_clock::now() - last > std::chrono::milliseconds(200)) {
+                options.progress(done.load(), total);
+                last = std::chrono::steady_clock::now();
+            }
         }
     };
     std::vector<std::thread> pool;
-    for (unsigned k = 1; k < threads; ++k) pool.emplace_back(work, k);
-    if (options.progress && threads > 1) {
-        // The calling thread reports progress while the others work, then does its share.
-        while (done.load() < grid.size() * (threads - 1) / threads) {
-            std::this_thread::sleep_for(std::chrono::milliseconds(200));
-            options.progress(done.load(), grid.size());
-        }
-    }
-    work(0);
+    for (unsigned k = 1; k < threads; ++k) pool.emplace_back(work, k, false);
+    work(0, static_cast<bool>(options.progress));
     for (auto& t : pool) t.join();
-    if (options.progress) options.progress(grid.size(), grid.size());
+    if (options.progress) options.progress(total, total);
 
     DesignResult out;
-    out.candidates_evaluated = grid.size();
+    out.candidates_evaluated = total;
     out.notes = q.notes;
     std::vector<Archived> archive;
     for (auto& t : tallies) {
@@ -424,7 +425,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
             }
         }
         out.binding = "No candidate meets the requirement. Most were stopped by " + reason_words(top_reason) + " (" +
-                      std::to_string(most) + " of " + std::to_string(grid.size()) + ").";
+                      std::to_string(most) + " of " + std::to_string(total) + ").";
         if (out.closest) {
             out.binding += " The closest attempt, " + out.closest->detail + ", misses " + reason_words(out.closest->reason) +
                            " by " + detail::fixed((out.closest->excess - 1) * 100, 1) + " %.";
