@@ -451,9 +451,16 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     const std::size_t tries = std::min<std::size_t>(out.pareto.size(), std::max<std::size_t>(options.top, 1));
     for (std::size_t i = 0; i < tries; ++i) {
         const DesignFigures& d = out.pareto[i];
-        Analysis a = analyze(design_spec(q, d));
-        const bool l_ok = std::fabs(a.inductance.recommended / q.inductance - 1) <= q.tolerance;
-        const bool band_ok = !a.band || a.band->pass;
+        std::optional<Analysis> a;
+        try {
+            a = analyze(design_spec(q, d));
+        } catch (const std::exception& e) {  // InputError or DomainError from the full models
+            out.warnings.push_back("design " + std::to_string(i + 1) + " could not be re-analysed (" + e.what() +
+                                   "); the next one is taken");
+            continue;
+        }
+        const bool l_ok = std::fabs(a->inductance.recommended / q.inductance - 1) <= q.tolerance;
+        const bool band_ok = !a->band || a->band->pass;
         if (l_ok && band_ok) {
             out.chosen = i;
             out.chosen_analysis = std::move(a);

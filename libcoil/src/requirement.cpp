@@ -33,6 +33,7 @@ SearchRange read_range(const YAML::Node& node, const std::string& path, Dimensio
         r.max = m.quantity("max", d);
         if (!(r.max >= r.min)) throw InputError(m.path_of("max"), "\"" + m.text("max") + "\" is below min");
         if (r.max > r.min) {
+            if (!m.has("step")) throw InputError(m.path_of("step"), "missing; a range needs a step");
             r.step = m.positive_quantity("step", d);
             if ((r.max - r.min) / r.step > 1e6) {
                 throw InputError(m.path_of("step"), "\"" + m.text("step") + "\" makes more than a million values");

@@ -1,9 +1,14 @@
 """coil design driven as a user drives it: the demo requirement, its JSON, the chosen spec fed back to
 analyze and sweep, and bad requirements."""
 import json
+import math
+import pathlib
 import time
 
-import libcoil  # noqa: F401  (the module must import beside the CLI)
+import pytest
+from hypothesis import given, settings, strategies as st
+
+import libcoil
 
 DEMO = "data/examples/bench-network-requirement.yaml"
 
@@ -70,3 +75,47 @@ def test_thermal_energy_balance_from_python():
     # Churchill & Chu (1975) with grey-body radiation: dissipated = convected + radiated at the answer.
     r = libcoil.winding_temperature(lambda t: 3.0, 0.03, 0.05, 298.15)
     assert abs((r["convection"] + r["radiation"]) / r["power"] - 1) < 1e-9
+
+
+BAD_REQUIREMENTS = sorted((pathlib.Path(__file__).resolve().parents[1] / "cli" / "bad-requirements").glob("*.yaml"))
+
+
+@pytest.mark.parametrize("req", BAD_REQUIREMENTS, ids=[p.name for p in BAD_REQUIREMENTS])
+def test_bad_requirement_catalogue(req, run_coil, tmp_path):
+    field, text = req.read_text().splitlines()[0][len("# expect: "):].split(" | ", 1)
+    for extra in ([], ["--json"], ["--out", tmp_path / "o"]):
+        r = run_coil("design", req, *extra)
+        assert r.returncode == 2, (r.stdout, r.stderr)
+        assert r.stdout == ""
+        message = r.stderr[len("coil: "):]
+        assert message.split(": ", 1)[0] == field, message
+        assert text in message, message
+        assert not (tmp_path / "o").exists()
+
+
+def test_catalogue_of_bad_requirements_is_large_enough():
+    assert len(BAD_REQUIREMENTS) >= 8
+
+
+@settings(max_examples=40, deadline=None)
+@given(st.floats(min_value=1e-8, max_value=1e-3), st.floats(min_value=5e-3, max_value=0.1),
+       st.floats(min_value=10e-3, max_value=0.2), st.floats(min_value=0, max_value=20),
+       st.sampled_from(["AWG 14", "AWG 20", "AWG 30", "0.1 mm", "2 mm"]))
+def test_any_requirement_gets_designs_or_an_explanation(L, outer, length, current, wire):
+    # Property: for any requirement the search returns ranked designs that meet the target, or says
+    # which constraint binds; it never raises on valid input.
+    text = (f"target: {{inductance: {L} H, tolerance: 2 %}}\n"
+            f"operating: {{current: {current} A}}\n"
+            f"limits: {{max_outer_diameter: {outer} m, max_length: {length} m}}\n"
+            f"search: {{wires: [{wire}], form_diameter: {{min: 3 mm, max: 60 mm, step: 19 mm}},"
+            f" pitch_ratio: {{min: 1.1, max: 3, step: 0.95}}}}\n")
+    r = libcoil.design(libcoil.parse_requirement(text), top=3)
+    assert r["candidates_evaluated"] == 4 * 3
+    assert r["feasible"] + sum(r["rejected_by_reason"].values()) == r["candidates_evaluated"]
+    if r["designs"]:
+        assert r["chosen"] is not None or r["warnings"]
+        for d in r["designs"]:
+            assert abs(d["inductance_H"] / L - 1) < 1e-6
+            assert math.isfinite(d["score"])
+    else:
+        assert r["binding"].startswith("No candidate meets the requirement")
