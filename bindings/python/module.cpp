@@ -353,6 +353,39 @@ PYBIND11_MODULE(_core, m) {
         return py::module_::import("json").attr("loads")(json);
     }, "requirement"_a, "threads"_a = 0, "top"_a = 10, "spread"_a = false, "samples"_a = 2000, "seed"_a = 1,
        "The ranked designs for a requirement, as the dict `coil design --json` prints.");
+    m.def("design_array", [](const libcoil::Requirement& q, unsigned threads, std::size_t top) {
+        libcoil::DesignOptions o;
+        o.threads = threads;
+        o.top = top;
+        libcoil::DesignResult r;
+        {
+            py::gil_scoped_release release;
+            r = libcoil::design(q, o);
+        }
+        const std::size_t n = std::min(top, r.pareto.size());
+        std::vector<double> form(n), turns(n), pitch(n), ind(n), srf(n), res(n), temp(n), vol(n), score(n);
+        std::vector<long> wire(n);
+        for (std::size_t i = 0; i < n; ++i) {
+            const auto& d = r.pareto[i];
+            wire[i] = static_cast<long>(d.wire_index);
+            form[i] = d.form_diameter;
+            turns[i] = d.turns;
+            pitch[i] = d.pitch;
+            ind[i] = d.inductance;
+            srf[i] = d.self_resonance;
+            res[i] = d.resistance;
+            temp[i] = d.temperature;
+            vol[i] = d.volume;
+            score[i] = d.score;
+        }
+        const auto np = py::module_::import("numpy");
+        const auto arr = [&](const auto& v) { return np.attr("array")(py::cast(v)); };
+        return np.attr("rec").attr("fromarrays")(
+            py::make_tuple(arr(wire), arr(form), arr(turns), arr(pitch), arr(ind), arr(srf), arr(res), arr(temp), arr(vol),
+                           arr(score)),
+            "names"_a = "wire_index,form_diameter,turns,pitch,inductance,self_resonance,resistance,temperature,volume,score");
+    }, "requirement"_a, "threads"_a = 0, "top"_a = 100,
+       "The ranked designs as a numpy record array (SI), best first; wire_index refers to search.wires.");
     m.def("tolerance_spread", [](const libcoil::Solenoid& s, double target, double tolerance, double form_sd,
                                  double pitch_sd, double wire_sd, double turns_sd, std::size_t samples, std::uint64_t seed) {
         const auto r = libcoil::tolerance_spread(s, target, tolerance, {}, {},

@@ -119,3 +119,13 @@ def test_any_requirement_gets_designs_or_an_explanation(L, outer, length, curren
             assert math.isfinite(d["score"])
     else:
         assert r["binding"].startswith("No candidate meets the requirement")
+
+
+def test_designs_as_a_numpy_record_array(source_dir):
+    q = libcoil.load_requirement(str(source_dir / DEMO))
+    a = libcoil.design_array(q, top=20)
+    d = libcoil.design(q, top=20)
+    assert len(a) == len(d["designs"]) == 20
+    assert list(a.score) == [x["score"] for x in d["designs"]]
+    assert (a.turns % 0.25 == 0).all()
+    assert abs(a.inductance / 5e-6 - 1).max() < 1e-9
