@@ -29,10 +29,27 @@ constexpr int screen_points = 9;     // band screening points during the search
 
 std::string mm(double m) { return detail::fixed(m * 1e3, 2) + " mm"; }
 
-double root(const std::function<double(double)>& f, double lo, double hi, double f_lo, double f_hi) {
+// `bits`: relative tolerance 2^(1 - bits). 40 bits (1e-12) where the answer must be exact (the trimmed
+// pitch); 24 bits (1e-7) for the unsnapped turns, which only seed the snapping.
+double root(const std::function<double(double)>& f, double lo, double hi, double f_lo, double f_hi, int bits = 40) {
     std::uintmax_t it = 100;
-    const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, boost::math::tools::eps_tolerance<double>(40), it);
+    const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, boost::math::tools::eps_tolerance<double>(bits), it);
     return 0.5 * (r.first + r.second);
+}
+
+// The root of an increasing or decreasing f on [lo, hi] (f_lo, f_hi of opposite signs), first tried in a
+// narrow bracket around `guess` (a few per cent), which saves most of the evaluations when the guess is good.
+double root_near(const std::function<double(double)>& f, double guess, double lo, double hi, double f_lo, double f_hi,
+                 int bits = 40) {
+    if (guess > lo && guess < hi) {
+        const double a = std::max(lo, guess * 0.98), b = std::min(hi, guess * 1.02);
+        const double fa = f(a), fb = f(b);
+        if ((fa < 0) != (fb < 0)) return root(f, a, b, fa, fb, bits);
+        // The root lies outside the narrow bracket: keep the side that still brackets it.
+        if ((fa < 0) == (f_lo < 0)) return root(f, b, hi, fb, f_hi, bits);
+        return root(f, lo, a, f_lo, fa, bits);
+    }
+    return root(f, lo, hi, f_lo, f_hi, bits);
 }
 
 struct Candidate {
@@ -177,7 +194,11 @@ public:
                              format_quantity(l_one, Dimension::inductance); });
                     return;
                 }
-                n_solved = root([&](double x) { return L(x, p) - target; }, 1, n_max, l_one - target, l_max - target);
+                // L grows about as N^k between the two ends: the power law through them is the first guess.
+                const double k = std::log(l_max / l_one) / std::log(n_max);
+                const double guess = std::pow(target / l_one, 1 / k);
+                n_solved = root_near([&](double x) { return L(x, p) - target; }, guess, 1, n_max, l_one - target,
+                                     l_max - target, 24);
                 // Snap to the step; trim the pitch. The nearest step first, then its neighbours.
                 const double step = q_.turns_step;
                 const double nearest = std::max(std::ceil(1 / step - 1e-9) * step, std::round(n_solved / step) * step);
@@ -185,6 +206,7 @@ public:
                 for (double k : {0.0, -1.0, 1.0}) {
                     n = nearest + k * step;
                     if (n < 1) continue;
+                    p = p_grid * n / n_solved;  // L ~ N / p for a long coil: the trimmed pitch's first guess
                     if (solve_pitch(n, d_ins, room, L, p)) {
                         done = true;
                         break;
@@ -307,7 +329,7 @@ public:
     }
 
 private:
-    // Pitch in [d_ins, room / n] with L(n, p) = target; L falls as p grows.
+    // Pitch in [d_ins, room / n] with L(n, p) = target; L falls as p grows. `p` holds a first guess.
     template <class F>
     bool solve_pitch(double n, double d_ins, double room, const F& L, double& p) const {
         const double p_max = room / n;
@@ -323,7 +345,7 @@ private:
             p = p_max;
             return true;
         }
-        p = root([&](double x) { return L(n, x) - target; }, d_ins, p_max, at_min, at_max);
+        p = root_near([&](double x) { return L(n, x) - target; }, p, d_ins, p_max, at_min, at_max);
         return true;
     }
 

@@ -10,9 +10,14 @@
 
 namespace libcoil::detail {
 
-inline double elliptic_k(double mc) { return boost::math::ellint_rf(0.0, mc, 1.0); }
+// Carlson's duplication is accurate in double; Boost's default promotion to long double only costs time.
+using elliptic_policy = boost::math::policies::policy<boost::math::policies::promote_double<false>>;
+
+inline double elliptic_k(double mc) { return boost::math::ellint_rf(0.0, mc, 1.0, elliptic_policy()); }
 
 // (K(k) - E(k)) / k^2.
-inline double elliptic_k_minus_e_over_m(double mc) { return boost::math::ellint_rd(0.0, mc, 1.0) / 3.0; }
+inline double elliptic_k_minus_e_over_m(double mc) {
+    return boost::math::ellint_rd(0.0, mc, 1.0, elliptic_policy()) / 3.0;
+}
 
 }  // namespace libcoil::detail

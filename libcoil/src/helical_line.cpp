@@ -110,10 +110,13 @@ double SheathHelix::wavenumber_for(double beta, double guess) const {
     require_positive("beta", beta);
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
     if (guess > 0 && guess < k_max) {
+        // Widen the bracket around the guess until the dispersion changes sign (it falls through the root).
         const auto g = [&](double k) { return dispersion(beta, k); };
-        const double lo = 0.97 * guess, hi = std::min(1.03 * guess, k_max);
-        const double g_lo = g(lo), g_hi = g(hi);
-        if (g_lo > 0 && g_hi < 0) return finite_result("sheath helix", root_between(g, lo, hi, g_lo, g_hi));
+        for (double w : {0.02, 0.1, 0.4}) {
+            const double lo = (1 - w) * guess, hi = std::min((1 + w) * guess, k_max);
+            const double g_lo = g(lo), g_hi = g(hi);
+            if (g_lo > 0 && g_hi < 0) return finite_result("sheath helix", root_between(g, lo, hi, g_lo, g_hi));
+        }
     }
     return full_bracket(beta);
 }

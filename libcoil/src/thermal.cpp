@@ -103,9 +103,24 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
         throw DomainError("the winding would pass " + format_value(hi - zero_celsius) +
                           " degC in still air: far beyond any enamel or former");
     }
+    // A first guess from a total surface coefficient of about 12 W/m^2 K (convection plus radiation near
+    // room temperature) narrows the bracket; it is widened back to [ambient, hi] if the guess misses.
+    double lo = ambient, top = hi, f_lo = p0, f_top = b_hi;
+    const double guess = ambient + p0 / (12.0 * pi * surface.outer_diameter * surface.length);
+    for (double t : {0.7 * (guess - ambient) + ambient, 1.4 * (guess - ambient) + ambient}) {
+        if (t <= lo || t >= top) continue;
+        const double b = balance(t);
+        if (b > 0) {
+            lo = t;
+            f_lo = b;
+        } else {
+            top = t;
+            f_top = b;
+        }
+    }
     std::uintmax_t it = 200;
-    const auto root = boost::math::tools::toms748_solve(balance, ambient, hi, p0, b_hi,
-                                                        boost::math::tools::eps_tolerance<double>(50), it);
+    const auto root = boost::math::tools::toms748_solve(balance, lo, top, f_lo, f_top,
+                                                        boost::math::tools::eps_tolerance<double>(36), it);
     r.temperature = 0.5 * (root.first + root.second);
     r.rise = r.temperature - ambient;
     r.power = power(r.temperature);

@@ -8,7 +8,7 @@
 // Source:  J. C. Maxwell, "A Treatise on Electricity and Magnetism" (1873) art. 701; Grover (1946) ch. 13.
 // Domain:  a, b > 0, any z; the filaments must not coincide (a = b and z = 0 is infinite).
 // Accuracy: enforced 1e-11 relative against Neumann's integral by Boost.Math Gauss-Kronrod
-//          (tests/cpp/test_mutual.cpp), 1e-13 against mpmath (tests/python/test_models.py; measured 4e-16).
+//          (tests/cpp/test_mutual.cpp), 1e-13 against mpmath (tests/python/test_models.py; measured 6.5e-16).
 #pragma once
 
 namespace libcoil {

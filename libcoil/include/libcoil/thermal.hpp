@@ -13,7 +13,7 @@
 //          D. P. DeWitt, "Fundamentals of Heat and Mass Transfer", Table A.4, quoted from memory.
 // Domain:  still air, no enclosure, 1e-5 <= Ra <= 1e12, 250 K <= film temperature <= 600 K. It is an
 //          estimate for a first check, not a rating.
-// Accuracy: the balance is solved to 1e-9 relative (tested). Churchill & Chu against Morgan's
+// Accuracy: the balance is solved to 1.5e-11 in T (36 bits), 1e-9 in power (tested). Churchill & Chu against Morgan's
 //          correlation (Nu = 0.48 Ra^0.25, 1e4 <= Ra <= 1e7): -9.1 % .. +4.5 %; the vertical form against
 //          0.59 Ra^0.25 (1e5 .. 1e8): -12.4 % .. +3.3 % (tests/cpp/test_thermal.cpp). Such correlations
 //          are good to 10-20 % for real coils, whose surface is neither smooth nor isothermal.
