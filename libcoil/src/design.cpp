@@ -195,16 +195,16 @@ public:
                     return;
                 }
                 // L grows about as N^k between the two ends: the power law through them is the first guess.
-                const double k = std::log(l_max / l_one) / std::log(n_max);
-                const double guess = std::pow(target / l_one, 1 / k);
+                const double exponent = std::log(l_max / l_one) / std::log(n_max);
+                const double guess = std::pow(target / l_one, 1 / exponent);
                 n_solved = root_near([&](double x) { return L(x, p) - target; }, guess, 1, n_max, l_one - target,
                                      l_max - target, 24);
                 // Snap to the step; trim the pitch. The nearest step first, then its neighbours.
                 const double step = q_.turns_step;
                 const double nearest = std::max(std::ceil(1 / step - 1e-9) * step, std::round(n_solved / step) * step);
                 bool done = false;
-                for (double k : {0.0, -1.0, 1.0}) {
-                    n = nearest + k * step;
+                for (double offset : {0.0, -1.0, 1.0}) {
+                    n = nearest + offset * step;
                     if (n < 1) continue;
                     p = p_grid * n / n_solved;  // L ~ N / p for a long coil: the trimmed pitch's first guess
                     if (solve_pitch(n, d_ins, room, L, p)) {

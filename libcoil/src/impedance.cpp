@@ -5,6 +5,7 @@
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/losses.hpp"
+#include "libcoil/proximity.hpp"
 
 namespace libcoil {
 
@@ -71,6 +72,7 @@ CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, d
       conductor_(conductor),
       temperature_(temperature),
       dc_inductance_(require_positive("dc_inductance", dc_inductance)),
+      field_(mean_square_field_per_ampere(coil)),
       sr_(sr),
       helix_(sr.radius, sr.pitch_angle, sr.medium) {}
 
@@ -94,7 +96,7 @@ std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& freq
     const double c = capacitance > 0 ? capacitance : sr_.capacitance;
     // Without a helical-line solution (outside the sheath helix's domain) the lumped form stands in.
     if (!sr_.helical_line.available) model = ImpedanceModel::lumped;
-    const auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies);
+    const auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies, field_);
     std::vector<ImpedancePoint> out;
     out.reserve(frequencies.size());
     for (std::size_t i = 0; i < frequencies.size(); ++i) {

@@ -53,9 +53,16 @@ std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conduc
                                                  double l_dc, const std::vector<double>& fs) {
     check_frequencies(fs);
     require_positive("dc_inductance", l_dc);
-    const double l_int_dc = mu0 * cond.relative_permeability / (8 * pi) * c.helix_length();
     const bool any_ac = std::any_of(fs.begin(), fs.end(), [](double f) { return f > 0; });
-    const double field = any_ac ? mean_square_field_per_ampere(c) : 0.0;  // once for all frequencies
+    return coil_at_frequencies(c, cond, temperature, l_dc, fs, any_ac ? mean_square_field_per_ampere(c) : 0.0);
+}
+
+std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conductor& cond, double temperature,
+                                                 double l_dc, const std::vector<double>& fs, double field) {
+    check_frequencies(fs);
+    require_positive("dc_inductance", l_dc);
+    require_non_negative("mean_square_field", field);
+    const double l_int_dc = mu0 * cond.relative_permeability / (8 * pi) * c.helix_length();
     std::vector<CoilAtFrequency> out;
     for (double f : fs) {
         const AcResistance r = ac_resistance(c, cond, temperature, f, field);

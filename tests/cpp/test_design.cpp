@@ -105,7 +105,9 @@ TEST(Design, EveryReturnedDesignPassesTheFullAnalysis) {
         EXPECT_LE(spec.solenoid.outer_diameter(), q.max_outer_diameter);
         EXPECT_LE(spec.solenoid.overall_length() + 2 * q.former_ends, q.max_length * (1 + 1e-12));
         EXPECT_LE(d.temperature, d.temperature_limit);
-        if (i > 0) EXPECT_GE(d.score, r.pareto[i - 1].score);
+        if (i > 0) {
+            EXPECT_GE(d.score, r.pareto[i - 1].score);
+        }
     }
 }
 

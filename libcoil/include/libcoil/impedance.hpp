@@ -66,6 +66,7 @@ private:
     Solenoid coil_;
     Conductor conductor_;
     double temperature_, dc_inductance_;
+    double field_;  // the proximity field sum, computed once
     SelfResonance sr_;
     SheathHelix helix_;
 };

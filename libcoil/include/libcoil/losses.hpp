@@ -45,6 +45,11 @@ WireAtFrequency wire_at_frequency(const Wire& wire, const Conductor& conductor, 
 // Closed forms at each frequency (f = 0 gives DC). `dc_inductance` is the recommended inductance.
 std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& coil, const Conductor& conductor, double temperature,
                                                  double dc_inductance, const std::vector<double>& frequencies);
+// The same with the coil's mean_square_field_per_ampere (proximity.hpp) given, for callers that ask again
+// and again for one coil.
+std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& coil, const Conductor& conductor, double temperature,
+                                                 double dc_inductance, const std::vector<double>& frequencies,
+                                                 double mean_square_field);
 
 // The cross-section solver at each frequency. `progress(done, total)` is called after each solve.
 std::vector<CoilAtFrequency> coil_at_frequencies_numerical(
