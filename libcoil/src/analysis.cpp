@@ -13,10 +13,14 @@
 
 namespace libcoil {
 
-namespace {
-std::string three_digits(double v) { return detail::significant(v, 3); }
+CoilImpedance coil_impedance(const Analysis& a) {
+    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended,
+                         a.self_resonance);
+}
 
-CoilImpedance coil_impedance_of(const Analysis& a);
+namespace {
+
+std::string three_digits(double v) { return detail::significant(v, 3); }
 
 void add_self_resonance(Analysis& a) {
     const CoilSpec& spec = a.spec;
@@ -26,20 +30,10 @@ void add_self_resonance(Analysis& a) {
     const SelfResonance& sr = a.self_resonance;
     for (const auto& w : sr.warnings) a.warnings.push_back(w);
     for (const auto& n : sr.notes) a.notes.push_back(n);
-    const CoilImpedance zc = coil_impedance_of(a);
+    const CoilImpedance zc = coil_impedance(a);
     for (const auto& p : a.at_frequency) {
-        const double w = 2 * pi * p.frequency;
-        ImpedancePoint z;
-        z.frequency = p.frequency;
-        z.wire_resistance = p.resistance;
-        z.wire_inductance = p.inductance;
-        z.impedance = sr.helical_line.available
-                          ? line_impedance(w, p.resistance, p.inductance, zc.phase_velocity(p.frequency),
-                                           s.winding_length(), sr.mounting)
-                          : lumped_impedance(w, p.resistance, p.inductance, sr.capacitance);
-        z.apparent_inductance = p.frequency > 0 ? z.impedance.imag() / w : p.inductance;
-        z.q_factor = z.impedance.imag() / z.impedance.real();
-        a.impedance.push_back(z);
+        // With this analysis's R and L, which may come from the cross-section solver.
+        a.impedance.push_back(zc.with_wire(p.frequency, p.resistance, p.inductance));
         if (p.frequency >= sr.frequency) {
             a.warnings.push_back("at " + format_quantity(p.frequency, Dimension::frequency) +
                                  " the coil is above its self-resonance (" + format_quantity(sr.frequency, Dimension::frequency) +
@@ -62,16 +56,7 @@ void add_self_resonance(Analysis& a) {
     }
 }
 
-Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options);
-
-CoilImpedance coil_impedance_of(const Analysis& a) {
-    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended,
-                         a.self_resonance);
-}
-
 }  // namespace
-
-CoilImpedance coil_impedance(const Analysis& a) { return coil_impedance_of(a); }
 
 std::vector<double> frequency_grid(double from, double to, int points, bool logarithmic) {
     require_non_negative("--from", from);
@@ -86,12 +71,6 @@ std::vector<double> frequency_grid(double from, double to, int points, bool loga
     }
     f.back() = to;
     return f;
-}
-
-Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
-    Analysis a = analyze_losses(spec, options);
-    add_self_resonance(a);
-    return a;
 }
 
 namespace {
@@ -167,5 +146,11 @@ Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options) {
 }
 
 }  // namespace
+
+Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
+    Analysis a = analyze_losses(spec, options);
+    add_self_resonance(a);
+    return a;
+}
 
 }  // namespace libcoil

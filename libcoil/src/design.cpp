@@ -366,9 +366,17 @@ std::string reason_words(const std::string& r) {
     return "the models' domain";
 }
 
-}  // namespace
+// A YAML double-quoted scalar.
+std::string yaml_quoted(const std::string& text) {
+    std::string o = "\"";
+    for (char ch : text) {
+        if (ch == '"' || ch == '\\') o += '\\';
+        o += ch == '\n' ? ' ' : ch;
+    }
+    return o + "\"";
+}
 
-std::string yaml_quoted(const std::string& text);
+}  // namespace
 
 std::vector<std::string> design_cautions(const Requirement& q, double temperature, double limit) {
     std::vector<std::string> c;
@@ -533,15 +541,6 @@ CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
     op.current = q.current;
     s.operating = op;
     return s;
-}
-
-std::string yaml_quoted(const std::string& text) {
-    std::string o = "\"";
-    for (char ch : text) {
-        if (ch == '"' || ch == '\\') o += '\\';
-        o += ch == '\n' ? ' ' : ch;
-    }
-    return o + "\"";
 }
 
 std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {

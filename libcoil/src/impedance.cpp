@@ -93,27 +93,32 @@ ImpedancePoint CoilImpedance::at(double frequency, ImpedanceModel model, double 
 std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& frequencies, ImpedanceModel model,
                                                  double capacitance) const {
     require_non_negative("capacitance", capacitance);
-    const double c = capacitance > 0 ? capacitance : sr_.capacitance;
-    // Without a helical-line solution (outside the sheath helix's domain) the lumped form stands in.
-    if (!sr_.helical_line.available) model = ImpedanceModel::lumped;
     const auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies, field_);
     std::vector<ImpedancePoint> out;
     out.reserve(frequencies.size());
     for (std::size_t i = 0; i < frequencies.size(); ++i) {
-        const double f = frequencies[i], w = 2 * pi * f;
-        ImpedancePoint p;
-        p.frequency = f;
-        p.wire_resistance = wire[i].resistance;
-        p.wire_inductance = wire[i].inductance;
-        p.impedance = model == ImpedanceModel::lumped
-                          ? lumped_impedance(w, p.wire_resistance, p.wire_inductance, c)
-                          : line_impedance(w, p.wire_resistance, p.wire_inductance, phase_velocity(f),
-                                           coil_.winding_length(), sr_.mounting);
-        p.apparent_inductance = f > 0 ? p.impedance.imag() / w : p.wire_inductance;
-        p.q_factor = p.impedance.imag() / p.impedance.real();
-        out.push_back(p);
+        out.push_back(with_wire(frequencies[i], wire[i].resistance, wire[i].inductance, model, capacitance));
     }
     return out;
+}
+
+ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double inductance, ImpedanceModel model,
+                                        double capacitance) const {
+    require_non_negative("capacitance", capacitance);
+    const double c = capacitance > 0 ? capacitance : sr_.capacitance;
+    // Without a helical-line solution (outside the sheath helix's domain) the lumped form stands in.
+    if (!sr_.helical_line.available) model = ImpedanceModel::lumped;
+    const double w = 2 * pi * f;
+    ImpedancePoint p;
+    p.frequency = f;
+    p.wire_resistance = resistance;
+    p.wire_inductance = inductance;
+    p.impedance = model == ImpedanceModel::lumped
+                      ? lumped_impedance(w, resistance, inductance, c)
+                      : line_impedance(w, resistance, inductance, phase_velocity(f), coil_.winding_length(), sr_.mounting);
+    p.apparent_inductance = f > 0 ? p.impedance.imag() / w : inductance;
+    p.q_factor = p.impedance.imag() / p.impedance.real();
+    return p;
 }
 
 }  // namespace libcoil

@@ -53,9 +53,12 @@ TEST(Thermal, EnergyBalanceHolds) {
     EXPECT_LT(r.rise, 60);
     EXPECT_GT(r.convection_coefficient, 4);
     EXPECT_LT(r.convection_coefficient, 12);
-    // Radiation takes a large share at emissivity 0.85; at 0.05 (bare copper) the coil runs hotter.
+    // Radiation carries half the heat at emissivity 0.85 (measured 0.496 here; near-equal shares in still
+    // air are common practice, no source). Without it (bare copper, 0.05) the rise grows by 1.84 x (measured).
+    EXPECT_NEAR(r.radiation / r.power, 0.5, 0.1);
     const auto bare = winding_temperature(power, ThermalSurface{0.03, 0.04, 0.05, CoilAxis::horizontal}, ambient);
-    EXPECT_GT(bare.rise, 1.3 * r.rise);
+    EXPECT_GT(bare.rise, 1.6 * r.rise);
+    EXPECT_LT(bare.rise, 2.1 * r.rise);
     // No loss, no rise; a loss no still air can carry is an error, not a number.
     EXPECT_EQ(winding_temperature([](double) { return 0.0; }, s, ambient).rise, 0.0);
     EXPECT_THROW(winding_temperature([](double) { return 500.0; }, s, ambient), DomainError);

@@ -56,6 +56,9 @@ public:
                       double capacitance = 0) const;
     std::vector<ImpedancePoint> sweep(const std::vector<double>& frequencies,
                                       ImpedanceModel model = ImpedanceModel::helical_line, double capacitance = 0) const;
+    // Z at f from a wire resistance and inductance computed elsewhere (the cross-section solver's, say).
+    ImpedancePoint with_wire(double frequency, double resistance, double inductance,
+                             ImpedanceModel model = ImpedanceModel::helical_line, double capacitance = 0) const;
 
     // Axial phase velocity the line form uses at f (m/s).
     double phase_velocity(double frequency) const;
