@@ -28,6 +28,13 @@ void BM_SelfResonance(benchmark::State& s) {
 }
 BENCHMARK(BM_SelfResonance)->Arg(0)->Arg(1)->ArgName("former")->Unit(benchmark::kMicrosecond);
 
+// The search's fast path: the helical line alone, with the former's fixed point.
+void BM_HelicalLineResonance(benchmark::State& s) {
+    const libcoil::FormerDielectric former{2.9, s.range(0) ? 3e-3 : 0.0, 1.0};
+    for (auto _ : s) benchmark::DoNotOptimize(libcoil::helical_line_resonance(demo_coil, former));
+}
+BENCHMARK(BM_HelicalLineResonance)->Arg(0)->Arg(1)->ArgName("former")->Unit(benchmark::kMicrosecond);
+
 void BM_ImpedanceSweep401(benchmark::State& s) {
     const double L = libcoil::inductance(demo_coil).recommended;
     const libcoil::CoilImpedance z(demo_coil, libcoil::conductor("copper"), 293.15, L, libcoil::self_resonance(demo_coil, L));

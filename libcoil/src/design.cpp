@@ -7,8 +7,7 @@
 #include <cstdint>
 #include <sstream>
 #include <thread>
-
-#include <boost/math/tools/roots.hpp>
+#include <tuple>
 
 #include "libcoil/constants.hpp"
 #include "libcoil/dc_resistance.hpp"
@@ -18,6 +17,7 @@
 #include "libcoil/proximity.hpp"
 #include "libcoil/thermal.hpp"
 #include "libcoil/units.hpp"
+#include "monotone_root.hpp"
 #include "text_format.hpp"
 
 namespace libcoil {
@@ -28,29 +28,6 @@ constexpr double near_limit = 10.0;  // K: a winding this close to a thermal lim
 constexpr int screen_points = 9;     // band screening points during the search
 
 std::string mm(double m) { return detail::fixed(m * 1e3, 2) + " mm"; }
-
-// `bits`: relative tolerance 2^(1 - bits). 40 bits (1e-12) where the answer must be exact (the trimmed
-// pitch); 24 bits (1e-7) for the unsnapped turns, which only seed the snapping.
-double root(const std::function<double(double)>& f, double lo, double hi, double f_lo, double f_hi, int bits = 40) {
-    std::uintmax_t it = 100;
-    const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, boost::math::tools::eps_tolerance<double>(bits), it);
-    return 0.5 * (r.first + r.second);
-}
-
-// The root of an increasing or decreasing f on [lo, hi] (f_lo, f_hi of opposite signs), first tried in a
-// narrow bracket around `guess` (a few per cent), which saves most of the evaluations when the guess is good.
-double root_near(const std::function<double(double)>& f, double guess, double lo, double hi, double f_lo, double f_hi,
-                 int bits = 40) {
-    if (guess > lo && guess < hi) {
-        const double a = std::max(lo, guess * 0.98), b = std::min(hi, guess * 1.02);
-        const double fa = f(a), fb = f(b);
-        if ((fa < 0) != (fb < 0)) return root(f, a, b, fa, fb, bits);
-        // The root lies outside the narrow bracket: keep the side that still brackets it.
-        if ((fa < 0) == (f_lo < 0)) return root(f, b, hi, fb, f_hi, bits);
-        return root(f, lo, a, f_lo, fa, bits);
-    }
-    return root(f, lo, hi, f_lo, f_hi, bits);
-}
 
 struct Candidate {
     std::size_t wire;
@@ -64,22 +41,82 @@ struct Candidate {
 constexpr double archive_epsilon = 0.005;
 
 struct Box {
-    long loss, size, srf;
+    int loss, size, srf;
     bool operator==(const Box&) const = default;
+    bool at_or_below(const Box& o) const { return loss <= o.loss && size <= o.size && srf <= o.srf; }
 };
 
-bool box_dominates(const Box& a, const Box& b) {
-    return a.loss <= b.loss && a.size <= b.size && a.srf <= b.srf && !(a == b);
+bool dominates(const DesignFigures& a, const DesignFigures& b, double ceiling) {
+    const double la = a.loss_metric(), lb = b.loss_metric(), va = a.volume, vb = b.volume;
+    const double sa = a.srf_metric(ceiling), sb = b.srf_metric(ceiling);
+    return la <= lb && va <= vb && sa <= sb && (la < lb || va < vb || sa < sb);
 }
 
-struct Archived {
-    Box box;
-    DesignFigures design;
+const double box_step = std::log1p(archive_epsilon);
+
+Box box_of(const DesignFigures& d, double ceiling) {
+    return {static_cast<int>(std::floor(std::log(d.loss_metric()) / box_step)),
+            static_cast<int>(std::floor(std::log(d.volume) / box_step)),
+            static_cast<int>(std::floor(std::log(d.srf_metric(ceiling)) / box_step))};
+}
+
+// Distance of a design from its box's lower corner, in bins: the tie-break within one box.
+double corner_distance(const DesignFigures& d, const Box& b, double ceiling) {
+    const double x = std::log(d.loss_metric()) / box_step - b.loss;
+    const double y = std::log(d.volume) / box_step - b.size;
+    const double z = std::log(d.srf_metric(ceiling)) / box_step - b.srf;
+    return x * x + y * y + z * z;
+}
+
+// The boxes and their designs side by side: the dominance scan reads only the small boxes.
+class Archive {
+public:
+    explicit Archive(double ceiling = 0) : ceiling_(ceiling) {}
+
+    void add(const DesignFigures& d) {
+        const Box b = box_of(d, ceiling_);
+        for (std::size_t i = 0; i < boxes_.size(); ++i) {
+            if (!boxes_[i].at_or_below(b)) continue;
+            if (boxes_[i] == b) {  // one design per box: the dominating one, else the nearer to the corner
+                DesignFigures& f = designs_[i];
+                if (dominates(f, d, ceiling_)) return;
+                if (dominates(d, f, ceiling_) || corner_distance(d, b, ceiling_) < corner_distance(f, b, ceiling_)) f = d;
+                return;
+            }
+            // Dominated. Neighbouring candidates tend to fall to the same box: move it forward, so that
+            // the next scan usually stops at once. The archive's content does not depend on its order.
+            if (i > 0) swap(i, i / 2);
+            return;
+        }
+        // A new box: it drops every box it dominates (none of them equals it, or the scan had stopped).
+        for (std::size_t i = boxes_.size(); i-- > 0;) {
+            if (b.at_or_below(boxes_[i])) {
+                swap(i, boxes_.size() - 1);
+                boxes_.pop_back();
+                designs_.pop_back();
+            }
+        }
+        boxes_.push_back(b);
+        designs_.push_back(d);
+    }
+
+    const std::vector<DesignFigures>& designs() const { return designs_; }
+    std::vector<DesignFigures> take() { return std::move(designs_); }
+
+private:
+    void swap(std::size_t i, std::size_t j) {
+        std::swap(boxes_[i], boxes_[j]);
+        std::swap(designs_[i], designs_[j]);
+    }
+
+    double ceiling_;
+    std::vector<Box> boxes_;
+    std::vector<DesignFigures> designs_;
 };
 
 // One thread's share of the search: its Pareto archive, counts and closest miss.
 struct Tally {
-    std::vector<Archived> front;
+    Archive front;
     std::map<std::string, std::size_t> rejected;
     std::optional<Rejection> closest;
     std::size_t feasible = 0;
@@ -92,43 +129,24 @@ struct Tally {
     }
 };
 
-bool dominates(const DesignFigures& a, const DesignFigures& b, double ceiling) {
-    const double la = a.loss_metric(), lb = b.loss_metric(), va = a.volume, vb = b.volume;
-    const double sa = a.srf_metric(ceiling), sb = b.srf_metric(ceiling);
-    return la <= lb && va <= vb && sa <= sb && (la < lb || va < vb || sa < sb);
-}
-
-Box box_of(const DesignFigures& d, double ceiling) {
-    static const double step = std::log1p(archive_epsilon);
-    return {static_cast<long>(std::floor(std::log(d.loss_metric()) / step)),
-            static_cast<long>(std::floor(std::log(d.volume) / step)),
-            static_cast<long>(std::floor(std::log(d.srf_metric(ceiling)) / step))};
-}
-
-// Distance of a design from its box's lower corner, in bins: the tie-break within one box.
-double corner_distance(const DesignFigures& d, const Box& b, double ceiling) {
-    static const double step = std::log1p(archive_epsilon);
-    const double x = std::log(d.loss_metric()) / step - static_cast<double>(b.loss);
-    const double y = std::log(d.volume) / step - static_cast<double>(b.size);
-    const double z = std::log(d.srf_metric(ceiling)) / step - static_cast<double>(b.srf);
-    return x * x + y * y + z * z;
-}
-
-void add_to_front(std::vector<Archived>& front, const DesignFigures& d, double ceiling) {
-    const Box b = box_of(d, ceiling);
-    for (auto& f : front) {
-        if (box_dominates(f.box, b)) return;
-        if (f.box == b) {
-            if (dominates(f.design, d, ceiling)) return;
-            if (dominates(d, f.design, ceiling) || corner_distance(d, b, ceiling) < corner_distance(f.design, b, ceiling)) {
-                f.design = d;
-            }
-            return;
-        }
+// Wheeler's formula L_W = mu0 pi a^2 N^2 / (N p + 0.9 a) (wheeler.hpp), scaled by c = L / L_W at a point
+// (n, p) where the recommended L is known. Near that point it follows the recommended model to 1e-4 or
+// so, and its closed-form solutions and slopes start the root finders close to their roots.
+class WheelerGuide {
+public:
+    WheelerGuide(double a, double n, double p, double l) : a_(a), sheet_(mu0 * pi * a * a) { c_ = l / value(n, p); }
+    double value(double n, double p) const { return c_ * sheet_ * n * n / (n * p + 0.9 * a_); }
+    double turns_for(double l, double p) const {  // a quadratic in N, as the length is N p
+        const double w = l / (c_ * sheet_);
+        return (w * p + std::sqrt(w * w * p * p + 4 * 0.9 * a_ * w)) / 2;
     }
-    std::erase_if(front, [&](const Archived& f) { return box_dominates(b, f.box); });
-    front.push_back({b, d});
-}
+    double pitch_for(double l, double n) const { return (c_ * sheet_ * n * n / l - 0.9 * a_) / n; }
+    double slope_turns(double n, double p) const { return value(n, p) * (2 / n - p / (n * p + 0.9 * a_)); }
+    double slope_pitch(double n, double p) const { return -value(n, p) * n / (n * p + 0.9 * a_); }
+
+private:
+    double a_, sheet_, c_ = 1;
+};
 
 class Evaluator {
 public:
@@ -157,16 +175,23 @@ public:
             t.reject("length", (2 * q_.former_ends + d_ins) / q_.max_length, [&] { return what() + ": no room for a winding"; });
             return;
         }
+        const double bare = w.bare_diameter;
+        // The root finders stop at a point they evaluated: the last value is kept for reuse.
+        struct {
+            double n = 0, p = 0, value = 0;
+        } last;
         const auto L = [&](double n, double p) {
-            return recommended_inductance(Solenoid(Solenoid::Params{mean, n, p, w, q_.lead_length}));
+            last = {n, p, recommended_inductance(mean, n, p, bare)};
+            return last.value;
         };
+        const auto at = [&](double n, double p) { return last.n == n && last.p == p ? last.value : L(n, p); };
         const double target = q_.inductance;
         double n = 0, p = c.ratio * d_ins, n_solved = 0;
         const double p_grid = p;
         try {
             if (q_.turns) {
                 n = n_solved = *q_.turns;
-                if (!solve_pitch(n, d_ins, room, L, p)) {
+                if (!solve_pitch(n, d_ins, room, L, WheelerGuide(mean / 2, n, p, L(n, p)), p)) {
                     const double l_touch = L(n, d_ins);
                     if (l_touch < target) {
                         t.reject("inductance_out_of_reach", target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
@@ -188,26 +213,29 @@ public:
                              " with the longest winding that fits"; });
                     return;
                 }
-                const double l_one = L(1, p);
-                if (l_one > target) {
+                // Wheeler, scaled to the recommended model at the longest winding, gives the first guess
+                // (good to a few 1e-3) and the first step's slope.
+                WheelerGuide guide(mean / 2, n_max, p, l_max);
+                const double guess = guide.turns_for(target, p);
+                const auto solved = detail::monotone_root([&](double x) { return L(x, p) - target; }, true, guess,
+                                                          {1, n_max, std::nullopt, l_max - target}, 21,
+                                                          guide.slope_turns(guess, p));
+                if (!solved) {
+                    const double l_one = L(1, p);
                     t.reject("inductance_out_of_reach", l_one / target, [&] { return what() + ": one turn already gives " +
                              format_quantity(l_one, Dimension::inductance); });
                     return;
                 }
-                // L grows about as N^k between the two ends: the power law through them is the first guess.
-                const double exponent = std::log(l_max / l_one) / std::log(n_max);
-                const double guess = std::pow(target / l_one, 1 / exponent);
-                n_solved = root_near([&](double x) { return L(x, p) - target; }, guess, 1, n_max, l_one - target,
-                                     l_max - target, 24);
+                n_solved = *solved;
                 // Snap to the step; trim the pitch. The nearest step first, then its neighbours.
                 const double step = q_.turns_step;
                 const double nearest = std::max(std::ceil(1 / step - 1e-9) * step, std::round(n_solved / step) * step);
+                guide = WheelerGuide(mean / 2, n_solved, p_grid, at(n_solved, p_grid));  // rescaled at the solution
                 bool done = false;
                 for (double offset : {0.0, -1.0, 1.0}) {
                     n = nearest + offset * step;
                     if (n < 1) continue;
-                    p = p_grid * n / n_solved;  // L ~ N / p for a long coil: the trimmed pitch's first guess
-                    if (solve_pitch(n, d_ins, room, L, p)) {
+                    if (solve_pitch(n, d_ins, room, L, guide, p)) {
                         done = true;
                         break;
                     }
@@ -228,7 +256,6 @@ public:
         const Solenoid s(Solenoid::Params{mean, n, p, w, q_.lead_length});
         DesignFigures d;
         d.wire_index = c.wire;
-        d.wire_label = w.label;
         d.form_diameter = c.form_diameter;
         d.mean_diameter = mean;
         d.outer_diameter = outer;
@@ -241,7 +268,7 @@ public:
         d.overall_length = s.overall_length();
         d.length_with_ends = d.overall_length + 2 * q_.former_ends;
         d.wire_length = s.wire_length();
-        d.inductance = recommended_inductance(s);
+        d.inductance = at(n, p);
         d.volume = pi / 4 * outer * outer * d.length_with_ends;
         if (q_.max_wire_length && d.wire_length > *q_.max_wire_length) {
             t.reject("wire_length", d.wire_length / *q_.max_wire_length, [&] { return what() + ": wire " + detail::fixed(d.wire_length, 2) + " m"; });
@@ -254,7 +281,7 @@ public:
             const auto r = ac_resistance(s, q_.conductor, q_.ambient, *q_.current_frequency);
             ac_ratio = r.resistance / r.dc;
         }
-        const double bare = w.bare_diameter, wire_len = s.wire_length();
+        const double wire_len = s.wire_length();
         try {
             const auto power = [&](double temp) {
                 return q_.current * q_.current * ac_ratio * dc_resistance(q_.conductor, bare, wire_len, temp);
@@ -325,28 +352,21 @@ public:
             d.resistance = d.dc_resistance;
         }
         ++t.feasible;
-        add_to_front(t.front, d, ceiling_);
+        t.front.add(d);
     }
 
 private:
-    // Pitch in [d_ins, room / n] with L(n, p) = target; L falls as p grows. `p` holds a first guess.
+    // Pitch in [d_ins, room / n] with L(n, p) = target to 1e-12; L falls as p grows. The guide gives the
+    // first guess and slope; `p` receives the pitch.
     template <class F>
-    bool solve_pitch(double n, double d_ins, double room, const F& L, double& p) const {
+    bool solve_pitch(double n, double d_ins, double room, const F& L, const WheelerGuide& guide, double& p) const {
         const double p_max = room / n;
         if (p_max < d_ins) return false;
-        const double target = q_.inductance;
-        const double at_min = L(n, d_ins) - target, at_max = L(n, p_max) - target;
-        if (at_min < 0 || at_max > 0) return false;
-        if (at_min == 0) {
-            p = d_ins;
-            return true;
-        }
-        if (at_max == 0) {
-            p = p_max;
-            return true;
-        }
-        p = root_near([&](double x) { return L(n, x) - target; }, p, d_ins, p_max, at_min, at_max);
-        return true;
+        const double guess = std::clamp(guide.pitch_for(q_.inductance, n), d_ins, p_max);
+        const auto r = detail::monotone_root([&](double x) { return L(n, x) - q_.inductance; }, false, guess,
+                                             {d_ins, p_max}, 40, guide.slope_pitch(n, guess));
+        if (r) p = *r;
+        return r.has_value();
     }
 
     const Requirement& q_;
@@ -411,7 +431,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     const Evaluator ev(q);
     unsigned threads = options.threads ? options.threads : std::max(1u, std::thread::hardware_concurrency());
     threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(1, total / 64 + 1)));
-    std::vector<Tally> tallies(threads);
+    std::vector<Tally> tallies(threads, Tally{Archive(ev.ceiling())});
     // Workers take chunks from a shared counter; the calling thread works too and reports progress.
     constexpr std::size_t chunk = 256;
     std::atomic<std::size_t> next{0}, done{0};
@@ -436,15 +456,15 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     DesignResult out;
     out.candidates_evaluated = total;
     out.notes = q.notes;
-    std::vector<Archived> archive;
+    Archive archive(ev.ceiling());
     for (auto& t : tallies) {
         out.feasible += t.feasible;
         for (const auto& [r, n] : t.rejected) out.rejected_by_reason[r] += n;
-        for (const auto& a : t.front) add_to_front(archive, a.design, ev.ceiling());
+        for (const auto& d : t.front.designs()) archive.add(d);
         if (t.closest && (!out.closest || t.closest->excess < out.closest->excess)) out.closest = t.closest;
     }
-    std::vector<DesignFigures> front;
-    for (auto& a : archive) front.push_back(std::move(a.design));
+    std::vector<DesignFigures> front = archive.take();
+    for (auto& d : front) d.wire_label = q.wires[d.wire_index].wire.label;
     if (front.empty()) {
         std::string top_reason;
         std::size_t most = 0;
@@ -474,7 +494,11 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         d.score = q.objective.loss * d.loss_metric() / best_loss + q.objective.size * d.volume / best_vol +
                   q.objective.srf * d.srf_metric(ev.ceiling()) / best_srf;
     }
-    std::sort(front.begin(), front.end(), [](const auto& a, const auto& b) { return a.score < b.score; });
+    // Ties (equal scores) fall to the grid order, so that the ranking never depends on the threads.
+    std::sort(front.begin(), front.end(), [](const auto& a, const auto& b) {
+        return std::tie(a.score, a.wire_index, a.form_diameter, a.pitch_before_trim) <
+               std::tie(b.score, b.wire_index, b.form_diameter, b.pitch_before_trim);
+    });
     out.pareto = std::move(front);
 
     // Re-analyse the leaders in full; the first that passes is chosen.

@@ -11,6 +11,7 @@
 
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "monotone_root.hpp"
 
 namespace libcoil {
 
@@ -84,6 +85,22 @@ double SheathHelix::dispersion(double beta, double k) const {
     return tan2_ * (x1 / ri + x2 / rk) - ka * ka * (m_.inner * ri / x1 + m_.outer * rk / x2);
 }
 
+std::pair<double, double> SheathHelix::dispersion_and_slope(double beta, double k) const {
+    const double a2 = a_ * a_;
+    const double x1 = a_ * std::sqrt(beta * beta - m_.inner * k * k);
+    const double x2 = a_ * std::sqrt(beta * beta - m_.outer * k * k);
+    if (!(x1 > 0) || !(x2 > 0)) throw DomainError("sheath helix: beta must exceed k sqrt(e) (a slow wave)");
+    const double ri = ratio_i(x1), rk = ratio_k(x2), ka2 = k * k * a2;
+    // From I0' = I1, I1' = I0 - I1/x, K0' = -K1, K1' = -K0 - K1/x (A&S 9.6.27, 9.6.28):
+    const double dri = 1 - ri / x1 - ri * ri, drk = -1 - rk / x2 + rk * rk;
+    const double dx1 = -a2 * m_.inner * k / x1, dx2 = -a2 * m_.outer * k / x2;  // dx/dk
+    const double f = tan2_ * (x1 / ri + x2 / rk) - ka2 * (m_.inner * ri / x1 + m_.outer * rk / x2);
+    const double df = tan2_ * ((ri - x1 * dri) / (ri * ri) * dx1 + (rk - x2 * drk) / (rk * rk) * dx2) -
+                      2 * k * a2 * (m_.inner * ri / x1 + m_.outer * rk / x2) -
+                      ka2 * (m_.inner * (x1 * dri - ri) / (x1 * x1) * dx1 + m_.outer * (x2 * drk - rk) / (x2 * x2) * dx2);
+    return {f, df};
+}
+
 double SheathHelix::wavenumber_for(double beta) const {
     require_positive("beta", beta);
     // The slow-wave estimate (gamma = beta in both regions) makes the dispersion explicit in k:
@@ -110,13 +127,10 @@ double SheathHelix::wavenumber_for(double beta, double guess) const {
     require_positive("beta", beta);
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
     if (guess > 0 && guess < k_max) {
-        // Widen the bracket around the guess until the dispersion changes sign (it falls through the root).
-        const auto g = [&](double k) { return dispersion(beta, k); };
-        for (double w : {0.02, 0.1, 0.4}) {
-            const double lo = (1 - w) * guess, hi = std::min((1 + w) * guess, k_max);
-            const double g_lo = g(lo), g_hi = g(hi);
-            if (g_lo > 0 && g_hi < 0) return finite_result("sheath helix", root_between(g, lo, hi, g_lo, g_hi));
-        }
+        // Newton's steps from the guess, kept in the bracket (the dispersion falls through the root).
+        const auto k = detail::monotone_root_newton([&](double x) { return dispersion_and_slope(beta, x); }, false,
+                                                    guess, {k_max * 1e-12, k_max}, 44);
+        if (k) return finite_result("sheath helix", *k);
     }
     return full_bracket(beta);
 }
@@ -149,13 +163,18 @@ double sheath_inner_energy_share(double a, double r_in, double r_out, double gam
     if (!(r_in < r_out) || r_out > a) throw InputError("r_out", "expected r_in < r_out <= a");
     const double b2 = (beta / gamma) * (beta / gamma), ua = gamma * a;
     // Antiderivatives of r I0(g r)^2 and r I1(g r)^2, times g^2 (which cancels in the share):
-    // u^2/2 (I0^2 - I1^2) and u^2/2 (I1^2 - I0 I2), u = g r, I2 = I0 - 2 I1 / u. All are scaled by
-    // exp(-2 g a) through the exponentially scaled e_n(u) = I_n(u) exp(-u), so nothing overflows.
+    // u^2/2 (I0^2 - I1^2) and u^2/2 (I1^2 - I0 I2), u = g r, I2 = I0 - 2 I1 / u. Any common factor
+    // cancels in the share: below u = 300 the plain I_n serve (I0^2 stays below 1e260); above, all are
+    // scaled by exp(-2 g a) through e_n(u) = I_n(u) exp(-u), so nothing overflows.
+    const bool scaled = ua >= 300;
     const auto energy = [&](double r) {
         const double u = gamma * r;
         if (u == 0) return 0.0;
-        const double e0 = scaled_i(0, u), e1 = scaled_i(1, u), e2 = e0 - 2 * e1 / u;
-            return u * u / 2 * ((e0 * e0 - e1 * e1) + b2 * (e1 * e1 - e0 * e2)) * std::exp(2 * (u - ua));
+        const double e0 = scaled ? scaled_i(0, u) : boost::math::cyl_bessel_i(0, u, fast());
+        const double e1 = scaled ? scaled_i(1, u) : boost::math::cyl_bessel_i(1, u, fast());
+        const double e2 = e0 - 2 * e1 / u;
+        const double w = u * u / 2 * ((e0 * e0 - e1 * e1) + b2 * (e1 * e1 - e0 * e2));
+        return scaled ? w * std::exp(2 * (u - ua)) : w;
     };
     const double total = energy(a);
     if (!(total > 0) || !std::isfinite(total)) {

@@ -9,11 +9,13 @@
 
 namespace libcoil {
 
+double recommended_inductance(double mean_diameter, double turns, double pitch, double wire_diameter) {
+    if (rosa_in_domain(pitch, mean_diameter / 2)) return rosa_inductance(mean_diameter, turns, pitch, wire_diameter);
+    return filament_inductance(mean_diameter, turns, pitch, wire_diameter);
+}
+
 double recommended_inductance(const Solenoid& c) {
-    if (rosa_in_domain(c.pitch(), c.mean_radius())) {
-        return rosa_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
-    }
-    return filament_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
+    return recommended_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
 }
 
 InductanceResult inductance(const Solenoid& c) {

@@ -38,23 +38,25 @@ cd hankel_scaled(int nu, cd z) {
     const double mu = 4.0 * nu * nu;
     cd p = 0, q = 0;
     cd term = 1.0;  // a_k(nu) / z^k
-    double last = INFINITY;
+    const cd inv_z = 1.0 / z;
+    double last = INFINITY;  // |term|^2 (squared moduli: no hypot in the loop)
     for (int k = 0; k < 200; ++k) {
-        const double mag = std::abs(term);
-        if (mag > last) break;  // the asymptotic series starts to diverge
-        last = mag;
+        const double mag2 = std::norm(term);
+        if (mag2 > last) break;  // the asymptotic series starts to diverge
+        last = mag2;
         // (-1)^(k/2) for even k goes to P, (-1)^((k-1)/2) for odd k to Q.
         const double sign = ((k / 2) % 2 == 0) ? 1.0 : -1.0;
         if (k % 2 == 0) p += sign * term; else q += sign * term;
-        if (mag < 1e-18) break;
+        if (mag2 < 1e-36) break;
         const double j = 2.0 * (k + 1) - 1.0;
-        term *= (mu - j * j) / (8.0 * (k + 1)) / z;
+        term *= (mu - j * j) / (8.0 * (k + 1)) * inv_z;
     }
     const cd chi = z - (nu / 2.0 + 0.25) * std::numbers::pi;
-    // cos and sin of chi times e^(-Im chi), without overflow (Im chi = Im z > 0 here).
-    const cd up = std::exp(cd(0, 1) * chi - chi.imag());     // e^(i chi - Im chi), the small one
-    const cd down = std::exp(-cd(0, 1) * chi - chi.imag());  // e^(-i chi - Im chi), modulus 1
-    const cd cos_s = (up + down) / 2.0, sin_s = (up - down) / cd(0, 2);
+    // cos and sin of chi times e^(-Im chi), without overflow (Im chi = Im z > 0 here), from
+    // e^(i chi - Im chi) = e^(-2 Im chi) e^(i Re chi) (the small one) and e^(-i chi - Im chi) = e^(-i Re chi).
+    const double c = std::cos(chi.real()), s = std::sin(chi.real()), small = std::exp(-2 * chi.imag());
+    const cd up(small * c, small * s), down(c, -s);
+    const cd cos_s = (up + down) * 0.5, sin_s = (up - down) * cd(0, -0.5);  // (up - down) / 2i
     return std::sqrt(2.0 / (std::numbers::pi * z)) * (p * cos_s - q * sin_s);
 }
 

@@ -52,10 +52,9 @@ double nagaoka_coefficient(double rho) {
     if (q < 0.1) {
         bracket = short_coil_bracket(q);
     } else {
-        const double k = rho * kc;                             // sqrt(1 - q)
-        const double kme_m = detail::elliptic_k_minus_e_over_m(q);  // (K - E) / k^2
-        const double E = detail::elliptic_k(q) - (1.0 - q) * kme_m;
-        bracket = q * kme_m + E - k;
+        const double k = rho * kc;  // sqrt(1 - q)
+        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(q, rho * rho * q);  // k^2 = rho^2 q
+        bracket = q * kme_m + (K - rho * rho * q * kme_m) - k;
     }
     return 4.0 / (3.0 * pi * kc) * bracket;
 }

@@ -10,6 +10,7 @@
 #include "libcoil/error.hpp"
 #include "libcoil/kelvin.hpp"
 #include "libcoil/skin_effect.hpp"
+#include "wire_bessel.hpp"
 
 namespace libcoil {
 
@@ -23,9 +24,9 @@ using cd = std::complex<double>;
 //   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2).
 void ring_field(double b, double z, double& hz, double& hr) {
     const double s = 4 * b * b + z * z;
-    const double mc = z * z / s;                       // k'^2
-    const double K = detail::elliptic_k(mc);
-    const double kme = (1 - mc) * detail::elliptic_k_minus_e_over_m(mc);  // K - E, no cancellation
+    const double m = 4 * b * b / s;  // k^2; k'^2 = z^2 / s
+    const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(z * z / s, m);
+    const double kme = m * kme_m;  // K - E
     const double E = K - kme;
     const double root = std::sqrt(s);
     hz = kme / (2 * pi * root);
@@ -45,7 +46,10 @@ double proximity_loss_function(double x) {
         const double x4 = x * x * x * x;
         return x4 / 16 * (1 - 11 * x4 / 384);
     }
-    const auto s = scaled_kelvin_bessel(x);
+    return detail::proximity_loss_from(scaled_kelvin_bessel(x), x);
+}
+
+double detail::proximity_loss_from(const ScaledBesselPair& s, double x) {
     // u = x e^(-i pi/4): J0(u) = ber + i bei (J0 is even), J1(u) = d e^(-3 pi i/4); scaled alike.
     const cd u = std::polar(x, -pi / 4);
     const cd j0 = s.j0;
@@ -59,8 +63,11 @@ double mean_square_field_per_ampere(const Solenoid& c) {
     const long n = std::max(1L, std::lround(c.turns()));
     if (n > 10'000'000) throw InputError("turns", "too many turns for the proximity field sum");
     const double b = c.mean_radius(), p = c.pitch();
-    // Prefix sums over offsets k = 1 .. n-1 of the field of one turn at another.
-    std::vector<double> sz(n, 0.0), sr(n, 0.0);
+    // Prefix sums over offsets k = 1 .. n-1 of the field of one turn at another (in buffers each thread
+    // keeps, so that a search does not allocate for every coil).
+    thread_local std::vector<double> sz, sr;
+    sz.assign(n, 0.0);
+    sr.assign(n, 0.0);
     for (long k = 1; k < n; ++k) {
         double hz, hr;
         ring_field(b, static_cast<double>(k) * p, hz, hr);
@@ -100,11 +107,21 @@ AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temp
     }
     const double rho = cond.resistivity_at(temperature);
     const double x = std::sqrt(2.0) * c.wire().radius() / skin_depth(rho, frequency, cond.relative_permeability);
-    const SkinRatios s = skin_ratios(x);
+    // One evaluation of the Kelvin functions serves both ratios, where neither takes its small-x series.
+    SkinRatios s;
+    double g;
+    if (x >= 0.05) {
+        const ScaledBesselPair kb = scaled_kelvin_bessel(x);
+        s = detail::skin_ratios_from(kb, x);
+        g = detail::proximity_loss_from(kb, x);
+    } else {
+        s = skin_ratios(x);
+        g = proximity_loss_function(x);
+    }
     r.skin_ratio = s.resistance;
     r.internal_inductance_ratio = s.internal_inductance;
     const double rw = c.wire().radius();
-    r.proximity_ratio = 4 * pi * pi * rw * rw * proximity_loss_function(x) * mean_square_field;
+    r.proximity_ratio = 4 * pi * pi * rw * rw * g * mean_square_field;
     r.resistance = finite_result("AC resistance", helix * (r.skin_ratio + r.proximity_ratio) + leads * r.skin_ratio);
     return r;
 }

@@ -37,9 +37,9 @@ double kandoian_sichak_resonance(const Solenoid& s, double waves, double eps) {
 
 }  // namespace
 
-SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerDielectric& former,
-                             const Surroundings& surroundings, bool cross_checks) {
-    require_positive("inductance", inductance);
+namespace {
+
+double check_media(const FormerDielectric& former, const Surroundings& surroundings) {
     const double eps_out = require_at_least("surroundings.relative_permittivity",
                                             require_finite("surroundings.relative_permittivity",
                                                            surroundings.relative_permittivity),
@@ -53,7 +53,57 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
             throw InputError("former.fill", format_value(former.fill) + "; expected a share in (0, 1]");
         }
     }
+    return eps_out;
+}
 
+double resonance_waves(Mounting m) { return m == Mounting::floating ? 2.0 : 4.0; }  // l = lambda / 2 or / 4
+
+}  // namespace
+
+HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDielectric& former,
+                                            const Surroundings& surroundings) {
+    const double eps_out = check_media(former, surroundings);
+    const double beta = 2 * pi / (resonance_waves(surroundings.mounting) * s.winding_length());
+    const double a = s.mean_radius(), psi = s.pitch_angle();
+    HelicalLineResonance r;
+    r.medium = {eps_out, eps_out};
+    const double rise = former.wall > 0 ? (former.relative_permittivity - eps_out) * former.fill : 0.0;
+    double k = 0;
+    if (rise == 0) {
+        k = SheathHelix(a, psi, r.medium).wavenumber_for(beta);
+    } else {
+        // The former shell enters the inner permittivity by its share of the mode's inner field energy,
+        // which itself depends on the mode: the fixed point e = T(e). T is a weak contraction; secant
+        // steps on T(e) - e reach it to 1e-12 in three or four evaluations.
+        const double form_radius = s.form_diameter() / 2, shell_in = std::max(0.0, form_radius - former.wall);
+        const auto share = [&](double gamma) { return sheath_inner_energy_share(a, shell_in, form_radius, gamma, beta); };
+        const auto excess = [&](double e) {  // T(e) - e, leaving the mode's k behind
+            const SheathHelix helix(a, psi, {e, eps_out});
+            k = k > 0 ? helix.wavenumber_for(beta, k) : helix.wavenumber_for(beta);
+            return eps_out + rise * share(std::sqrt(beta * beta - e * k * k)) - e;
+        };
+        // Start from the slow-wave share (gamma = beta), which the mode's share differs from by O((v/c)^2).
+        double e0 = eps_out + rise * share(beta), g0 = excess(e0);
+        double e1 = e0 + g0;
+        for (int i = 0; i < 50; ++i) {
+            const double g1 = excess(e1);
+            if (std::fabs(g1) <= 1e-12 * e1 || g1 == g0) break;
+            const double e2 = e1 - g1 * (e1 - e0) / (g1 - g0);
+            e0 = e1;
+            g0 = g1;
+            e1 = std::isfinite(e2) ? e2 : e1 + g1;
+        }
+        r.medium.inner = e1;
+    }
+    r.frequency = finite_result("helical line", speed_of_light * k / (2 * pi));
+    r.phase_velocity = speed_of_light * k / beta;
+    return r;
+}
+
+SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerDielectric& former,
+                             const Surroundings& surroundings, bool cross_checks) {
+    require_positive("inductance", inductance);
+    check_media(former, surroundings);
     SelfResonance r;
     r.inductance = inductance;
     r.mounting = surroundings.mounting;
@@ -61,32 +111,17 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     r.pitch_angle = s.pitch_angle();
     r.radius = s.mean_radius();
     r.half_wave_wire_frequency = speed_of_light / (2 * s.helix_length());
-    const double waves = surroundings.mounting == Mounting::floating ? 2.0 : 4.0;  // l = lambda / 2 or / 4
+    const double waves = resonance_waves(surroundings.mounting);
     r.resonance_wavenumber = 2 * pi / (waves * r.winding_length);
-
-    // The former shell enters the inner permittivity by its share of the mode's inner field energy,
-    // which itself depends on the mode: a fixed point, reached in a few steps.
-    const double form_radius = s.form_diameter() / 2;
-    const double shell_in = std::max(0.0, form_radius - former.wall);
+    const double eps_out = surroundings.relative_permittivity;
     HelixMedium medium{eps_out, eps_out};
-    const double beta = r.resonance_wavenumber;
     std::string line_failure;
     try {
-        double k = 0;
-        for (int i = 0; i < 50; ++i) {
-            k = i == 0 ? SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta)
-                       : SheathHelix(r.radius, r.pitch_angle, medium).wavenumber_for(beta, k);
-            if (!(former.wall > 0) || former.relative_permittivity == eps_out) break;
-            const double gamma = std::sqrt(beta * beta - medium.inner * k * k);
-            const double share = sheath_inner_energy_share(r.radius, shell_in, form_radius, gamma, beta);
-            const double next = eps_out + (former.relative_permittivity - eps_out) * former.fill * share;
-            const bool done = std::fabs(next - medium.inner) < 1e-12 * next;
-            medium.inner = next;
-            if (done) break;
-        }
-        r.phase_velocity = speed_of_light * k / beta;
+        const HelicalLineResonance h = helical_line_resonance(s, former, surroundings);
+        medium = h.medium;
+        r.phase_velocity = h.phase_velocity;
         r.helical_line.available = true;
-        r.helical_line.frequency = finite_result("helical line", speed_of_light * k / (2 * pi));
+        r.helical_line.frequency = h.frequency;
         r.helical_line.capacitance = equivalent_capacitance(r.helical_line.frequency, inductance);
         r.low_frequency_capacitance = pi * pi / 12 * r.helical_line.capacitance;
     } catch (const DomainError& e) {
@@ -102,7 +137,13 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
         r.warnings.push_back("Kandoian & Sichak's velocity gave no resonance for this coil");
     }
 
+    // Medhurst's table: a cross-check, and the fallback where the helical line has no slow wave.
     const double ratio = s.winding_length() / s.mean_diameter();
+    if (!cross_checks && r.helical_line.available) {
+        r.frequency = r.helical_line.frequency;
+        r.capacitance = r.helical_line.capacitance;
+        return r;  // the fast path: no cross-check and no notes
+    }
     if (ratio >= medhurst_min_ratio && ratio <= medhurst_max_ratio) {
         r.medhurst.available = true;
         r.medhurst.capacitance = medhurst_capacitance(s.mean_diameter(), s.winding_length());

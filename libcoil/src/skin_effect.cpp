@@ -6,6 +6,7 @@
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/kelvin.hpp"
+#include "wire_bessel.hpp"
 
 namespace libcoil {
 
@@ -22,7 +23,10 @@ SkinRatios skin_ratios(double x) {
         const double x4 = x * x * x * x;
         return {1 + x4 / 192, 1 - x4 / 384};
     }
-    const auto s = scaled_kelvin_bessel(x);
+    return detail::skin_ratios_from(scaled_kelvin_bessel(x), x);
+}
+
+SkinRatios detail::skin_ratios_from(const ScaledBesselPair& s, double x) {
     // Scaled alike, so the scale cancels in every ratio.
     const double ber = s.j0.real(), bei = s.j0.imag(), berp = s.d.real(), beip = s.d.imag();
     const double den = berp * berp + beip * beip;

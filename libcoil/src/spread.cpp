@@ -33,7 +33,7 @@ struct Figures {
 Figures evaluate(const Solenoid& nominal, const Inputs& in, const FormerDielectric& former, const Surroundings& env) {
     const Solenoid s = build(nominal, in);
     const double L = recommended_inductance(s);
-    return {L, self_resonance(s, L, former, env).frequency};
+    return {L, self_resonance(s, L, former, env, false).frequency};
 }
 
 SpreadStatistics statistics(std::vector<double> v, double nominal) {

@@ -4,10 +4,10 @@
 #include <cmath>
 #include <cstdint>
 
-#include <boost/math/tools/roots.hpp>
 
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "monotone_root.hpp"
 
 namespace libcoil {
 
@@ -31,7 +31,7 @@ double churchill_chu(double ra, double pr, double base, double pr_constant) {
     require_positive("prandtl", pr);
     if (ra > 1e12) throw DomainError("Churchill & Chu: Rayleigh number " + format_value(ra) + " above 1e12 (turbulent)");
     const double f = std::pow(1 + std::pow(pr_constant / pr, 9.0 / 16), 8.0 / 27);
-    const double s = base + 0.387 * std::pow(ra, 1.0 / 6) / f;
+    const double s = base + 0.387 * std::sqrt(std::cbrt(ra)) / f;  // Ra^(1/6)
     return s * s;
 }
 
@@ -81,51 +81,56 @@ double radiated_power(const ThermalSurface& s, double surface, double ambient) {
     require_positive("length", s.length);
     if (!(s.emissivity >= 0 && s.emissivity <= 1)) throw InputError("emissivity", format_value(s.emissivity) + "; expected 0 .. 1");
     const double area = pi * s.outer_diameter * s.length;
-    return s.emissivity * stefan_boltzmann * area * (std::pow(surface, 4) - std::pow(ambient, 4));
+    // T^4 - Ta^4 factored, exact near T = Ta.
+    const double t = surface, ta = ambient;
+    return s.emissivity * stefan_boltzmann * area * (t - ta) * (t + ta) * (t * t + ta * ta);
 }
 
 ThermalResult winding_temperature(const std::function<double(double)>& power, const ThermalSurface& surface,
                                   double ambient, double max_temperature) {
     require_positive("ambient", ambient);
+    ThermalResult r;
+    // The balance P(T) - convected - radiated, keeping the terms of the last point evaluated.
     const auto balance = [&](double t) {
-        return power(t) - convected_power(surface, t, ambient) - radiated_power(surface, t, ambient);
+        r.temperature = t;
+        r.power = power(t);
+        r.convection = convected_power(surface, t, ambient, &r.rayleigh);
+        r.radiation = radiated_power(surface, t, ambient);
+        return r.power - r.convection - r.radiation;
     };
     const double p0 = power(ambient);
     require_non_negative("power", p0);
-    ThermalResult r;
     if (p0 == 0) {
+        r = ThermalResult{};
         r.temperature = ambient;
         return r;
     }
     const double hi = std::min(max_temperature, 2 * air_table.back()[0] - ambient);  // film <= 600 K
-    const double b_hi = balance(hi);
-    if (b_hi > 0) {
+    // The balance falls through its root. A first guess from a total surface coefficient of about
+    // 12 W/m^2 K (convection plus radiation near room temperature) starts secant steps (monotone_root.hpp);
+    // the first step is Newton's with the slope estimated from the terms: the power's rise per kelvin,
+    // convection as rise^(5/4) (laminar), radiation's 4 e sigma A T^3 exactly.
+    const double area = pi * surface.outer_diameter * surface.length;
+    const double power_slope = power(ambient + 1) - p0;
+    bool first = true;
+    const auto step = [&](double t) {
+        const double f = balance(t);
+        double s = NAN;
+        if (first && t > ambient) {
+            const double t3 = t * t * t;
+            s = f / (power_slope - 1.25 * r.convection / (t - ambient) - 4 * surface.emissivity * stefan_boltzmann * area * t3);
+        }
+        first = false;
+        return std::pair{f, s};
+    };
+    const double guess = ambient + p0 / (12.0 * area);
+    const auto t = detail::bracketed_steps(step, false, guess, {ambient, hi, p0, std::nullopt}, 36, 1e-4);
+    if (!t) {
         throw DomainError("the winding would pass " + format_value(hi - zero_celsius) +
                           " degC in still air: far beyond any enamel or former");
     }
-    // A first guess from a total surface coefficient of about 12 W/m^2 K (convection plus radiation near
-    // room temperature) narrows the bracket; it is widened back to [ambient, hi] if the guess misses.
-    double lo = ambient, top = hi, f_lo = p0, f_top = b_hi;
-    const double guess = ambient + p0 / (12.0 * pi * surface.outer_diameter * surface.length);
-    for (double t : {0.7 * (guess - ambient) + ambient, 1.4 * (guess - ambient) + ambient}) {
-        if (t <= lo || t >= top) continue;
-        const double b = balance(t);
-        if (b > 0) {
-            lo = t;
-            f_lo = b;
-        } else {
-            top = t;
-            f_top = b;
-        }
-    }
-    std::uintmax_t it = 200;
-    const auto root = boost::math::tools::toms748_solve(balance, lo, top, f_lo, f_top,
-                                                        boost::math::tools::eps_tolerance<double>(36), it);
-    r.temperature = 0.5 * (root.first + root.second);
+    if (*t != r.temperature) balance(*t);  // the terms at the root, unless it was the last point evaluated
     r.rise = r.temperature - ambient;
-    r.power = power(r.temperature);
-    r.convection = convected_power(surface, r.temperature, ambient, &r.rayleigh);
-    r.radiation = radiated_power(surface, r.temperature, ambient);
     r.convection_coefficient = r.rise > 0 ? r.convection / (pi * surface.outer_diameter * surface.length * r.rise) : 0;
     return r;
 }

@@ -24,6 +24,8 @@
 //          follows tan(psi) sqrt(2 (ln(2 / (beta a)) - gamma_E)) (tests/cpp/test_self_capacitance.cpp).
 #pragma once
 
+#include <utility>
+
 namespace libcoil {
 
 struct HelixMedium {
@@ -54,6 +56,8 @@ public:
 
 private:
     double full_bracket(double beta) const;
+    // The dispersion and its derivative with respect to k, for Newton's steps.
+    std::pair<double, double> dispersion_and_slope(double beta, double k) const;
     double a_, psi_, tan2_;
     HelixMedium m_;
 };

@@ -35,5 +35,8 @@ InductanceResult inductance(const Solenoid& coil);
 // The recommended inductance alone: Rosa inside its domain (without evaluating the filament sum, the
 // fast path for design searches), the filament sum outside it.
 double recommended_inductance(const Solenoid& coil);
+// The same from the bare figures (m): for root finders that vary turns or pitch, without building and
+// validating a Solenoid at every step. The caller keeps the geometry valid.
+double recommended_inductance(double mean_diameter, double turns, double pitch, double wire_diameter);
 
 }  // namespace libcoil

@@ -72,8 +72,20 @@ struct SelfResonance {
     std::vector<std::string> notes;
 };
 
+// The helical line's first resonance alone, with the former's fixed point, and no cross-checks or text:
+// the fast path for searches (self_resonance() below builds on it). Throws DomainError where the sheath
+// helix has no slow wave, InputError for bad permittivities or fill.
+struct HelicalLineResonance {
+    double frequency = 0;       // Hz
+    double phase_velocity = 0;  // m/s, axial
+    HelixMedium medium;         // the effective permittivities found
+};
+HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDielectric& former = {},
+                                            const Surroundings& surroundings = {});
+
 // `inductance` is the low-frequency inductance (inductance().recommended).
-// `cross_checks` false leaves out Kandoian & Sichak (the design search needs only the recommended SRF).
+// `cross_checks` false is the fast path for searches, which need only the recommended SRF: it leaves out
+// Kandoian & Sichak, and Medhurst except as the fallback, and writes no notes.
 SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
                              const Surroundings& surroundings = {}, bool cross_checks = true);
 

@@ -1,0 +1,122 @@
+// Internal: the root of a monotone function from a good first guess.
+//
+// Secant steps from the guess and a probe beside it (or Newton's steps, where the caller has the slope)
+// converge superlinearly, so a guess good to 1e-3 reaches 1e-12 in three to five evaluations, where a
+// bracketing solver started on a wide interval needs ten or more. Every evaluation narrows a bracket
+// (the sign of f says on which side the root lies). When a step would leave the bracket, or the steps do
+// not settle, TOMS 748 (Boost.Math) finishes on it. The ends of [lo, hi] are evaluated only when the
+// iteration reaches them, so a caller whose guess is good pays for no end at all, and still learns when
+// there is no root in [lo, hi] (std::nullopt).
+#pragma once
+
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+#include <optional>
+#include <utility>
+
+#include <boost/math/tools/roots.hpp>
+
+namespace libcoil::detail {
+
+struct MonotoneBracket {
+    double lo, hi;                      // the search interval, lo < hi
+    std::optional<double> f_lo, f_hi;   // f at the ends, where the caller knows it already
+};
+
+// `eval(x)` returns {f(x), step}: a Newton step f/f' (exact with `newton`, else an estimate), or NaN to take
+// a secant step. A secant iteration stops at the last point it evaluated once the next step is below the
+// tolerance (the root then lies within that step of it). A Newton iteration stops after a step below
+// sqrt(tol) / 10: its error is then of the order of the step squared, far below the tolerance.
+template <class Eval>
+std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits,
+                                      double probe, bool newton = false) {
+    const double tol = std::ldexp(1.0, 1 - bits), newton_done = 0.1 * std::sqrt(tol);
+    // `below` is the lower end of the bracket, where the root lies above; `above` the upper end.
+    double below = b.lo, above = b.hi;
+    std::optional<double> f_below = b.f_lo, f_above = b.f_hi;
+    const auto root_is_above = [&](double fx) { return (fx < 0) == increasing; };
+    const auto none_unless_zero = [](double fx, double x) { return fx == 0 ? std::optional(x) : std::nullopt; };
+    if (f_below && !root_is_above(*f_below)) return none_unless_zero(*f_below, below);
+    if (f_above && root_is_above(*f_above)) return none_unless_zero(*f_above, above);
+    const auto record = [&](double x, double fx) {
+        if (root_is_above(fx)) {
+            below = x;
+            f_below = fx;
+        } else {
+            above = x;
+            f_above = fx;
+        }
+    };
+
+    double x0 = std::clamp(guess, b.lo, b.hi);
+    auto [f0, s0] = eval(x0);
+    if (f0 == 0) return x0;
+    record(x0, f0);
+    double x1;
+    if (std::isfinite(s0)) {
+        x1 = x0 - s0;
+        if (newton && std::fabs(s0) <= newton_done * std::fabs(x0) && x1 >= below && x1 <= above) return x1;
+    } else {
+        const double dx = std::max(std::fabs(x0), b.hi - b.lo) * probe;
+        x1 = root_is_above(f0) ? x0 + dx : x0 - dx;
+    }
+    x1 = std::clamp(x1, below, above);
+    for (int step = 0; step < 12 && x1 != x0; ++step) {
+        const auto [f1, s1] = eval(x1);
+        if (f1 == 0) return x1;
+        record(x1, f1);
+        const double x2 = std::isfinite(s1) ? x1 - s1 : f1 != f0 ? x1 - f1 * (x1 - x0) / (f1 - f0) : below;
+        if (x2 >= below && x2 <= above) {
+            if (newton && std::fabs(s1) <= newton_done * std::fabs(x1)) return x2;
+            if (!newton && std::fabs(x2 - x1) <= tol * std::fabs(x2)) return x1;
+        }
+        if (!(x2 > below && x2 < above)) break;  // outside the bracket: finish by bracketing
+        x0 = x1;
+        f0 = f1;
+        x1 = x2;
+    }
+    // Evaluate the ends still unknown; they say whether a root exists at all.
+    if (!f_below) {
+        f_below = eval(below).first;
+        if (!root_is_above(*f_below)) return none_unless_zero(*f_below, below);
+    }
+    if (!f_above) {
+        f_above = eval(above).first;
+        if (root_is_above(*f_above)) return none_unless_zero(*f_above, above);
+    }
+    std::uintmax_t it = 100;
+    const auto r = boost::math::tools::toms748_solve([&](double x) { return eval(x).first; }, below, above, *f_below,
+                                                     *f_above, boost::math::tools::eps_tolerance<double>(bits), it);
+    return 0.5 * (r.first + r.second);
+}
+
+// The root of f on [b.lo, b.hi], f monotone (rising if `increasing`), to a relative tolerance 2^(1 - bits),
+// by secant steps. With an estimate of the slope at the guess, the first step is Newton's with it (a
+// slope good to 1 % turns a guess good to 1e-3 into one good to 1e-5); without, a probe beside the guess.
+template <class F>
+std::optional<double> monotone_root(const F& f, bool increasing, double guess, MonotoneBracket b, int bits,
+                                    double first_slope = NAN) {
+    bool first = true;
+    return bracketed_steps(
+        [&](double x) {
+            const double fx = f(x);
+            const double step = first && first_slope != 0 ? fx / first_slope : NAN;
+            first = false;
+            return std::pair{fx, step};
+        },
+        increasing, guess, b, bits, 1e-4);
+}
+
+// The same by Newton's steps: `fd(x)` returns {f(x), f'(x)}.
+template <class FD>
+std::optional<double> monotone_root_newton(const FD& fd, bool increasing, double guess, MonotoneBracket b, int bits) {
+    return bracketed_steps(
+        [&](double x) {
+            const auto [f, slope] = fd(x);
+            return std::pair{f, slope != 0 ? f / slope : NAN};
+        },
+        increasing, guess, b, bits, 1e-4, true);
+}
+
+}  // namespace libcoil::detail
