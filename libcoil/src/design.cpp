@@ -73,28 +73,30 @@ class Archive {
 public:
     explicit Archive(double ceiling = 0) : ceiling_(ceiling) {}
 
+    // One pass: a box at or below the design's keeps it out; the boxes it dominates go. (Both cannot
+    // happen in one pass: the archive holds no box that dominates another.)
     void add(const DesignFigures& d) {
         const Box b = box_of(d, ceiling_);
-        for (std::size_t i = 0; i < boxes_.size(); ++i) {
-            if (!boxes_[i].at_or_below(b)) continue;
-            if (boxes_[i] == b) {  // one design per box: the dominating one, else the nearer to the corner
-                DesignFigures& f = designs_[i];
-                if (dominates(f, d, ceiling_)) return;
-                if (dominates(d, f, ceiling_) || corner_distance(d, b, ceiling_) < corner_distance(f, b, ceiling_)) f = d;
+        for (std::size_t i = 0; i < boxes_.size();) {
+            if (boxes_[i].at_or_below(b)) {
+                if (boxes_[i] == b) {  // one design per box: the dominating one, else the nearer to the corner
+                    DesignFigures& f = designs_[i];
+                    if (dominates(f, d, ceiling_)) return;
+                    if (dominates(d, f, ceiling_) || corner_distance(d, b, ceiling_) < corner_distance(f, b, ceiling_)) f = d;
+                    return;
+                }
+                // Dominated. Neighbouring candidates tend to fall to the same box: move it forward, so that
+                // the next scan usually stops early. The archive's content does not depend on its order.
+                if (i > 0) swap(i, i / 2);
                 return;
             }
-            // Dominated. Neighbouring candidates tend to fall to the same box: move it forward, so that
-            // the next scan usually stops at once. The archive's content does not depend on its order.
-            if (i > 0) swap(i, i / 2);
-            return;
-        }
-        // A new box: it drops every box it dominates (none of them equals it, or the scan had stopped).
-        for (std::size_t i = boxes_.size(); i-- > 0;) {
-            if (b.at_or_below(boxes_[i])) {
+            if (b.at_or_below(boxes_[i])) {  // dominated by the new box (not equal: see above)
                 swap(i, boxes_.size() - 1);
                 boxes_.pop_back();
                 designs_.pop_back();
+                continue;
             }
+            ++i;
         }
         boxes_.push_back(b);
         designs_.push_back(d);
@@ -282,24 +284,31 @@ public:
             ac_ratio = r.resistance / r.dc;
         }
         const double wire_len = s.wire_length();
-        try {
-            const auto power = [&](double temp) {
-                return q_.current * q_.current * ac_ratio * dc_resistance(q_.conductor, bare, wire_len, temp);
-            };
-            const auto th = winding_temperature(power, ThermalSurface{outer, d.overall_length, 0.85, CoilAxis::horizontal},
-                                                q_.ambient);
-            d.temperature = th.temperature;
-            d.rise = th.rise;
-        } catch (const DomainError&) {
-            t.reject("thermal", 10, [&] { return what() + ": the winding would run away thermally"; });
-            return;
-        }
+        const auto power = [&](double temp) {
+            return q_.current * q_.current * ac_ratio * dc_resistance(q_.conductor, bare, wire_len, temp);
+        };
+        const ThermalSurface surface{outer, d.overall_length, 0.85, CoilAxis::horizontal};
         d.temperature_limit = limit_;
-        if (d.temperature > limit_) {
-            t.reject("thermal", (d.temperature - q_.ambient) / (limit_ - q_.ambient), [&] { return what() + ": winding at " + format_quantity(d.temperature, Dimension::temperature) + ", limit " +
-                         format_quantity(limit_, Dimension::temperature); });
+        // At the limit first: a winding that still dissipates more than it sheds there settles above it
+        // (one evaluation decides; the excess is that power ratio).
+        const double shed = convected_power(surface, limit_, q_.ambient) + radiated_power(surface, limit_, q_.ambient);
+        if (const double p_limit = power(limit_); !(p_limit <= shed)) {
+            t.reject("thermal", shed > 0 ? p_limit / shed : 10, [&] {
+                try {
+                    const double temp = winding_temperature(power, surface, q_.ambient).temperature;
+                    return what() + ": winding at " + format_quantity(temp, Dimension::temperature) + ", limit " +
+                           format_quantity(limit_, Dimension::temperature);
+                } catch (const DomainError&) {
+                    return what() + ": the winding would run away thermally";
+                }
+            });
             return;
         }
+        // The balance lies in [ambient, limit]; to 1e-9 (as the search's self-resonance): the winners are
+        // re-analysed in full.
+        const auto th = winding_temperature(power, surface, q_.ambient, limit_, 1e-9);
+        d.temperature = th.temperature;
+        d.rise = th.rise;
         d.near_thermal_limit = d.temperature > limit_ - near_limit;
         d.dc_resistance = dc_resistance(q_.conductor, bare, wire_len, d.temperature);
 
@@ -356,7 +365,7 @@ public:
     }
 
 private:
-    // Pitch in [d_ins, room / n] with L(n, p) = target to 1e-12; L falls as p grows. The guide gives the
+    // Pitch in [d_ins, room / n] with L(n, p) = target to 1e-10; L falls as p grows. The guide gives the
     // first guess and slope; `p` receives the pitch.
     template <class F>
     bool solve_pitch(double n, double d_ins, double room, const F& L, const WheelerGuide& guide, double& p) const {
@@ -364,7 +373,7 @@ private:
         if (p_max < d_ins) return false;
         const double guess = std::clamp(guide.pitch_for(q_.inductance, n), d_ins, p_max);
         const auto r = detail::monotone_root([&](double x) { return L(n, x) - q_.inductance; }, false, guess,
-                                             {d_ins, p_max}, 40, guide.slope_pitch(n, guess));
+                                             {d_ins, p_max}, 34, guide.slope_pitch(n, guess));
         if (r) p = *r;
         return r.has_value();
     }

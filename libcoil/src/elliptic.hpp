@@ -26,23 +26,26 @@ inline double elliptic_k_minus_e_over_m(double mc) {
 
 // K(k) and (K(k) - E(k)) / k^2 together by the arithmetic-geometric mean (DLMF 19.8.1 and 19.8.6), for a
 // caller that knows both m' = k'^2 and m = k^2 without cancellation:
-//   K = pi / (2 M(1, k')),  K - E = K sum_{n>=0} 2^(n-1) c_n^2,  c_0 = k,  c_{n+1} = c_n^2 / (4 a_{n+1}).
-// The recurrence for c_n (equal to (a_n - b_n) / 2, which would cancel) and a sum of positive terms keep
-// every digit at any k; the sum is carried as r_n = c_n^2 / m, so that nothing underflows at tiny k.
-// Converges quadratically: four to six square roots, where R_F and R_D together take twice as long.
+//   K = pi / (2 M(1, k')),  K - E = K sum_{n>=0} 2^(n-1) c_n^2,  c_0 = k,  c_{n+1} = (a_n - b_n) / 2.
+// The sum is of positive terms, carried as c_n^2 / m so that nothing underflows at tiny k. a_n - b_n
+// cancels only where c_n is already small beside c_0, so the sum keeps its digits (1 ulp or so). It
+// converges quadratically: four to six square roots, where R_F and R_D together take twice as long.
 struct EllipticPair {
     double k, k_minus_e_over_m;
 };
 inline EllipticPair elliptic_k_and_k_minus_e_over_m(double mc, double m) {
-    double a = 1, b = std::sqrt(mc), r = 1, w = 0.5, sum = 0.5;  // r = c_n^2 / m, w = 2^(n-1)
+    if (!(m > 0)) return {pi / 2, pi / 4};  // k = 0
+    const double inv_m = 1 / m;
+    double a = 1, b = std::sqrt(mc), w = 0.5, sum = 0.5;  // w = 2^(n-1)
     for (int n = 0; n < 60; ++n) {
+        const double c = 0.5 * (a - b);  // c_{n+1}
         const double next = 0.5 * (a + b);
         b = std::sqrt(a * b);
         a = next;
-        r = r * r * m / (16 * a * a);  // c_{n+1}^2 = c_n^4 / (16 a_{n+1}^2)
         w *= 2;
-        sum += w * r;
-        if (w * r <= 1e-17 * sum) break;  // the terms fall quadratically: the rest is below 1e-34 of the sum
+        const double term = w * c * c * inv_m;
+        sum += term;
+        if (term <= 1e-17 * sum) break;  // the terms fall quadratically: the rest is below 1e-34 of the sum
     }
     return {pi / (2 * a), pi / (2 * a) * sum};
 }

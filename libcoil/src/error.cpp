@@ -48,21 +48,13 @@ namespace detail {
 
 }  // namespace detail
 
-double require_at_least(std::string_view field, double value, double minimum, std::string_view why) {
-    require_finite(field, value);
-    if (value < minimum) {
-        throw InputError(std::string(field),
-                         format_value(value) + " is below " + format_value(minimum) + ": " + std::string(why));
-    }
-    return value;
+void detail::throw_below(std::string_view field, double value, double minimum, std::string_view why) {
+    throw InputError(std::string(field), format_value(value) + " is below " + format_value(minimum) + ": " + std::string(why));
 }
 
-double finite_result(std::string_view model, double value) {
-    if (!std::isfinite(value)) {
-        throw DomainError(std::string(model) + ": the inputs are outside the range this model can evaluate in "
-                          "double precision (result " + format_value(value) + ")");
-    }
-    return value;
+void detail::throw_not_finite_result(std::string_view model, double value) {
+    throw DomainError(std::string(model) + ": the inputs are outside the range this model can evaluate in "
+                      "double precision (result " + format_value(value) + ")");
 }
 
 }  // namespace libcoil

@@ -101,14 +101,15 @@ std::pair<double, double> SheathHelix::dispersion_and_slope(double beta, double 
     return {f, df};
 }
 
-double SheathHelix::wavenumber_for(double beta) const {
+double SheathHelix::slow_wave_estimate(double beta) const {
     require_positive("beta", beta);
-    // The slow-wave estimate (gamma = beta in both regions) makes the dispersion explicit in k:
-    // (k a)^2 = tan^2(psi) x^2 (1/rI + 1/rK) / (e1 rI + e2 rK), x = beta a. Its error is O((v/c)^2).
+    // gamma = beta in both regions makes the dispersion explicit in k:
+    // (k a)^2 = tan^2(psi) x^2 (1/rI + 1/rK) / (e1 rI + e2 rK), x = beta a.
     const double x = beta * a_, ri = ratio_i(x), rk = ratio_k(x);
-    const double guess = std::sqrt(tan2_ * (1 / ri + 1 / rk) / (m_.inner * ri + m_.outer * rk)) * x / a_;
-    return wavenumber_for(beta, guess);
+    return std::sqrt(tan2_ * (1 / ri + 1 / rk) / (m_.inner * ri + m_.outer * rk)) * x / a_;
 }
+
+double SheathHelix::wavenumber_for(double beta) const { return wavenumber_for(beta, slow_wave_estimate(beta)); }
 
 double SheathHelix::full_bracket(double beta) const {
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
@@ -123,13 +124,15 @@ double SheathHelix::full_bracket(double beta) const {
     return finite_result("sheath helix", root_between(g, lo, k_max, g_lo, g_hi));
 }
 
-double SheathHelix::wavenumber_for(double beta, double guess) const {
+double SheathHelix::wavenumber_for(double beta, double guess, double tolerance) const {
     require_positive("beta", beta);
+    if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) throw InputError("tolerance", format_value(tolerance) + "; expected 1e-15 .. 1e-3");
+    const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
     if (guess > 0 && guess < k_max) {
         // Newton's steps from the guess, kept in the bracket (the dispersion falls through the root).
         const auto k = detail::monotone_root_newton([&](double x) { return dispersion_and_slope(beta, x); }, false,
-                                                    guess, {k_max * 1e-12, k_max}, 44);
+                                                    guess, {k_max * 1e-12, k_max}, bits);
         if (k) return finite_result("sheath helix", *k);
     }
     return full_bracket(beta);

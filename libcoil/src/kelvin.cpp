@@ -33,12 +33,12 @@ ScaledBesselPair series(double x) {
     return {cd(sum0) * scale, cd(0.0, x / 2) * cd(sum1) * scale};
 }
 
-// Hankel's expansion of J_nu(z), nu = 0 or 1, multiplied by e^(-Im z).
-cd hankel_scaled(int nu, cd z) {
+// Hankel's P and Q series for J_nu, nu = 0 or 1 (A&S 9.2.9, 9.2.10), each summed to its smallest term.
+void hankel_pq(int nu, cd inv_z, cd& p, cd& q) {
     const double mu = 4.0 * nu * nu;
-    cd p = 0, q = 0;
+    p = 0;
+    q = 0;
     cd term = 1.0;  // a_k(nu) / z^k
-    const cd inv_z = 1.0 / z;
     double last = INFINITY;  // |term|^2 (squared moduli: no hypot in the loop)
     for (int k = 0; k < 200; ++k) {
         const double mag2 = std::norm(term);
@@ -51,13 +51,28 @@ cd hankel_scaled(int nu, cd z) {
         const double j = 2.0 * (k + 1) - 1.0;
         term *= (mu - j * j) / (8.0 * (k + 1)) * inv_z;
     }
-    const cd chi = z - (nu / 2.0 + 0.25) * std::numbers::pi;
-    // cos and sin of chi times e^(-Im chi), without overflow (Im chi = Im z > 0 here), from
-    // e^(i chi - Im chi) = e^(-2 Im chi) e^(i Re chi) (the small one) and e^(-i chi - Im chi) = e^(-i Re chi).
-    const double c = std::cos(chi.real()), s = std::sin(chi.real()), small = std::exp(-2 * chi.imag());
-    const cd up(small * c, small * s), down(c, -s);
-    const cd cos_s = (up + down) * 0.5, sin_s = (up - down) * cd(0, -0.5);  // (up - down) / 2i
-    return std::sqrt(2.0 / (std::numbers::pi * z)) * (p * cos_s - q * sin_s);
+}
+
+// Hankel's expansion (A&S 9.2.5) of J0(z) and J1(z), both multiplied by e^(-Im z), Im z > 0:
+//   J_nu = sqrt(2 / (pi z)) (P cos chi - Q sin chi),  chi = z - (nu / 2 + 1/4) pi.
+// cos and sin of chi times e^(-Im chi) come without overflow from e^(i chi - Im chi) = e^(-2 Im z) e^(i Re chi)
+// and e^(-i chi - Im chi) = e^(-i Re chi); chi for nu = 1 is chi for nu = 0 less pi/2.
+void hankel_scaled_pair(cd z, cd& j0, cd& j1) {
+    const cd inv_z = 1.0 / z, scale = std::sqrt(2.0 / (std::numbers::pi * z));
+    const double theta = z.real() - 0.25 * std::numbers::pi, c = std::cos(theta), s = std::sin(theta);
+    const double small = std::exp(-2 * z.imag());
+    const auto cos_sin = [&](double cr, double sr, cd& cos_s, cd& sin_s) {
+        const cd up(small * cr, small * sr), down(cr, -sr);
+        cos_s = (up + down) * 0.5;
+        sin_s = (up - down) * cd(0, -0.5);  // (up - down) / 2i
+    };
+    cd p, q, cos_s, sin_s;
+    hankel_pq(0, inv_z, p, q);
+    cos_sin(c, s, cos_s, sin_s);
+    j0 = scale * (p * cos_s - q * sin_s);
+    hankel_pq(1, inv_z, p, q);
+    cos_sin(s, -c, cos_s, sin_s);  // cos(theta - pi/2) = sin theta, sin(theta - pi/2) = -cos theta
+    j1 = scale * (p * cos_s - q * sin_s);
 }
 
 }  // namespace
@@ -65,8 +80,9 @@ cd hankel_scaled(int nu, cd z) {
 ScaledBesselPair scaled_kelvin_bessel(double x) {
     require_non_negative("x", x);
     if (x <= series_limit) return series(x);
-    const cd z = x * rotation;  // Im z = x / sqrt 2
-    return {hankel_scaled(0, z), -rotation * hankel_scaled(1, z)};
+    cd j0, j1;
+    hankel_scaled_pair(x * rotation, j0, j1);  // Im z = x / sqrt 2
+    return {j0, -rotation * j1};
 }
 
 KelvinValues kelvin(double x) {

@@ -61,7 +61,7 @@ double resonance_waves(Mounting m) { return m == Mounting::floating ? 2.0 : 4.0;
 }  // namespace
 
 HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDielectric& former,
-                                            const Surroundings& surroundings) {
+                                            const Surroundings& surroundings, double tolerance) {
     const double eps_out = check_media(former, surroundings);
     const double beta = 2 * pi / (resonance_waves(surroundings.mounting) * s.winding_length());
     const double a = s.mean_radius(), psi = s.pitch_angle();
@@ -70,7 +70,8 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
     const double rise = former.wall > 0 ? (former.relative_permittivity - eps_out) * former.fill : 0.0;
     double k = 0;
     if (rise == 0) {
-        k = SheathHelix(a, psi, r.medium).wavenumber_for(beta);
+        const SheathHelix helix(a, psi, r.medium);
+        k = helix.wavenumber_for(beta, helix.slow_wave_estimate(beta), tolerance);
     } else {
         // The former shell enters the inner permittivity by its share of the mode's inner field energy,
         // which itself depends on the mode: the fixed point e = T(e). T is a weak contraction; secant
@@ -79,21 +80,23 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
         const auto share = [&](double gamma) { return sheath_inner_energy_share(a, shell_in, form_radius, gamma, beta); };
         const auto excess = [&](double e) {  // T(e) - e, leaving the mode's k behind
             const SheathHelix helix(a, psi, {e, eps_out});
-            k = k > 0 ? helix.wavenumber_for(beta, k) : helix.wavenumber_for(beta);
+            k = helix.wavenumber_for(beta, k > 0 ? k : helix.slow_wave_estimate(beta), tolerance);
             return eps_out + rise * share(std::sqrt(beta * beta - e * k * k)) - e;
         };
         // Start from the slow-wave share (gamma = beta), which the mode's share differs from by O((v/c)^2).
         double e0 = eps_out + rise * share(beta), g0 = excess(e0);
+        double e = e0;  // where k was last solved
         double e1 = e0 + g0;
-        for (int i = 0; i < 50; ++i) {
+        for (int i = 0; i < 50 && std::fabs(g0) > tolerance * e0 && e1 != e0; ++i) {
             const double g1 = excess(e1);
-            if (std::fabs(g1) <= 1e-12 * e1 || g1 == g0) break;
+            e = e1;
+            if (std::fabs(g1) <= tolerance * e1 || g1 == g0) break;
             const double e2 = e1 - g1 * (e1 - e0) / (g1 - g0);
             e0 = e1;
             g0 = g1;
             e1 = std::isfinite(e2) ? e2 : e1 + g1;
         }
-        r.medium.inner = e1;
+        r.medium.inner = e;
     }
     r.frequency = finite_result("helical line", speed_of_light * k / (2 * pi));
     r.phase_velocity = speed_of_light * k / beta;
@@ -117,7 +120,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     HelixMedium medium{eps_out, eps_out};
     std::string line_failure;
     try {
-        const HelicalLineResonance h = helical_line_resonance(s, former, surroundings);
+        const HelicalLineResonance h = helical_line_resonance(s, former, surroundings, cross_checks ? 1e-12 : 1e-9);
         medium = h.medium;
         r.phase_velocity = h.phase_velocity;
         r.helical_line.available = true;

@@ -87,8 +87,9 @@ double radiated_power(const ThermalSurface& s, double surface, double ambient) {
 }
 
 ThermalResult winding_temperature(const std::function<double(double)>& power, const ThermalSurface& surface,
-                                  double ambient, double max_temperature) {
+                                  double ambient, double max_temperature, double tolerance) {
     require_positive("ambient", ambient);
+    if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) throw InputError("tolerance", format_value(tolerance) + "; expected 1e-15 .. 1e-3");
     ThermalResult r;
     // The balance P(T) - convected - radiated, keeping the terms of the last point evaluated.
     const auto balance = [&](double t) {
@@ -124,7 +125,8 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
         return std::pair{f, s};
     };
     const double guess = ambient + p0 / (12.0 * area);
-    const auto t = detail::bracketed_steps(step, false, guess, {ambient, hi, p0, std::nullopt}, 36, 1e-4);
+    const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
+    const auto t = detail::bracketed_steps(step, false, guess, {ambient, hi, p0, std::nullopt}, bits, 1e-4);
     if (!t) {
         throw DomainError("the winding would pass " + format_value(hi - zero_celsius) +
                           " degC in still air: far beyond any enamel or former");

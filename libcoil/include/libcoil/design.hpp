@@ -57,7 +57,8 @@ struct DesignFigures {
 
 struct Rejection {
     std::string reason;   // "outer_diameter", "length", ...
-    double excess = 0;    // how far over its limit, as a ratio (1.05: 5 % over)
+    double excess = 0;    // how far over its limit, as a ratio (1.05: 5 % over); thermal: the power over
+                          // what the winding sheds at its limit temperature
     std::string detail;   // the candidate and the figure, in words
 };
 

@@ -41,6 +41,8 @@ namespace detail {
 [[noreturn]] void throw_not_finite(std::string_view field, double value);
 [[noreturn]] void throw_not_positive(std::string_view field, double value);
 [[noreturn]] void throw_negative(std::string_view field, double value);
+[[noreturn]] void throw_below(std::string_view field, double value, double minimum, std::string_view why);
+[[noreturn]] void throw_not_finite_result(std::string_view model, double value);
 }  // namespace detail
 
 // Validation helpers used by every public entry point. They throw InputError naming `field`. The checks
@@ -57,9 +59,16 @@ inline double require_non_negative(std::string_view field, double value) {  // f
     if (!(value >= 0 && std::isfinite(value))) detail::throw_negative(field, value);
     return value;
 }
-double require_at_least(std::string_view field, double value, double minimum, std::string_view why);
+inline double require_at_least(std::string_view field, double value, double minimum, std::string_view why) {
+    require_finite(field, value);
+    if (value < minimum) detail::throw_below(field, value, minimum, why);
+    return value;
+}
 // A model's result must be finite: inputs that are each valid can still overflow (a 1e200 m coil).
 // Throws DomainError naming the model when it is not.
-double finite_result(std::string_view model, double value);
+inline double finite_result(std::string_view model, double value) {
+    if (!std::isfinite(value)) detail::throw_not_finite_result(model, value);
+    return value;
+}
 
 }  // namespace libcoil

@@ -43,8 +43,13 @@ public:
     // Free-space wavenumber k (rad/m) at which the slow wave has axial wavenumber beta (rad/m).
     // Throws DomainError when no slow wave exists there.
     double wavenumber_for(double beta) const;
-    // The same, starting from a nearby solution `guess` (a warm start; falls back to the full bracket).
-    double wavenumber_for(double beta, double guess) const;
+    // The same, starting from a nearby solution `guess` (a warm start; falls back to the full bracket),
+    // to a relative `tolerance` (the default is the one wavenumber_for(beta) uses).
+    double wavenumber_for(double beta, double guess, double tolerance = default_tolerance) const;
+
+    static constexpr double default_tolerance = 5.7e-14;  // 2^-44
+    // The explicit estimate of k for beta with gamma = beta in both regions; its error is O((v/c)^2).
+    double slow_wave_estimate(double beta) const;
     // Axial wavenumber beta of the slow wave at free-space wavenumber k.
     double axial_wavenumber(double k) const;
     // Phase velocity omega / beta (m/s) of the wave with axial wavenumber beta.

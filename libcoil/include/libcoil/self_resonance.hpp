@@ -80,12 +80,14 @@ struct HelicalLineResonance {
     double phase_velocity = 0;  // m/s, axial
     HelixMedium medium;         // the effective permittivities found
 };
+// `tolerance`: relative, on the wavenumber and on the former's fixed point.
 HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDielectric& former = {},
-                                            const Surroundings& surroundings = {});
+                                            const Surroundings& surroundings = {}, double tolerance = 1e-12);
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
 // `cross_checks` false is the fast path for searches, which need only the recommended SRF: it leaves out
-// Kandoian & Sichak, and Medhurst except as the fallback, and writes no notes.
+// Kandoian & Sichak, and Medhurst except as the fallback, writes no notes, and solves to 1e-9 rather
+// than 1e-12 (a search's decisions do not move at that level; its winners are re-analysed in full).
 SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
                              const Surroundings& surroundings = {}, bool cross_checks = true);
 

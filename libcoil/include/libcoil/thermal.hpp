@@ -62,9 +62,11 @@ struct ThermalResult {
 double convected_power(const ThermalSurface& s, double surface, double ambient, double* rayleigh = nullptr);
 double radiated_power(const ThermalSurface& s, double surface, double ambient);
 
-// Steady state for a loss `power(T)` (W, at wire temperature T). Throws DomainError when no balance
-// exists below `max_temperature` (the winding would run away).
+inline constexpr double default_max_temperature = 773.15;  // K (500 degC): beyond any enamel or former
+
+// Steady state for a loss `power(T)` (W, at wire temperature T), to a relative `tolerance` on T.
+// Throws DomainError when no balance exists below `max_temperature` (the winding would run away).
 ThermalResult winding_temperature(const std::function<double(double)>& power, const ThermalSurface& surface,
-                                  double ambient, double max_temperature = 773.15);
+                                  double ambient, double max_temperature = default_max_temperature, double tolerance = 3e-11);
 
 }  // namespace libcoil
