@@ -119,8 +119,8 @@ private:
 // One thread's share of the search: its Pareto archive, counts and closest miss.
 struct Tally {
     Archive front;
-    std::map<std::string, std::size_t> rejected;
-    std::optional<Rejection> closest;
+    std::map<std::string, std::size_t> rejected = {};
+    std::optional<Rejection> closest = std::nullopt;
     std::size_t feasible = 0;
 
     // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).

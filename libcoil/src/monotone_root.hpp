@@ -21,7 +21,7 @@ namespace libcoil::detail {
 
 struct MonotoneBracket {
     double lo, hi;                      // the search interval, lo < hi
-    std::optional<double> f_lo, f_hi;   // f at the ends, where the caller knows it already
+    std::optional<double> f_lo = std::nullopt, f_hi = std::nullopt;  // f at the ends, where the caller knows it
 };
 
 // `eval(x)` returns {f(x), step}: a Newton step f/f' (exact with `newton`, else an estimate), or NaN to take

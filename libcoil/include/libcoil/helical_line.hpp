@@ -18,7 +18,8 @@
 //          quoted from memory.
 // Domain:  slow waves (beta > k sqrt(max(e1, e2))) on a helix of many turns per wavelength; the wire's
 //          own size, the turn-to-turn capacitance and radiation are outside the model.
-// Accuracy: the dispersion is solved to 1e-12 relative; an independent scipy implementation agrees to
+// Accuracy: the dispersion is solved to 1e-13 relative by default (Newton's steps with the exact slope
+//          from the slow-wave estimate, TOMS 748 as the fallback); an independent scipy implementation agrees to
 //          1e-9 (tests/python/test_self_resonance.py). Limits: e1 = e2 = e scales every frequency by
 //          1/sqrt(e) exactly; for large beta a the wave runs along the wire at c; for small beta a it
 //          follows tan(psi) sqrt(2 (ln(2 / (beta a)) - gamma_E)) (tests/cpp/test_self_capacitance.cpp).

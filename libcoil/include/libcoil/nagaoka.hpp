@@ -2,8 +2,8 @@
 //
 // Method:  L = mu0 * pi * r^2 * N^2 / l * K(D/l), with k^2 = D^2 / (D^2 + l^2), k'^2 = 1 - k^2 and
 //          K = 4 / (3 pi k') * [ (k'^2 / k^2) (K(k) - E(k)) + E(k) - k ].
-//          K(k) - E(k) is taken as (k^2 / 3) R_D(0, k'^2, 1) (Carlson), which keeps every digit for long
-//          coils. For short coils (k'^2 < 0.1) the bracket cancels to O(k'^2 ln k'), so there the
+//          K(k) and (K(k) - E(k)) / k^2 come together from the arithmetic-geometric mean (DLMF 19.8.1,
+//          19.8.6; a sum of positive terms), which keeps every digit for long coils. For short coils (k'^2 < 0.1) the bracket cancels to O(k'^2 ln k'), so there the
 //          logarithmic series of K and E about k = 1 (Abramowitz & Stegun 17.3.26 and 17.3.36) is summed
 //          with the leading terms cancelled analytically.
 // Source:  H. Nagaoka, J. Coll. Sci. Tokyo 27 (1909) art. 6; F. W. Grover, "Inductance Calculations" (1946).

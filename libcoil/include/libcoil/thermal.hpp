@@ -5,7 +5,8 @@
 //          vertical plate of the coil's length) and by grey-body radiation to surroundings at ambient,
 //          q = eps sigma A (Ts^4 - Ta^4). Air properties at the film temperature (Ts + Ta) / 2,
 //          beta = 1 / T_film. The loss P(T) grows with the wire temperature (R(T)); the balance
-//          P(T) = q_conv(T) + q_rad(T) is solved for T with TOMS 748. The winding is taken at one
+//          P(T) = q_conv(T) + q_rad(T) is solved for T by secant steps in a bracket (TOMS 748 as the
+//          fallback; monotone_root.hpp). The winding is taken at one
 //          temperature (its surface); the inner surface, the former's own conduction and the ends are
 //          left out, which errs towards a hotter estimate.
 // Source:  S. W. Churchill and H. H. S. Chu, Int. J. Heat Mass Transfer 18 (1975) 1049 (horizontal
@@ -13,7 +14,7 @@
 //          D. P. DeWitt, "Fundamentals of Heat and Mass Transfer", Table A.4, quoted from memory.
 // Domain:  still air, no enclosure, 1e-5 <= Ra <= 1e12, 250 K <= film temperature <= 600 K. It is an
 //          estimate for a first check, not a rating.
-// Accuracy: the balance is solved to 1.5e-11 in T (36 bits), 1e-9 in power (tested). Churchill & Chu against Morgan's
+// Accuracy: the balance is solved to 3e-11 in T by default, 1e-9 in power (tested). Churchill & Chu against Morgan's
 //          correlation (Nu = 0.48 Ra^0.25, 1e4 <= Ra <= 1e7): -9.1 % .. +4.5 %; the vertical form against
 //          0.59 Ra^0.25 (1e5 .. 1e8): -12.4 % .. +3.3 % (tests/cpp/test_thermal.cpp). Such correlations
 //          are good to 10-20 % for real coils, whose surface is neither smooth nor isothermal.
