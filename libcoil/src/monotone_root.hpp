@@ -26,7 +26,8 @@ struct MonotoneBracket {
 
 // `eval(x)` returns {f(x), step}: a Newton step f/f' (exact with `newton`, else an estimate), or NaN to take
 // a secant step. A secant iteration stops at the last point it evaluated once the next step is below the
-// tolerance (the root then lies within that step of it). A Newton iteration stops after a step below
+// tolerance (the root then lies within that step of it), or at the next point once the product of the
+// last two steps says that point is within it. A Newton iteration stops after a step below
 // sqrt(tol) / 10: its error is then of the order of the step squared, far below the tolerance.
 template <class Eval>
 std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits,
@@ -70,6 +71,9 @@ std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double 
         if (x2 >= below && x2 <= above) {
             if (newton && std::fabs(s1) <= newton_done * std::fabs(x1)) return x2;
             if (!newton && std::fabs(x2 - x1) <= tol * std::fabs(x2)) return x1;
+            // Secant steps converge as e2 ~ C e1 e0 with e1 ~ |x2 - x1| and e0 ~ |x2 - x0|: with C |x| up
+            // to 10, x2 is then within the tolerance without another evaluation.
+            if (!newton && std::fabs(x2 - x1) * std::fabs(x2 - x0) <= 0.1 * tol * x2 * x2) return x2;
         }
         if (!(x2 > below && x2 < above)) break;  // outside the bracket: finish by bracketing
         x0 = x1;
