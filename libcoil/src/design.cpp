@@ -304,9 +304,9 @@ public:
             });
             return;
         }
-        // The balance lies in [ambient, limit]; to 1e-9 (as the search's self-resonance): the winners are
-        // re-analysed in full.
-        const auto th = winding_temperature(power, surface, q_.ambient, limit_, 1e-9);
+        // The balance lies in [ambient, limit]; solved to search_tolerance (self_resonance.hpp), as the
+        // search's self-resonance.
+        const auto th = winding_temperature(power, surface, q_.ambient, limit_, search_tolerance);
         d.temperature = th.temperature;
         d.rise = th.rise;
         d.near_thermal_limit = d.temperature > limit_ - near_limit;

@@ -120,7 +120,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     HelixMedium medium{eps_out, eps_out};
     std::string line_failure;
     try {
-        const HelicalLineResonance h = helical_line_resonance(s, former, surroundings, cross_checks ? 1e-12 : 1e-9);
+        const HelicalLineResonance h = helical_line_resonance(s, former, surroundings, cross_checks ? 1e-12 : search_tolerance);
         medium = h.medium;
         r.phase_velocity = h.phase_velocity;
         r.helical_line.available = true;

@@ -85,9 +85,12 @@ HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDi
                                             const Surroundings& surroundings = {}, double tolerance = 1e-12);
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
+// What the fast paths for searches solve to (relative): a search's figures are shown to four digits and
+// its decisions do not move at this level; its winners are re-analysed in full, to 1e-12.
+inline constexpr double search_tolerance = 1e-7;
+
 // `cross_checks` false is the fast path for searches, which need only the recommended SRF: it leaves out
-// Kandoian & Sichak, and Medhurst except as the fallback, writes no notes, and solves to 1e-9 rather
-// than 1e-12 (a search's decisions do not move at that level; its winners are re-analysed in full).
+// Kandoian & Sichak, and Medhurst except as the fallback, writes no notes, and solves to search_tolerance.
 SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
                              const Surroundings& surroundings = {}, bool cross_checks = true);
 
