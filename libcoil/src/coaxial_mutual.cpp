@@ -36,7 +36,7 @@ double coaxial_mutual_inductance(double a, double b, double z) {
         }
         bracket = pi / 2 * k * m * sum;
     } else {
-        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(mc, m);
+        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(std::sqrt(mc), m);
         bracket = k * (2.0 * kme_m - K);
     }
     return finite_result("Maxwell's formula", mu0 * std::sqrt(a * b) * bracket);

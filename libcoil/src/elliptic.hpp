@@ -25,7 +25,7 @@ inline double elliptic_k_minus_e_over_m(double mc) {
 }
 
 // K(k) and (K(k) - E(k)) / k^2 together by the arithmetic-geometric mean (DLMF 19.8.1 and 19.8.6), for a
-// caller that knows both m' = k'^2 and m = k^2 without cancellation:
+// caller that knows both k' and m = k^2 without cancellation:
 //   K = pi / (2 M(1, k')),  K - E = K sum_{n>=0} 2^(n-1) c_n^2,  c_0 = k,  c_{n+1} = (a_n - b_n) / 2.
 // The sum is of positive terms, carried as c_n^2 / m so that nothing underflows at tiny k. a_n - b_n
 // cancels only where c_n is already small beside c_0, so the sum keeps its digits (1 ulp or so). It
@@ -33,10 +33,11 @@ inline double elliptic_k_minus_e_over_m(double mc) {
 struct EllipticPair {
     double k, k_minus_e_over_m;
 };
-inline EllipticPair elliptic_k_and_k_minus_e_over_m(double mc, double m) {
+// `kc` is k' = sqrt(m'), which callers often have at hand.
+inline EllipticPair elliptic_k_and_k_minus_e_over_m(double kc, double m) {
     if (!(m > 0)) return {pi / 2, pi / 4};  // k = 0
     const double inv_m = 1 / m;
-    double a = 1, b = std::sqrt(mc), w = 0.5, sum = 0.5;  // w = 2^(n-1)
+    double a = 1, b = kc, w = 0.5, sum = 0.5;  // w = 2^(n-1)
     for (int n = 0; n < 60; ++n) {
         const double c = 0.5 * (a - b);  // c_{n+1}
         const double next = 0.5 * (a + b);

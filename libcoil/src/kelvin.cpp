@@ -11,7 +11,8 @@ namespace {
 
 using cd = std::complex<double>;
 constexpr double series_limit = 26.0;
-const cd rotation = std::polar(1.0, 3 * std::numbers::pi / 4);  // e^(3 pi i / 4)
+const cd rotation = std::polar(1.0, 3 * std::numbers::pi / 4);     // e^(3 pi i / 4)
+const cd root_phase = std::polar(1.0, -3 * std::numbers::pi / 8);  // e^(-3 pi i / 8)
 
 // J0, J1 at z = x e^(3 pi i/4) by the power series; -z^2/4 = i x^2/4. Summed in long double: the terms
 // reach e^(0.29 x) times the result (2000 at the switch), which the 64-bit mantissa absorbs.
@@ -53,12 +54,14 @@ void hankel_pq(int nu, cd inv_z, cd& p, cd& q) {
     }
 }
 
-// Hankel's expansion (A&S 9.2.5) of J0(z) and J1(z), both multiplied by e^(-Im z), Im z > 0:
-//   J_nu = sqrt(2 / (pi z)) (P cos chi - Q sin chi),  chi = z - (nu / 2 + 1/4) pi.
-// cos and sin of chi times e^(-Im chi) come without overflow from e^(i chi - Im chi) = e^(-2 Im z) e^(i Re chi)
-// and e^(-i chi - Im chi) = e^(-i Re chi); chi for nu = 1 is chi for nu = 0 less pi/2.
-void hankel_scaled_pair(cd z, cd& j0, cd& j1) {
-    const cd inv_z = 1.0 / z, scale = std::sqrt(2.0 / (std::numbers::pi * z));
+// Hankel's expansion (A&S 9.2.5) of J0(z) and J1(z) at z = x e^(3 pi i / 4), both multiplied by e^(-Im z):
+//   J_nu = sqrt(2 / (pi z)) (P cos chi - Q sin chi),  chi = z - (nu / 2 + 1/4) pi,
+// with sqrt(2 / (pi z)) = sqrt(2 / (pi x)) e^(-3 pi i / 8) (the principal root). cos and sin of chi times
+// e^(-Im chi) come without overflow from e^(i chi - Im chi) = e^(-2 Im z) e^(i Re chi) and
+// e^(-i chi - Im chi) = e^(-i Re chi); chi for nu = 1 is chi for nu = 0 less pi/2.
+void hankel_scaled_pair(double x, cd& j0, cd& j1) {
+    const cd z = x * rotation, inv_z = std::conj(rotation) / x;
+    const cd scale = std::sqrt(2.0 / (std::numbers::pi * x)) * root_phase;
     const double theta = z.real() - 0.25 * std::numbers::pi, c = std::cos(theta), s = std::sin(theta);
     const double small = std::exp(-2 * z.imag());
     const auto cos_sin = [&](double cr, double sr, cd& cos_s, cd& sin_s) {
@@ -81,7 +84,7 @@ ScaledBesselPair scaled_kelvin_bessel(double x) {
     require_non_negative("x", x);
     if (x <= series_limit) return series(x);
     cd j0, j1;
-    hankel_scaled_pair(x * rotation, j0, j1);  // Im z = x / sqrt 2
+    hankel_scaled_pair(x, j0, j1);
     return {j0, -rotation * j1};
 }
 

@@ -53,7 +53,7 @@ double nagaoka_coefficient(double rho) {
         bracket = short_coil_bracket(q);
     } else {
         const double k = rho * kc;  // sqrt(1 - q)
-        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(q, rho * rho * q);  // k^2 = rho^2 q
+        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);  // k^2 = rho^2 q
         bracket = q * kme_m + (K - rho * rho * q * kme_m) - k;
     }
     return 4.0 / (3.0 * pi * kc) * bracket;

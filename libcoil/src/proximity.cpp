@@ -23,14 +23,13 @@ using cd = std::complex<double>;
 //   H_z = 1 / (2 pi sqrt(4 b^2 + z^2)) [K - E],
 //   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2).
 void ring_field(double b, double z, double& hz, double& hr) {
-    const double s = 4 * b * b + z * z;
-    const double m = 4 * b * b / s;  // k^2; k'^2 = z^2 / s
-    const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(z * z / s, m);
+    const double s = 4 * b * b + z * z, inv_root = 1 / std::sqrt(s);
+    const double m = 4 * b * b / s;  // k^2; k' = z / sqrt(s)
+    const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(z * inv_root, m);
     const double kme = m * kme_m;  // K - E
     const double E = K - kme;
-    const double root = std::sqrt(s);
-    hz = kme / (2 * pi * root);
-    hr = z / (2 * pi * b * root) * (-K + (2 * b * b + z * z) / (z * z) * E);
+    hz = kme * inv_root / (2 * pi);
+    hr = z * inv_root / (2 * pi * b) * (-K + (2 * b * b + z * z) / (z * z) * E);
 }
 
 constexpr double own_field_constant = 1.75;
