@@ -68,37 +68,39 @@ double corner_distance(const DesignFigures& d, const Box& b, double ceiling) {
     return x * x + y * y + z * z;
 }
 
-// The boxes and their designs side by side: the dominance scan reads only the small boxes.
+// The boxes, one array per figure, and their designs beside them: the dominance scan reads only the
+// small integer arrays, in blocks the compiler vectorises.
 class Archive {
 public:
     explicit Archive(double ceiling = 0) : ceiling_(ceiling) {}
 
-    // One pass: a box at or below the design's keeps it out; the boxes it dominates go. (Both cannot
-    // happen in one pass: the archive holds no box that dominates another.)
     void add(const DesignFigures& d) {
         const Box b = box_of(d, ceiling_);
-        for (std::size_t i = 0; i < boxes_.size();) {
-            if (boxes_[i].at_or_below(b)) {
-                if (boxes_[i] == b) {  // one design per box: the dominating one, else the nearer to the corner
-                    DesignFigures& f = designs_[i];
-                    if (dominates(f, d, ceiling_)) return;
-                    if (dominates(d, f, ceiling_) || corner_distance(d, b, ceiling_) < corner_distance(f, b, ceiling_)) f = d;
-                    return;
-                }
-                // Dominated. Neighbouring candidates tend to fall to the same box: move it forward, so that
-                // the next scan usually stops early. The archive's content does not depend on its order.
-                if (i > 0) swap(i, i / 2);
+        if (const std::size_t i = first_at_or_below(b); i < designs_.size()) {
+            if (box(i) == b) {  // one design per box: the dominating one, else the nearer to the corner
+                DesignFigures& f = designs_[i];
+                if (dominates(f, d, ceiling_)) return;
+                if (dominates(d, f, ceiling_) || corner_distance(d, b, ceiling_) < corner_distance(f, b, ceiling_)) f = d;
                 return;
             }
-            if (b.at_or_below(boxes_[i])) {  // dominated by the new box (not equal: see above)
-                swap(i, boxes_.size() - 1);
-                boxes_.pop_back();
-                designs_.pop_back();
-                continue;
-            }
-            ++i;
+            // Dominated. Neighbouring candidates tend to fall to the same box: move it forward, so that
+            // the next scan usually stops early. The archive's content does not depend on its order.
+            if (i > 0) swap(i, i / 2);
+            return;
         }
-        boxes_.push_back(b);
+        // A new box: it drops the boxes it dominates (none equals it, or the scan would have found it).
+        for (std::size_t i = designs_.size(); i-- > 0;) {
+            if (b.at_or_below(box(i))) {
+                swap(i, designs_.size() - 1);
+                loss_.pop_back();
+                size_.pop_back();
+                srf_.pop_back();
+                designs_.pop_back();
+            }
+        }
+        loss_.push_back(b.loss);
+        size_.push_back(b.size);
+        srf_.push_back(b.srf);
         designs_.push_back(d);
     }
 
@@ -106,13 +108,33 @@ public:
     std::vector<DesignFigures> take() { return std::move(designs_); }
 
 private:
+    Box box(std::size_t i) const { return {loss_[i], size_[i], srf_[i]}; }
+
+    // The first box at or below b in every figure, or size() if none.
+    std::size_t first_at_or_below(const Box& b) const {
+        constexpr std::size_t block = 8;
+        const std::size_t n = designs_.size();
+        for (std::size_t start = 0; start < n; start += block) {
+            const std::size_t end = std::min(n, start + block);
+            int any = 0;  // no branch inside the block
+            for (std::size_t i = start; i < end; ++i) any |= (loss_[i] <= b.loss) & (size_[i] <= b.size) & (srf_[i] <= b.srf);
+            if (!any) continue;
+            for (std::size_t i = start; i < end; ++i) {
+                if (box(i).at_or_below(b)) return i;
+            }
+        }
+        return n;
+    }
+
     void swap(std::size_t i, std::size_t j) {
-        std::swap(boxes_[i], boxes_[j]);
+        std::swap(loss_[i], loss_[j]);
+        std::swap(size_[i], size_[j]);
+        std::swap(srf_[i], srf_[j]);
         std::swap(designs_[i], designs_[j]);
     }
 
     double ceiling_;
-    std::vector<Box> boxes_;
+    std::vector<int> loss_, size_, srf_;
     std::vector<DesignFigures> designs_;
 };
 
