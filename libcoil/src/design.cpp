@@ -175,6 +175,12 @@ private:
 class Evaluator {
 public:
     explicit Evaluator(const Requirement& q) : q_(q) {
+        // The wires without their labels: every coil built in the search copies its wire, and a long
+        // label would cost an allocation each time. Text about a candidate takes the label from q.
+        for (const WireOption& wo : q.wires) {
+            unlabelled_.push_back(wo.wire);
+            unlabelled_.back().label.clear();
+        }
         ceiling_ = q.band ? q.band->ceiling : 0;
         reference_ = q.band ? q.band->ceiling : q.current_frequency.value_or(0);
         limit_ = q.enamel_class;
@@ -277,7 +283,7 @@ public:
             return;
         }
 
-        const Solenoid s(Solenoid::Params{mean, n, p, w, q_.lead_length});
+        const Solenoid s(Solenoid::Params{mean, n, p, unlabelled_[c.wire], q_.lead_length});
         DesignFigures d;
         d.wire_index = c.wire;
         d.form_diameter = c.form_diameter;
@@ -401,6 +407,7 @@ private:
     }
 
     const Requirement& q_;
+    std::vector<Wire> unlabelled_;
     double ceiling_ = 0, reference_ = 0, limit_ = 0;
 };
 
