@@ -1,6 +1,7 @@
 #include "libcoil/design.hpp"
 
 #include <algorithm>
+#include <array>
 #include <atomic>
 #include <chrono>
 #include <cmath>
@@ -138,18 +139,40 @@ private:
     std::vector<DesignFigures> designs_;
 };
 
+// Why a candidate fails, with the key the report and JSON use and the words of the binding-limit note.
+enum class Reason : std::size_t {
+    outer_diameter, length, wire_length, thermal, srf_margin, max_deviation, min_impedance,
+    inductance_out_of_reach, snapping, model_domain, count
+};
+struct ReasonText {
+    const char *key, *words;
+};
+constexpr std::array<ReasonText, static_cast<std::size_t>(Reason::count)> reason_text{{
+    {"outer_diameter", "the outer diameter limit"},
+    {"length", "the length limit (the target needs more winding than fits)"},
+    {"wire_length", "the wire length limit"},
+    {"thermal", "the thermal limit (enamel class or former service temperature)"},
+    {"srf_margin", "the band's SRF margin"},
+    {"max_deviation", "the band's deviation limit"},
+    {"min_impedance", "the band's minimum impedance"},
+    {"inductance_out_of_reach", "the target inductance (out of reach with these turns)"},
+    {"snapping", "snapping the turns to the step"},
+    {"model_domain", "the models' domain"},
+}};
+
 // One thread's share of the search: its Pareto archive, counts and closest miss.
 struct Tally {
     Archive front;
-    std::map<std::string, std::size_t> rejected = {};
+    std::array<std::size_t, static_cast<std::size_t>(Reason::count)> rejected = {};
     std::optional<Rejection> closest = std::nullopt;
     std::size_t feasible = 0;
 
     // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).
     template <class Detail>
-    void reject(std::string reason, double excess, const Detail& detail) {
-        ++rejected[reason];
-        if (!closest || excess < closest->excess) closest = Rejection{std::move(reason), excess, detail()};
+    void reject(Reason reason, double excess, const Detail& detail) {
+        const auto r = static_cast<std::size_t>(reason);
+        ++rejected[r];
+        if (!closest || excess < closest->excess) closest = Rejection{reason_text[r].key, excess, detail()};
     }
 };
 
@@ -197,12 +220,12 @@ public:
         const auto what = [&] { return w.label + " on " + mm(c.form_diameter) + " at pitch ratio " + detail::fixed(c.ratio, 2); };
         const double outer = mean + d_ins;
         if (outer > q_.max_outer_diameter) {
-            t.reject("outer_diameter", outer / q_.max_outer_diameter, [&] { return what() + ": outer diameter " + mm(outer); });
+            t.reject(Reason::outer_diameter, outer / q_.max_outer_diameter, [&] { return what() + ": outer diameter " + mm(outer); });
             return;
         }
         const double room = q_.max_length - 2 * q_.former_ends - d_ins;  // for N * p
         if (!(room > 0)) {
-            t.reject("length", (2 * q_.former_ends + d_ins) / q_.max_length, [&] { return what() + ": no room for a winding"; });
+            t.reject(Reason::length, (2 * q_.former_ends + d_ins) / q_.max_length, [&] { return what() + ": no room for a winding"; });
             return;
         }
         const double bare = w.bare_diameter;
@@ -224,22 +247,22 @@ public:
                 if (!solve_pitch(n, d_ins, room, L, WheelerGuide(mean / 2, n, p, L(n, p)), p)) {
                     const double l_touch = L(n, d_ins);
                     if (l_touch < target) {
-                        t.reject("inductance_out_of_reach", target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
+                        t.reject(Reason::inductance_out_of_reach, target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
                                  " at most with the fixed turns"; });
                     } else {
-                        t.reject("length", n * d_ins / room, [&] { return what() + ": the fixed turns do not fit the length"; });
+                        t.reject(Reason::length, n * d_ins / room, [&] { return what() + ": the fixed turns do not fit the length"; });
                     }
                     return;
                 }
             } else {
                 const double n_max = room / p;
                 if (n_max < 1) {
-                    t.reject("length", 1 / n_max, [&] { return what() + ": not one turn fits"; });
+                    t.reject(Reason::length, 1 / n_max, [&] { return what() + ": not one turn fits"; });
                     return;
                 }
                 const double l_max = L(n_max, p);
                 if (l_max < target) {
-                    t.reject("length", target / l_max, [&] { return what() + ": " + format_quantity(l_max, Dimension::inductance) +
+                    t.reject(Reason::length, target / l_max, [&] { return what() + ": " + format_quantity(l_max, Dimension::inductance) +
                              " with the longest winding that fits"; });
                     return;
                 }
@@ -252,7 +275,7 @@ public:
                                                           guide.slope_turns(guess, p));
                 if (!solved) {
                     const double l_one = L(1, p);
-                    t.reject("inductance_out_of_reach", l_one / target, [&] { return what() + ": one turn already gives " +
+                    t.reject(Reason::inductance_out_of_reach, l_one / target, [&] { return what() + ": one turn already gives " +
                              format_quantity(l_one, Dimension::inductance); });
                     return;
                 }
@@ -271,15 +294,15 @@ public:
                     }
                 }
                 if (!done) {
-                    t.reject("snapping", 1.0 + step / n_solved, [&] { return what() + ": no pitch meets the target after snapping the turns"; });
+                    t.reject(Reason::snapping, 1.0 + step / n_solved, [&] { return what() + ": no pitch meets the target after snapping the turns"; });
                     return;
                 }
             }
         } catch (const InputError&) {
-            t.reject("model_domain", 10, [&] { return what() + ": outside the geometry the models accept"; });
+            t.reject(Reason::model_domain, 10, [&] { return what() + ": outside the geometry the models accept"; });
             return;
         } catch (const DomainError&) {
-            t.reject("model_domain", 10, [&] { return what() + ": outside every inductance model's domain"; });
+            t.reject(Reason::model_domain, 10, [&] { return what() + ": outside every inductance model's domain"; });
             return;
         }
 
@@ -301,7 +324,7 @@ public:
         d.inductance = at(n, p);
         d.volume = pi / 4 * outer * outer * d.length_with_ends;
         if (q_.max_wire_length && d.wire_length > *q_.max_wire_length) {
-            t.reject("wire_length", d.wire_length / *q_.max_wire_length, [&] { return what() + ": wire " + detail::fixed(d.wire_length, 2) + " m"; });
+            t.reject(Reason::wire_length, d.wire_length / *q_.max_wire_length, [&] { return what() + ": wire " + detail::fixed(d.wire_length, 2) + " m"; });
             return;
         }
 
@@ -321,7 +344,7 @@ public:
         // (one evaluation decides; the excess is that power ratio).
         const double shed = convected_power(surface, limit_, q_.ambient) + radiated_power(surface, limit_, q_.ambient);
         if (const double p_limit = power(limit_); !(p_limit <= shed)) {
-            t.reject("thermal", shed > 0 ? p_limit / shed : 10, [&] {
+            t.reject(Reason::thermal, shed > 0 ? p_limit / shed : 10, [&] {
                 try {
                     const double temp = winding_temperature(power, surface, q_.ambient).temperature;
                     return what() + ": winding at " + format_quantity(temp, Dimension::temperature) + ", limit " +
@@ -346,7 +369,7 @@ public:
             const FormerDielectric fd = q_.former ? q_.former->dielectric(c.form_diameter) : FormerDielectric{};
             sr = self_resonance(s, d.inductance, fd, q_.surroundings, false);
         } catch (const DomainError&) {
-            t.reject("model_domain", 10, [&] { return what() + ": no self-resonance model holds"; });
+            t.reject(Reason::model_domain, 10, [&] { return what() + ": no self-resonance model holds"; });
             return;
         }
         d.self_resonance = sr.frequency;
@@ -356,7 +379,7 @@ public:
             const bool none = !b.srf_margin && !b.max_deviation && !b.min_impedance;
             const double k = b.srf_margin.value_or(none ? default_srf_margin : 0);
             if (k > 0 && sr.frequency < k * b.ceiling) {
-                t.reject("srf_margin", k * b.ceiling / sr.frequency, [&] { return what() + ": SRF " + format_quantity(sr.frequency, Dimension::frequency); });
+                t.reject(Reason::srf_margin, k * b.ceiling / sr.frequency, [&] { return what() + ": SRF " + format_quantity(sr.frequency, Dimension::frequency); });
                 return;
             }
             if (b.max_deviation || b.min_impedance) {
@@ -367,12 +390,12 @@ public:
                     const double mag = pt.magnitude();
                     const double dev = std::fabs(mag / (2 * pi * pt.frequency * d.inductance) - 1);
                     if (b.max_deviation && dev > *b.max_deviation) {
-                        t.reject("max_deviation", dev / *b.max_deviation, [&] { return what() + ": |Z| off wL by " + detail::fixed(dev * 100, 1) +
+                        t.reject(Reason::max_deviation, dev / *b.max_deviation, [&] { return what() + ": |Z| off wL by " + detail::fixed(dev * 100, 1) +
                                  " % at " + format_quantity(pt.frequency, Dimension::frequency); });
                         return;
                     }
                     if (b.min_impedance && mag < *b.min_impedance) {
-                        t.reject("min_impedance", *b.min_impedance / mag, [&] { return what() + ": |Z| " +
+                        t.reject(Reason::min_impedance, *b.min_impedance / mag, [&] { return what() + ": |Z| " +
                                  format_quantity(mag, Dimension::resistance) + " at " + format_quantity(pt.frequency, Dimension::frequency); });
                         return;
                     }
@@ -411,16 +434,10 @@ private:
     double ceiling_ = 0, reference_ = 0, limit_ = 0;
 };
 
-std::string reason_words(const std::string& r) {
-    if (r == "outer_diameter") return "the outer diameter limit";
-    if (r == "length") return "the length limit (the target needs more winding than fits)";
-    if (r == "wire_length") return "the wire length limit";
-    if (r == "thermal") return "the thermal limit (enamel class or former service temperature)";
-    if (r == "srf_margin") return "the band's SRF margin";
-    if (r == "max_deviation") return "the band's deviation limit";
-    if (r == "min_impedance") return "the band's minimum impedance";
-    if (r == "inductance_out_of_reach") return "the target inductance (out of reach with these turns)";
-    if (r == "snapping") return "snapping the turns to the step";
+std::string reason_words(const std::string& key) {
+    for (const auto& t : reason_text) {
+        if (key == t.key) return t.words;
+    }
     return "the models' domain";
 }
 
@@ -497,7 +514,9 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     Archive archive(ev.ceiling());
     for (auto& t : tallies) {
         out.feasible += t.feasible;
-        for (const auto& [r, n] : t.rejected) out.rejected_by_reason[r] += n;
+        for (std::size_t r = 0; r < t.rejected.size(); ++r) {
+            if (t.rejected[r] > 0) out.rejected_by_reason[reason_text[r].key] += t.rejected[r];
+        }
         for (const auto& d : t.front.designs()) archive.add(d);
         if (t.closest && (!out.closest || t.closest->excess < out.closest->excess)) out.closest = t.closest;
     }
