@@ -35,7 +35,8 @@ struct EllipticPair {
 };
 // `kc` is k' = sqrt(m'), which callers often have at hand.
 inline EllipticPair elliptic_k_and_k_minus_e_over_m(double kc, double m) {
-    if (!(m > 0)) return {pi / 2, pi / 4};  // k = 0
+    // Below m = 1e-16 the series' first terms are exact in double (and 1/m could overflow).
+    if (m < 1e-16) return {pi / 2 * (1 + m / 4), pi / 4 * (1 + 3 * m / 8)};
     const double inv_m = 1 / m;
     double a = 1, b = kc, w = 0.5, sum = 0.5;  // w = 2^(n-1)
     for (int n = 0; n < 60; ++n) {

@@ -36,6 +36,11 @@ TEST(Nagaoka, Limits) {
     // Grover 1946 eq. (114)); at D/l = 1e-4 the next term is 1.25e-9.
     const double rho = 1e-4;
     EXPECT_NEAR(nagaoka_coefficient(rho), 1 - 4 * rho / (3 * pi) + rho * rho / 8, 1e-13);
+    // Down to where k^2 = rho^2 / (1 + rho^2) is subnormal (a regression: the elliptic pair once returned
+    // NaN there), and at the switch of its small-k branch (k^2 = 1e-16).
+    for (double tiny : {1e-155, 1e-160, 1e-300, 1e-8, 0.99e-8, 1.01e-8}) {
+        EXPECT_NEAR(nagaoka_coefficient(tiny), 1 - 4 * tiny / (3 * pi), 1e-15) << tiny;
+    }
     // Short coil: K = (2 l / (pi D)) (ln(4 D / l) - 1/2) + O((l/D)^3 ln) (Rayleigh and Niven; Grover 1946).
     const double s = 1e-5;
     EXPECT_NEAR(nagaoka_coefficient(1 / s) / (2 * s / pi * (std::log(4 / s) - 0.5)), 1.0, 1e-9);
