@@ -212,7 +212,21 @@ public:
 
     double ceiling() const { return ceiling_; }
 
+    // A model that still throws for a candidate (a DomainError from a result out of double range, say)
+    // rejects that candidate under the models' domain; it never stops the search or its thread.
     void evaluate(const Candidate& c, Tally& t) const {
+        try {
+            check(c, t);
+        } catch (const std::exception& e) {  // InputError, DomainError
+            const std::string why = e.what();
+            t.reject(Reason::model_domain, 10, [&] {
+                return q_.wires[c.wire].wire.label + " on " + mm(c.form_diameter) + ": " + why;
+            });
+        }
+    }
+
+private:
+    void check(const Candidate& c, Tally& t) const {
         const WireOption& wo = q_.wires[c.wire];
         const Wire& w = wo.wire;
         const double d_ins = w.insulated_diameter();
@@ -357,9 +371,14 @@ public:
         }
         // The balance lies in [ambient, limit]; solved to search_tolerance (self_resonance.hpp), as the
         // search's self-resonance.
-        const auto th = winding_temperature(power, surface, q_.ambient, limit_, search_tolerance);
-        d.temperature = th.temperature;
-        d.rise = th.rise;
+        try {
+            const auto th = winding_temperature(power, surface, q_.ambient, limit_, search_tolerance);
+            d.temperature = th.temperature;
+            d.rise = th.rise;
+        } catch (const DomainError&) {  // only by rounding at the limit itself
+            t.reject(Reason::thermal, 1, [&] { return what() + ": the winding settles at its limit"; });
+            return;
+        }
         d.near_thermal_limit = d.temperature > limit_ - near_limit;
         d.dc_resistance = dc_resistance(q_.conductor, bare, wire_len, d.temperature);
 
@@ -415,7 +434,6 @@ public:
         t.front.add(d);
     }
 
-private:
     // Pitch in [d_ins, room / n] with L(n, p) = target to 1e-10; L falls as p grows. The guide gives the
     // first guess and slope; `p` receives the pitch.
     template <class F>

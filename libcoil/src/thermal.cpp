@@ -170,8 +170,8 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
     const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
     const auto t = detail::bracketed_steps(step, false, guess, {ambient, hi, p0, std::nullopt}, bits, 1e-4);
     if (!t) {
-        throw DomainError("the winding would pass " + format_value(hi - zero_celsius) +
-                          " degC in still air: far beyond any enamel or former");
+        throw DomainError("no thermal balance below " + format_value(hi - zero_celsius) +
+                          " degC: in still air the winding would run hotter than that");
     }
     if (*t != r.temperature) balance(*t);  // the terms at the root, unless it was the last point evaluated
     r.rise = r.temperature - ambient;
