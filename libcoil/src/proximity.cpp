@@ -50,9 +50,10 @@ double proximity_loss_function(double x) {
 
 double detail::proximity_loss_from(const ScaledBesselPair& s, double x) {
     // u = x e^(-i pi/4): J0(u) = ber + i bei (J0 is even), J1(u) = d e^(-3 pi i/4); scaled alike.
-    const cd u = std::polar(x, -pi / 4);
+    static const cd quarter = std::polar(1.0, -pi / 4), three_quarters = std::polar(1.0, -3 * pi / 4);
+    const cd u = x * quarter;
     const cd j0 = s.j0;
-    const cd j1 = s.d * std::polar(1.0, -3 * pi / 4);
+    const cd j1 = s.d * three_quarters;
     const cd j1p = j0 - j1 / u;
     const double lambda = -(std::conj(u) * j1 * std::conj(j1p)).imag() / (x * x);
     return finite_result("proximity loss function", x * x * lambda / std::norm(j0));
