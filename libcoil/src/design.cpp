@@ -382,7 +382,9 @@ private:
         d.near_thermal_limit = d.temperature > limit_ - near_limit;
         d.dc_resistance = dc_resistance(q_.conductor, bare, wire_len, d.temperature);
 
-        // Self-resonance and the band.
+        // Self-resonance and the band. The band screen's impedance holds the coil's proximity field sum,
+        // which R_ac below then reuses.
+        std::optional<double> field;
         SelfResonance sr;
         try {
             const FormerDielectric fd = q_.former ? q_.former->dielectric(c.form_diameter) : FormerDielectric{};
@@ -403,6 +405,7 @@ private:
             }
             if (b.max_deviation || b.min_impedance) {
                 const CoilImpedance z(s, q_.conductor, d.temperature, d.inductance, sr);
+                field = z.mean_square_field();
                 std::vector<double> f(screen_points);
                 for (int i = 0; i < screen_points; ++i) f[i] = b.low * std::pow(b.ceiling / b.low, i / (screen_points - 1.0));
                 for (const auto& pt : z.sweep(f)) {
@@ -424,7 +427,8 @@ private:
         // Loss and Q at the reference frequency.
         d.reference_frequency = reference_;
         if (reference_ > 0) {
-            const auto r = ac_resistance(s, q_.conductor, d.temperature, reference_);
+            const auto r = field ? ac_resistance(s, q_.conductor, d.temperature, reference_, *field)
+                                 : ac_resistance(s, q_.conductor, d.temperature, reference_);
             d.resistance = r.resistance;
             d.q_factor = 2 * pi * reference_ * d.inductance / r.resistance;
         } else {

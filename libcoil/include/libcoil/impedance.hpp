@@ -63,6 +63,7 @@ public:
     // Axial phase velocity the line form uses at f (m/s).
     double phase_velocity(double frequency) const;
     double dc_inductance() const { return dc_inductance_; }
+    double mean_square_field() const { return field_; }  // (A/m / A)^2, proximity.hpp
     const SelfResonance& self_resonance() const { return sr_; }
 
 private:
