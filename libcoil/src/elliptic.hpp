@@ -41,4 +41,38 @@ inline EllipticPair elliptic_k_and_k_minus_e_over_m(double kc, double m) {
     return {pi / (2 * a), pi / (2 * a) * sum};
 }
 
+// The same for `lanes` independent moduli at once. The square roots of one AGM wait on each other; those
+// of several interleave, so four pairs take little longer than one. A lane that has converged keeps
+// iterating harmlessly: its terms no longer change the sum.
+template <std::size_t lanes>
+void elliptic_pairs(const double* kc, const double* m, EllipticPair* out) {
+    double a[lanes], b[lanes], sum[lanes], inv_m[lanes];
+    bool small[lanes];
+    for (std::size_t j = 0; j < lanes; ++j) {
+        small[j] = m[j] < 1e-16;  // the scalar form's series
+        a[j] = 1;
+        b[j] = kc[j];
+        sum[j] = 0.5;
+        inv_m[j] = small[j] ? 0 : 1 / m[j];
+    }
+    double w = 0.5;
+    for (int n = 0; n < 60; ++n) {
+        w *= 2;
+        bool done = true;
+        for (std::size_t j = 0; j < lanes; ++j) {
+            const double c = 0.5 * (a[j] - b[j]);
+            const double next = 0.5 * (a[j] + b[j]);
+            b[j] = std::sqrt(a[j] * b[j]);
+            a[j] = next;
+            const double term = w * c * c * inv_m[j];
+            sum[j] += term;
+            done = done && term <= 1e-17 * sum[j];
+        }
+        if (done) break;
+    }
+    for (std::size_t j = 0; j < lanes; ++j) {
+        out[j] = small[j] ? elliptic_k_and_k_minus_e_over_m(kc[j], m[j]) : EllipticPair{pi / (2 * a[j]), pi / (2 * a[j]) * sum[j]};
+    }
+}
+
 }  // namespace libcoil::detail

@@ -19,17 +19,27 @@ namespace {
 using cd = std::complex<double>;
 
 // Field per ampere of a ring of radius b at a point of the same radius, axial distance z != 0
-// (Smythe, "Static and Dynamic Electricity" (1950) 7.10; Jackson 5.37), written with Carlson's forms:
+// (Smythe, "Static and Dynamic Electricity" (1950) 7.10; Jackson 5.37):
 //   H_z = 1 / (2 pi sqrt(4 b^2 + z^2)) [K - E],
-//   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2).
-void ring_field(double b, double z, double& hz, double& hr) {
-    const double s = 4 * b * b + z * z, inv_root = 1 / std::sqrt(s);
-    const double m = 4 * b * b / s;  // k^2; k' = z / sqrt(s)
-    const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(z * inv_root, m);
-    const double kme = m * kme_m;  // K - E
-    const double E = K - kme;
-    hz = kme * inv_root / (2 * pi);
-    hr = z * inv_root / (2 * pi * b) * (-K + (2 * b * b + z * z) / (z * z) * E);
+//   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2),
+// for `lanes` spacings z[j] at once (elliptic.hpp: their AGMs interleave).
+template <std::size_t lanes>
+void ring_fields(double b, const double* z, double* hz, double* hr) {
+    double inv_root[lanes], kc[lanes], m[lanes];
+    for (std::size_t j = 0; j < lanes; ++j) {
+        const double s = 4 * b * b + z[j] * z[j];
+        inv_root[j] = 1 / std::sqrt(s);
+        m[j] = 4 * b * b / s;      // k^2
+        kc[j] = z[j] * inv_root[j];  // k'
+    }
+    detail::EllipticPair e[lanes];
+    detail::elliptic_pairs<lanes>(kc, m, e);
+    for (std::size_t j = 0; j < lanes; ++j) {
+        const double kme = m[j] * e[j].k_minus_e_over_m;  // K - E
+        const double E = e[j].k - kme;
+        hz[j] = kme * inv_root[j] / (2 * pi);
+        hr[j] = z[j] * inv_root[j] / (2 * pi * b) * (-e[j].k + (2 * b * b + z[j] * z[j]) / (z[j] * z[j]) * E);
+    }
 }
 
 constexpr double own_field_constant = 1.75;
@@ -68,11 +78,16 @@ double mean_square_field_per_ampere(const Solenoid& c) {
     thread_local std::vector<double> sz, sr;
     sz.assign(n, 0.0);
     sr.assign(n, 0.0);
-    for (long k = 1; k < n; ++k) {
-        double hz, hr;
-        ring_field(b, static_cast<double>(k) * p, hz, hr);
-        sz[k] = sz[k - 1] + hz;
-        sr[k] = sr[k - 1] + hr;
+    constexpr long lanes = 4;
+    for (long k = 1; k < n; k += lanes) {
+        double z[lanes], hz[lanes], hr[lanes];
+        const long count = std::min(lanes, n - k);
+        for (long j = 0; j < lanes; ++j) z[j] = static_cast<double>(k + std::min(j, count - 1)) * p;
+        ring_fields<lanes>(b, z, hz, hr);
+        for (long j = 0; j < count; ++j) {
+            sz[k + j] = sz[k + j - 1] + hz[j];
+            sr[k + j] = sr[k + j - 1] + hr[j];
+        }
     }
     // The turn's own curvature field, uniform over its wire: (1 / (4 pi a)) (ln(8 a / r) - c). Averaging the
     // ring's exact field over its own cross-section gives c = 0; c = 1.75 is fitted to the cross-section

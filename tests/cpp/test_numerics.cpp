@@ -39,6 +39,18 @@ TEST(Numerics, EllipticPairAgainstCarlson) {
     }
 }
 
+TEST(Numerics, EllipticPairsInLanesMatchTheScalarPair) {
+    // Four lanes at once, one of them in the small-k series and one at k' = 1e-6, against one at a time.
+    const double kc[4] = {1e-6, 0.3, 0.999, std::sqrt(1 - 1e-20)}, m[4] = {1 - 1e-12, 0.91, 1 - 0.999 * 0.999, 1e-20};
+    libcoil::detail::EllipticPair lanes[4];
+    libcoil::detail::elliptic_pairs<4>(kc, m, lanes);
+    for (int j = 0; j < 4; ++j) {
+        const auto one = elliptic_k_and_k_minus_e_over_m(kc[j], m[j]);
+        EXPECT_NEAR(lanes[j].k / one.k, 1.0, 2e-16) << j;
+        EXPECT_NEAR(lanes[j].k_minus_e_over_m / one.k_minus_e_over_m, 1.0, 2e-16) << j;
+    }
+}
+
 TEST(Numerics, MonotoneRootFindsKnownRoots) {
     // x^3 = 2 on [1, 2], rising; exp(-x) = 0.3 on [0, 5], falling (roots in closed form).
     int calls = 0;
