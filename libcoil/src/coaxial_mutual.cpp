@@ -1,5 +1,6 @@
 #include "libcoil/coaxial_mutual.hpp"
 
+#include <array>
 #include <cmath>
 
 #include "elliptic.hpp"
@@ -7,6 +8,28 @@
 #include "libcoil/error.hpp"
 
 namespace libcoil {
+
+namespace {
+
+// The series coefficients c_{n-1} (n-1)/n, c_n = ((1/2)_n / n!)^2, for n = 2, 3, ...: computed once, so
+// that the sum below takes no division.
+constexpr int series_terms = 198;
+const std::array<double, series_terms>& series_coefficients() {
+    static const std::array<double, series_terms> t = [] {
+        std::array<double, series_terms> c{};
+        double cn = 0.25;  // c_1
+        for (int i = 0; i < series_terms; ++i) {
+            const double n = i + 2.0;
+            c[i] = cn * (n - 1) / n;
+            const double r = (2 * n - 1) / (2 * n);
+            cn *= r * r;
+        }
+        return c;
+    }();
+    return t;
+}
+
+}  // namespace
 
 double coaxial_mutual_inductance(double a, double b, double z) {
     require_positive("radius_a", a);
@@ -23,15 +46,13 @@ double coaxial_mutual_inductance(double a, double b, double z) {
     double bracket;  // (2/k - k) K - (2/k) E
     if (m < 0.2) {
         // (pi/2) sum_{n>=2} c_{n-1} (n-1)/n k^(2n-1), c_n = ((1/2)_n / n!)^2.
-        double c = 0.25;  // c_1
+        const auto& coefficient = series_coefficients();
         double mn = 1.0;  // m^(n-2)
         double sum = 0.0;
-        for (int n = 2; n < 200; ++n) {
-            const double term = c * (n - 1.0) / n * mn;
+        for (int i = 0; i < series_terms; ++i) {
+            const double term = coefficient[i] * mn;
             sum += term;
             if (term < 1e-18 * sum) break;
-            const double r = (2.0 * n - 1.0) / (2.0 * n);
-            c *= r * r;
             mn *= m;
         }
         bracket = pi / 2 * k * m * sum;
