@@ -115,14 +115,20 @@ private:
     std::size_t first_at_or_below(const Box& b) const {
         constexpr std::size_t block = 8;
         const std::size_t n = designs_.size();
-        for (std::size_t start = 0; start < n; start += block) {
-            const std::size_t end = std::min(n, start + block);
-            int any = 0;  // no branch inside the block
-            for (std::size_t i = start; i < end; ++i) any |= (loss_[i] <= b.loss) & (size_[i] <= b.size) & (srf_[i] <= b.srf);
+        std::size_t start = 0;
+        for (; start + block <= n; start += block) {
+            int any = 0;  // a fixed count and no branch: the compiler vectorises this
+            for (std::size_t j = 0; j < block; ++j) {
+                const std::size_t i = start + j;
+                any |= (loss_[i] <= b.loss) & (size_[i] <= b.size) & (srf_[i] <= b.srf);
+            }
             if (!any) continue;
-            for (std::size_t i = start; i < end; ++i) {
+            for (std::size_t i = start; i < start + block; ++i) {
                 if (box(i).at_or_below(b)) return i;
             }
+        }
+        for (std::size_t i = start; i < n; ++i) {
+            if (box(i).at_or_below(b)) return i;
         }
         return n;
     }
