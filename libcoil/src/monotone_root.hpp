@@ -31,7 +31,8 @@ struct MonotoneBracket {
 // sqrt(tol) / 10: its error is then of the order of the step squared, far below the tolerance.
 template <class Eval>
 std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits,
-                                      double probe, bool newton = false) {
+                                      bool newton = false) {
+    constexpr double probe = 1e-4;  // the secant's second point, as a share of the guess or the interval
     const double tol = std::ldexp(1.0, 1 - bits), newton_done = 0.1 * std::sqrt(tol);
     // `below` is the lower end of the bracket, where the root lies above; `above` the upper end.
     double below = b.lo, above = b.hi;
@@ -109,7 +110,7 @@ std::optional<double> monotone_root(const F& f, bool increasing, double guess, M
             first = false;
             return std::pair{fx, step};
         },
-        increasing, guess, b, bits, 1e-4);
+        increasing, guess, b, bits);
 }
 
 // The same by Newton's steps: `fd(x)` returns {f(x), f'(x)}.
@@ -120,7 +121,7 @@ std::optional<double> monotone_root_newton(const FD& fd, bool increasing, double
             const auto [f, slope] = fd(x);
             return std::pair{f, slope != 0 ? f / slope : NAN};
         },
-        increasing, guess, b, bits, 1e-4, true);
+        increasing, guess, b, bits, true);
 }
 
 }  // namespace libcoil::detail

@@ -2,8 +2,6 @@
 
 #include <array>
 #include <cmath>
-#include <cstdint>
-
 
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
@@ -168,7 +166,7 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
     };
     const double guess = ambient + p0 / (12.0 * area);
     const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
-    const auto t = detail::bracketed_steps(step, false, guess, {ambient, hi, p0, std::nullopt}, bits, 1e-4);
+    const auto t = detail::bracketed_steps(step, false, guess, {ambient, hi, p0, std::nullopt}, bits);
     if (!t) {
         throw DomainError("no thermal balance below " + format_value(hi - zero_celsius) +
                           " degC: in still air the winding would run hotter than that");

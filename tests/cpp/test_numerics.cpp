@@ -59,7 +59,7 @@ TEST(Numerics, MonotoneRootFindsKnownRoots) {
     ASSERT_TRUE(r.has_value());
     EXPECT_NEAR(*r, std::cbrt(2.0), 1e-11);
     std::printf("x^3 = 2 from 1.3: %d evaluations\n", calls);
-    EXPECT_LE(calls, 8);  // a guess 9 % off: a handful of secant steps, not a bisection
+    EXPECT_LE(calls, 8);  // a guess 3 % off: a handful of secant steps, not a bisection
     const auto fall = monotone_root([](double x) { return std::exp(-x) - 0.3; }, false, 4.9, {0, 5}, 40);
     ASSERT_TRUE(fall.has_value());
     EXPECT_NEAR(*fall, -std::log(0.3), 1e-11);
@@ -81,11 +81,14 @@ TEST(Numerics, MonotoneRootSaysWhenThereIsNone) {
 }
 
 TEST(Numerics, MonotoneRootSurvivesABadGuessAndAStep) {
-    // A guess far from the root, and a function with a kink (atan-like steps defeat plain secants).
-    const auto f = [](double x) { return std::tanh(20 * (x - 0.7)); };
+    // A guess far from the root, on a steep step (tanh): the secant from there leaves the interval, and
+    // TOMS 748 finishes on the bracket the steps found (15 evaluations, measured).
+    int calls = 0;
+    const auto f = [&](double x) { ++calls; return std::tanh(20 * (x - 0.7)); };
     const auto r = monotone_root(f, true, 0.01, {0, 1}, 40);
     ASSERT_TRUE(r.has_value());
     EXPECT_NEAR(*r, 0.7, 1e-11);
+    EXPECT_LE(calls, 25);
 }
 
 }  // namespace
