@@ -127,6 +127,8 @@ PYBIND11_MODULE(_core, m) {
     m.def("nagaoka", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a,
           "Nagaoka's coefficient K(D/l), exact.");
     m.def("nagaoka_coefficient", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a);
+    m.def("nagaoka_slope", py::vectorize([](double rho) { return libcoil::nagaoka_coefficient_and_slope(rho).slope; }),
+          "diameter_to_length"_a, "dK/d(D/l), the derivative of Nagaoka's coefficient.");
     m.def("wheeler_coefficient", py::vectorize(&libcoil::wheeler_coefficient), "diameter_to_length"_a);
     m.def("lundin_coefficient", py::vectorize(&libcoil::lundin_coefficient), "diameter_to_length"_a);
     m.def("current_sheet_inductance", py::vectorize(&libcoil::current_sheet_inductance), "mean_diameter"_a,

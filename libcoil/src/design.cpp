@@ -9,6 +9,7 @@
 #include <sstream>
 #include <thread>
 #include <tuple>
+#include <utility>
 
 #include "libcoil/constants.hpp"
 #include "libcoil/dc_resistance.hpp"
@@ -172,6 +173,8 @@ struct Tally {
     std::array<std::size_t, static_cast<std::size_t>(Reason::count)> rejected = {};
     std::optional<Rejection> closest = std::nullopt;
     std::size_t feasible = 0;
+    double sheet_rho = -1;  // Nagaoka's coefficient at the last longest winding's D / l
+    NagaokaSlope sheet{};
 
     // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).
     template <class Detail>
@@ -182,23 +185,45 @@ struct Tally {
     }
 };
 
-// Wheeler's formula L_W = mu0 pi a^2 N^2 / (N p + 0.9 a) (wheeler.hpp), scaled by c = L / L_W at a point
-// (n, p) where the recommended L is known. Near that point it follows the recommended model to 1e-4 or
-// so, and its closed-form solutions and slopes start the root finders close to their roots.
+// One evaluation of the recommended inductance: where, what, and its slopes where Rosa's form gives them.
+struct Point {
+    double n = 0, p = 0;
+    RecommendedInductance l;
+};
+
+// Wheeler's formula W = mu0 pi a^2 N^2 / (N p + 0.9 a) (wheeler.hpp), scaled by c = L / W at a point
+// (n0, p0) where the recommended L is known, and, where its slopes are known too, tilted by
+// (1 + alpha (n - n0) + beta (p - p0)) so that it matches them. Near that point it follows the
+// recommended model to about 1e-4 (scaled) or 1e-6 (matched as well), and its closed-form solutions and
+// slopes start the root finders close to their roots.
 class WheelerGuide {
 public:
-    WheelerGuide(double a, double n, double p, double l) : a_(a), sheet_(mu0 * pi * a * a) { c_ = l / value(n, p); }
-    double value(double n, double p) const { return c_ * sheet_ * n * n / (n * p + 0.9 * a_); }
-    double turns_for(double l, double p) const {  // a quadratic in N, as the length is N p
+    WheelerGuide(double a, const Point& at, bool match_slopes)
+        : a_(a), sheet_(mu0 * pi * a * a), n0_(at.n), p0_(at.p) {
+        c_ = at.l.inductance / wheeler(at.n, at.p);
+        if (match_slopes && at.l.has_slopes) {
+            const double den = at.n * at.p + 0.9 * a;
+            alpha_ = at.l.d_turns / at.l.inductance - (2 / at.n - at.p / den);
+            beta_ = at.l.d_pitch / at.l.inductance + at.n / den;
+        }
+    }
+    // N for L at pitch p: a quadratic in N (as the length is N p), untilted.
+    double turns_for(double l, double p) const {
         const double w = l / (c_ * sheet_);
         return (w * p + std::sqrt(w * w * p * p + 4 * 0.9 * a_ * w)) / 2;
     }
-    double pitch_for(double l, double n) const { return (c_ * sheet_ * n * n / l - 0.9 * a_) / n; }
-    double slope_turns(double n, double p) const { return value(n, p) * (2 / n - p / (n * p + 0.9 * a_)); }
-    double slope_pitch(double n, double p) const { return -value(n, p) * n / (n * p + 0.9 * a_); }
+    // p for L at N: c S N^2 (g + beta p) = L (N p + 0.9 a) is linear in p.
+    double pitch_for(double l, double n) const {
+        const double csn2 = c_ * sheet_ * n * n, g = 1 + alpha_ * (n - n0_) - beta_ * p0_;
+        return (0.9 * a_ * l - csn2 * g) / (csn2 * beta_ - l * n);
+    }
+    // The untilted guide's slopes, for the first step where the model gives none (the filament sum).
+    double slope_turns(double n, double p) const { return c_ * wheeler(n, p) * (2 / n - p / (n * p + 0.9 * a_)); }
+    double slope_pitch(double n, double p) const { return -c_ * wheeler(n, p) * n / (n * p + 0.9 * a_); }
 
 private:
-    double a_, sheet_, c_ = 1;
+    double wheeler(double n, double p) const { return sheet_ * n * n / (n * p + 0.9 * a_); }
+    double a_, sheet_, n0_, p0_, c_ = 1, alpha_ = 0, beta_ = 0;
 };
 
 class Evaluator {
@@ -249,22 +274,21 @@ private:
             return;
         }
         const double bare = w.bare_diameter;
-        // The root finders stop at a point they evaluated: the last value is kept for reuse.
-        struct {
-            double n = 0, p = 0, value = 0;
-        } last;
-        const auto L = [&](double n, double p) {
-            last = {n, p, recommended_inductance(mean, n, p, bare)};
-            return last.value;
+        // The root finders stop at a point they evaluated: the last one is kept for reuse.
+        Point last;
+        const auto L = [&](double n, double p, const NagaokaSlope* sheet = nullptr) {
+            last = {n, p, recommended_inductance_with_slopes(mean, n, p, bare, sheet)};
+            return last.l.inductance;
         };
-        const auto at = [&](double n, double p) { return last.n == n && last.p == p ? last.value : L(n, p); };
+        const auto at = [&](double n, double p) { return last.n == n && last.p == p ? last.l.inductance : L(n, p); };
         const double target = q_.inductance;
         double n = 0, p = c.ratio * d_ins, n_solved = 0;
         const double p_grid = p;
         try {
             if (q_.turns) {
                 n = n_solved = *q_.turns;
-                if (!solve_pitch(n, d_ins, room, L, WheelerGuide(mean / 2, n, p, L(n, p)), p)) {
+                L(n, p);
+                if (!solve_pitch(n, d_ins, room, L, WheelerGuide(mean / 2, last, false), p, last)) {
                     const double l_touch = L(n, d_ins);
                     if (l_touch < target) {
                         t.reject(Reason::inductance_out_of_reach, target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
@@ -280,19 +304,32 @@ private:
                     t.reject(Reason::length, 1 / n_max, [&] { return what() + ": not one turn fits"; });
                     return;
                 }
-                const double l_max = L(n_max, p);
+                // Every pitch ratio of one wire and form gives the longest winding the same length, so
+                // Nagaoka's coefficient there is computed once for them all.
+                const double rho_room = mean / room;
+                if (t.sheet_rho != rho_room) {
+                    t.sheet_rho = rho_room;
+                    t.sheet = nagaoka_coefficient_and_slope(rho_room);
+                }
+                const double l_max = L(n_max, p, &t.sheet);
                 if (l_max < target) {
                     t.reject(Reason::length, target / l_max, [&] { return what() + ": " + format_quantity(l_max, Dimension::inductance) +
                              " with the longest winding that fits"; });
                     return;
                 }
                 // Wheeler, scaled to the recommended model at the longest winding, gives the first guess
-                // (good to a few 1e-3) and the first step's slope.
-                WheelerGuide guide(mean / 2, n_max, p, l_max);
-                const double guess = guide.turns_for(target, p);
-                const auto solved = detail::monotone_root([&](double x) { return L(x, p) - target; }, true, guess,
-                                                          {1, n_max, std::nullopt, l_max - target}, 21,
-                                                          guide.slope_turns(guess, p));
+                // (good to a few 1e-3). Newton's steps follow with Rosa's slopes; the filament sum's
+                // secant steps start from the guide's slope.
+                const WheelerGuide from_max(mean / 2, last, false);
+                const double guess = from_max.turns_for(target, p);
+                bool first = true;
+                const auto turns_step = [&](double x) {
+                    const double f = L(x, p) - target;
+                    const bool was_first = std::exchange(first, false);
+                    if (last.l.has_slopes) return detail::RootStep{f, f / last.l.d_turns, true};
+                    return detail::RootStep{f, was_first ? f / from_max.slope_turns(x, p) : NAN};
+                };
+                const auto solved = detail::bracketed_steps(turns_step, true, guess, {1, n_max, std::nullopt, l_max - target}, 21);
                 if (!solved) {
                     const double l_one = L(1, p);
                     t.reject(Reason::inductance_out_of_reach, l_one / target, [&] { return what() + ": one turn already gives " +
@@ -300,15 +337,16 @@ private:
                     return;
                 }
                 n_solved = *solved;
-                // Snap to the step; trim the pitch. The nearest step first, then its neighbours.
+                // Snap to the step; trim the pitch. The nearest step first, then its neighbours. The guide
+                // is rescaled (and matched to the slopes) at the solve's last point, beside the solution.
                 const double step = q_.turns_step;
                 const double nearest = std::max(std::ceil(1 / step - 1e-9) * step, std::round(n_solved / step) * step);
-                guide = WheelerGuide(mean / 2, n_solved, p_grid, at(n_solved, p_grid));  // rescaled at the solution
+                const WheelerGuide guide(mean / 2, last, true);
                 bool done = false;
                 for (double offset : {0.0, -1.0, 1.0}) {
                     n = nearest + offset * step;
                     if (n < 1) continue;
-                    if (solve_pitch(n, d_ins, room, L, guide, p)) {
+                    if (solve_pitch(n, d_ins, room, L, guide, p, last)) {
                         done = true;
                         break;
                     }
@@ -445,14 +483,23 @@ private:
     }
 
     // Pitch in [d_ins, room / n] with L(n, p) = target to 1e-10; L falls as p grows. The guide gives the
-    // first guess and slope; `p` receives the pitch.
+    // first guess; Newton's steps follow with Rosa's slope (the filament sum's secant steps start from
+    // the guide's). `p` receives the pitch; `last` is the last point `L` evaluated.
     template <class F>
-    bool solve_pitch(double n, double d_ins, double room, const F& L, const WheelerGuide& guide, double& p) const {
+    bool solve_pitch(double n, double d_ins, double room, const F& L, const WheelerGuide& guide, double& p,
+                     const Point& last) const {
         const double p_max = room / n;
         if (p_max < d_ins) return false;
-        const double guess = std::clamp(guide.pitch_for(q_.inductance, n), d_ins, p_max);
-        const auto r = detail::monotone_root([&](double x) { return L(n, x) - q_.inductance; }, false, guess,
-                                             {d_ins, p_max}, 34, guide.slope_pitch(n, guess));
+        const double g = guide.pitch_for(q_.inductance, n);
+        const double guess = std::isfinite(g) ? std::clamp(g, d_ins, p_max) : 0.5 * (d_ins + p_max);
+        bool first = true;
+        const auto pitch_step = [&](double x) {
+            const double f = L(n, x) - q_.inductance;
+            const bool was_first = std::exchange(first, false);
+            if (last.l.has_slopes) return detail::RootStep{f, f / last.l.d_pitch, true};
+            return detail::RootStep{f, was_first ? f / guide.slope_pitch(n, x) : NAN};
+        };
+        const auto r = detail::bracketed_steps(pitch_step, false, guess, {d_ins, p_max}, 34);
         if (r) p = *r;
         return r.has_value();
     }

@@ -9,6 +9,7 @@
 #include <boost/math/special_functions/bessel.hpp>
 #include <boost/math/tools/roots.hpp>
 
+#include "bessel_ik.hpp"
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "monotone_root.hpp"
@@ -40,12 +41,20 @@ constexpr double small_from = 1e-8;
 
 double ratio_i(double x) {  // I1(x) / I0(x)
     if (x < small_from) return x / 2;  // A&S 9.6.7: I0 ~ 1, I1 ~ x/2
+    if (x <= detail::bessel_series_below) {
+        const auto b = detail::bessel_i01_series(x);
+        return b.i1 / b.i0;
+    }
     if (x >= asymptotic_from) return hankel_sum(1, x, -1) / hankel_sum(0, x, -1);
     return boost::math::cyl_bessel_i(1, x, fast()) / boost::math::cyl_bessel_i(0, x, fast());
 }
 
 double ratio_k(double x) {  // K1(x) / K0(x)
     if (x < small_from) return 1 / (x * (std::log(2 / x) - std::numbers::egamma));  // A&S 9.6.8, 9.6.9
+    if (x <= detail::bessel_series_below) {
+        const auto b = detail::bessel_ik01_series(x);
+        return b.k1 / b.k0;
+    }
     if (x >= asymptotic_from) return hankel_sum(1, x, 1) / hankel_sum(0, x, 1);
     return boost::math::cyl_bessel_k(1, x, fast()) / boost::math::cyl_bessel_k(0, x, fast());
 }
@@ -173,8 +182,11 @@ double sheath_inner_energy_share(double a, double r_in, double r_out, double gam
     const auto energy = [&](double r) {
         const double u = gamma * r;
         if (u == 0) return 0.0;
-        const double e0 = scaled ? scaled_i(0, u) : boost::math::cyl_bessel_i(0, u, fast());
-        const double e1 = scaled ? scaled_i(1, u) : boost::math::cyl_bessel_i(1, u, fast());
+        const detail::BesselI01 b = scaled                              ? detail::BesselI01{scaled_i(0, u), scaled_i(1, u)}
+                                    : u <= detail::bessel_series_below ? detail::bessel_i01_series(u)
+                                                                       : detail::BesselI01{boost::math::cyl_bessel_i(0, u, fast()),
+                                                                                           boost::math::cyl_bessel_i(1, u, fast())};
+        const double e0 = b.i0, e1 = b.i1;
         const double e2 = e0 - 2 * e1 / u;
         const double w = u * u / 2 * ((e0 * e0 - e1 * e1) + b2 * (e1 * e1 - e0 * e2));
         return scaled ? w * std::exp(2 * (u - ua)) : w;

@@ -14,6 +14,14 @@ double recommended_inductance(double mean_diameter, double turns, double pitch, 
     return filament_inductance(mean_diameter, turns, pitch, wire_diameter);
 }
 
+RecommendedInductance recommended_inductance_with_slopes(double mean_diameter, double turns, double pitch,
+                                                         double wire_diameter, const NagaokaSlope* sheet) {
+    if (!rosa_in_domain(pitch, mean_diameter / 2)) return {filament_inductance(mean_diameter, turns, pitch, wire_diameter)};
+    const InductanceGradient g = sheet ? rosa_inductance_gradient(mean_diameter, turns, pitch, wire_diameter, *sheet)
+                                       : rosa_inductance_gradient(mean_diameter, turns, pitch, wire_diameter);
+    return {g.inductance, g.d_turns, g.d_pitch, true};
+}
+
 double recommended_inductance(const Solenoid& c) {
     return recommended_inductance(c.mean_diameter(), c.turns(), c.pitch(), c.wire().bare_diameter);
 }

@@ -24,14 +24,20 @@ struct MonotoneBracket {
     std::optional<double> f_lo = std::nullopt, f_hi = std::nullopt;  // f at the ends, where the caller knows it
 };
 
-// `eval(x)` returns {f(x), step}: a Newton step f/f' (exact with `newton`, else an estimate), or NaN to take
-// a secant step. A secant iteration stops at the last point it evaluated once the next step is below the
-// tolerance (the root then lies within that step of it), or at the next point once the product of the
-// last two steps says that point is within it. A Newton iteration stops after a step below
-// sqrt(tol) / 10: its error is then of the order of the step squared, far below the tolerance.
+// What one evaluation gives: f(x), and the step f / f' where a slope is known (NaN for a secant step).
+// `exact` says the slope is the true derivative, so that the step is Newton's.
+struct RootStep {
+    double f, step = NAN;
+    bool exact = false;
+};
+
+// `eval(x)` returns a RootStep. After a secant step the iteration stops at the last point it evaluated
+// once the next step is below the tolerance (the root then lies within that step of it), or at the next
+// point once the product of the last two steps says that point is within it. After a Newton step it stops
+// at the point evaluated when its own step is below the tolerance, or at the next point when that step is
+// below sqrt(tol) / 10: the error is then of the order of the step squared, far below the tolerance.
 template <class Eval>
-std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits,
-                                      bool newton = false) {
+std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits) {
     constexpr double probe = 1e-4;  // the secant's second point, as a share of the guess or the interval
     const double tol = std::ldexp(1.0, 1 - bits), newton_done = 0.1 * std::sqrt(tol);
     // `below` is the lower end of the bracket, where the root lies above; `above` the upper end.
@@ -50,31 +56,41 @@ std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double 
             f_above = fx;
         }
     };
+    const auto inside = [&](double x) { return x >= below && x <= above; };
 
     double x0 = std::clamp(guess, b.lo, b.hi);
-    auto [f0, s0] = eval(x0);
+    const RootStep r0 = eval(x0);
+    double f0 = r0.f;
     if (f0 == 0) return x0;
     record(x0, f0);
     double x1;
-    if (std::isfinite(s0)) {
-        x1 = x0 - s0;
-        if (newton && std::fabs(s0) <= newton_done * std::fabs(x0) && x1 >= below && x1 <= above) return x1;
+    if (std::isfinite(r0.step)) {
+        x1 = x0 - r0.step;
+        if (r0.exact && inside(x1)) {
+            if (std::fabs(r0.step) <= tol * std::fabs(x0)) return x0;
+            if (std::fabs(r0.step) <= newton_done * std::fabs(x0)) return x1;
+        }
     } else {
         const double dx = std::max(std::fabs(x0), b.hi - b.lo) * probe;
         x1 = root_is_above(f0) ? x0 + dx : x0 - dx;
     }
     x1 = std::clamp(x1, below, above);
     for (int step = 0; step < 12 && x1 != x0; ++step) {
-        const auto [f1, s1] = eval(x1);
+        const RootStep r1 = eval(x1);
+        const double f1 = r1.f;
         if (f1 == 0) return x1;
         record(x1, f1);
-        const double x2 = std::isfinite(s1) ? x1 - s1 : f1 != f0 ? x1 - f1 * (x1 - x0) / (f1 - f0) : below;
-        if (x2 >= below && x2 <= above) {
-            if (newton && std::fabs(s1) <= newton_done * std::fabs(x1)) return x2;
-            if (!newton && std::fabs(x2 - x1) <= tol * std::fabs(x2)) return x1;
-            // Secant steps converge as e2 ~ C e1 e0 with e1 ~ |x2 - x1| and e0 ~ |x2 - x0|: with C |x| up
-            // to 10, x2 is then within the tolerance without another evaluation.
-            if (!newton && std::fabs(x2 - x1) * std::fabs(x2 - x0) <= 0.1 * tol * x2 * x2) return x2;
+        const double x2 = std::isfinite(r1.step) ? x1 - r1.step : f1 != f0 ? x1 - f1 * (x1 - x0) / (f1 - f0) : below;
+        if (inside(x2)) {
+            if (r1.exact) {
+                if (std::fabs(r1.step) <= tol * std::fabs(x1)) return x1;
+                if (std::fabs(r1.step) <= newton_done * std::fabs(x1)) return x2;
+            } else {
+                if (std::fabs(x2 - x1) <= tol * std::fabs(x2)) return x1;
+                // Secant steps converge as e2 ~ C e1 e0 with e1 ~ |x2 - x1| and e0 ~ |x2 - x0|: with C |x|
+                // up to 10, x2 is then within the tolerance without another evaluation.
+                if (std::fabs(x2 - x1) * std::fabs(x2 - x0) <= 0.1 * tol * x2 * x2) return x2;
+            }
         }
         if (!(x2 > below && x2 < above)) break;  // outside the bracket: finish by bracketing
         x0 = x1;
@@ -83,15 +99,15 @@ std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double 
     }
     // Evaluate the ends still unknown; they say whether a root exists at all.
     if (!f_below) {
-        f_below = eval(below).first;
+        f_below = eval(below).f;
         if (!root_is_above(*f_below)) return none_unless_zero(*f_below, below);
     }
     if (!f_above) {
-        f_above = eval(above).first;
+        f_above = eval(above).f;
         if (root_is_above(*f_above)) return none_unless_zero(*f_above, above);
     }
     std::uintmax_t it = 100;
-    const auto r = boost::math::tools::toms748_solve([&](double x) { return eval(x).first; }, below, above, *f_below,
+    const auto r = boost::math::tools::toms748_solve([&](double x) { return eval(x).f; }, below, above, *f_below,
                                                      *f_above, boost::math::tools::eps_tolerance<double>(bits), it);
     return 0.5 * (r.first + r.second);
 }
@@ -108,7 +124,7 @@ std::optional<double> monotone_root(const F& f, bool increasing, double guess, M
             const double fx = f(x);
             const double step = first && first_slope != 0 ? fx / first_slope : NAN;
             first = false;
-            return std::pair{fx, step};
+            return RootStep{fx, step};
         },
         increasing, guess, b, bits);
 }
@@ -119,9 +135,9 @@ std::optional<double> monotone_root_newton(const FD& fd, bool increasing, double
     return bracketed_steps(
         [&](double x) {
             const auto [f, slope] = fd(x);
-            return std::pair{f, slope != 0 ? f / slope : NAN};
+            return RootStep{f, slope != 0 ? f / slope : NAN, true};
         },
-        increasing, guess, b, bits, true);
+        increasing, guess, b, bits);
 }
 
 }  // namespace libcoil::detail

@@ -38,25 +38,39 @@ double short_coil_bracket(double q) {
     return q / (1.0 - q) * k_minus_e + e_minus_k;
 }
 
+// The coefficient from q = k'^2 = l^2 / (l^2 + D^2) (formed without cancellation) and, for coils not
+// short, the elliptic pair at k' = sqrt(q).
+double coefficient_from(double rho, double q, double kc, const detail::EllipticPair& e) {
+    if (q < 0.1) return 4.0 / (3.0 * pi * kc) * short_coil_bracket(q);
+    const double k = rho * kc;  // sqrt(1 - q)
+    const double E = e.k - rho * rho * q * e.k_minus_e_over_m;  // k^2 = rho^2 q
+    return 4.0 / (3.0 * pi * kc) * (q * e.k_minus_e_over_m + E - k);
+}
+
+double checked_q(double rho) {
+    require_positive("diameter_to_length", rho);
+    const double q = 1.0 / (1.0 + rho * rho);
+    if (q == 0.0) throw InputError("diameter_to_length", format_value(rho) + " is too large to evaluate");
+    return q;
+}
+
 }  // namespace
 
 double nagaoka_coefficient(double rho) {
-    require_positive("diameter_to_length", rho);
-    // q = k'^2 = l^2 / (l^2 + D^2), formed without cancellation.
-    const double q = 1.0 / (1.0 + rho * rho);
-    if (q == 0.0) {
-        throw InputError("diameter_to_length", format_value(rho) + " is too large to evaluate");
-    }
-    const double kc = std::sqrt(q);
-    double bracket;
-    if (q < 0.1) {
-        bracket = short_coil_bracket(q);
-    } else {
-        const double k = rho * kc;  // sqrt(1 - q)
-        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);  // k^2 = rho^2 q
-        bracket = q * kme_m + (K - rho * rho * q * kme_m) - k;
-    }
-    return 4.0 / (3.0 * pi * kc) * bracket;
+    const double q = checked_q(rho), kc = std::sqrt(q);
+    const detail::EllipticPair e = q < 0.1 ? detail::EllipticPair{} : detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);
+    return coefficient_from(rho, q, kc, e);
+}
+
+NagaokaSlope nagaoka_coefficient_and_slope(double rho) {
+    const double q = checked_q(rho), kc = std::sqrt(q);
+    const detail::EllipticPair e = detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);
+    // dK/drho = (4 / (3 pi)) [ (s / rho) (E - 2 q (K - E) / k^2) - 1 ], s = sqrt(1 + rho^2) = 1 / k', from
+    // K = (4 / (3 pi)) [ s ((K - E) / rho^2 + E) - rho ] with d(K - E)/dk = k E / k'^2, dE/dk = (E - K) / k
+    // (DLMF 19.4.1) and dk/drho = k'^3. The bracket cancels to O(rho) for long coils and to
+    // O(ln rho / rho^2) for short ones, which costs the slope a few digits at the ends of the domain.
+    const double E = e.k - rho * rho * q * e.k_minus_e_over_m;
+    return {coefficient_from(rho, q, kc, e), 4.0 / (3.0 * pi) * ((E - 2 * q * e.k_minus_e_over_m) / (rho * kc) - 1)};
 }
 
 double sheet_inductance(double mean_diameter, double length, double turns, double (*coefficient)(double),

@@ -2,6 +2,7 @@
 
 #include <array>
 #include <cmath>
+#include <utility>
 
 #include <boost/math/special_functions/digamma.hpp>
 #include <boost/math/special_functions/polygamma.hpp>
@@ -83,13 +84,23 @@ double rosa_self_correction(double pitch_to_wire) {
     return 1.25 - std::log(2.0) - std::log(pitch_to_wire);  // log(2 x) would overflow near DBL_MAX
 }
 
-double rosa_mutual_correction(double turns) {
+namespace {
+
+// S0 and S1 at M = ceil(N) - 1, the offsets k < N; B = (2 / N) (N S0 - S1) = 2 S0 - 2 S1 / N.
+std::pair<double, double> mutual_sums(double turns) {
     require_finite("turns", turns);
     require_at_least("turns", turns, 1.0, "a coil needs at least one turn");
     const double M = std::ceil(turns) - 1.0;  // offsets k < N
     if (M > 2e9) throw InputError("turns", format_value(turns) + " is too many turns to evaluate");
     double s0 = 0, s1 = 0;
     sums(static_cast<int>(M), s0, s1);
+    return {s0, s1};
+}
+
+}  // namespace
+
+double rosa_mutual_correction(double turns) {
+    const auto [s0, s1] = mutual_sums(turns);
     return 2.0 / turns * (turns * s0 - s1);
 }
 
@@ -104,6 +115,34 @@ double rosa_inductance(double mean_diameter, double turns, double pitch, double 
     const double a = mean_diameter / 2;
     return finite_result("Rosa's correction",
                          current_sheet_inductance(mean_diameter, turns * pitch, turns) - mu0 * a * turns * (A + B));
+}
+
+InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, double pitch, double wire_diameter) {
+    require_positive("mean_diameter", mean_diameter);
+    require_positive("pitch", pitch);
+    require_positive("turns", turns);
+    return rosa_inductance_gradient(mean_diameter, turns, pitch, wire_diameter,
+                                    nagaoka_coefficient_and_slope(mean_diameter / (turns * pitch)));
+}
+
+InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, double pitch, double wire_diameter,
+                                            const NagaokaSlope& sheet) {
+    require_positive("mean_diameter", mean_diameter);
+    require_positive("pitch", pitch);
+    require_positive("wire_diameter", wire_diameter);
+    const double A = rosa_self_correction(pitch / wire_diameter);
+    const auto [s0, s1] = mutual_sums(turns);
+    const double B = 2.0 * s0 - 2.0 * s1 / turns;
+    // L = S (N / p) K(rho) - mu0 a N (A + B), S = mu0 pi a^2, rho = D / (N p); dA/dp = -1/p, and between
+    // whole N, dB/dN = 2 S1 / N^2.
+    const double a = mean_diameter / 2, S = mu0 * pi * a * a, rho = mean_diameter / (turns * pitch);
+    const double rho_slope = rho * sheet.slope;
+    InductanceGradient g;
+    g.inductance = finite_result("Rosa's correction", S * turns / pitch * sheet.value - mu0 * a * turns * (A + B));
+    g.d_turns = finite_result("Rosa's correction", S / pitch * (sheet.value - rho_slope) - mu0 * a * (A + B) -
+                                                       mu0 * a * 2.0 * s1 / turns);
+    g.d_pitch = finite_result("Rosa's correction", -S * turns / (pitch * pitch) * (sheet.value + rho_slope) + mu0 * a * turns / pitch);
+    return g;
 }
 
 }  // namespace libcoil

@@ -162,7 +162,7 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
             s = f / (power_slope - 1.25 * r.convection / (t - ambient) - 4 * surface.emissivity * stefan_boltzmann * area * t3);
         }
         first = false;
-        return std::pair{f, s};
+        return detail::RootStep{f, s};
     };
     const double guess = ambient + p0 / (12.0 * area);
     const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));

@@ -103,6 +103,30 @@ TEST(Rosa, MutualCorrectionBTable) {
     for (const auto& [n, b] : table) EXPECT_NEAR(rosa_mutual_correction(n), b, 1.0e-4) << n;
 }
 
+TEST(Rosa, GradientMatchesCentralDifferences) {
+    // Consistency with the value: dL/dN and dL/dp against central differences of rosa_inductance (step
+    // 1e-4 turn, within one whole-number interval, and 1e-5 p; their truncation is below 1e-8 relative).
+    // Nagaoka's slope itself is checked against mpmath in tests/python/test_nagaoka.py.
+    struct Case {
+        double D, N, p, d;
+    };
+    for (const Case& c : {Case{25e-3, 12.3, 2.0e-3, 1.3e-3}, Case{12e-3, 3.4, 1.1e-3, 1.0e-3},
+                          Case{40e-3, 37.6, 1.5e-3, 0.5e-3}, Case{8e-3, 151.7, 0.3e-3, 0.25e-3},
+                          Case{60e-3, 2.5, 6e-3, 2e-3}}) {
+        const InductanceGradient g = rosa_inductance_gradient(c.D, c.N, c.p, c.d);
+        EXPECT_NEAR(g.inductance / rosa_inductance(c.D, c.N, c.p, c.d), 1.0, 1e-14);
+        const double hn = 1e-4, hp = 1e-5 * c.p;
+        const double dn = (rosa_inductance(c.D, c.N + hn, c.p, c.d) - rosa_inductance(c.D, c.N - hn, c.p, c.d)) / (2 * hn);
+        const double dp = (rosa_inductance(c.D, c.N, c.p + hp, c.d) - rosa_inductance(c.D, c.N, c.p - hp, c.d)) / (2 * hp);
+        EXPECT_NEAR(g.d_turns / dn, 1.0, 1e-7) << c.N;
+        EXPECT_NEAR(g.d_pitch / dp, 1.0, 1e-7) << c.N;
+        // The form with a coefficient the caller already has gives the same.
+        const InductanceGradient h = rosa_inductance_gradient(c.D, c.N, c.p, c.d, nagaoka_coefficient_and_slope(c.D / (c.N * c.p)));
+        EXPECT_EQ(h.inductance, g.inductance);
+        EXPECT_EQ(h.d_pitch, g.d_pitch);
+    }
+}
+
 TEST(Rosa, LargeTurnCountsMatchDirectSum) {
     // Beyond 4096 offsets the sum switches to polygamma tails. Check it against the direct sum in long
     // double: the closed form of the pair term for k <= 8 (long double keeps 15 digits there), and six

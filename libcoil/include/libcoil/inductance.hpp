@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "libcoil/nagaoka.hpp"
 #include "libcoil/solenoid.hpp"
 
 namespace libcoil {
@@ -38,5 +39,16 @@ double recommended_inductance(const Solenoid& coil);
 // The same from the bare figures (m): for root finders that vary turns or pitch, without building and
 // validating a Solenoid at every step. The caller keeps the geometry valid.
 double recommended_inductance(double mean_diameter, double turns, double pitch, double wire_diameter);
+
+// The same with its slopes dL/dN (H per turn) and dL/dp (H/m) where the recommended model is Rosa's form
+// (rosa_inductance_gradient); the filament sum gives none (has_slopes false, slopes 0). `sheet`, where
+// given, is Nagaoka's coefficient and slope at D / (N p), which a caller evaluating many coils of one
+// length computes once.
+struct RecommendedInductance {
+    double inductance = 0, d_turns = 0, d_pitch = 0;
+    bool has_slopes = false;
+};
+RecommendedInductance recommended_inductance_with_slopes(double mean_diameter, double turns, double pitch,
+                                                         double wire_diameter, const NagaokaSlope* sheet = nullptr);
 
 }  // namespace libcoil

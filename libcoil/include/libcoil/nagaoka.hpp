@@ -17,6 +17,13 @@ namespace libcoil {
 
 // Nagaoka's coefficient K as a function of diameter over length. Throws InputError unless D/l > 0.
 double nagaoka_coefficient(double diameter_to_length);
+// The coefficient and its derivative dK/d(D/l), the slope from the same elliptic integrals through
+// dK/dk = E/(k k'^2) - K/k and dE/dk = (E - K)/k (DLMF 19.4.1). Newton's steps in the design search and
+// first-order sensitivities use it. Measured against mpmath's numerical derivative: see docs/models.md.
+struct NagaokaSlope {
+    double value, slope;
+};
+NagaokaSlope nagaoka_coefficient_and_slope(double diameter_to_length);
 // Current-sheet inductance in H of N turns of mean diameter D over length l (both in m).
 double current_sheet_inductance(double mean_diameter, double length, double turns);
 

@@ -21,6 +21,8 @@
 //          2.5 % at p = a. B(N) matches the tabulated values to 1e-4.
 #pragma once
 
+#include "libcoil/nagaoka.hpp"
+
 namespace libcoil {
 
 // A for pitch over bare wire diameter p/d >= 1.
@@ -31,5 +33,17 @@ double rosa_mutual_correction(double turns);
 bool rosa_in_domain(double pitch, double mean_radius);
 // Round-wire inductance in H: the exact current sheet minus mu0 a N (A + B).
 double rosa_inductance(double mean_diameter, double turns, double pitch, double wire_diameter);
+
+// The same with its partial derivatives: dL/dN in H per turn (B is continuous in N, its slope steps at
+// each whole N; this is the slope just below the next whole number) and dL/dp in H/m. The current sheet's part comes from nagaoka_coefficient_and_slope, A's
+// from dA/dp = -1/p, B's from B = 2 S0 - 2 S1 / N. Newton's steps in the design search use them.
+struct InductanceGradient {
+    double inductance, d_turns, d_pitch;
+};
+InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, double pitch, double wire_diameter);
+// The same from the coefficient and slope at D / (N p), for a caller that has them (the design search
+// evaluates many coils of one length).
+InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, double pitch, double wire_diameter,
+                                            const NagaokaSlope& sheet);
 
 }  // namespace libcoil
