@@ -91,13 +91,16 @@ public:
             return;
         }
         // A new box: it drops the boxes it dominates (none equals it, or the scan would have found it).
-        for (std::size_t i = designs_.size(); i-- > 0;) {
-            if (b.at_or_below(box(i))) {
-                swap(i, designs_.size() - 1);
-                loss_.pop_back();
-                size_.pop_back();
-                srf_.pop_back();
-                designs_.pop_back();
+        // Most new boxes dominate none, which the vectorised scan says before any is touched.
+        if (any_at_or_above(b)) {
+            for (std::size_t i = designs_.size(); i-- > 0;) {
+                if (b.at_or_below(box(i))) {
+                    swap(i, designs_.size() - 1);
+                    loss_.pop_back();
+                    size_.pop_back();
+                    srf_.pop_back();
+                    designs_.pop_back();
+                }
             }
         }
         loss_.push_back(b.loss);
@@ -132,6 +135,22 @@ private:
             if (box(i).at_or_below(b)) return i;
         }
         return n;
+    }
+
+    // Whether any box is at or above b in every figure.
+    bool any_at_or_above(const Box& b) const {
+        constexpr std::size_t block = 8;
+        const std::size_t n = designs_.size();
+        int any = 0;
+        std::size_t start = 0;
+        for (; start + block <= n; start += block) {
+            for (std::size_t j = 0; j < block; ++j) {  // as in first_at_or_below
+                const std::size_t i = start + j;
+                any |= (loss_[i] >= b.loss) & (size_[i] >= b.size) & (srf_[i] >= b.srf);
+            }
+        }
+        for (std::size_t i = start; i < n; ++i) any |= (loss_[i] >= b.loss) & (size_[i] >= b.size) & (srf_[i] >= b.srf);
+        return any;
     }
 
     void swap(std::size_t i, std::size_t j) {

@@ -43,14 +43,23 @@ TEST(Numerics, EllipticPairAgainstCarlson) {
 }
 
 TEST(Numerics, EllipticPairsInLanesMatchTheScalarPair) {
-    // Four lanes at once, one of them in the small-k series and one at k' = 1e-6, against one at a time.
-    const double kc[4] = {1e-6, 0.3, 0.999, std::sqrt(1 - 1e-20)}, m[4] = {1 - 1e-12, 0.91, 1 - 0.999 * 0.999, 1e-20};
-    libcoil::detail::EllipticPair lanes[4];
-    libcoil::detail::elliptic_pairs<4>(kc, m, lanes);
-    for (int j = 0; j < 4; ++j) {
+    // Eight lanes at once (and four), one of them in the small-k series and one at k' = 1e-6, against one
+    // at a time, with 1/m given and not.
+    const double kc[8] = {1e-6, 0.3, 0.999, std::sqrt(1 - 1e-20), 0.05, 0.5, 0.9, 0.9999};
+    double m[8], inv_m[8];
+    for (int j = 0; j < 8; ++j) m[j] = j == 0 ? 1 - 1e-12 : j == 3 ? 1e-20 : 1 - kc[j] * kc[j];
+    for (int j = 0; j < 8; ++j) inv_m[j] = 1 / m[j];
+    libcoil::detail::EllipticPair eight[8], given[8], four[4];
+    libcoil::detail::elliptic_pairs<8>(kc, m, eight);
+    libcoil::detail::elliptic_pairs<8>(kc, m, given, inv_m);
+    libcoil::detail::elliptic_pairs<4>(kc, m, four);
+    for (int j = 0; j < 8; ++j) {
         const auto one = elliptic_k_and_k_minus_e_over_m(kc[j], m[j]);
-        EXPECT_NEAR(lanes[j].k / one.k, 1.0, 2e-16) << j;
-        EXPECT_NEAR(lanes[j].k_minus_e_over_m / one.k_minus_e_over_m, 1.0, 2e-16) << j;
+        for (const auto* lanes : {eight, given}) {
+            EXPECT_NEAR(lanes[j].k / one.k, 1.0, 2e-16) << j;
+            EXPECT_NEAR(lanes[j].k_minus_e_over_m / one.k_minus_e_over_m, 1.0, 2e-16) << j;
+        }
+        if (j < 4) EXPECT_EQ(four[j].k, eight[j].k) << j;
     }
 }
 
