@@ -1,8 +1,11 @@
 #include "libcoil/filament.hpp"
 
+#include <algorithm>
 #include <cmath>
 
+#include "elliptic.hpp"
 #include "libcoil/coaxial_mutual.hpp"
+#include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 #include "libcoil/ring_inductance.hpp"
 
@@ -17,11 +20,36 @@ double filament_inductance(double mean_diameter, double turns, double pitch, dou
     const double a = mean_diameter / 2;
     const double self = ring_self_inductance(a, wire_diameter / 2);
     const auto offsets = static_cast<long>(std::ceil(turns)) - 1;
-    // Sum the small far terms first for accuracy.
+    // Sum the small far terms first for accuracy. Those with k^2 >= 0.2 (z <= 4 a), where
+    // coaxial_mutual_inductance takes the elliptic integrals, come eight at a time through the same
+    // integrals in lanes (elliptic.hpp): for equal radii, M = mu0 a k (2 (K - E) / k^2 - K) with
+    // k^2 = 4 a^2 / (4 a^2 + z^2).
+    const auto near = std::min(offsets, static_cast<long>(std::floor(4 * a / pitch)));
     double mutual = 0.0;
-    for (long k = offsets; k >= 1; --k) {
+    for (long k = offsets; k > near; --k) {
         mutual += (turns - static_cast<double>(k)) * coaxial_mutual_inductance(a, a, static_cast<double>(k) * pitch);
     }
+    constexpr long lanes = 8;
+    double near_sum = 0.0;
+    for (long k0 = 1; k0 <= near; k0 += lanes) {
+        double kc[lanes], m[lanes], inv_m[lanes], weight[lanes], root[lanes];
+        for (long j = 0; j < lanes; ++j) {
+            const long k = std::min(k0 + j, near);
+            const double z = static_cast<double>(k) * pitch, den = 4 * a * a + z * z;
+            root[j] = std::sqrt(den);
+            kc[j] = z / root[j];
+            m[j] = 4 * a * a / den;
+            inv_m[j] = den / (4 * a * a);
+            weight[j] = k0 + j <= near ? turns - static_cast<double>(k) : 0.0;
+        }
+        detail::EllipticPair e[lanes];
+        detail::elliptic_pairs<lanes>(kc, m, e, inv_m);
+        for (long j = 0; j < lanes; ++j) {
+            const double k = 2 * a / root[j];
+            near_sum += weight[j] * mu0 * a * k * (2 * e[j].k_minus_e_over_m - e[j].k);
+        }
+    }
+    mutual += near_sum;
     return finite_result("filament sum", turns * self + 2.0 * mutual);
 }
 

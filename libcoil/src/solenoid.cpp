@@ -45,6 +45,11 @@ Solenoid Solenoid::on_form(double form_diameter, double turns, double pitch, con
 
 double Solenoid::pitch_angle() const { return std::atan(p_.pitch / (pi * p_.mean_diameter)); }
 
-double Solenoid::helix_length() const { return p_.turns * std::hypot(pi * p_.mean_diameter, p_.pitch); }
+// A plain root of the sum of squares: the figures are a few metres at most, far from overflow, and
+// std::hypot's care for that costs a design search more than the rest of this.
+double Solenoid::helix_length() const {
+    const double around = pi * p_.mean_diameter;
+    return p_.turns * std::sqrt(around * around + p_.pitch * p_.pitch);
+}
 
 }  // namespace libcoil
