@@ -17,6 +17,7 @@
 #include "libcoil/impedance.hpp"
 #include "libcoil/inductance.hpp"
 #include "libcoil/proximity.hpp"
+#include "libcoil/rosa.hpp"
 #include "libcoil/thermal.hpp"
 #include "libcoil/units.hpp"
 #include "monotone_root.hpp"
@@ -194,6 +195,16 @@ struct Tally {
     std::size_t feasible = 0;
     double sheet_rho = -1;  // Nagaoka's coefficient at the last longest winding's D / l
     NagaokaSlope sheet{};
+    // The last wire and form whose longest winding fell short of the target, and in which model (Rosa's
+    // or the filament sum's); see Evaluator::check.
+    struct {
+        std::size_t wire = SIZE_MAX;
+        double form_diameter = 0;
+        bool rosa = false;
+    } short_of_target;
+
+    // A miss known to be no closer than one already counted.
+    void count(Reason reason) { ++rejected[static_cast<std::size_t>(reason)]; }
 
     // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).
     template <class Detail>
@@ -323,6 +334,21 @@ private:
                     t.reject(Reason::length, 1 / n_max, [&] { return what() + ": not one turn fits"; });
                     return;
                 }
+                // The pitch ratios of one wire and form come in rising order, and within one model the
+                // longest winding's inductance falls as the pitch grows: fewer turns over the same length.
+                // (For Rosa's form, dL/d(1/p) > 0 holds where pi K D / p > A + B + 1 + N dB/dN; with
+                // p <= 0.4 a the left side is at least 5 and the right below 3. The test
+                // Design.LongestWindingFallsWithThePitch checks both models on a wide grid.) So once one
+                // falls short, the rest in the same model do too, with a larger excess: they count under
+                // the length limit unevaluated, and the closest miss cannot be among them. Across the
+                // switch from Rosa's form to the filament sum (p = 0.4 a) the inductance can step up by
+                // a few per cent, so there the evaluation resumes.
+                const bool rosa = rosa_in_domain(p, mean / 2);
+                if (t.short_of_target.wire == c.wire && t.short_of_target.form_diameter == c.form_diameter &&
+                    t.short_of_target.rosa == rosa) {
+                    t.count(Reason::length);
+                    return;
+                }
                 // Every pitch ratio of one wire and form gives the longest winding the same length, so
                 // Nagaoka's coefficient there is computed once for them all.
                 const double rho_room = mean / room;
@@ -332,6 +358,7 @@ private:
                 }
                 const double l_max = L(n_max, p, &t.sheet);
                 if (l_max < target) {
+                    t.short_of_target = {c.wire, c.form_diameter, rosa};
                     t.reject(Reason::length, target / l_max, [&] { return what() + ": " + format_quantity(l_max, Dimension::inductance) +
                              " with the longest winding that fits"; });
                     return;
