@@ -6,6 +6,7 @@
 #include <chrono>
 #include <cmath>
 #include <cstdint>
+#include <functional>
 #include <sstream>
 #include <thread>
 #include <tuple>
@@ -450,7 +451,7 @@ private:
         if (const double p_limit = power(limit_); !(p_limit <= shed)) {
             t.reject(Reason::thermal, shed > 0 ? p_limit / shed : 10, [&] {
                 try {
-                    const double temp = winding_temperature(power, surface, q_.ambient).temperature;
+                    const double temp = winding_temperature(std::cref(power), surface, q_.ambient).temperature;
                     return what() + ": winding at " + format_quantity(temp, Dimension::temperature) + ", limit " +
                            format_quantity(limit_, Dimension::temperature);
                 } catch (const DomainError&) {
@@ -462,7 +463,7 @@ private:
         // The balance lies in [ambient, limit]; solved to search_tolerance (self_resonance.hpp), as the
         // search's self-resonance.
         try {
-            const auto th = winding_temperature(power, surface, q_.ambient, limit_, search_tolerance);
+            const auto th = winding_temperature(std::cref(power), surface, q_.ambient, limit_, search_tolerance);
             d.temperature = th.temperature;
             d.rise = th.rise;
         } catch (const DomainError&) {  // only by rounding at the limit itself

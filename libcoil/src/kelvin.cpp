@@ -34,23 +34,39 @@ ScaledBesselPair series(double x) {
     return {cd(sum0) * scale, cd(0.0, x / 2) * cd(sum1) * scale};
 }
 
-// Hankel's P and Q series for J_nu, nu = 0 or 1 (A&S 9.2.9, 9.2.10), each summed to its smallest term.
+// Hankel's P and Q series for J_nu, nu = 0 or 1 (A&S 9.2.9, 9.2.10), each summed to its smallest term:
+// P = sum_{k even} (-1)^(k/2) a_k / z^k, Q = sum_{k odd} (-1)^((k-1)/2) a_k / z^k, with
+// a_k = a_{k-1} (4 nu^2 - (2k - 1)^2) / (8 k). The signed coefficients are computed at compile time.
+constexpr int hankel_terms = 64;  // enough for x >= series_limit: the terms reach 1e-18 by k = 22 at x = 26
+struct HankelCoefficients {
+    double c[2][hankel_terms];
+};
+constexpr HankelCoefficients hankel_coefficients() {
+    HankelCoefficients h{};
+    for (int nu = 0; nu < 2; ++nu) {
+        double a = 1;
+        for (int k = 0; k < hankel_terms; ++k) {
+            if (k > 0) a *= (4.0 * nu * nu - (2.0 * k - 1) * (2.0 * k - 1)) / (8.0 * k);
+            h.c[nu][k] = (k / 2) % 2 == 0 ? a : -a;
+        }
+    }
+    return h;
+}
+constexpr HankelCoefficients hankel = hankel_coefficients();
+
 void hankel_pq(int nu, cd inv_z, cd& p, cd& q) {
-    const double mu = 4.0 * nu * nu;
     p = 0;
     q = 0;
-    cd term = 1.0;  // a_k(nu) / z^k
+    cd power = 1.0;  // 1 / z^k
     double last = INFINITY;  // |term|^2 (squared moduli: no hypot in the loop)
-    for (int k = 0; k < 200; ++k) {
+    for (int k = 0; k < hankel_terms; ++k) {
+        const cd term = hankel.c[nu][k] * power;
         const double mag2 = std::norm(term);
         if (mag2 > last) break;  // the asymptotic series starts to diverge
         last = mag2;
-        // (-1)^(k/2) for even k goes to P, (-1)^((k-1)/2) for odd k to Q.
-        const double sign = ((k / 2) % 2 == 0) ? 1.0 : -1.0;
-        if (k % 2 == 0) p += sign * term; else q += sign * term;
+        if (k % 2 == 0) p += term; else q += term;
         if (mag2 < 1e-36) break;
-        const double j = 2.0 * (k + 1) - 1.0;
-        term *= (mu - j * j) / (8.0 * (k + 1)) * inv_z;
+        power *= inv_z;
     }
 }
 
