@@ -463,7 +463,7 @@ private:
         // The balance lies in [ambient, limit]; solved to search_tolerance (self_resonance.hpp), as the
         // search's self-resonance.
         try {
-            const auto th = winding_temperature(std::cref(power), surface, q_.ambient, limit_, search_tolerance);
+            const auto th = winding_temperature(std::cref(power), surface, q_.ambient, limit_, search_tolerance, shed);
             d.temperature = th.temperature;
             d.rise = th.rise;
         } catch (const DomainError&) {  // only by rounding at the limit itself

@@ -60,6 +60,12 @@ TEST(Thermal, EnergyBalanceHolds) {
     const auto bare = winding_temperature(power, ThermalSurface{0.03, 0.04, 0.05, CoilAxis::horizontal}, ambient);
     EXPECT_GT(bare.rise, 1.6 * r.rise);
     EXPECT_LT(bare.rise, 2.1 * r.rise);
+    // What the surface sheds at the ceiling, given, only sharpens the first guess: the same balance.
+    const double ceiling = 423.15;
+    const double shed = convected_power(s, ceiling, ambient) + radiated_power(s, ceiling, ambient);
+    const auto hinted = winding_temperature(power, s, ambient, ceiling, 3e-11, shed);
+    EXPECT_NEAR(hinted.temperature / winding_temperature(power, s, ambient, ceiling).temperature, 1.0, 1e-10);
+    EXPECT_NEAR((hinted.convection + hinted.radiation) / hinted.power, 1.0, 1e-9);
     // No loss, no rise; a loss no still air can carry is an error, not a number.
     EXPECT_EQ(winding_temperature([](double) { return 0.0; }, s, ambient).rise, 0.0);
     EXPECT_THROW(winding_temperature([](double) { return 500.0; }, s, ambient), DomainError);
