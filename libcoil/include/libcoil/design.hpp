@@ -1,9 +1,10 @@
 // Design synthesis: from a requirement to ranked, buildable coils.
 //
 // The search walks every (wire, form diameter, pitch ratio) of the requirement's grid. For each it solves
-// the turns that hit the target inductance on the recommended model (secant steps from a guess by
-// Wheeler's formula, bracketed, with TOMS 748 from Boost.Math as the fallback), snaps them
-// to the practical step, and trims the pitch so that the target holds exactly after snapping. It then
+// the turns that hit the target inductance on the recommended model (Newton's steps on Rosa's slopes
+// from a guess by Wheeler's formula, bracketed, with TOMS 748 from Boost.Math as the fallback), snaps
+// them to the practical step, and trims the pitch the same way so that the target holds exactly after
+// snapping. It then
 // checks, in order of cost: the outer diameter, the length, the wire length, the thermal estimate
 // against the enamel class and the former's service temperature, the self-resonance against the band's
 // srf_margin, and the band's max_deviation and min_impedance on 9 log-spaced points. A candidate that

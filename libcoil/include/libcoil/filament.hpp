@@ -3,7 +3,8 @@
 // Method:  each turn is a circular filament of the mean radius a, the turns spaced by the pitch p.
 //          L = N L_ring + 2 sum_{k=1}^{ceil(N)-1} (N - k) M(a, a, k p), with Maxwell's mutual
 //          inductance M (coaxial_mutual.hpp) and the round-wire ring self-inductance L_ring
-//          (ring_inductance.hpp). Equal radii make M depend only on the turn offset, so the sum is O(N).
+//          (ring_inductance.hpp). Equal radii make M depend only on the turn offset, so the sum is O(N);
+//          the near offsets (z <= 4 a) take their elliptic integrals eight at a time (elliptic.hpp).
 //          The helix is replaced by parallel rings; the pitch angle is not modelled. Fractional N weights
 //          the offsets as Rosa's B does.
 // Source:  the superposition of Maxwell's formula (Grover 1946 ch. 16, "summation of mutual inductances").

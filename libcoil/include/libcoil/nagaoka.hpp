@@ -19,7 +19,8 @@ namespace libcoil {
 double nagaoka_coefficient(double diameter_to_length);
 // The coefficient and its derivative dK/d(D/l), the slope from the same elliptic integrals through
 // dK/dk = E/(k k'^2) - K/k and dE/dk = (E - K)/k (DLMF 19.4.1). Newton's steps in the design search and
-// first-order sensitivities use it. Measured against mpmath's numerical derivative: see docs/models.md.
+// first-order sensitivities use it. Measured against mpmath's numerical derivative: 3.2e-13 for
+// D/l = 1e-3 .. 10, 1.35e-10 at D/l = 944, where the short coil's bracket has cancelled (test_nagaoka.py).
 struct NagaokaSlope {
     double value, slope;
 };
