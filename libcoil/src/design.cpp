@@ -198,11 +198,11 @@ struct Tally {
     NagaokaSlope sheet{};
     // The last wire and form whose longest winding fell short of the target, and in which model (Rosa's
     // or the filament sum's); see Evaluator::check.
-    struct {
+    struct ShortOfTarget {
         std::size_t wire = SIZE_MAX;
         double form_diameter = 0;
         bool rosa = false;
-    } short_of_target;
+    } short_of_target{};
 
     // A miss known to be no closer than one already counted.
     void count(Reason reason) { ++rejected[static_cast<std::size_t>(reason)]; }
@@ -212,7 +212,14 @@ struct Tally {
     void reject(Reason reason, double excess, const Detail& detail) {
         const auto r = static_cast<std::size_t>(reason);
         ++rejected[r];
-        if (!closest || excess < closest->excess) closest = Rejection{reason_text[r].key, excess, detail()};
+        if (!closest || excess < closest->excess) keep_closest(r, excess, detail);
+    }
+
+private:
+    // Out of line and cold: the text is built rarely, and kept apart it leaves the search's hot code small.
+    template <class Detail>
+    [[gnu::noinline, gnu::cold]] void keep_closest(std::size_t r, double excess, const Detail& detail) {
+        closest = Rejection{reason_text[r].key, excess, detail()};
     }
 };
 
