@@ -24,8 +24,9 @@ using cd = std::complex<double>;
 //   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2),
 // for `lanes` spacings z[j] at once (elliptic.hpp: their AGMs interleave).
 template <std::size_t lanes>
-void ring_fields(double b, const double* z, double* hz, double* hr) {
-    // Written to spare divisions, which cost more here than the square roots: three per ring.
+void ring_fields(double b, const double* z, const double* inv_z2, double* hz, double* hr) {
+    // Written to spare divisions, which cost more here than the square roots: two per ring (the caller
+    // gives 1/z^2).
     const double b2 = b * b, inv_4b2 = 1 / (4 * b2), inv_2pi = 1 / (2 * pi), inv_2pib = inv_2pi / b;
     double inv_root[lanes], kc[lanes], m[lanes], inv_m[lanes];
     for (std::size_t j = 0; j < lanes; ++j) {
@@ -41,9 +42,21 @@ void ring_fields(double b, const double* z, double* hz, double* hr) {
         const double kme = m[j] * e[j].k_minus_e_over_m;  // K - E
         const double E = e[j].k - kme;
         hz[j] = kme * inv_root[j] * inv_2pi;
-        hr[j] = z[j] * inv_root[j] * inv_2pib * (-e[j].k + (1 + 2 * b2 / (z[j] * z[j])) * E);
+        hr[j] = z[j] * inv_root[j] * inv_2pib * (-e[j].k + (1 + 2 * b2 * inv_z2[j]) * E);
     }
 }
+
+// 1/k^2 for the first offsets, so that the ring fields take 1/z^2 = (1/p^2)(1/k^2) without a division.
+constexpr long reciprocal_squares = 1024;
+struct ReciprocalSquares {
+    double v[reciprocal_squares];
+};
+constexpr ReciprocalSquares make_reciprocal_squares() {
+    ReciprocalSquares r{};
+    for (long k = 1; k < reciprocal_squares; ++k) r.v[k] = 1.0 / (static_cast<double>(k) * static_cast<double>(k));
+    return r;
+}
+constexpr ReciprocalSquares inv_k2 = make_reciprocal_squares();
 
 constexpr double own_field_constant = 1.75;
 
@@ -82,25 +95,39 @@ double mean_square_field_per_ampere(const Solenoid& c) {
     sz.assign(n, 0.0);
     sr.assign(n, 0.0);
     constexpr long lanes = 8;
+    const double inv_p2 = 1 / (p * p);
+    double run_z = 0, run_r = 0;  // the prefix sums so far, kept in registers
     for (long k = 1; k < n; k += lanes) {
-        double z[lanes], hz[lanes], hr[lanes];
+        double z[lanes], inv_z2[lanes], hz[lanes], hr[lanes];
         const long count = std::min(lanes, n - k);
-        for (long j = 0; j < lanes; ++j) z[j] = static_cast<double>(k + std::min(j, count - 1)) * p;
-        ring_fields<lanes>(b, z, hz, hr);
+        for (long j = 0; j < lanes; ++j) {
+            const long kj = k + std::min(j, count - 1);
+            z[j] = static_cast<double>(kj) * p;
+            inv_z2[j] = kj < reciprocal_squares ? inv_p2 * inv_k2.v[kj] : 1 / (z[j] * z[j]);
+        }
+        ring_fields<lanes>(b, z, inv_z2, hz, hr);
         for (long j = 0; j < count; ++j) {
-            sz[k + j] = sz[k + j - 1] + hz[j];
-            sr[k + j] = sr[k + j - 1] + hr[j];
+            run_z += hz[j];
+            run_r += hr[j];
+            sz[k + j] = run_z;
+            sr[k + j] = run_r;
         }
     }
     // The turn's own curvature field, uniform over its wire: (1 / (4 pi a)) (ln(8 a / r) - c). Averaging the
     // ring's exact field over its own cross-section gives c = 0; c = 1.75 is fitted to the cross-section
     // solver (docs/models.md), which the uniform-field picture otherwise overestimates for spaced turns.
     const double own = (std::log(8 * b / c.wire().radius()) - own_field_constant) / (4 * pi * b);
+    // Turn i and turn n-1-i see the same |H| (mirror images): the first half, twice, and the middle once.
     double sum = 0;
-    for (long i = 0; i < n; ++i) {
+    for (long i = 0; i < n / 2; ++i) {
         const double hz = own + sz[i] + sz[n - 1 - i];  // turns below and above add axially
         const double hr = sr[i] - sr[n - 1 - i];  // and oppose radially
         sum += hz * hz + hr * hr;
+    }
+    sum *= 2;
+    if (n % 2 == 1) {
+        const double hz = own + 2 * sz[n / 2];
+        sum += hz * hz;
     }
     return sum / static_cast<double>(n);
 }
