@@ -54,19 +54,19 @@ inline EllipticPair elliptic_k_and_k_minus_e_over_m(double kc, double m) {
 template <std::size_t lanes>
 void elliptic_pairs(const double* kc, const double* m, EllipticPair* out, const double* reciprocal_m = nullptr) {
     static_assert(lanes % 2 == 0, "lanes come in pairs");
-    double inv_m[lanes], a_end[lanes], sum_end[lanes];
-    for (std::size_t j = 0; j < lanes; ++j) {
-        inv_m[j] = m[j] < 1e-16 ? 0 : reciprocal_m ? reciprocal_m[j] : 1 / m[j];  // tiny m: the series below
-    }
+    bool small = false;  // a lane below m = 1e-16 takes the scalar form's series at the end
 #if defined(__SSE2__)
     constexpr std::size_t v = lanes / 2;
     __m128d a[v], b[v], sum[v], im[v];
-    const __m128d half = _mm_set1_pd(0.5), eps = _mm_set1_pd(1e-17);
+    const __m128d half = _mm_set1_pd(0.5), one = _mm_set1_pd(1), eps = _mm_set1_pd(1e-17), tiny = _mm_set1_pd(1e-16);
     for (std::size_t j = 0; j < v; ++j) {
-        a[j] = _mm_set1_pd(1);
+        const __m128d mj = _mm_loadu_pd(m + 2 * j), below = _mm_cmplt_pd(mj, tiny);
+        small = small || _mm_movemask_pd(below) != 0;
+        const __m128d r = reciprocal_m ? _mm_loadu_pd(reciprocal_m + 2 * j) : _mm_div_pd(one, mj);
+        im[j] = _mm_andnot_pd(below, r);  // 0 in a small lane, whose sum is replaced below
+        a[j] = one;
         b[j] = _mm_loadu_pd(kc + 2 * j);
         sum[j] = half;
-        im[j] = _mm_loadu_pd(inv_m + 2 * j);
     }
     double w = 0.5;
     for (int n = 0; n < 60; ++n) {
@@ -84,36 +84,47 @@ void elliptic_pairs(const double* kc, const double* m, EllipticPair* out, const 
         }
         if (!going) break;
     }
+    const __m128d half_pi = _mm_set1_pd(pi / 2);
     for (std::size_t j = 0; j < v; ++j) {
-        _mm_storeu_pd(a_end + 2 * j, a[j]);
-        _mm_storeu_pd(sum_end + 2 * j, sum[j]);
+        const __m128d k = _mm_div_pd(half_pi, a[j]), kme = _mm_mul_pd(k, sum[j]);
+        _mm_storel_pd(&out[2 * j].k, k);
+        _mm_storel_pd(&out[2 * j].k_minus_e_over_m, kme);
+        _mm_storeh_pd(&out[2 * j + 1].k, k);
+        _mm_storeh_pd(&out[2 * j + 1].k_minus_e_over_m, kme);
     }
 #else
-    double b[lanes];
+    double a[lanes], b[lanes], sum[lanes], inv_m[lanes];
     for (std::size_t j = 0; j < lanes; ++j) {
-        a_end[j] = 1;
+        small = small || m[j] < 1e-16;
+        inv_m[j] = m[j] < 1e-16 ? 0 : reciprocal_m ? reciprocal_m[j] : 1 / m[j];
+        a[j] = 1;
         b[j] = kc[j];
-        sum_end[j] = 0.5;
+        sum[j] = 0.5;
     }
     double w = 0.5;
     for (int n = 0; n < 60; ++n) {
         w *= 2;
         int going = 0;
         for (std::size_t j = 0; j < lanes; ++j) {
-            const double c = 0.5 * (a_end[j] - b[j]);
-            const double next = 0.5 * (a_end[j] + b[j]);
-            b[j] = std::sqrt(a_end[j] * b[j]);
-            a_end[j] = next;
+            const double c = 0.5 * (a[j] - b[j]);
+            const double next = 0.5 * (a[j] + b[j]);
+            b[j] = std::sqrt(a[j] * b[j]);
+            a[j] = next;
             const double term = w * c * c * inv_m[j];
-            sum_end[j] += term;
-            going |= term > 1e-17 * sum_end[j];
+            sum[j] += term;
+            going |= term > 1e-17 * sum[j];
         }
         if (!going) break;
     }
-#endif
     for (std::size_t j = 0; j < lanes; ++j) {
-        const double k = pi / (2 * a_end[j]);
-        out[j] = m[j] < 1e-16 ? elliptic_k_and_k_minus_e_over_m(kc[j], m[j]) : EllipticPair{k, k * sum_end[j]};
+        const double k = pi / (2 * a[j]);
+        out[j] = EllipticPair{k, k * sum[j]};
+    }
+#endif
+    if (small) {
+        for (std::size_t j = 0; j < lanes; ++j) {
+            if (m[j] < 1e-16) out[j] = elliptic_k_and_k_minus_e_over_m(kc[j], m[j]);
+        }
     }
 }
 

@@ -59,7 +59,9 @@ TEST(Numerics, EllipticPairsInLanesMatchTheScalarPair) {
             EXPECT_NEAR(lanes[j].k / one.k, 1.0, 2e-16) << j;
             EXPECT_NEAR(lanes[j].k_minus_e_over_m / one.k_minus_e_over_m, 1.0, 2e-16) << j;
         }
-        if (j < 4) EXPECT_EQ(four[j].k, eight[j].k) << j;
+        if (j < 4) {
+            EXPECT_EQ(four[j].k, eight[j].k) << j;
+        }
     }
 }
 
