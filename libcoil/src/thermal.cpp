@@ -182,8 +182,10 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
         // the balance S x^(5/4) = P(ambient) + (P(max) - P(ambient)) x is solved by Newton's steps: a guess
         // good to a few per cent of the rise, where the coefficient of 12 W/m^2 K is good to tens.
         const double sh = *shed_at_max, dp = power(max_temperature) - p0;
-        double x = std::min(1.0, std::pow(p0 / sh, 0.8));
-        for (int i = 0; i < 4; ++i) {
+        // From x = min(1, P(ambient) / S), left of the root of the convex balance: the first step
+        // overshoots to the right, and the rest come down monotonically.
+        double x = std::min(1.0, p0 / sh);
+        for (int i = 0; i < 6; ++i) {
             const double q = std::sqrt(std::sqrt(x));  // x^(1/4)
             const double g = sh * x * q - p0 - dp * x, dg = 1.25 * sh * q - dp;
             if (!(dg > 0)) break;
