@@ -56,14 +56,9 @@ const PrefixSums& prefix_sums() {
 }
 
 // Beyond the table f_k = 1/(12k^2) + 1/(60k^4) to 1e-25 relative; its sums over K < k <= M are
-// polygamma differences.
-void sums(int M, double& s0, double& s1) {
+// polygamma differences. Out of line: the common case, a table lookup, stays small.
+[[gnu::noinline, gnu::cold]] void tail_sums(int M, double& s0, double& s1) {
     const auto& p = prefix_sums();
-    if (M <= kTable) {
-        s0 = p.s0[M];
-        s1 = p.s1[M];
-        return;
-    }
     using boost::math::digamma;
     using boost::math::polygamma;
     using boost::math::trigamma;
@@ -74,6 +69,13 @@ void sums(int M, double& s0, double& s1) {
     const double inv_k3 = (polygamma(2, hi) - polygamma(2, lo)) / 2.0;  // sum 1/k^3
     s0 = p.s0[kTable] + inv_k2 / 12.0 + inv_k4 / 60.0;
     s1 = p.s1[kTable] + inv_k / 12.0 + inv_k3 / 60.0;
+}
+
+void sums(int M, double& s0, double& s1) {
+    if (M > kTable) return tail_sums(M, s0, s1);
+    const auto& p = prefix_sums();
+    s0 = p.s0[M];
+    s1 = p.s1[M];
 }
 
 }  // namespace
