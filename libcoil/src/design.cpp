@@ -275,6 +275,7 @@ public:
         }
         ceiling_ = q.band ? q.band->ceiling : 0;
         reference_ = q.band ? q.band->ceiling : q.current_frequency.value_or(0);
+        fewest_turns_ = std::ceil(1 / q.turns_step - 1e-9) * q.turns_step;  // one turn or more, on the step
         limit_ = q.enamel_class;
         if (q.former) limit_ = std::min(limit_, q.former->material.max_service_temperature);
     }
@@ -337,10 +338,11 @@ private:
                     return;
                 }
             } else {
-                const double n_max = room / p;
-                if (n_max < 1) {
-                    t.reject(Reason::length, 1 / n_max, [&] { return what() + ": not one turn fits"; });
-                    return;
+                if (p > room) {  // else room / p >= 1 exactly
+                    if (const double n_max = room / p; n_max < 1) {
+                        t.reject(Reason::length, 1 / n_max, [&] { return what() + ": not one turn fits"; });
+                        return;
+                    }
                 }
                 // The pitch ratios of one wire and form come in rising order, and within one model the
                 // longest winding's inductance falls as the pitch grows: fewer turns over the same length.
@@ -359,6 +361,7 @@ private:
                 }
                 // Every pitch ratio of one wire and form gives the longest winding the same length, so
                 // Nagaoka's coefficient there is computed once for them all.
+                const double n_max = room / p;
                 const double rho_room = mean / room;
                 if (t.sheet_rho != rho_room) {
                     t.sheet_rho = rho_room;
@@ -394,7 +397,7 @@ private:
                 // Snap to the step; trim the pitch. The nearest step first, then its neighbours. The guide
                 // is rescaled (and matched to the slopes) at the solve's last point, beside the solution.
                 const double step = q_.turns_step;
-                const double nearest = std::max(std::ceil(1 / step - 1e-9) * step, std::round(n_solved / step) * step);
+                const double nearest = std::max(fewest_turns_, std::round(n_solved / step) * step);
                 const WheelerGuide guide(mean / 2, last, true);
                 bool done = false;
                 for (double offset : {0.0, -1.0, 1.0}) {
@@ -560,7 +563,7 @@ private:
 
     const Requirement& q_;
     std::vector<Wire> unlabelled_;
-    double ceiling_ = 0, reference_ = 0, limit_ = 0;
+    double ceiling_ = 0, reference_ = 0, limit_ = 0, fewest_turns_ = 1;
 };
 
 std::string reason_words(const std::string& key) {
