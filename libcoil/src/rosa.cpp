@@ -120,9 +120,8 @@ double rosa_inductance(double mean_diameter, double turns, double pitch, double 
 }
 
 InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, double pitch, double wire_diameter) {
-    require_positive("mean_diameter", mean_diameter);
-    require_positive("pitch", pitch);
     require_positive("turns", turns);
+    require_positive("pitch", pitch);  // the coefficient validates D / (N p) itself
     return rosa_inductance_gradient(mean_diameter, turns, pitch, wire_diameter,
                                     nagaoka_coefficient_and_slope(mean_diameter / (turns * pitch)));
 }
@@ -134,16 +133,17 @@ InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, 
     require_positive("wire_diameter", wire_diameter);
     const double A = rosa_self_correction(pitch / wire_diameter);
     const auto [s0, s1] = mutual_sums(turns);
-    const double B = 2.0 * s0 - 2.0 * s1 / turns;
-    // L = S (N / p) K(rho) - mu0 a N (A + B), S = mu0 pi a^2, rho = D / (N p); dA/dp = -1/p, and between
-    // whole N, dB/dN = 2 S1 / N^2.
-    const double a = mean_diameter / 2, S = mu0 * pi * a * a, rho = mean_diameter / (turns * pitch);
-    const double rho_slope = rho * sheet.slope;
+    // L = S (N / p) K(rho) - mu0 a N (A + B), S = mu0 pi a^2, rho = D / (N p), B = 2 S0 - 2 S1 / N;
+    // dA/dp = -1/p, and between whole N, dB/dN = 2 S1 / N^2. Two divisions; the rest multiplies.
+    const double inv_n = 1 / turns, inv_p = 1 / pitch;
+    const double B = 2.0 * s0 - 2.0 * s1 * inv_n;
+    const double a = mean_diameter / 2, S = mu0 * pi * a * a, mu0a = mu0 * a;
+    const double rho_slope = mean_diameter * inv_n * inv_p * sheet.slope;  // rho dK/drho
+    const double sheet_n = S * inv_p, sheet_l = sheet_n * turns * sheet.value;  // S / p, S (N / p) K
     InductanceGradient g;
-    g.inductance = finite_result("Rosa's correction", S * turns / pitch * sheet.value - mu0 * a * turns * (A + B));
-    g.d_turns = finite_result("Rosa's correction", S / pitch * (sheet.value - rho_slope) - mu0 * a * (A + B) -
-                                                       mu0 * a * 2.0 * s1 / turns);
-    g.d_pitch = finite_result("Rosa's correction", -S * turns / (pitch * pitch) * (sheet.value + rho_slope) + mu0 * a * turns / pitch);
+    g.inductance = finite_result("Rosa's correction", sheet_l - mu0a * turns * (A + B));
+    g.d_turns = finite_result("Rosa's correction", sheet_n * (sheet.value - rho_slope) - mu0a * (A + B) - mu0a * 2.0 * s1 * inv_n);
+    g.d_pitch = finite_result("Rosa's correction", -sheet_n * turns * inv_p * (sheet.value + rho_slope) + mu0a * turns * inv_p);
     return g;
 }
 
