@@ -456,9 +456,9 @@ private:
             ac_ratio = r.resistance / r.dc;
         }
         const double wire_len = s.wire_length();
-        const auto power = [&](double temp) {
-            return q_.current * q_.current * ac_ratio * dc_resistance(q_.conductor, bare, wire_len, temp);
-        };
+        // I^2 (R_ac / R_dc) R_dc(T), the factors that do not depend on T taken once.
+        const double per_resistivity = q_.current * q_.current * ac_ratio * resistance_per_resistivity(bare, wire_len);
+        const auto power = [&](double temp) { return per_resistivity * q_.conductor.resistivity_at(temp); };
         const ThermalSurface surface{outer, d.overall_length, 0.85, CoilAxis::horizontal};
         d.temperature_limit = limit_;
         // At the limit first: a winding that still dissipates more than it sheds there settles above it

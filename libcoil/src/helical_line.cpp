@@ -187,7 +187,7 @@ double sheath_inner_energy_share(double a, double r_in, double r_out, double gam
                                                                        : detail::BesselI01{boost::math::cyl_bessel_i(0, u, fast()),
                                                                                            boost::math::cyl_bessel_i(1, u, fast())};
         const double e0 = b.i0, e1 = b.i1;
-        const double e2 = e0 - 2 * e1 / u;
+        const double e2 = e0 - 2 * e1 / u;  // I2 = I0 - 2 I1 / u (A&S 9.6.26)
         const double w = u * u / 2 * ((e0 * e0 - e1 * e1) + b2 * (e1 * e1 - e0 * e2));
         return scaled ? w * std::exp(2 * (u - ua)) : w;
     };

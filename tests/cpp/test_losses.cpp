@@ -21,6 +21,9 @@ TEST(DcResistance, Iec60028Copper) {
     EXPECT_NEAR(dc_resistance(cu, 1e-3, 2.0, 348.15) / dc_resistance(cu, 1e-3, 2.0, 293.15), 1 + 0.00393 * 55, 1e-14);
     EXPECT_THROW(dc_resistance(cu, -1e-3, 1.0, 293.15), InputError);
     EXPECT_THROW(dc_resistance(cu, 1e-3, 1.0, 10.0), InputError);  // rho would go negative: outside the law
+    // The geometric factor alone, times the resistivity, is the same resistance (the thermal balance's form).
+    EXPECT_NEAR(resistance_per_resistivity(1e-3, 2.0) * cu.resistivity_at(348.15) / dc_resistance(cu, 1e-3, 2.0, 348.15), 1.0, 1e-15);
+    EXPECT_THROW(resistance_per_resistivity(0.0, 1.0), InputError);
 }
 
 TEST(Skin, KelvinSmallArgumentSeries) {

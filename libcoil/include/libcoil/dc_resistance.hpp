@@ -16,5 +16,8 @@ namespace libcoil {
 double dc_resistance(const Conductor& c, double diameter, double length, double temperature);
 // Per metre.
 double dc_resistance_per_length(const Conductor& c, double diameter, double temperature);
+// The geometric factor length / (pi d^2 / 4), in 1/m: R = rho(T) times it. For a caller that evaluates
+// one wire at many temperatures (the thermal balance).
+double resistance_per_resistivity(double diameter, double length);
 
 }  // namespace libcoil
