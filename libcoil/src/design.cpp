@@ -119,45 +119,49 @@ public:
 private:
     Box box(std::size_t i) const { return {loss_[i], size_[i], srf_[i]}; }
 
+    // The box in the stored width, so that the scans compare 16-bit integers (bin() keeps it in range).
+    struct Narrow {
+        std::int16_t loss, size, srf;
+        explicit Narrow(const Box& b)
+            : loss(static_cast<std::int16_t>(b.loss)), size(static_cast<std::int16_t>(b.size)), srf(static_cast<std::int16_t>(b.srf)) {}
+    };
+    static constexpr std::size_t block = 16;  // scanned with a fixed count and no branch: vector instructions
+
     // The first box at or below b in every figure, or size() if none.
-    std::size_t first_at_or_below(const Box& b) const {
-        constexpr std::size_t block = 16;
+    std::size_t first_at_or_below(const Box& box_b) const {
+        const Narrow b(box_b);
         const std::size_t n = designs_.size();
-        const std::int16_t bl = static_cast<std::int16_t>(b.loss), bs = static_cast<std::int16_t>(b.size),
-                           br = static_cast<std::int16_t>(b.srf);
         std::size_t start = 0;
         for (; start + block <= n; start += block) {
-            std::int16_t any = 0;  // a fixed count and no branch: the compiler vectorises this
+            std::int16_t any = 0;
             for (std::size_t j = 0; j < block; ++j) {
                 const std::size_t i = start + j;
-                any |= static_cast<std::int16_t>((loss_[i] <= bl) & (size_[i] <= bs) & (srf_[i] <= br));
+                any |= static_cast<std::int16_t>((loss_[i] <= b.loss) & (size_[i] <= b.size) & (srf_[i] <= b.srf));
             }
             if (!any) continue;
             for (std::size_t i = start; i < start + block; ++i) {
-                if (box(i).at_or_below(b)) return i;
+                if (box(i).at_or_below(box_b)) return i;
             }
         }
         for (std::size_t i = start; i < n; ++i) {
-            if (box(i).at_or_below(b)) return i;
+            if (box(i).at_or_below(box_b)) return i;
         }
         return n;
     }
 
     // Whether any box is at or above b in every figure.
-    bool any_at_or_above(const Box& b) const {
-        constexpr std::size_t block = 16;
+    bool any_at_or_above(const Box& box_b) const {
+        const Narrow b(box_b);
+        const auto above = [&](std::size_t i) {
+            return static_cast<std::int16_t>((loss_[i] >= b.loss) & (size_[i] >= b.size) & (srf_[i] >= b.srf));
+        };
         const std::size_t n = designs_.size();
-        const std::int16_t bl = static_cast<std::int16_t>(b.loss), bs = static_cast<std::int16_t>(b.size),
-                           br = static_cast<std::int16_t>(b.srf);
         std::int16_t any = 0;
         std::size_t start = 0;
         for (; start + block <= n; start += block) {
-            for (std::size_t j = 0; j < block; ++j) {  // as in first_at_or_below
-                const std::size_t i = start + j;
-                any |= static_cast<std::int16_t>((loss_[i] >= bl) & (size_[i] >= bs) & (srf_[i] >= br));
-            }
+            for (std::size_t j = 0; j < block; ++j) any |= above(start + j);
         }
-        for (std::size_t i = start; i < n; ++i) any |= static_cast<std::int16_t>((loss_[i] >= bl) & (size_[i] >= bs) & (srf_[i] >= br));
+        for (std::size_t i = start; i < n; ++i) any |= above(i);
         return any != 0;
     }
 
