@@ -113,23 +113,7 @@ std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double 
 }
 
 // The root of f on [b.lo, b.hi], f monotone (rising if `increasing`), to a relative tolerance 2^(1 - bits),
-// by secant steps. With an estimate of the slope at the guess, the first step is Newton's with it (a
-// slope good to 1 % turns a guess good to 1e-3 into one good to 1e-5); without, a probe beside the guess.
-template <class F>
-std::optional<double> monotone_root(const F& f, bool increasing, double guess, MonotoneBracket b, int bits,
-                                    double first_slope = NAN) {
-    bool first = true;
-    return bracketed_steps(
-        [&](double x) {
-            const double fx = f(x);
-            const double step = first && first_slope != 0 ? fx / first_slope : NAN;
-            first = false;
-            return RootStep{fx, step};
-        },
-        increasing, guess, b, bits);
-}
-
-// The same by Newton's steps: `fd(x)` returns {f(x), f'(x)}.
+// by Newton's steps: `fd(x)` returns {f(x), f'(x)}.
 template <class FD>
 std::optional<double> monotone_root_newton(const FD& fd, bool increasing, double guess, MonotoneBracket b, int bits) {
     return bracketed_steps(

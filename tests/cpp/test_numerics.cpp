@@ -19,8 +19,13 @@
 namespace {
 
 using libcoil::detail::elliptic_k_and_k_minus_e_over_m;
-using libcoil::detail::monotone_root;
 using libcoil::detail::monotone_root_newton;
+
+// Secant steps only, from the guess and a probe beside it (what bracketed_steps does without slopes).
+template <class F>
+std::optional<double> monotone_root(const F& f, bool increasing, double guess, libcoil::detail::MonotoneBracket b, int bits) {
+    return libcoil::detail::bracketed_steps([&](double x) { return libcoil::detail::RootStep{f(x)}; }, increasing, guess, b, bits);
+}
 
 TEST(Numerics, EllipticPairAgainstCarlson) {
     // K = R_F(0, k'^2, 1) and (K - E) / k^2 = R_D(0, k'^2, 1) / 3 (DLMF 19.25.1), Boost.Math at long double.
