@@ -3,7 +3,7 @@
 #include <array>
 #include <cmath>
 
-#include "elliptic.hpp"
+#include "maxwell_bracket.hpp"
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
 
@@ -57,8 +57,7 @@ double coaxial_mutual_inductance(double a, double b, double z) {
         }
         bracket = pi / 2 * k * m * sum;
     } else {
-        const auto [K, kme_m] = detail::elliptic_k_and_k_minus_e_over_m(std::sqrt(mc), m);
-        bracket = k * (2.0 * kme_m - K);
+        bracket = detail::maxwell_bracket(k, detail::elliptic_k_and_k_minus_e_over_m(std::sqrt(mc), m));
     }
     return finite_result("Maxwell's formula", mu0 * std::sqrt(a * b) * bracket);
 }

@@ -3,7 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "elliptic.hpp"
+#include "maxwell_bracket.hpp"
 #include "libcoil/coaxial_mutual.hpp"
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
@@ -22,8 +22,8 @@ double filament_inductance(double mean_diameter, double turns, double pitch, dou
     const auto offsets = static_cast<long>(std::ceil(turns)) - 1;
     // Sum the small far terms first for accuracy. Those with k^2 >= 0.2 (z <= 4 a), where
     // coaxial_mutual_inductance takes the elliptic integrals, come eight at a time through the same
-    // integrals in lanes (elliptic.hpp): for equal radii, M = mu0 a k (2 (K - E) / k^2 - K) with
-    // k^2 = 4 a^2 / (4 a^2 + z^2).
+    // integrals in lanes (elliptic.hpp) and the same bracket (maxwell_bracket.hpp): for equal radii,
+    // M = mu0 a bracket, k^2 = 4 a^2 / (4 a^2 + z^2).
     const auto near = std::min(offsets, static_cast<long>(std::floor(4 * a / pitch)));
     double mutual = 0.0;
     for (long k = offsets; k > near; --k) {
@@ -46,7 +46,7 @@ double filament_inductance(double mean_diameter, double turns, double pitch, dou
         detail::elliptic_pairs<lanes>(kc, m, e, inv_m);
         for (long j = 0; j < lanes; ++j) {
             const double k = 2 * a / root[j];
-            near_sum += weight[j] * mu0 * a * k * (2 * e[j].k_minus_e_over_m - e[j].k);
+            near_sum += weight[j] * mu0 * a * detail::maxwell_bracket(k, e[j]);
         }
     }
     mutual += near_sum;

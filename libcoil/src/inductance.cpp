@@ -10,8 +10,7 @@
 namespace libcoil {
 
 double recommended_inductance(double mean_diameter, double turns, double pitch, double wire_diameter) {
-    if (rosa_in_domain(pitch, mean_diameter / 2)) return rosa_inductance(mean_diameter, turns, pitch, wire_diameter);
-    return filament_inductance(mean_diameter, turns, pitch, wire_diameter);
+    return recommended_inductance_with_slopes(mean_diameter, turns, pitch, wire_diameter).inductance;
 }
 
 RecommendedInductance recommended_inductance_with_slopes(double mean_diameter, double turns, double pitch,

@@ -103,25 +103,19 @@ std::pair<double, double> mutual_sums(double turns) {
 
 double rosa_mutual_correction(double turns) {
     const auto [s0, s1] = mutual_sums(turns);
-    return 2.0 / turns * (turns * s0 - s1);
+    return 2.0 * s0 - 2.0 * s1 / turns;  // (2/N) (N S0 - S1)
 }
 
 bool rosa_in_domain(double pitch, double mean_radius) { return pitch <= 0.4 * mean_radius; }
 
 double rosa_inductance(double mean_diameter, double turns, double pitch, double wire_diameter) {
-    require_positive("mean_diameter", mean_diameter);
-    require_positive("pitch", pitch);
-    require_positive("wire_diameter", wire_diameter);
-    const double A = rosa_self_correction(pitch / wire_diameter);
-    const double B = rosa_mutual_correction(turns);
-    const double a = mean_diameter / 2;
-    return finite_result("Rosa's correction",
-                         current_sheet_inductance(mean_diameter, turns * pitch, turns) - mu0 * a * turns * (A + B));
+    return rosa_inductance_gradient(mean_diameter, turns, pitch, wire_diameter).inductance;
 }
 
 InductanceGradient rosa_inductance_gradient(double mean_diameter, double turns, double pitch, double wire_diameter) {
+    require_positive("mean_diameter", mean_diameter);
     require_positive("turns", turns);
-    require_positive("pitch", pitch);  // the coefficient validates D / (N p) itself
+    require_positive("pitch", pitch);
     return rosa_inductance_gradient(mean_diameter, turns, pitch, wire_diameter,
                                     nagaoka_coefficient_and_slope(mean_diameter / (turns * pitch)));
 }

@@ -93,8 +93,8 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
         // One fixed-point step leaves an error of about |T'| |g0|, and |T'| is itself of the order of
         // |g0| / e: both come from the mode's departure from the slow wave, e k^2 / beta^2 (measured on
         // the demo's candidates: g0 / e ~ -4e-5, T' ~ -2.5e-5). Where (g0 / e)^2 is below a tenth of the
-        // tolerance, e1 is within it, and only its wavenumber is needed (SelfResonance.SearchTolerance
-        // checks the result against the full solve).
+        // tolerance, e1 is within it, and only its wavenumber is needed (the test
+        // SelfResonance.SearchToleranceAgreesWithTheFullSolve checks the result against the full solve).
         const double step = g0 / e0;
         if (std::fabs(step) > tolerance && step * step <= 0.1 * tolerance) {
             solve_wavenumber(e1);
