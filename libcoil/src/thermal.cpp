@@ -184,12 +184,18 @@ ThermalResult winding_temperature(const std::function<double(double)>& power, co
         const double sh = *shed_at_max, dp = power(max_temperature) - p0;
         // From x = min(1, P(ambient) / S), left of the root of the convex balance: the first step
         // overshoots to the right, and the rest come down monotonically.
+        // This simplified balance is itself good to a few per cent only, so its root is wanted to 1e-3 of
+        // x: Newton's steps stop once one moves x by less than that (usually after three). The solve
+        // below still meets the caller's tolerance; only its start moves.
         double x = std::min(1.0, p0 / sh);
         for (int i = 0; i < 6; ++i) {
             const double q = std::sqrt(std::sqrt(x));  // x^(1/4)
             const double g = sh * x * q - p0 - dp * x, dg = 1.25 * sh * q - dp;
             if (!(dg > 0)) break;
-            x = std::clamp(x - g / dg, 1e-6, 1.0);
+            const double next = std::clamp(x - g / dg, 1e-6, 1.0);
+            const bool settled = std::fabs(next - x) <= 1e-3 * x;
+            x = next;
+            if (settled) break;
         }
         guess = ambient + x * (max_temperature - ambient);
     }
