@@ -396,7 +396,8 @@ private:
                     if (last.l.has_slopes) return detail::RootStep{f, f / last.l.d_turns, true};
                     return detail::RootStep{f, was_first ? f / from_max.slope_turns(x, p) : NAN};
                 };
-                const auto solved = detail::bracketed_steps(turns_step, true, guess, {1, n_max, std::nullopt, l_max - target}, 21);
+                // Curvature bound 2: L(n) has Wheeler's shape n^2 / (n p + b), for which |n L'' / 2 L'| < 1/2.
+                const auto solved = detail::bracketed_steps(turns_step, true, guess, {1, n_max, std::nullopt, l_max - target}, 21, 2);
                 if (!solved) {
                     const double l_one = L(1, p);
                     t.reject(Reason::inductance_out_of_reach, l_one / target, [&] { return what() + ": one turn already gives " +
@@ -566,7 +567,9 @@ private:
             if (last.l.has_slopes) return detail::RootStep{f, f / last.l.d_pitch, true};
             return detail::RootStep{f, was_first ? f / guide.slope_pitch(n, x) : NAN};
         };
-        const auto r = detail::bracketed_steps(pitch_step, false, guess, {d_ins, p_max}, 34);
+        // Curvature bound 4: in Wheeler's shape |p L'' / 2 L'| < 1, and Rosa's correction adds about
+        // p / (2 pi a), well below 1 for any pitch the search allows.
+        const auto r = detail::bracketed_steps(pitch_step, false, guess, {d_ins, p_max}, 34, 4);
         if (r) p = *r;
         return r.has_value();
     }

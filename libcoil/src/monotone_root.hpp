@@ -33,13 +33,16 @@ struct RootStep {
 
 // `eval(x)` returns a RootStep. After a secant step the iteration stops at the last point it evaluated
 // once the next step is below the tolerance (the root then lies within that step of it), or at the next
-// point once the product of the last two steps says that point is within it. After a Newton step it stops
-// at the point evaluated when its own step is below the tolerance, or at the next point when that step is
-// below sqrt(tol) / 10: the error is then of the order of the step squared, far below the tolerance.
+// point once the product of the last two steps says that point is within it. After a Newton step s from
+// x it stops at x when |s| is below the tolerance, or at x - s, unevaluated, when C (s / x)^2 is: Newton's
+// error after the step is (f'' / 2 f') s^2, and `curvature` is a bound C on |x f'' / (2 f')| near the
+// root. The default, 100, suits any smooth function of moderate curvature; a caller that knows its
+// function's shape may give a tighter bound and save an evaluation.
 template <class Eval>
-std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits) {
+std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double guess, MonotoneBracket b, int bits,
+                                      double curvature = 100) {
     constexpr double probe = 1e-4;  // the secant's second point, as a share of the guess or the interval
-    const double tol = std::ldexp(1.0, 1 - bits), newton_done = 0.1 * std::sqrt(tol);
+    const double tol = std::ldexp(1.0, 1 - bits), newton_done = std::sqrt(tol / curvature);
     // `below` is the lower end of the bracket, where the root lies above; `above` the upper end.
     double below = b.lo, above = b.hi;
     std::optional<double> f_below = b.f_lo, f_above = b.f_hi;
