@@ -83,7 +83,14 @@ void sums(int M, double& s0, double& s1) {
 double rosa_self_correction(double pitch_to_wire) {
     require_finite("pitch_to_wire", pitch_to_wire);
     require_at_least("pitch_to_wire", pitch_to_wire, 1.0, "the turns would overlap");
-    return 1.25 - std::log(2.0) - std::log(pitch_to_wire);  // log(2 x) would overflow near DBL_MAX
+    // A root finder on the turns calls this with one pitch many times over: the last value is kept (one
+    // per thread), which spares the logarithm and changes no result.
+    thread_local double last_x = 0, last_a = 0;
+    if (pitch_to_wire != last_x) {
+        last_a = 1.25 - std::log(2.0) - std::log(pitch_to_wire);  // log(2 x) would overflow near DBL_MAX
+        last_x = pitch_to_wire;
+    }
+    return last_a;
 }
 
 namespace {
