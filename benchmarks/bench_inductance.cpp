@@ -14,10 +14,23 @@ void BM_Nagaoka(benchmark::State& s) {
     double rho = 0.37;
     for (auto _ : s) {
         benchmark::DoNotOptimize(libcoil::nagaoka_coefficient(rho));
-        rho = rho < 30 ? rho * 1.07 : 0.01;  // sweep both branches
+        rho = rho < 30 ? rho * 1.07 : 0.01;  // sweep the table and the elliptic integrals beyond it
     }
 }
 BENCHMARK(BM_Nagaoka);
+
+// The table's range, D/l = 0.01 .. 9, the public value and slope against the elliptic integrals
+// themselves: what the table saves the design search.
+void BM_NagaokaAndSlopeInTable(benchmark::State& s) {
+    const bool table = s.range(0) == 1;
+    double rho = 0.37;
+    for (auto _ : s) {
+        benchmark::DoNotOptimize(table ? libcoil::nagaoka_coefficient_and_slope(rho)
+                                       : libcoil::detail::nagaoka_by_elliptic_integrals(rho));
+        rho = rho < 9 ? rho * 1.07 : 0.01;
+    }
+}
+BENCHMARK(BM_NagaokaAndSlopeInTable)->Arg(0)->Arg(1)->ArgName("table");
 
 void BM_RecommendedInductance(benchmark::State& s) {
     const libcoil::Wire w{1e-3, 0.04e-3, "1 mm"};

@@ -1,10 +1,12 @@
 #include "libcoil/nagaoka.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "elliptic.hpp"
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "nagaoka_table.hpp"
 
 namespace libcoil {
 
@@ -54,16 +56,36 @@ double checked_q(double rho) {
     return q;
 }
 
-}  // namespace
-
-double nagaoka_coefficient(double rho) {
-    const double q = checked_q(rho), kc = std::sqrt(q);
-    const detail::EllipticPair e = q < 0.1 ? detail::EllipticPair{} : detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);
-    return coefficient_from(rho, q, kc, e);
+// The table's part and the position u in [-1, 1] within it for t = 1 / (1 + rho), t >= t_min.
+struct TableSpot {
+    const detail::nagaoka_table::Part* part;
+    double u;
+};
+TableSpot table_spot(double t) {
+    using namespace detail::nagaoka_table;
+    const double s = (t - t_min) * (segments / (1 - t_min));
+    const int i = std::min(segments - 1, static_cast<int>(s));
+    return {&parts[i], 2 * (s - i) - 1};
 }
 
-NagaokaSlope nagaoka_coefficient_and_slope(double rho) {
+// A polynomial of degree 12 by Estrin's scheme: four levels of independent multiply-adds, where Horner's
+// rule would chain twelve.
+double estrin12(const double* c, double u) {
+    static_assert(detail::nagaoka_table::degree == 12, "estrin12 evaluates degree 12");
+    const double u2 = u * u, u4 = u2 * u2, u8 = u4 * u4;
+    const double p01 = c[0] + c[1] * u, p23 = c[2] + c[3] * u, p45 = c[4] + c[5] * u;
+    const double p67 = c[6] + c[7] * u, p89 = c[8] + c[9] * u, p1011 = c[10] + c[11] * u;
+    const double p03 = p01 + p23 * u2, p47 = p45 + p67 * u2, p811 = p89 + p1011 * u2;
+    return (p03 + p47 * u4) + (p811 + c[12] * u4) * u8;
+}
+
+// Below t_min (D / l above 9, short coils) the elliptic integrals themselves.
+NagaokaSlope by_elliptic_integrals(double rho, bool with_slope) {
     const double q = checked_q(rho), kc = std::sqrt(q);
+    if (!with_slope) {
+        const detail::EllipticPair e = q < 0.1 ? detail::EllipticPair{} : detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);
+        return {coefficient_from(rho, q, kc, e), NAN};
+    }
     const detail::EllipticPair e = detail::elliptic_k_and_k_minus_e_over_m(kc, rho * rho * q);
     // dK/drho = (4 / (3 pi)) [ (s / rho) (E - 2 q (K - E) / k^2) - 1 ], s = sqrt(1 + rho^2) = 1 / k', from
     // K = (4 / (3 pi)) [ s ((K - E) / rho^2 + E) - rho ] with d(K - E)/dk = k E / k'^2, dE/dk = (E - K) / k
@@ -71,6 +93,28 @@ NagaokaSlope nagaoka_coefficient_and_slope(double rho) {
     // O(ln rho / rho^2) for short ones, which costs the slope a few digits at the ends of the domain.
     const double E = e.k - rho * rho * q * e.k_minus_e_over_m;
     return {coefficient_from(rho, q, kc, e), 4.0 / (3.0 * pi) * ((E - 2 * q * e.k_minus_e_over_m) / (rho * kc) - 1)};
+}
+
+}  // namespace
+
+NagaokaSlope detail::nagaoka_by_elliptic_integrals(double rho) { return by_elliptic_integrals(rho, true); }
+
+double nagaoka_coefficient(double rho) {
+    require_positive("diameter_to_length", rho);
+    if (const double t = 1 / (1 + rho); t >= detail::nagaoka_table::t_min) {
+        const TableSpot at = table_spot(t);
+        return estrin12(at.part->value, at.u);
+    }
+    return by_elliptic_integrals(rho, false).value;
+}
+
+NagaokaSlope nagaoka_coefficient_and_slope(double rho) {
+    require_positive("diameter_to_length", rho);
+    if (const double t = 1 / (1 + rho); t >= detail::nagaoka_table::t_min) {
+        const TableSpot at = table_spot(t);
+        return {estrin12(at.part->value, at.u), estrin12(at.part->slope, at.u)};
+    }
+    return by_elliptic_integrals(rho, true);
 }
 
 double sheet_inductance(double mean_diameter, double length, double turns, double (*coefficient)(double),

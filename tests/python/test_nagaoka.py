@@ -31,11 +31,23 @@ def nagaoka_scipy(rho):
 
 
 def test_against_mpmath_whole_range():
+    # Measured: 4.4e-16 within the table (D/l <= 9), 5.6e-16 beyond it (the elliptic integrals).
     rho = np.logspace(-3, 3, 1201)
     ours = libcoil.nagaoka(rho)
     ref = np.array([float(nagaoka_mpmath(r)) for r in rho])
     rel = np.abs(ours / ref - 1)
-    assert rel.max() <= 1e-14, (rel.max(), rho[rel.argmax()])
+    assert rel.max() <= 2e-15, (rel.max(), rho[rel.argmax()])
+
+
+def test_table_against_mpmath_at_random_points():
+    # Points that fall anywhere within the table's parts (not on a grid its generator saw).
+    rng = np.random.default_rng(2026)
+    rho = np.exp(rng.uniform(np.log(1e-4), np.log(9), 400))
+    rel_value = np.abs(libcoil.nagaoka(rho) / np.array([float(nagaoka_mpmath(r)) for r in rho]) - 1)
+    assert rel_value.max() <= 2e-15, rel_value.max()
+    ref_slope = np.array([float(mpmath.diff(nagaoka_mpmath, mpmath.mpf(r))) for r in rho[:100]])
+    rel_slope = np.abs(libcoil.nagaoka_slope(rho[:100]) / ref_slope - 1)
+    assert rel_slope.max() <= 2e-15, rel_slope.max()
 
 
 def test_against_scipy_where_double_precision_resolves_1e12():
@@ -77,16 +89,28 @@ def test_vectorised_shapes_and_errors():
 
 def test_slope_against_mpmath_derivative():
     # mpmath.diff differentiates the 40-digit closed form numerically (its default step is far below
-    # double precision), so the reference is good to ~1e-30; ours loses digits only to the bracket's
-    # cancellation at the ends of the domain.
+    # double precision), so the reference is good to ~1e-30; beyond the table ours loses digits to the
+    # bracket's cancellation for short coils.
     rho = np.logspace(-3, 3, 241)
     ours = libcoil.nagaoka_slope(rho)
     ref = np.array([float(mpmath.diff(nagaoka_mpmath, mpmath.mpf(r))) for r in rho])
     rel = np.abs(ours / ref - 1)
-    # Measured: 3.2e-13 worst for D/l = 1e-3 .. 10 (at the long end, where the bracket cancels to O(rho)),
-    # and 1.35e-10 at D/l = 944, where the short coil's bracket has cancelled to O(ln rho / rho^2).
+    # Measured: 4.4e-16 for D/l = 1e-3 .. 9, where the table holds; beyond it the elliptic slope, 2.2e-14
+    # up to D/l = 10 and 1.35e-10 at D/l = 944, where the short coil's bracket has cancelled to
+    # O(ln rho / rho^2).
+    assert rel[rho <= 9].max() <= 2e-15, rel[rho <= 9].max()
     assert rel[rho <= 10].max() <= 1e-12, rel[rho <= 10].max()
     assert rel.max() <= 3e-10, (rel.max(), rho[rel.argmax()])
     # The long-coil series K = 1 - 4 rho / (3 pi) + rho^2 / 8 - ... (Grover 1946, from memory) gives the
     # slope's limit: -4 / (3 pi) + rho / 4.
     assert libcoil.nagaoka_slope(1e-4) == pytest.approx(-4 / (3 * np.pi) + 1e-4 / 4, rel=1e-9)
+
+
+def test_the_generated_table_is_what_its_generator_writes(source_dir):
+    # The table in libcoil/src/nagaoka_table.hpp is generated; running its generator again must give the
+    # same file byte for byte, so that no hand edit or stale table goes unnoticed.
+    import subprocess
+    import sys
+    out = subprocess.run([sys.executable, str(source_dir / "tools" / "nagaoka_table.py")],
+                         capture_output=True, text=True, check=True, timeout=120).stdout
+    assert out == (source_dir / "libcoil" / "src" / "nagaoka_table.hpp").read_text()
