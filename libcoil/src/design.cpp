@@ -180,7 +180,7 @@ private:
 // Why a candidate fails, with the key the report and JSON use and the words of the binding-limit note.
 enum class Reason : std::size_t {
     outer_diameter, length, wire_length, thermal, srf_margin, max_deviation, min_impedance,
-    inductance_out_of_reach, snapping, model_domain, count
+    inductance_out_of_reach, snapping, groove, model_domain, count
 };
 struct ReasonText {
     const char *key, *words;
@@ -195,6 +195,7 @@ constexpr std::array<ReasonText, static_cast<std::size_t>(Reason::count)> reason
     {"min_impedance", "the band's minimum impedance"},
     {"inductance_out_of_reach", "the target inductance (out of reach with these turns)"},
     {"snapping", "snapping the turns to the step"},
+    {"groove", "the former's groove (the pitch must exceed the wire by the groove's clearance)"},
     {"model_domain", "the models' domain"},
 }};
 
@@ -333,12 +334,18 @@ private:
         const double target = q_.inductance;
         double n = 0, p = c.ratio * d_ins, n_solved = 0;
         const double p_grid = p;
+        // A grooved or ribbed former needs the groove's clearance between turns: no pitch below it.
+        const double p_min = d_ins + (q_.former ? q_.former->groove.clearance : 0);
+        if (p < p_min) {
+            t.reject(Reason::groove, p_min / p, [&] { return what() + ": pitch " + mm(p) + " below the wire plus the groove's clearance, " + mm(p_min); });
+            return;
+        }
         try {
             if (q_.turns) {
                 n = n_solved = *q_.turns;
                 L(n, p);
-                if (!solve_pitch(n, d_ins, room, L, WheelerGuide(mean / 2, last, false), p, last)) {
-                    const double l_touch = L(n, d_ins);
+                if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, false), p, last)) {
+                    const double l_touch = L(n, p_min);
                     if (l_touch < target) {
                         t.reject(Reason::inductance_out_of_reach, target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
                                  " at most with the fixed turns"; });
@@ -414,7 +421,7 @@ private:
                 for (double offset : {0.0, -1.0, 1.0}) {
                     n = nearest + offset * step;
                     if (n < 1) continue;
-                    if (solve_pitch(n, d_ins, room, L, guide, p, last)) {
+                    if (solve_pitch(n, p_min, room, L, guide, p, last)) {
                         done = true;
                         break;
                     }
@@ -550,16 +557,16 @@ private:
         t.front.add(d);
     }
 
-    // Pitch in [d_ins, room / n] with L(n, p) = target to 1e-10; L falls as p grows. The guide gives the
+    // Pitch in [p_min, room / n] with L(n, p) = target to 1e-10; L falls as p grows. The guide gives the
     // first guess; Newton's steps follow with Rosa's slope (the filament sum's secant steps start from
     // the guide's). `p` receives the pitch; `last` is the last point `L` evaluated.
     template <class F>
-    bool solve_pitch(double n, double d_ins, double room, const F& L, const WheelerGuide& guide, double& p,
+    bool solve_pitch(double n, double p_min, double room, const F& L, const WheelerGuide& guide, double& p,
                      const Point& last) const {
         const double p_max = room / n;
-        if (p_max < d_ins) return false;
+        if (p_max < p_min) return false;
         const double g = guide.pitch_for(q_.inductance, n);
-        const double guess = std::isfinite(g) ? std::clamp(g, d_ins, p_max) : 0.5 * (d_ins + p_max);
+        const double guess = std::isfinite(g) ? std::clamp(g, p_min, p_max) : 0.5 * (p_min + p_max);
         bool first = true;
         const auto pitch_step = [&](double x) {
             const double f = L(n, x) - q_.inductance;
@@ -569,7 +576,7 @@ private:
         };
         // Curvature bound 4: in Wheeler's shape |p L'' / 2 L'| < 1, and Rosa's correction adds about
         // p / (2 pi a), well below 1 for any pitch the search allows.
-        const auto r = detail::bracketed_steps(pitch_step, false, guess, {d_ins, p_max}, 34, 4);
+        const auto r = detail::bracketed_steps(pitch_step, false, guess, {p_min, p_max}, 34, 4);
         if (r) p = *r;
         return r.has_value();
     }
@@ -807,7 +814,19 @@ std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {
         const FormerSpec& f = *s.former;
         o << "former:\n  material: " << f.material.name << "\n  kind: " << former_kind_name(f.kind) << "\n  wall: "
           << q(f.wall, "mm", 1e3) << "\n";
-        if (f.kind == FormerKind::ribbed) o << "  ribs: " << f.ribs << "\n  rib_width: " << q(f.rib_width, "mm", 1e3) << "\n";
+        if (f.kind == FormerKind::ribbed) {
+            o << "  ribs: " << f.ribs << "\n  rib_width: " << q(f.rib_width, "mm", 1e3) << "\n  hub_wall: " << q(f.hub_wall, "mm", 1e3)
+              << "\n";
+        }
+        if (f.ends) o << "  ends: " << q(*f.ends, "mm", 1e3) << "\n";
+        const GrooveSpec& g = f.groove;
+        o << "  groove: {profile: " << (g.profile == GrooveProfile::vee ? "vee" : "round");
+        if (g.depth) o << ", depth: " << q(*g.depth, "mm", 1e3);
+        o << ", clearance: " << q(g.clearance, "mm", 1e3);
+        if (g.profile == GrooveProfile::vee) o << ", angle_deg: " << detail::significant(g.angle * 180 / pi, 10);
+        o << "}\n";
+        if (f.flange) o << "  flange: {diameter: " << q(f.flange->diameter, "mm", 1e3) << ", thickness: " << q(f.flange->thickness, "mm", 1e3) << "}\n";
+        o << "  min_wall: " << q(f.min_wall, "mm", 1e3) << "\n";
     }
     o << "surroundings:\n  relative_permittivity: " << detail::significant(s.surroundings.relative_permittivity, 10)
       << "\n  mounting: " << mounting_name(s.surroundings.mounting) << "\n";

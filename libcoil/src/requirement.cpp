@@ -149,7 +149,14 @@ Requirement read_requirement(const YAML::Node& root) {
             throw InputError(ob.path_of("loss"), "all objective weights are zero; give at least one above zero");
         }
     }
-    if (top.has("former")) q.former = detail::read_former(top.map("former"), q.form_diameter.min, q.notes);
+    if (top.has("former")) {
+        const detail::YamlMap fm = top.map("former");
+        if (fm.has("ends")) {
+            throw InputError(fm.path_of("ends"), "a requirement gives the former's ends as limits.former_ends, which the length limit counts");
+        }
+        q.former = detail::read_former(fm, q.form_diameter.min, q.notes);
+        q.former->ends = q.former_ends;
+    }
     if (top.has("surroundings")) q.surroundings = detail::read_surroundings(top.map("surroundings"));
     q.conductor = conductor(top.optional_text("conductor").value_or("copper"), "conductor");
     if (top.has("tolerances")) {

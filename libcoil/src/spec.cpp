@@ -137,7 +137,7 @@ FormerDielectric FormerSpec::dielectric(double form_diameter) const {
 namespace detail {
 
 FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
-    m.allow_only({"material", "kind", "wall", "ribs", "rib_width"});
+    m.allow_only({"material", "kind", "wall", "ribs", "rib_width", "ends", "groove", "flange", "hub_wall", "min_wall"});
     FormerSpec f;
     f.material = former_material(m.text("material"), m.path_of("material"));
     if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
@@ -169,8 +169,32 @@ FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::
                                                          format_quantity(pi * form_diameter, Dimension::length) +
                                                          "); expected gaps between the ribs");
         }
-    } else if (m.has("ribs") || m.has("rib_width")) {
-        throw InputError(m.path_of(m.has("ribs") ? "ribs" : "rib_width"), "applies to kind: ribbed only");
+    } else if (m.has("ribs") || m.has("rib_width") || m.has("hub_wall")) {
+        const char* key = m.has("ribs") ? "ribs" : m.has("rib_width") ? "rib_width" : "hub_wall";
+        throw InputError(m.path_of(key), "applies to kind: ribbed only");
+    }
+    if (m.has("ends")) f.ends = m.non_negative_quantity("ends", Dimension::length);
+    if (m.has("hub_wall")) f.hub_wall = m.positive_quantity("hub_wall", Dimension::length);
+    if (m.has("min_wall")) f.min_wall = m.positive_quantity("min_wall", Dimension::length);
+    if (m.has("groove")) {
+        const YamlMap g = m.map("groove");
+        g.allow_only({"profile", "depth", "clearance", "angle_deg"});
+        if (auto k = g.optional_choice("profile", {"round", "vee"})) f.groove.profile = *k == 0 ? GrooveProfile::round : GrooveProfile::vee;
+        if (g.has("depth")) f.groove.depth = g.positive_quantity("depth", Dimension::length);
+        if (g.has("clearance")) f.groove.clearance = g.non_negative_quantity("clearance", Dimension::length);
+        if (g.has("angle_deg")) {
+            if (f.groove.profile != GrooveProfile::vee) throw InputError(g.path_of("angle_deg"), "applies to profile: vee only");
+            const double a = g.quantity("angle_deg", Dimension::dimensionless);
+            if (!(a >= 30 && a <= 150)) {
+                throw InputError(g.path_of("angle_deg"), "\"" + g.text("angle_deg") + "\"; expected a vee's included angle in degrees, 30 to 150");
+            }
+            f.groove.angle = a * pi / 180;
+        }
+    }
+    if (m.has("flange")) {
+        const YamlMap fl = m.map("flange");
+        fl.allow_only({"diameter", "thickness"});
+        f.flange = FlangeSpec{fl.positive_quantity("diameter", Dimension::length), fl.positive_quantity("thickness", Dimension::length)};
     }
     return f;
 }

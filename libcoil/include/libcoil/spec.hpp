@@ -20,6 +20,12 @@
 //     wall: 3 mm                 # radial thickness of solid under the winding (3 mm if not given)
 //     ribs: 6                    # ribbed only: number of axial ribs
 //     rib_width: 3 mm            # ribbed only: width of each rib where the wire rests
+//     # The rest matters only to the printable former (former.hpp); each has a default:
+//     ends: 5 mm                 # plain former beyond the winding at each end
+//     groove: {profile: round, depth: 0.6 mm, clearance: 0.1 mm}   # or profile: vee, angle_deg: 90
+//     flange: {diameter: 40 mm, thickness: 2 mm}                   # optional, at both ends
+//     hub_wall: 2 mm             # ribbed only: the hub tube inside the ribs
+//     min_wall: 1.2 mm           # the thinnest wall the printer makes well
 //   surroundings:                # optional
 //     relative_permittivity: 1   # of the medium around the coil
 //     mounting: floating         # or grounded-end (one terminal on a ground plane)
@@ -56,6 +62,20 @@ struct Operating {
 };
 
 enum class FormerKind { grooved_tube, ribbed };
+enum class GrooveProfile { round, vee };
+
+// The groove that holds each turn. The wire rests on its bottom at the form diameter, so that its centre
+// lies on the mean diameter; the clearance widens the groove, never deepens it.
+struct GrooveSpec {
+    GrooveProfile profile = GrooveProfile::round;
+    std::optional<double> depth;  // m, below the outer surface; default: half the insulated wire
+    double clearance = 0.1e-3;    // m, the groove is this much wider than the insulated wire
+    double angle = 1.5707963267948966;  // rad, a vee's included angle (90 degrees)
+};
+
+struct FlangeSpec {
+    double diameter = 0, thickness = 0;  // m
+};
 
 struct FormerSpec {
     FormerMaterial material;
@@ -63,6 +83,12 @@ struct FormerSpec {
     double wall = 3e-3;    // m
     int ribs = 0;          // ribbed only
     double rib_width = 0;  // m, ribbed only
+    // For the printable former only:
+    std::optional<double> ends;  // m, plain former beyond the winding at each end (default 5 mm)
+    GrooveSpec groove;
+    std::optional<FlangeSpec> flange;
+    double hub_wall = 2e-3;  // m, ribbed only
+    double min_wall = 1.2e-3;  // m
     // What the capacitance models see: the solid share of the circumference at the form diameter.
     FormerDielectric dielectric(double form_diameter) const;
 };
