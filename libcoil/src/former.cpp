@@ -214,9 +214,7 @@ FormerGeometry former_geometry(const CoilSpec& spec, const FormerOptions& o) {
 
 namespace {
 
-struct Point {
-    double z, r;
-};
+using Point = OutlinePoint;
 
 // The profile's sample offsets u in [-w, w]: the chord tolerance along the arc (or the vee's corners),
 // the centre line, and +-p/2 where the grooves of neighbouring turns meet.
@@ -448,6 +446,25 @@ TriangleMesh former_mesh(const FormerGeometry& g, double tol) {
         }
     }
     return std::move(m);
+}
+
+std::vector<OutlinePoint> former_outline(const FormerGeometry& g, double theta, double tol) {
+    require_positive("chord_tolerance", tol);
+    require_finite("theta", theta);
+    const double th = std::fmod(std::fmod(theta, 2 * pi) + 2 * pi, 2 * pi);
+    std::vector<OutlinePoint> out;
+    const double ro = g.outer_radius, rf = g.flange_radius, tf = g.flange_thickness;
+    if (tf > 0) out = {{0, rf}, {tf, rf}, {tf, ro}};
+    else out = {{0, ro}};
+    for (const Point& p : groove_rows(g, profile_offsets(g, tol), th)) out.push_back(p);
+    if (tf > 0) {
+        out.push_back({g.length - tf, ro});
+        out.push_back({g.length - tf, rf});
+        out.push_back({g.length, rf});
+    } else {
+        out.push_back({g.length, ro});
+    }
+    return out;
 }
 
 }  // namespace libcoil

@@ -17,20 +17,6 @@ namespace {
 std::string g(double v, int digits) { return detail::significant(v, digits); }
 std::string px(double v) { return detail::fixed(v, 2); }
 
-std::string xml_escape(const std::string& s) {
-    std::string o;
-    for (char c : s) {
-        switch (c) {
-            case '&': o += "&amp;"; break;
-            case '<': o += "&lt;"; break;
-            case '>': o += "&gt;"; break;
-            case '"': o += "&quot;"; break;
-            default: o += c;
-        }
-    }
-    return o;
-}
-
 // A log axis from lo to hi mapped onto [p0, p1] pixels.
 struct LogAxis {
     double lo, hi, p0, p1;
@@ -139,9 +125,9 @@ std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPic
     o << " data-x-min-hz=\"" << g(f_lo, 17) << "\" data-x-max-hz=\"" << g(f_hi, 17) << "\" data-x-left=\"" << left
       << "\" data-x-right=\"" << right << "\" data-z-min-ohm=\"" << g(z_lo, 17) << "\" data-z-max-ohm=\"" << g(z_hi, 17)
       << "\" data-z-top=\"" << top1 << "\" data-z-bottom=\"" << bottom1 << "\">\n";
-    o << "<title>" << xml_escape(pic.title) << "</title>\n";
+    o << "<title>" << detail::xml_escape(pic.title) << "</title>\n";
     o << "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n";
-    o << "<text x=\"" << left << "\" y=\"28\" font-size=\"15\" font-weight=\"bold\">" << xml_escape(pic.title) << "</text>\n";
+    o << "<text x=\"" << left << "\" y=\"28\" font-size=\"15\" font-weight=\"bold\">" << detail::xml_escape(pic.title) << "</text>\n";
 
     // Band shading in both panels.
     if (pic.band_low && pic.band_ceiling) {
@@ -171,13 +157,13 @@ std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPic
     o << "<rect x=\"" << left << "\" y=\"" << top2 << "\" width=\"" << right - left << "\" height=\"" << bottom2 - top2 << "\"/>\n";
     o << "</g>\n<g text-anchor=\"middle\">\n";
     for (double f : log_ticks(f_lo, f_hi, false)) {
-        o << "<text x=\"" << px(x(f)) << "\" y=\"" << bottom2 + 16 << "\">" << xml_escape(tick_label(f, Dimension::frequency))
+        o << "<text x=\"" << px(x(f)) << "\" y=\"" << bottom2 + 16 << "\">" << detail::xml_escape(tick_label(f, Dimension::frequency))
           << "</text>\n";
     }
     o << "<text x=\"" << (left + right) / 2 << "\" y=\"" << bottom2 + 36 << "\">frequency</text>\n</g>\n";
     o << "<g text-anchor=\"end\">\n";
     for (double z : log_ticks(z_lo, z_hi, false)) {
-        o << "<text x=\"" << left - 6 << "\" y=\"" << px(y1(z) + 4) << "\">" << xml_escape(tick_label(z, Dimension::resistance))
+        o << "<text x=\"" << left - 6 << "\" y=\"" << px(y1(z) + 4) << "\">" << detail::xml_escape(tick_label(z, Dimension::resistance))
           << "</text>\n";
     }
     for (double ph : {-90.0, -45.0, 0.0, 45.0, 90.0}) {
@@ -208,23 +194,23 @@ std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPic
         o << "<line x1=\"" << px(xs) << "\" y1=\"" << top1 << "\" x2=\"" << px(xs) << "\" y2=\"" << bottom1 << "\"/>";
         o << "<line x1=\"" << px(xs) << "\" y1=\"" << top2 << "\" x2=\"" << px(xs) << "\" y2=\"" << bottom2 << "\"/>\n";
         o << "<text x=\"" << px(xs + 4) << "\" y=\"" << top1 + 14 << "\" stroke=\"none\" fill=\"#c00000\">SRF "
-          << xml_escape(format_quantity(pic.self_resonance, Dimension::frequency)) << "</text>\n</g>\n";
+          << detail::xml_escape(format_quantity(pic.self_resonance, Dimension::frequency)) << "</text>\n</g>\n";
     }
     // Legend.
     const double lx = left + 12, ly = top1 + 34;
     o << "<g id=\"legend\">\n";
     o << "<line x1=\"" << lx << "\" y1=\"" << ly << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly
       << "\" stroke=\"#0050a0\" stroke-width=\"2\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 4 << "\">|Z|, "
-      << xml_escape(pic.model) << " model</text>\n";
+      << detail::xml_escape(pic.model) << " model</text>\n";
     if (pic.inductance > 0) {
         o << "<line x1=\"" << lx << "\" y1=\"" << ly + 18 << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly + 18
           << "\" stroke=\"#555555\" stroke-dasharray=\"6 4\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 22
-          << "\">ideal \u03c9L, L = " << xml_escape(format_quantity(pic.inductance, Dimension::inductance)) << "</text>\n";
+          << "\">ideal \u03c9L, L = " << detail::xml_escape(format_quantity(pic.inductance, Dimension::inductance)) << "</text>\n";
     }
     if (pic.band_low && pic.band_ceiling) {
         o << "<rect x=\"" << lx << "\" y=\"" << ly + 30 << "\" width=\"26\" height=\"10\" fill=\"#d9ecff\"/><text x=\""
-          << lx + 32 << "\" y=\"" << ly + 40 << "\">band " << xml_escape(format_quantity(*pic.band_low, Dimension::frequency))
-          << " \u2013 " << xml_escape(format_quantity(*pic.band_ceiling, Dimension::frequency)) << "</text>\n";
+          << lx + 32 << "\" y=\"" << ly + 40 << "\">band " << detail::xml_escape(format_quantity(*pic.band_low, Dimension::frequency))
+          << " \u2013 " << detail::xml_escape(format_quantity(*pic.band_ceiling, Dimension::frequency)) << "</text>\n";
     }
     o << "</g>\n</svg>\n";
     return o.str();

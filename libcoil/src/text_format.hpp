@@ -23,6 +23,21 @@ inline std::string fixed(double v, int decimals) {
 }
 
 // Pads to a display width, counting UTF-8 code points rather than bytes ("µH" is two columns).
+// Text for an XML (SVG) element or attribute.
+inline std::string xml_escape(const std::string& s) {
+    std::string o;
+    for (char c : s) {
+        switch (c) {
+            case '&': o += "&amp;"; break;
+            case '<': o += "&lt;"; break;
+            case '>': o += "&gt;"; break;
+            case '"': o += "&quot;"; break;
+            default: o += c;
+        }
+    }
+    return o;
+}
+
 inline std::string pad(const std::string& s, std::size_t width) {
     std::size_t cols = 0;
     for (unsigned char c : s) cols += (c & 0xC0) != 0x80;

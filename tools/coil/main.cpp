@@ -190,6 +190,50 @@ int run_design(const DesignCliOptions& o) {
     return 0;
 }
 
+struct FormerCliOptions {
+    std::string spec, out_dir, kind, profile, depth, clearance, flange, ends, rib_width, chord = "0.01 mm";
+    int ribs = 0;
+    bool json = false, ascii = false;
+};
+
+int run_former(const FormerCliOptions& o) {
+    using libcoil::Dimension;
+    libcoil::FormerOptions opt;
+    const auto length = [](const std::string& text, const char* field) { return libcoil::parse_quantity(text, Dimension::length, field); };
+    if (!o.kind.empty()) opt.kind = o.kind == "ribbed" ? libcoil::FormerKind::ribbed : libcoil::FormerKind::grooved_tube;
+    if (o.ribs > 0) opt.ribs = o.ribs;
+    if (!o.rib_width.empty()) opt.rib_width = length(o.rib_width, "--rib-width");
+    if (!o.profile.empty()) opt.profile = o.profile == "vee" ? libcoil::GrooveProfile::vee : libcoil::GrooveProfile::round;
+    if (!o.depth.empty()) opt.groove_depth = length(o.depth, "--groove-depth");
+    if (!o.clearance.empty()) opt.clearance = length(o.clearance, "--clearance");
+    if (!o.ends.empty()) opt.ends = length(o.ends, "--ends");
+    if (!o.flange.empty()) {
+        const auto x = o.flange.find('x');
+        if (x == std::string::npos) throw libcoil::InputError("--flange", "\"" + o.flange + "\"; expected DIAMETER x THICKNESS, e.g. \"40 mm x 2 mm\"");
+        opt.flange = libcoil::FlangeSpec{length(o.flange.substr(0, x), "--flange"), length(o.flange.substr(x + 1), "--flange")};
+    }
+    opt.chord_tolerance = length(o.chord, "--chord");
+    libcoil::CoilSpec spec = libcoil::load_coil_spec(o.spec);
+    if (opt.kind == libcoil::FormerKind::ribbed && !(spec.former && spec.former->kind == libcoil::FormerKind::ribbed) && !(opt.ribs && opt.rib_width)) {
+        throw libcoil::InputError("--kind", "ribbed needs --ribs and --rib-width when the spec's former is not ribbed");
+    }
+    const libcoil::FormerBuild b = libcoil::build_former(spec, opt);
+    // Everything is formatted before the first file is written.
+    const std::filesystem::path dir(o.out_dir);
+    const std::string stem = std::filesystem::path(o.spec).stem().string() + ".former";
+    const std::vector<std::pair<std::filesystem::path, std::string>> files = {
+        {dir / (stem + ".stl"), o.ascii ? libcoil::stl_ascii(b.mesh, "libcoil_former") : libcoil::stl_binary(b.mesh, "libcoil former, mm: " + b.name)},
+        {dir / (stem + ".svg"), libcoil::former_sheet_svg(b)},
+        {dir / (stem + ".yaml"), libcoil::former_dimensions_yaml(b)},
+    };
+    std::vector<std::string> written;
+    for (const auto& [path, content] : files) written.push_back(path.string());
+    const std::string text = libcoil::former_text_report(b, written), json = libcoil::former_json_report(b, written);
+    for (const auto& [path, content] : files) libcoil::write_file_atomically(path, content);
+    std::cout << (o.json ? json : text);
+    return 0;
+}
+
 struct WireOptions {
     std::string gauge, diameter, insulation, enamel = "1";
     std::string frequency = "1 MHz", temperature = "20 degC", conductor = "copper";
@@ -269,6 +313,22 @@ int main(int argc, char** argv) {
     de->add_option("--samples", dsg.samples, "Spread: number of samples")->capture_default_str();
     de->add_option("--seed", dsg.seed, "Spread: random seed (the same seed gives the same samples)")->capture_default_str();
 
+    FormerCliOptions fo;
+    CLI::App* fm = app.add_subcommand("former", "A printable winding former for the coil in a spec: STL, a dimension sheet (SVG) and its dimensions (YAML)");
+    fm->add_option("spec", fo.spec, "Coil spec (YAML), such as the NAME.chosen.yaml that 'coil design' writes")->required()->check(CLI::ExistingFile);
+    fm->add_option("--out", fo.out_dir, "Write STEM.former.stl, STEM.former.svg and STEM.former.yaml here")->required();
+    fm->add_option("--kind", fo.kind, "grooved-tube or ribbed (default: the spec's former.kind)")->check(CLI::IsMember({"grooved-tube", "ribbed"}));
+    fm->add_option("--ribs", fo.ribs, "Ribbed: number of ribs");
+    fm->add_option("--rib-width", fo.rib_width, "Ribbed: width of each rib at the groove root, e.g. \"3 mm\"");
+    fm->add_option("--profile", fo.profile, "Groove profile: round or vee")->check(CLI::IsMember({"round", "vee"}));
+    fm->add_option("--groove-depth", fo.depth, "Groove depth below the outer surface (default: half the insulated wire)");
+    fm->add_option("--clearance", fo.clearance, "How much wider than the insulated wire the groove is (default 0.1 mm)");
+    fm->add_option("--flange", fo.flange, "End flanges, DIAMETER x THICKNESS, e.g. \"40 mm x 2 mm\"");
+    fm->add_option("--ends", fo.ends, "Plain former beyond the winding at each end (default: the spec's, else 5 mm)");
+    fm->add_option("--chord", fo.chord, "Chord tolerance of the mesh")->capture_default_str();
+    fm->add_flag("--ascii", fo.ascii, "Write ASCII STL instead of binary");
+    fm->add_flag("--json", fo.json, "Print one JSON summary instead of the report");
+
     WireOptions wire;
     CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");
     w->add_option("--gauge", wire.gauge, "AWG gauge, e.g. \"AWG 18\"");
@@ -299,6 +359,7 @@ int main(int argc, char** argv) {
         if (w->parsed()) return run_wire(wire);
         if (sw->parsed()) return run_sweep(sweep);
         if (de->parsed()) return run_design(dsg);
+        if (fm->parsed()) return run_former(fo);
     } catch (const libcoil::InputError& e) {
         std::cerr << "coil: " << e.what() << "\n";
         return exit_bad_input;

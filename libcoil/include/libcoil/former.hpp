@@ -83,4 +83,12 @@ FormerGeometry former_geometry(const CoilSpec& spec, const FormerOptions& option
 // The former's mesh (m), with the given chord tolerance (m).
 TriangleMesh former_mesh(const FormerGeometry& g, double chord_tolerance);
 
+// The outer outline of the section through the axis at angle theta (rad; ribbed: through a rib there),
+// as (z, r) points in m from z = 0 to the full length, flanges included: what the mesh's column at that
+// angle holds.
+struct OutlinePoint {
+    double z, r;
+};
+std::vector<OutlinePoint> former_outline(const FormerGeometry& g, double theta, double chord_tolerance);
+
 }  // namespace libcoil
