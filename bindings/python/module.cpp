@@ -453,6 +453,48 @@ PYBIND11_MODULE(_core, m) {
         }
         return libcoil::analyze(spec, o);
     }, "spec"_a, "solver"_a = "closed-form", "subdivision"_a = py::none());
+    m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,
+                       std::optional<std::string> kind, std::optional<int> ribs, std::optional<double> rib_width,
+                       std::optional<std::string> profile, std::optional<double> groove_depth, std::optional<double> clearance,
+                       std::optional<std::pair<double, double>> flange, std::optional<double> ends, double chord_tolerance, bool ascii) {
+        libcoil::FormerOptions o;
+        if (kind) {
+            if (*kind != "grooved-tube" && *kind != "ribbed") throw libcoil::InputError("kind", "\"" + *kind + "\": expected \"grooved-tube\" or \"ribbed\"");
+            o.kind = *kind == "ribbed" ? libcoil::FormerKind::ribbed : libcoil::FormerKind::grooved_tube;
+        }
+        if (profile) {
+            if (*profile != "round" && *profile != "vee") throw libcoil::InputError("profile", "\"" + *profile + "\": expected \"round\" or \"vee\"");
+            o.profile = *profile == "vee" ? libcoil::GrooveProfile::vee : libcoil::GrooveProfile::round;
+        }
+        o.ribs = ribs;
+        o.rib_width = rib_width;
+        o.groove_depth = groove_depth;
+        o.clearance = clearance;
+        if (flange) o.flange = libcoil::FlangeSpec{flange->first, flange->second};
+        o.ends = ends;
+        o.chord_tolerance = chord_tolerance;
+        libcoil::FormerBuild b;
+        std::vector<std::string> files;
+        {
+            py::gil_scoped_release release;
+            b = libcoil::build_former(spec, o);
+            if (out_dir) files = libcoil::write_former_files(b, *out_dir, stem, ascii);
+        }
+        const auto np = py::module_::import("numpy");
+        py::array_t<double> v({b.mesh.vertices.size(), std::size_t{3}});
+        std::copy_n(&b.mesh.vertices[0][0], 3 * b.mesh.vertices.size(), v.mutable_data());
+        py::array_t<std::uint32_t> f({b.mesh.triangles.size(), std::size_t{3}});
+        std::copy_n(&b.mesh.triangles[0][0], 3 * b.mesh.triangles.size(), f.mutable_data());
+        py::dict out = py::module_::import("json").attr("loads")(libcoil::former_json_report(b, files));
+        out["vertices"] = v;
+        out["faces"] = f;
+        return out;
+    }, "spec"_a, "out_dir"_a = py::none(), "stem"_a = "former", "kind"_a = py::none(), "ribs"_a = py::none(),
+       "rib_width"_a = py::none(), "profile"_a = py::none(), "groove_depth"_a = py::none(), "clearance"_a = py::none(),
+       "flange"_a = py::none(), "ends"_a = py::none(), "chord_tolerance"_a = 0.01e-3, "ascii"_a = false,
+       "The printable former of a coil spec: the summary `coil former --json` prints (mm keys), plus the mesh as numpy "
+       "arrays, vertices (n, 3) in m and faces (m, 3) of vertex indices wound outward. With out_dir, also writes "
+       "STEM.former.stl, .svg and .yaml there.");
     m.def("text_report", &libcoil::text_report, "analysis"_a);
     m.def("json_report", &libcoil::json_report, "analysis"_a);
 }

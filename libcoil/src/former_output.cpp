@@ -2,12 +2,14 @@
 
 #include <algorithm>
 #include <cmath>
+#include <filesystem>
 #include <sstream>
 
 #include <nlohmann/json.hpp>
 
 #include "libcoil/constants.hpp"
 #include "libcoil/error.hpp"
+#include "libcoil/io.hpp"
 #include "libcoil/units.hpp"
 #include "libcoil/version.hpp"
 #include "text_format.hpp"
@@ -310,6 +312,19 @@ std::string former_json_report(const FormerBuild& b, const std::vector<std::stri
     j["cautions"] = b.cautions;
     j["notes"] = g.notes;
     return j.dump(2) + "\n";
+}
+
+std::vector<std::string> former_file_paths(const std::string& dir, const std::string& stem) {
+    const std::filesystem::path d(dir);
+    return {(d / (stem + ".former.stl")).string(), (d / (stem + ".former.svg")).string(), (d / (stem + ".former.yaml")).string()};
+}
+
+std::vector<std::string> write_former_files(const FormerBuild& b, const std::string& dir, const std::string& stem, bool ascii_stl) {
+    const auto paths = former_file_paths(dir, stem);
+    const std::string contents[] = {ascii_stl ? stl_ascii(b.mesh, "libcoil_former") : stl_binary(b.mesh, "libcoil former, mm: " + b.name),
+                                    former_sheet_svg(b), former_dimensions_yaml(b)};
+    for (std::size_t i = 0; i < paths.size(); ++i) write_file_atomically(paths[i], contents[i]);
+    return paths;
 }
 
 }  // namespace libcoil

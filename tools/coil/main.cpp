@@ -218,18 +218,10 @@ int run_former(const FormerCliOptions& o) {
         throw libcoil::InputError("--kind", "ribbed needs --ribs and --rib-width when the spec's former is not ribbed");
     }
     const libcoil::FormerBuild b = libcoil::build_former(spec, opt);
-    // Everything is formatted before the first file is written.
-    const std::filesystem::path dir(o.out_dir);
-    const std::string stem = std::filesystem::path(o.spec).stem().string() + ".former";
-    const std::vector<std::pair<std::filesystem::path, std::string>> files = {
-        {dir / (stem + ".stl"), o.ascii ? libcoil::stl_ascii(b.mesh, "libcoil_former") : libcoil::stl_binary(b.mesh, "libcoil former, mm: " + b.name)},
-        {dir / (stem + ".svg"), libcoil::former_sheet_svg(b)},
-        {dir / (stem + ".yaml"), libcoil::former_dimensions_yaml(b)},
-    };
-    std::vector<std::string> written;
-    for (const auto& [path, content] : files) written.push_back(path.string());
-    const std::string text = libcoil::former_text_report(b, written), json = libcoil::former_json_report(b, written);
-    for (const auto& [path, content] : files) libcoil::write_file_atomically(path, content);
+    const std::string stem = std::filesystem::path(o.spec).stem().string();
+    const auto paths = libcoil::former_file_paths(o.out_dir, stem);
+    const std::string text = libcoil::former_text_report(b, paths), json = libcoil::former_json_report(b, paths);
+    libcoil::write_former_files(b, o.out_dir, stem, o.ascii);
     std::cout << (o.json ? json : text);
     return 0;
 }

@@ -37,4 +37,9 @@ std::string former_dimensions_yaml(const FormerBuild& b);
 std::string former_text_report(const FormerBuild& b, const std::vector<std::string>& files);
 std::string former_json_report(const FormerBuild& b, const std::vector<std::string>& files);
 
+// The paths STEM.former.stl, .svg and .yaml under `dir`, in that order.
+std::vector<std::string> former_file_paths(const std::string& dir, const std::string& stem);
+// Formats all three files, then writes each atomically (write_file_atomically); returns their paths.
+std::vector<std::string> write_former_files(const FormerBuild& b, const std::string& dir, const std::string& stem, bool ascii_stl = false);
+
 }  // namespace libcoil
