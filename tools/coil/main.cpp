@@ -213,6 +213,7 @@ int run_former(const FormerCliOptions& o) {
         opt.flange = libcoil::FlangeSpec{length(o.flange.substr(0, x), "--flange"), length(o.flange.substr(x + 1), "--flange")};
     }
     opt.chord_tolerance = length(o.chord, "--chord");
+    if (!(opt.chord_tolerance > 0)) throw libcoil::InputError("--chord", "\"" + o.chord + "\"; expected a length above zero, e.g. \"0.01 mm\"");
     libcoil::CoilSpec spec = libcoil::load_coil_spec(o.spec);
     if (opt.kind == libcoil::FormerKind::ribbed && !(spec.former && spec.former->kind == libcoil::FormerKind::ribbed) && !(opt.ribs && opt.rib_width)) {
         throw libcoil::InputError("--kind", "ribbed needs --ribs and --rib-width when the spec's former is not ribbed");
