@@ -32,7 +32,7 @@ def test_catalogue_is_large_enough():
 def test_bad_spec_exits_2_names_the_field_and_writes_nothing(spec, run_coil, tmp_path):
     field, text = expectation(spec)
     out_dir = tmp_path / "out"
-    for verb, *extra in (["analyze"], ["analyze", "--json"], ["analyze", "--out", out_dir], ["sweep", "--out", out_dir]):
+    for verb, *extra in (["analyze"], ["analyze", "--json"], ["analyze", "--out", out_dir], ["sweep", "--out", out_dir], ["former", "--out", out_dir]):
         r = run_coil(verb, spec, *extra)
         assert r.returncode == 2, (r.stdout, r.stderr)
         assert r.stdout == ""
