@@ -456,7 +456,8 @@ PYBIND11_MODULE(_core, m) {
     m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,
                        std::optional<std::string> kind, std::optional<int> ribs, std::optional<double> rib_width,
                        std::optional<std::string> profile, std::optional<double> groove_depth, std::optional<double> clearance,
-                       std::optional<std::pair<double, double>> flange, std::optional<double> ends, double chord_tolerance, bool ascii) {
+                       std::optional<std::pair<double, double>> flange, std::optional<double> ends,
+                       std::optional<double> bore_oversize, double chord_tolerance, bool ascii) {
         libcoil::FormerOptions o;
         if (kind) {
             if (*kind != "grooved-tube" && *kind != "ribbed") throw libcoil::InputError("kind", "\"" + *kind + "\": expected \"grooved-tube\" or \"ribbed\"");
@@ -472,6 +473,7 @@ PYBIND11_MODULE(_core, m) {
         o.clearance = clearance;
         if (flange) o.flange = libcoil::FlangeSpec{flange->first, flange->second};
         o.ends = ends;
+        o.bore_oversize = bore_oversize;
         o.chord_tolerance = chord_tolerance;
         libcoil::FormerBuild b;
         std::vector<std::string> files;
@@ -491,7 +493,7 @@ PYBIND11_MODULE(_core, m) {
         return out;
     }, "spec"_a, "out_dir"_a = py::none(), "stem"_a = "former", "kind"_a = py::none(), "ribs"_a = py::none(),
        "rib_width"_a = py::none(), "profile"_a = py::none(), "groove_depth"_a = py::none(), "clearance"_a = py::none(),
-       "flange"_a = py::none(), "ends"_a = py::none(), "chord_tolerance"_a = 0.01e-3, "ascii"_a = false,
+       "flange"_a = py::none(), "ends"_a = py::none(), "bore_oversize"_a = py::none(), "chord_tolerance"_a = 0.01e-3, "ascii"_a = false,
        "The printable former of a coil spec: the summary `coil former --json` prints (mm keys), plus the mesh as numpy "
        "arrays, vertices (n, 3) in m and faces (m, 3) of vertex indices wound outward. With out_dir, also writes "
        "STEM.former.stl, .svg and .yaml there.");

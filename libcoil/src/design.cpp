@@ -827,6 +827,7 @@ std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {
         o << "}\n";
         if (f.flange) o << "  flange: {diameter: " << q(f.flange->diameter, "mm", 1e3) << ", thickness: " << q(f.flange->thickness, "mm", 1e3) << "}\n";
         o << "  min_wall: " << q(f.min_wall, "mm", 1e3) << "\n";
+        if (f.bore_oversize > 0) o << "  bore_oversize: " << q(f.bore_oversize, "mm", 1e3) << "\n";
     }
     o << "surroundings:\n  relative_permittivity: " << detail::significant(s.surroundings.relative_permittivity, 10)
       << "\n  mounting: " << mounting_name(s.surroundings.mounting) << "\n";

@@ -106,6 +106,7 @@ FormerGeometry former_geometry(const CoilSpec& spec, const FormerOptions& o) {
     if (o.clearance) f.groove.clearance = require_non_negative("former.groove.clearance", *o.clearance);
     if (o.flange) f.flange = *o.flange;
     if (o.ends) f.ends = *o.ends;
+    if (o.bore_oversize) f.bore_oversize = require_non_negative("former.bore_oversize", *o.bore_oversize);
     require_positive("chord_tolerance", o.chord_tolerance);
 
     const Solenoid& s = spec.solenoid;
@@ -171,6 +172,17 @@ FormerGeometry former_geometry(const CoilSpec& spec, const FormerOptions& o) {
                                                      " at the hub, below former.min_wall = " + mm(g.min_wall));
         }
         g.bore_radius = g.hub_radius - f.hub_wall;
+    }
+    g.bore_oversize = f.bore_oversize;
+    if (g.bore_radius >= solid_radius_floor && f.bore_oversize > 0) {
+        g.bore_radius += f.bore_oversize / 2;
+        const double wall = (f.kind == FormerKind::ribbed ? g.hub_radius : g.root_radius) - g.bore_radius;
+        if (wall < g.min_wall) {
+            throw InputError("former.bore_oversize", mm(f.bore_oversize) + " thins the wall around the bore to " + mm(wall) +
+                                                         ", below former.min_wall = " + mm(g.min_wall));
+        }
+        g.notes.push_back("the bore is printed " + mm(f.bore_oversize) + " wider than its nominal " +
+                          mm(2 * g.bore_radius - f.bore_oversize) + ", for the shrinkage of printed holes");
     }
     if (g.bore_radius < solid_radius_floor) {
         g.bore_radius = 0;

@@ -62,7 +62,7 @@ std::string former_dimensions_yaml(const FormerBuild& b) {
     o << "kind: " << former_kind_name(g.kind) << "\nmaterial: " << b.material << "\n";
     o << "turns: " << detail::significant(g.turns, 12) << "\npitch: " << mm(g.pitch, 6) << "\n";
     o << "outer_diameter: " << mm(2 * g.outer_radius, 4) << "\nroot_diameter: " << mm(2 * g.root_radius, 4)
-      << "\nwire_centre_diameter: " << mm(2 * g.seat_radius, 4) << "\nbore_diameter: " << mm(2 * g.bore_radius, 4) << "\n";
+      << "\nwire_centre_diameter: " << mm(2 * g.seat_radius, 4) << "\nbore_diameter: " << mm(2 * g.bore_radius, 4) << "   # as printed, with bore_oversize: " << mm(g.bore_oversize, 4) << "\n";
     o << "groove:\n  profile: " << profile_name(g.profile) << "\n  depth: " << mm(g.groove_depth(), 4) << "\n  width_at_wire_centre: "
       << mm(2 * g.groove_radius, 4) << "\n  clearance: " << mm(g.clearance, 4) << "\n  width_at_surface: " << mm(std::min(2 * g.half_width, g.pitch), 4) << "\n";
     if (g.profile == GrooveProfile::vee) o << "  angle_deg: " << detail::significant(2 * g.vee_half_angle * 180 / pi, 6) << "\n";
@@ -293,6 +293,7 @@ std::string former_json_report(const FormerBuild& b, const std::vector<std::stri
     j["root_diameter_mm"] = 2e3 * g.root_radius;
     j["wire_centre_diameter_mm"] = 2e3 * g.seat_radius;
     j["bore_diameter_mm"] = 2e3 * g.bore_radius;
+    j["bore_oversize_mm"] = 1e3 * g.bore_oversize;
     j["pitch_mm"] = 1e3 * g.pitch;
     j["turns"] = g.turns;
     j["groove"] = {{"profile", profile_name(g.profile)}, {"depth_mm", 1e3 * g.groove_depth()}, {"clearance_mm", 1e3 * g.clearance},

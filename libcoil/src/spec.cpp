@@ -137,7 +137,7 @@ FormerDielectric FormerSpec::dielectric(double form_diameter) const {
 namespace detail {
 
 FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
-    m.allow_only({"material", "kind", "wall", "ribs", "rib_width", "ends", "groove", "flange", "hub_wall", "min_wall"});
+    m.allow_only({"material", "kind", "wall", "ribs", "rib_width", "ends", "groove", "flange", "hub_wall", "min_wall", "bore_oversize"});
     FormerSpec f;
     f.material = former_material(m.text("material"), m.path_of("material"));
     if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
@@ -176,6 +176,7 @@ FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::
     if (m.has("ends")) f.ends = m.non_negative_quantity("ends", Dimension::length);
     if (m.has("hub_wall")) f.hub_wall = m.positive_quantity("hub_wall", Dimension::length);
     if (m.has("min_wall")) f.min_wall = m.positive_quantity("min_wall", Dimension::length);
+    if (m.has("bore_oversize")) f.bore_oversize = m.non_negative_quantity("bore_oversize", Dimension::length);
     if (m.has("groove")) {
         const YamlMap g = m.map("groove");
         g.allow_only({"profile", "depth", "clearance", "angle_deg"});

@@ -168,6 +168,18 @@ TEST(Former, EveryKindAndOptionGivesASoundMesh) {
     EXPECT_EQ(geometry(coil_yaml(6, "1.5 mm", "  kind: grooved-tube\n  wall: 10 mm\n")).bore_radius, 0);
 }
 
+TEST(Former, BoreOversizeWidensOnlyTheBore) {
+    FormerOptions o;
+    o.bore_oversize = 0.3e-3;
+    const FormerGeometry nominal = geometry(coil_yaml()), wide = geometry(coil_yaml(), o);
+    EXPECT_DOUBLE_EQ(2 * (wide.bore_radius - nominal.bore_radius), 0.3e-3);
+    EXPECT_DOUBLE_EQ(wide.outer_radius, nominal.outer_radius);
+    // The volume lost is the annulus pi (r2^2 - r1^2) L, exactly.
+    const double annulus = pi * (wide.bore_radius * wide.bore_radius - nominal.bore_radius * nominal.bore_radius) * nominal.length;
+    EXPECT_NEAR(nominal.volume() - wide.volume(), annulus, 1e-12 * nominal.volume());
+    EXPECT_TRUE(check_mesh(former_mesh(wide, tol)).sound());
+}
+
 TEST(Former, RibsAreWhatTheCapacitanceModelSees) {
     const CoilSpec s = parse_coil_spec(coil_yaml(5, "1.5 mm", "  kind: ribbed\n  wall: 2 mm\n  ribs: 5\n  rib_width: 4 mm\n"));
     const FormerGeometry g = former_geometry(s);
@@ -230,6 +242,9 @@ TEST(Former, UnprintableGeometryNamesTheField) {
               "former.flange.diameter");
     EXPECT_EQ(field_of(coil_yaml(10, "1.5 mm", "  kind: grooved-tube\n  wall: 3 mm\n  ends: 1 mm\n  flange: {diameter: 30 mm, thickness: 1 mm}\n")),
               "former.ends");
+    FormerOptions thin;
+    thin.bore_oversize = 3.8e-3;  // the 3 mm wall less 1.9 mm
+    EXPECT_EQ(field_of(coil_yaml(), thin), "former.bore_oversize");
     EXPECT_EQ(field_of(coil_yaml()), "no error");
     try {
         geometry(coil_yaml(10, "1.15 mm"));

@@ -157,6 +157,7 @@ def test_the_sheet_carries_the_dimensions(spec_file, run_coil, tmp_path):
     (["--flange", "40 mm"], "--flange"),
     (["--kind", "ribbed"], "--kind"),
     (["--chord", "-1 mm"], "--chord"),
+    (["--bore-oversize", "3.8 mm"], "former.bore_oversize"),
 ])
 def test_unprintable_former_exits_2_names_the_field_and_writes_nothing(args, field, spec_file, run_coil, tmp_path):
     out = tmp_path / "out"

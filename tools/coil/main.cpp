@@ -191,7 +191,7 @@ int run_design(const DesignCliOptions& o) {
 }
 
 struct FormerCliOptions {
-    std::string spec, out_dir, kind, profile, depth, clearance, flange, ends, rib_width, chord = "0.01 mm";
+    std::string spec, out_dir, kind, profile, depth, clearance, flange, ends, rib_width, bore_oversize, chord = "0.01 mm";
     int ribs = 0;
     bool json = false, ascii = false;
 };
@@ -207,6 +207,7 @@ int run_former(const FormerCliOptions& o) {
     if (!o.depth.empty()) opt.groove_depth = length(o.depth, "--groove-depth");
     if (!o.clearance.empty()) opt.clearance = length(o.clearance, "--clearance");
     if (!o.ends.empty()) opt.ends = length(o.ends, "--ends");
+    if (!o.bore_oversize.empty()) opt.bore_oversize = length(o.bore_oversize, "--bore-oversize");
     if (!o.flange.empty()) {
         const auto x = o.flange.find('x');
         if (x == std::string::npos) throw libcoil::InputError("--flange", "\"" + o.flange + "\"; expected DIAMETER x THICKNESS, e.g. \"40 mm x 2 mm\"");
@@ -317,6 +318,7 @@ int main(int argc, char** argv) {
     fm->add_option("--groove-depth", fo.depth, "Groove depth below the outer surface (default: half the insulated wire)");
     fm->add_option("--clearance", fo.clearance, "How much wider than the insulated wire the groove is (default 0.1 mm)");
     fm->add_option("--flange", fo.flange, "End flanges, DIAMETER x THICKNESS, e.g. \"40 mm x 2 mm\"");
+    fm->add_option("--bore-oversize", fo.bore_oversize, "Print the bore this much wider (on the diameter) than nominal, for the shrinkage of printed holes");
     fm->add_option("--ends", fo.ends, "Plain former beyond the winding at each end (default: the spec's, else 5 mm)");
     fm->add_option("--chord", fo.chord, "Chord tolerance of the mesh")->capture_default_str();
     fm->add_flag("--ascii", fo.ascii, "Write ASCII STL instead of binary");

@@ -37,6 +37,7 @@ struct FormerOptions {
     std::optional<double> clearance;     // m
     std::optional<FlangeSpec> flange;
     std::optional<double> ends;          // m
+    std::optional<double> bore_oversize;  // m, on the diameter
     double chord_tolerance = 0.01e-3;    // m, the largest gap between a facet and the true surface
 };
 
@@ -52,7 +53,8 @@ struct FormerGeometry {
     double clearance = 0;         // m
     double vee_half_angle = 0;    // rad
     double half_width = 0;        // m, of one groove where it meets the outer surface
-    double bore_radius = 0;       // m, 0: solid
+    double bore_radius = 0;       // m, as printed (with the oversize); 0: solid
+    double bore_oversize = 0;     // m, on the diameter
     double hub_radius = 0;        // m, ribbed: the hub inside the ribs
     int ribs = 0;
     double rib_angle = 0;         // rad, each rib's angular width (its width at the form diameter)

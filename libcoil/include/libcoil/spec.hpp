@@ -25,6 +25,7 @@
 //     groove: {profile: round, depth: 0.6 mm, clearance: 0.1 mm}   # or profile: vee, angle_deg: 90
 //     flange: {diameter: 40 mm, thickness: 2 mm}                   # optional, at both ends
 //     hub_wall: 2 mm             # ribbed only: the hub tube inside the ribs
+//     bore_oversize: 0.2 mm      # the bore printed this much wider (diameter), as printed holes shrink
 //     min_wall: 1.2 mm           # the thinnest wall the printer makes well
 //   surroundings:                # optional
 //     relative_permittivity: 1   # of the medium around the coil
@@ -88,6 +89,7 @@ struct FormerSpec {
     GrooveSpec groove;
     std::optional<FlangeSpec> flange;
     double hub_wall = 2e-3;  // m, ribbed only
+    double bore_oversize = 0;  // m, on the diameter: printed holes come out small
     double min_wall = 1.2e-3;  // m
     // What the capacitance models see: the solid share of the circumference at the form diameter.
     FormerDielectric dielectric(double form_diameter) const;
