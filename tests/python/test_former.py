@@ -166,3 +166,20 @@ def test_unprintable_former_exits_2_names_the_field_and_writes_nothing(args, fie
     assert r.stdout == ""
     assert r.stderr.startswith("coil: " + field), r.stderr
     assert not out.exists() or not any(out.iterdir())
+
+
+def test_the_search_keeps_the_grooves_clearance_between_turns(source_dir):
+    # The demo requirement with a wider groove clearance: the grid's close pitches are rejected as "groove",
+    # and every design left has pitch >= insulated wire + clearance (the wire's insulated diameter from the
+    # design's own outer - form diameters).
+    text = (source_dir / "data" / "examples" / "bench-network-requirement.yaml").read_text()
+    text = text.replace("  wall: 3 mm", "  wall: 3 mm\n  groove: {clearance: 0.3 mm}")
+    assert "clearance: 0.3 mm" in text
+    result = libcoil.design(libcoil.parse_requirement(text), threads=1, top=50)
+    base = libcoil.design(libcoil.load_requirement(str(source_dir / "data" / "examples" / "bench-network-requirement.yaml")),
+                          threads=1, top=50)
+    assert result["rejected_by_reason"]["groove"] > base["rejected_by_reason"]["groove"]
+    for d in result["designs"]:
+        insulated = (d["outer_diameter_m"] - d["form_diameter_m"]) / 2
+        assert d["pitch_m"] >= insulated + 0.3e-3 * (1 - 1e-12)
+    assert min(d["pitch_m"] - (d["outer_diameter_m"] - d["form_diameter_m"]) / 2 for d in base["designs"]) < 0.3e-3
