@@ -5,6 +5,7 @@
 #include "libcoil/band_check.hpp"
 #include "libcoil/coaxial_mutual.hpp"
 #include "libcoil/constants.hpp"
+#include "libcoil/coupling.hpp"
 #include "libcoil/cross_section.hpp"
 #include "libcoil/dc_resistance.hpp"
 #include "libcoil/design.hpp"
