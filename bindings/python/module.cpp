@@ -497,6 +497,33 @@ PYBIND11_MODULE(_core, m) {
        "The printable former of a coil spec: the summary `coil former --json` prints (mm keys), plus the mesh as numpy "
        "arrays, vertices (n, 3) in m and faces (m, 3) of vertex indices wound outward. With out_dir, also writes "
        "STEM.former.stl, .svg and .yaml there.");
+    m.def("couple", [](const libcoil::CoilSpec& a, const libcoil::CoilSpec& b, double distance, const std::string& arrangement,
+                       double axial_offset, const std::vector<double>& frequencies, double source_resistance, double load_resistance,
+                       const std::vector<double>& sweep_distances) {
+        if (arrangement != "coaxial" && arrangement != "side-by-side") {
+            throw libcoil::InputError("arrangement", "\"" + arrangement + "\": expected \"coaxial\" or \"side-by-side\"");
+        }
+        std::string json;
+        {
+            py::gil_scoped_release release;
+            json = libcoil::coupling_json_report(libcoil::study_coupling(
+                a, b, arrangement == "coaxial" ? libcoil::Arrangement::coaxial : libcoil::Arrangement::side_by_side, distance,
+                axial_offset, frequencies, source_resistance, load_resistance, sweep_distances));
+        }
+        return py::module_::import("json").attr("loads")(json);
+    }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "frequencies"_a = std::vector<double>{},
+       "source_resistance"_a = 50.0, "load_resistance"_a = 50.0, "sweep_distances"_a = std::vector<double>{},
+       "M, k and crosstalk between two coil specs: the dict `coil couple --json` prints (SI).");
+    m.def("coil_mutual_inductance", [](const libcoil::Solenoid& a, const libcoil::Solenoid& b, double distance,
+                                       const std::string& arrangement, double axial_offset) {
+        if (arrangement != "coaxial" && arrangement != "side-by-side") {
+            throw libcoil::InputError("arrangement", "\"" + arrangement + "\": expected \"coaxial\" or \"side-by-side\"");
+        }
+        return libcoil::coil_mutual_inductance(a, b, arrangement == "coaxial" ? libcoil::Arrangement::coaxial : libcoil::Arrangement::side_by_side,
+                                               distance, axial_offset);
+    }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "M in H between two solenoids.");
+    m.def("parallel_filament_mutual_inductance", py::vectorize(&libcoil::parallel_filament_mutual_inductance), "radius_a"_a,
+          "radius_b"_a, "distance"_a, "axial_offset"_a);
     m.def("text_report", &libcoil::text_report, "analysis"_a);
     m.def("json_report", &libcoil::json_report, "analysis"_a);
 }

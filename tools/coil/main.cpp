@@ -228,6 +228,52 @@ int run_former(const FormerCliOptions& o) {
     return 0;
 }
 
+struct CoupleOptions {
+    std::string a, b, distance, offset = "0 mm", arrangement = "coaxial", sweep, source = "50 ohm", load = "50 ohm", out_dir;
+    std::vector<std::string> frequencies;
+    bool json = false;
+};
+
+int run_couple(const CoupleOptions& o) {
+    using libcoil::Dimension;
+    const double d = libcoil::parse_quantity(o.distance, Dimension::length, "--distance");
+    const double h = libcoil::parse_quantity(o.offset, Dimension::length, "--offset");
+    std::vector<double> f;
+    for (const auto& t : o.frequencies) f.push_back(libcoil::parse_quantity(t, Dimension::frequency, "--frequency"));
+    std::vector<double> sweep;
+    if (!o.sweep.empty()) {
+        // FROM:TO:N, log-spaced
+        const auto c1 = o.sweep.find(':'), c2 = o.sweep.rfind(':');
+        if (c1 == std::string::npos || c2 == c1) {
+            throw libcoil::InputError("--sweep-distance", "\"" + o.sweep + "\"; expected FROM:TO:POINTS, e.g. \"30 mm:300 mm:25\"");
+        }
+        const double lo = libcoil::parse_quantity(o.sweep.substr(0, c1), Dimension::length, "--sweep-distance");
+        const double hi = libcoil::parse_quantity(o.sweep.substr(c1 + 1, c2 - c1 - 1), Dimension::length, "--sweep-distance");
+        const double n = libcoil::parse_quantity(o.sweep.substr(c2 + 1), Dimension::dimensionless, "--sweep-distance");
+        if (!(lo > 0 && hi > lo && n >= 2 && n <= 1000 && n == std::floor(n))) {
+            throw libcoil::InputError("--sweep-distance", "\"" + o.sweep + "\"; expected 0 < FROM < TO and 2 to 1000 points");
+        }
+        sweep = libcoil::frequency_grid(lo, hi, static_cast<std::size_t>(n), true);
+    }
+    const auto arr = o.arrangement == "coaxial" ? libcoil::Arrangement::coaxial : libcoil::Arrangement::side_by_side;
+    const libcoil::CouplingStudy s = libcoil::study_coupling(
+        libcoil::load_coil_spec(o.a), libcoil::load_coil_spec(o.b), arr, d, h, f, libcoil::parse_quantity(o.source, Dimension::resistance, "--source"),
+        libcoil::parse_quantity(o.load, Dimension::resistance, "--load"), sweep);
+    std::vector<std::pair<std::filesystem::path, std::string>> files;
+    if (!o.out_dir.empty()) {
+        const std::filesystem::path dir(o.out_dir);
+        const std::string stem = std::filesystem::path(o.a).stem().string() + "+" + std::filesystem::path(o.b).stem().string() + ".couple";
+        files.emplace_back(dir / (stem + ".json"), "");
+        if (s.sweep.size() >= 2) files.emplace_back(dir / (stem + ".svg"), libcoil::coupling_svg(s));
+    }
+    std::vector<std::string> names;
+    for (const auto& [p, c] : files) names.push_back(p.string());
+    const std::string json = libcoil::coupling_json_report(s, names);
+    for (auto& [p, c] : files) libcoil::write_file_atomically(p, c.empty() ? json : c);
+    std::cout << (o.json ? json : libcoil::coupling_text_report(s, names));
+    return 0;
+}
+
 struct WireOptions {
     std::string gauge, diameter, insulation, enamel = "1";
     std::string frequency = "1 MHz", temperature = "20 degC", conductor = "copper";
@@ -324,6 +370,22 @@ int main(int argc, char** argv) {
     fm->add_flag("--ascii", fo.ascii, "Write ASCII STL instead of binary");
     fm->add_flag("--json", fo.json, "Print one JSON summary instead of the report");
 
+    CoupleOptions cp;
+    CLI::App* cu = app.add_subcommand("couple", "Mutual inductance, coupling and crosstalk between two coils (YAML specs)");
+    cu->add_option("a", cp.a, "Coil A, the driven one (YAML spec)")->required()->check(CLI::ExistingFile);
+    cu->add_option("b", cp.b, "Coil B, the victim (YAML spec)")->required()->check(CLI::ExistingFile);
+    cu->add_option("--distance", cp.distance, "Centre-to-centre distance, e.g. \"60 mm\"")->required();
+    cu->add_option("--arrangement", cp.arrangement, "coaxial (one axis) or side-by-side (parallel axes)")
+        ->check(CLI::IsMember({"coaxial", "side-by-side"}))
+        ->capture_default_str();
+    cu->add_option("--offset", cp.offset, "Side by side: B's centre shifted along the axes")->capture_default_str();
+    cu->add_option("--frequency", cp.frequencies, "Crosstalk frequencies (default: the specs' operating frequencies)");
+    cu->add_option("--source", cp.source, "Source resistance driving A")->capture_default_str();
+    cu->add_option("--load", cp.load, "Load resistance on B")->capture_default_str();
+    cu->add_option("--sweep-distance", cp.sweep, "FROM:TO:POINTS, log-spaced: a table of k, and a picture with --out");
+    cu->add_option("--out", cp.out_dir, "Write A+B.couple.json (and .svg with --sweep-distance) here");
+    cu->add_flag("--json", cp.json, "Print one JSON object with SI values instead of the report");
+
     WireOptions wire;
     CLI::App* w = app.add_subcommand("wire", "Diameter, DC resistance, skin depth and skin ratio of a wire");
     w->add_option("--gauge", wire.gauge, "AWG gauge, e.g. \"AWG 18\"");
@@ -355,6 +417,7 @@ int main(int argc, char** argv) {
         if (sw->parsed()) return run_sweep(sweep);
         if (de->parsed()) return run_design(dsg);
         if (fm->parsed()) return run_former(fo);
+        if (cu->parsed()) return run_couple(cp);
     } catch (const libcoil::InputError& e) {
         std::cerr << "coil: " << e.what() << "\n";
         return exit_bad_input;

@@ -6,6 +6,7 @@
 #include "libcoil/coaxial_mutual.hpp"
 #include "libcoil/constants.hpp"
 #include "libcoil/coupling.hpp"
+#include "libcoil/coupling_output.hpp"
 #include "libcoil/cross_section.hpp"
 #include "libcoil/dc_resistance.hpp"
 #include "libcoil/design.hpp"
