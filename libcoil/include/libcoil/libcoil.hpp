@@ -31,6 +31,7 @@
 #include "libcoil/ring_inductance.hpp"
 #include "libcoil/rosa.hpp"
 #include "libcoil/self_resonance.hpp"
+#include "libcoil/shield.hpp"
 #include "libcoil/skin_effect.hpp"
 #include "libcoil/solenoid.hpp"
 #include "libcoil/spec.hpp"

@@ -1,0 +1,63 @@
+// A coaxial conductive shield around a coil: what it does to L, R and the capacitance.
+//
+// Method:  numerical, axisymmetric: the shield's wall becomes rings, n_z along its length and n_t through
+//          its thickness (graded from the inner surface, the first layer a third of a skin depth, when the
+//          wall is thicker than half a skin depth), and optional end discs become rings across their
+//          radius. The coil's turns are filaments carrying the coil current. Each shield ring k obeys
+//          R_k I_k + j w sum_j M_kj I_j = -j w M_kc I, with Maxwell's formula for the mutuals
+//          (coaxial_mutual.hpp), a ring's self-inductance at the geometric mean distance of its rectangular
+//          section (ring_inductance.hpp) and its DC resistance 2 pi r rho / (w t); the coil's impedance
+//          gains dZ = j w M_ck I_k / I (Eigen's LU on the complex system). L(f) = L0 + Im(dZ) / w, and the
+//          shield's eddy loss R_s(f) = Re(dZ).
+//          Closed form, the long coil in a long shield at high frequency (the return flux confined between
+//          coil and wall): L = L0 (1 - a^2 / b^2), L0 the unshielded inductance (derived in docs/models.md).
+//          Capacitance to the shield: the coaxial C = 2 pi eps0 l / ln(b / r_outer) over the winding, seen
+//          between the terminals (voltage linear along the winding) as C/12 for a floating coil and C/3 with
+//          one end grounded to the shield, added to the coil's own self-capacitance for the shifted SRF.
+// Source:  the ring model is the losses issue's (Maxwell 1873 art. 701; Grover 1946 for the GMD).
+// Domain:  coaxial shields around the coil (inner radius above the coil's outer radius), any thickness
+//          and frequency; nonmagnetic conductors.
+// Accuracy (tests/cpp/test_shield.cpp): see docs/models.md.
+#pragma once
+
+#include <vector>
+
+#include "libcoil/materials.hpp"
+#include "libcoil/solenoid.hpp"
+
+namespace libcoil {
+
+struct ShieldSpec {
+    double inner_diameter = 0;  // m
+    double length = 0;          // m
+    double thickness = 0;       // m, the wall (and the end discs)
+    Conductor material;
+    bool end_discs = false;     // closed at both ends
+    double axial_offset = 0;    // m, of the shield's centre from the coil's
+    double temperature = 293.15;  // K, of the shield
+};
+
+struct ShieldPoint {
+    double frequency = 0;         // Hz
+    double skin_depth = 0;        // m, in the shield
+    double inductance = 0;        // H, the coil's, shielded
+    double added_resistance = 0;  // ohm, the shield's eddy loss as seen at the coil's terminals
+};
+
+struct ShieldResult {
+    double unshielded_inductance = 0;   // H, as given
+    double long_coil_limit = 0;         // H, L0 (1 - a^2 / b^2)
+    double perfect_conductor = 0;       // H, the ring model with no resistance (the high-frequency limit)
+    double capacitance_to_shield = 0;   // F, coaxial over the winding length
+    std::vector<ShieldPoint> points;
+    int rings = 0;                      // at the highest frequency
+};
+
+// `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
+// would touch the winding (shield.inner_diameter) or a non-positive size.
+ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);
+
+// The capacitance to the shield as seen between the terminals: C/12 floating, C/3 with one end grounded.
+double shield_terminal_capacitance(double capacitance_to_shield, bool grounded_end);
+
+}  // namespace libcoil
