@@ -147,9 +147,30 @@ Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options) {
 
 }  // namespace
 
+// The shielded coil: the ring model at the operating frequencies, and the SRF with the shield's
+// capacitance, lumped: f = 1 / (2 pi sqrt(L_hf (C + C_t))), L_hf the perfect-conductor limit (at the SRF the
+// wall is many skin depths thick for any practical shield).
+void add_shield(Analysis& a) {
+    const CoilSpec& spec = a.spec;
+    if (!spec.shield) return;
+    std::vector<double> f;
+    for (const auto& p : a.at_frequency) {
+        if (p.frequency > 0) f.push_back(p.frequency);
+    }
+    Analysis::Shielded sh;
+    sh.result = shielded_coil(spec.solenoid, a.inductance.recommended, *spec.shield, f);
+    sh.terminal_capacitance = shield_terminal_capacitance(sh.result.capacitance_to_shield, spec.surroundings.mounting == Mounting::grounded_end);
+    const double c = a.self_resonance.capacitance + sh.terminal_capacitance;
+    sh.self_resonance = 1 / (2 * pi * std::sqrt(sh.result.perfect_conductor * c));
+    a.shield = sh;
+    a.notes.push_back("shielded SRF: a lumped estimate from the high-frequency L and the self-capacitance plus the capacitance to the shield; "
+                      "the band check and the impedance are of the unshielded coil");
+}
+
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     Analysis a = analyze_losses(spec, options);
     add_self_resonance(a);
+    add_shield(a);
     return a;
 }
 

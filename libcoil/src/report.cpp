@@ -36,6 +36,40 @@ void row(std::ostringstream& o, const std::string& label, const std::string& val
 std::string hz(double f) { return format_quantity(f, Dimension::frequency); }
 std::string farad(double c) { return format_quantity(c, Dimension::capacitance); }
 
+std::string shift(double shielded, double unshielded) {
+    const double pc = 100 * (shielded / unshielded - 1);
+    return std::string(pc >= 0 ? "+" : "") + detail::fixed(pc, 1) + " %";
+}
+
+void shield_text(std::ostringstream& o, const Analysis& a) {
+    if (!a.shield || !a.spec.shield) return;
+    const ShieldSpec& s = *a.spec.shield;
+    const ShieldResult& r = a.shield->result;
+    o << "\nShield: " << s.material.name << ", inner diameter " << len(s.inner_diameter) << ", length " << len(s.length) << ", wall "
+      << len(s.thickness) << (s.end_discs ? ", closed ends" : ", open ends") << "\n";
+    o << "  " << pad("", 26) << pad("unshielded", 14) << pad("shielded", 14) << "shift\n";
+    for (std::size_t i = 0; i < r.points.size() && i < a.at_frequency.size(); ++i) {
+        const ShieldPoint& p = r.points[i];
+        const CoilAtFrequency* c = nullptr;
+        for (const auto& q : a.at_frequency) {
+            if (q.frequency == p.frequency) c = &q;
+        }
+        if (!c) continue;
+        const double l_sh = c->inductance + (p.inductance - r.unshielded_inductance), r_sh = c->resistance + p.added_resistance;
+        o << "  " << pad("L at " + hz(p.frequency), 26) << pad(format_quantity(c->inductance, Dimension::inductance), 14)
+          << pad(format_quantity(l_sh, Dimension::inductance), 14) << shift(l_sh, c->inductance) << "\n";
+        o << "  " << pad("R at " + hz(p.frequency), 26) << pad(format_quantity(c->resistance, Dimension::resistance), 14)
+          << pad(format_quantity(r_sh, Dimension::resistance), 14) << shift(r_sh, c->resistance) << "\n";
+    }
+    o << "  " << pad("L, high-frequency limit", 26) << pad(format_quantity(r.unshielded_inductance, Dimension::inductance), 14)
+      << pad(format_quantity(r.perfect_conductor, Dimension::inductance), 14) << shift(r.perfect_conductor, r.unshielded_inductance) << "\n";
+    o << "  " << pad("SRF (lumped estimate)", 26) << pad(hz(a.self_resonance.frequency), 14) << pad(hz(a.shield->self_resonance), 14)
+      << shift(a.shield->self_resonance, a.self_resonance.frequency) << "\n";
+    row(o, "capacitance to shield", farad(r.capacitance_to_shield),
+        farad(a.shield->terminal_capacitance) + " between the terminals (" + mounting_name(a.spec.surroundings.mounting) + ")");
+    row(o, "long-coil form", format_quantity(r.long_coil_limit, Dimension::inductance), "L0 (1 - a^2/b^2), for a long coil in a long shield");
+}
+
 void self_resonance_text(std::ostringstream& o, const Analysis& a) {
     const SelfResonance& sr = a.self_resonance;
     o << "\nSelf-resonance (" << mounting_name(sr.mounting)
@@ -196,6 +230,7 @@ std::string text_report(const Analysis& a) {
     }
 
     self_resonance_text(o, a);
+    shield_text(o, a);
     band_text(o, a);
 
     detail::list_section(o, "Warnings", a.warnings, "!");
@@ -283,6 +318,20 @@ std::string json_report(const Analysis& a) {
                        {"ribs", f.ribs},
                        {"rib_width_m", f.rib_width},
                        {"relative_permittivity", f.material.relative_permittivity}};
+    }
+    if (a.shield && a.spec.shield) {
+        const ShieldSpec& s = *a.spec.shield;
+        const ShieldResult& r = a.shield->result;
+        nlohmann::ordered_json pts = nlohmann::ordered_json::array();
+        for (const auto& p : r.points) {
+            pts.push_back({{"frequency_Hz", p.frequency}, {"skin_depth_m", p.skin_depth},
+                           {"inductance_change_H", p.inductance - r.unshielded_inductance}, {"added_resistance_ohm", p.added_resistance}});
+        }
+        j["shield"] = {{"material", s.material.name}, {"inner_diameter_m", s.inner_diameter}, {"length_m", s.length},
+                       {"thickness_m", s.thickness}, {"end_discs", s.end_discs}, {"axial_offset_m", s.axial_offset},
+                       {"inductance_high_frequency_H", r.perfect_conductor}, {"long_coil_form_H", r.long_coil_limit},
+                       {"capacitance_to_shield_F", r.capacitance_to_shield}, {"terminal_capacitance_F", a.shield->terminal_capacitance},
+                       {"self_resonance_Hz", a.shield->self_resonance}, {"at_frequency", pts}, {"rings", r.rings}};
     }
     nlohmann::ordered_json zs = nlohmann::ordered_json::array();
     for (const auto& p : a.impedance) {

@@ -75,7 +75,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
     }
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band"});
+    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
     std::string description = top.optional_text("description").value_or("");
@@ -114,10 +114,26 @@ CoilSpec read_spec(const YAML::Node& root) {
         if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
         if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));
+        if (top.has("shield")) {
+            const detail::YamlMap sh = top.map("shield");
+            sh.allow_only({"inner_diameter", "length", "thickness", "material", "end_discs", "axial_offset"});
+            ShieldSpec x;
+            x.inner_diameter = sh.positive_quantity("inner_diameter", Dimension::length);
+            x.length = sh.positive_quantity("length", Dimension::length);
+            x.thickness = sh.positive_quantity("thickness", Dimension::length);
+            x.material = conductor(sh.text("material"), sh.path_of("material"));
+            if (auto e = sh.optional_choice("end_discs", {"false", "true"})) x.end_discs = *e == 1;
+            if (sh.has("axial_offset")) x.axial_offset = sh.quantity("axial_offset", Dimension::length);
+            if (!(x.inner_diameter > s.outer_diameter())) {
+                throw InputError(sh.path_of("inner_diameter"), "\"" + sh.text("inner_diameter") + "\" does not clear the winding (outer diameter " +
+                                                                   format_quantity(s.outer_diameter(), Dimension::length) + ")");
+            }
+            spec.shield = x;
+        }
         spec.notes = std::move(notes);
         return spec;
     } catch (const InputError& e) {
-        if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 ||
+        if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 || e.field().rfind("shield", 0) == 0 ||
             e.field().rfind("surroundings", 0) == 0) {
             throw;
         }

@@ -44,6 +44,13 @@ struct Analysis {
     std::optional<CriterionResult> band_srf_by_medhurst;
     std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs, cautions
     std::vector<std::string> notes;     // assumptions
+    // With a shield: the shielded coil beside the unshielded one.
+    struct Shielded {
+        ShieldResult result;            // L(f) and the added R at the operating frequencies, the limits
+        double terminal_capacitance = 0;  // F, the capacitance to the shield as seen between the terminals
+        double self_resonance = 0;      // Hz, lumped estimate: L at the high-frequency limit, C + the above
+    };
+    std::optional<Shielded> shield;
 };
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options = {});

@@ -30,6 +30,13 @@
 //   surroundings:                # optional
 //     relative_permittivity: 1   # of the medium around the coil
 //     mounting: floating         # or grounded-end (one terminal on a ground plane)
+//   shield:                      # optional: a coaxial conductive shield (shield.hpp)
+//     inner_diameter: 40 mm
+//     length: 80 mm
+//     thickness: 0.1 mm          # foil or tape 0.035 .. 0.1 mm; a can 0.5 mm or more
+//     material: copper           # or aluminium (data/conductors.yaml)
+//     end_discs: false           # true: closed at both ends
+//     axial_offset: 0 mm         # of the shield's centre from the coil's
 //   band:                        # optional: the band check (band_check.hpp)
 //     low: 150 kHz
 //     ceiling: 30 MHz
@@ -51,6 +58,7 @@
 #include "libcoil/band_check.hpp"
 #include "libcoil/materials.hpp"
 #include "libcoil/self_resonance.hpp"
+#include "libcoil/shield.hpp"
 #include "libcoil/solenoid.hpp"
 
 namespace libcoil {
@@ -107,6 +115,7 @@ struct CoilSpec {
     Surroundings surroundings;
     std::optional<BandSpec> band;
     std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
+    std::optional<ShieldSpec> shield;
 };
 
 // Parses a spec from YAML text; `source` names it in messages (a file name).
