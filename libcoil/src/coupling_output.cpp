@@ -10,6 +10,7 @@
 #include "libcoil/error.hpp"
 #include "libcoil/inductance.hpp"
 #include "libcoil/losses.hpp"
+#include "libcoil/shield.hpp"
 #include "libcoil/units.hpp"
 #include "libcoil/version.hpp"
 #include "text_format.hpp"
@@ -59,7 +60,20 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
     }
     for (double f : frequencies) {
         require_positive("frequency", f);
-        s.crosstalk.push_back(crosstalk(s.at, f, resistance_at(a, f), resistance_at(b, f), rs, rl));
+        const double ra = resistance_at(a, f), rb = resistance_at(b, f);
+        double se = 0;
+        if (a.shield) se += magnetic_shielding(*a.shield, f, a.shield->inner_diameter / 2).total_db;
+        if (b.shield) se += magnetic_shielding(*b.shield, f, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2)).total_db;
+        Coupling shielded = s.at;
+        shielded.mutual *= std::pow(10.0, -se / 20);
+        s.crosstalk.push_back(crosstalk(shielded, f, ra, rb, rs, rl));
+        s.unshielded_db.push_back(crosstalk(s.at, f, ra, rb, rs, rl).transfer_db);
+        s.shielding_db.push_back(se);
+    }
+    if (a.shield || b.shield) {
+        s.notes.push_back("shields: Schelkunoff's plane-sheet shielding effectiveness of each wall against the near magnetic field, "
+                          "applied to M; a seamless, closed wall is assumed, and seams, slots and open tube ends leak long before these "
+                          "figures; L and R are the unshielded coils'");
     }
     for (double d : sweep) {
         const Coupling c = coupling(a.solenoid, b.solenoid, arr, d, offset);
@@ -81,11 +95,15 @@ std::string coupling_text_report(const CouplingStudy& s, const std::vector<std::
       << "\n  M   " << format_quantity(s.at.mutual, Dimension::inductance) << " (the far-field dipole estimate: "
       << format_quantity(s.dipole_mutual, Dimension::inductance) << ")\n  k   " << significant(s.at.coefficient, 4) << "\n";
     if (!s.crosstalk.empty()) {
+        const bool shielded = std::any_of(s.shielding_db.begin(), s.shielding_db.end(), [](double v) { return v > 0; });
         o << "\nCrosstalk, A driven from " << significant(s.source_resistance, 4) << " \u03a9, B loaded by " << significant(s.load_resistance, 4)
-          << " \u03a9\n  frequency      V_B open / I_A    |S21|\n";
-        for (const auto& x : s.crosstalk) {
+          << " \u03a9\n  frequency      V_B open / I_A    |S21|" << (shielded ? "      shields    unshielded |S21|" : "") << "\n";
+        for (std::size_t i = 0; i < s.crosstalk.size(); ++i) {
+            const auto& x = s.crosstalk[i];
             o << "  " << detail::pad(format_quantity(x.frequency, Dimension::frequency), 15)
-              << detail::pad(format_quantity(x.transfer_impedance, Dimension::resistance), 18) << fixed(x.transfer_db, 1) << " dB\n";
+              << detail::pad(format_quantity(x.transfer_impedance, Dimension::resistance), 18) << detail::pad(fixed(x.transfer_db, 1) + " dB", 12);
+            if (shielded) o << detail::pad(fixed(s.shielding_db[i], 1) + " dB", 11) << fixed(s.unshielded_db[i], 1) << " dB";
+            o << "\n";
         }
     }
     if (!s.sweep.empty()) {
@@ -121,6 +139,10 @@ std::string coupling_json_report(const CouplingStudy& s, const std::vector<std::
     auto xs = nlohmann::ordered_json::array();
     for (const auto& x : s.crosstalk) {
         xs.push_back({{"frequency_Hz", x.frequency}, {"transfer_impedance_ohm", x.transfer_impedance}, {"transfer_dB", x.transfer_db}});
+    }
+    for (std::size_t i = 0; i < xs.size(); ++i) {
+        xs[i]["shielding_dB"] = s.shielding_db[i];
+        xs[i]["unshielded_transfer_dB"] = s.unshielded_db[i];
     }
     j["crosstalk"] = xs;
     auto sw = nlohmann::ordered_json::array();

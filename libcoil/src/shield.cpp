@@ -153,6 +153,23 @@ std::complex<double> added_impedance(const System& s, double w) {
 
 }  // namespace
 
+ShieldingEffectiveness magnetic_shielding(const ShieldSpec& s, double f, double r) {
+    require_positive("frequency", f);
+    require_positive("source_distance", r);
+    require_positive("shield.thickness", s.thickness);
+    using C = std::complex<double>;
+    const double rho = s.material.resistivity_at(s.temperature);
+    const double delta = skin_depth(rho, f, s.material.relative_permeability), w = 2 * pi * f;
+    const C zs = C(1, 1) * rho / delta, zw = C(0, w * mu0 * r);
+    ShieldingEffectiveness e;
+    e.absorption_db = 20 / std::log(10.0) * s.thickness / delta;  // 8.686 t / delta
+    e.reflection_db = 20 * std::log10(std::abs((zs + zw) * (zs + zw) / (4.0 * zs * zw)));
+    const C g = (zs - zw) / (zs + zw);
+    e.multiple_reflection_db = 20 * std::log10(std::abs(1.0 - g * g * std::exp(-2.0 * C(1, 1) * s.thickness / delta)));
+    e.total_db = std::max(0.0, e.absorption_db + e.reflection_db + e.multiple_reflection_db);
+    return e;
+}
+
 double shield_terminal_capacitance(double c, bool grounded_end) {
     require_non_negative("capacitance_to_shield", c);
     return grounded_end ? c / 3 : c / 12;

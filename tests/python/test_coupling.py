@@ -103,3 +103,23 @@ def test_python_couple_matches_the_cli(specs, run_coil):
     assert j["mutual_inductance_H"] == cli["mutual_inductance_H"]
     sa, sb = libcoil.load_coil_spec(str(a)).solenoid, libcoil.load_coil_spec(str(b)).solenoid
     assert libcoil.coil_mutual_inductance(sa, sb, 0.08) == j["mutual_inductance_H"]
+
+
+def test_grounded_copper_shields_cut_side_by_side_coupling_by_tens_of_db(tmp_path, run_coil):
+    # Common practice, no source: wrapping each coil in a grounded copper shield cuts the coupling between
+    # side-by-side coils by tens of dB at MHz frequencies. Found: 114 dB at 1 MHz and 190 dB at 10 MHz
+    # for 0.1 mm copper foil of 40 mm diameter, coils 60 mm apart (seamless walls; real seams leak).
+    shield = "shield: {inner_diameter: 40 mm, length: 60 mm, thickness: 0.1 mm, material: copper}\n"
+    a, b = tmp_path / "a.yaml", tmp_path / "b.yaml"
+    a.write_text(SPEC.format(name="Coil A", form=20, turns=12) + shield)
+    b.write_text(SPEC.format(name="Coil B", form=20, turns=12) + shield)
+    r = run_coil("couple", a, b, "--distance", "60 mm", "--arrangement", "side-by-side", "--json")
+    assert r.returncode == 0, r.stderr
+    x = json.loads(r.stdout)["crosstalk"]
+    assert [p["frequency_Hz"] for p in x] == [1e6, 1e7]
+    for p in x:
+        assert p["shielding_dB"] > 40
+        # The crosstalk is linear in M while the coupling is weak.
+        assert p["unshielded_transfer_dB"] - p["transfer_dB"] == pytest.approx(p["shielding_dB"], abs=1e-3)
+    assert x[1]["shielding_dB"] > x[0]["shielding_dB"]
+    assert 100 < x[0]["shielding_dB"] < 130 and 170 < x[1]["shielding_dB"] < 210

@@ -20,7 +20,9 @@ struct CouplingStudy {
     Coupling at;                            // at `distance`
     double dipole_mutual = 0;               // H, the far-field estimate at `distance`, for comparison
     double source_resistance = 50, load_resistance = 50;  // ohm
-    std::vector<Crosstalk> crosstalk;       // at each frequency
+    std::vector<Crosstalk> crosstalk;       // at each frequency, with the shields' effect when there are any
+    std::vector<double> shielding_db;       // at each frequency: both shields' magnetic shielding together (0: none)
+    std::vector<double> unshielded_db;      // at each frequency: |S21| without the shields
     struct Point {
         double distance, mutual, coefficient;
     };
@@ -28,6 +30,9 @@ struct CouplingStudy {
     std::vector<std::string> notes;
 };
 
+// A spec's `shield:` wraps that coil; at each frequency the mutual inductance is reduced by both walls'
+// shielding effectiveness (shield.hpp's magnetic_shielding: for the driven coil with its source at the
+// wall's radius, for the victim with the source at the centre distance less its wall's radius).
 // `frequencies`: where the crosstalk is wanted (empty: the specs' operating frequencies, both together).
 // `sweep_distances`: centre distances for the table and the picture (may be empty).
 CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement arrangement, double distance, double axial_offset,

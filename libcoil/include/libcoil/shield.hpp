@@ -60,4 +60,17 @@ ShieldResult shielded_coil(const Solenoid& coil, double inductance, const Shield
 // The capacitance to the shield as seen between the terminals: C/12 floating, C/3 with one end grounded.
 double shield_terminal_capacitance(double capacitance_to_shield, bool grounded_end);
 
+// Shielding effectiveness of the wall against the near magnetic field of a source `source_distance`
+// inside it, after Schelkunoff's transmission-line theory of a plane sheet: SE = A + R + B in dB, with
+// absorption A = 8.686 t / delta, reflection R = 20 log10 |(Z_s + Z_w)^2 / (4 Z_s Z_w)| (the usual
+// |Z_w| / (4 |Z_s|) where |Z_w| >> |Z_s|) for the magnetic source's wave impedance Z_w = j w mu0 r against
+// the metal's Z_s = (1 + j) / (sigma delta), and the multiple-reflection
+// term B = 20 log10 |1 - ((Z_s - Z_w) / (Z_s + Z_w))^2 exp(-2 (1 + j) t / delta)|. Floored at 0 dB: the
+// plane-sheet theory says nothing useful where it falls below. It assumes a seamless wall; seams, slots
+// and the open ends of a tube leak long before these figures are reached.
+struct ShieldingEffectiveness {
+    double absorption_db = 0, reflection_db = 0, multiple_reflection_db = 0, total_db = 0;
+};
+ShieldingEffectiveness magnetic_shielding(const ShieldSpec& shield, double frequency, double source_distance);
+
 }  // namespace libcoil
