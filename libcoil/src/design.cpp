@@ -180,7 +180,7 @@ private:
 // Why a candidate fails, with the key the report and JSON use and the words of the binding-limit note.
 enum class Reason : std::size_t {
     outer_diameter, length, wire_length, thermal, srf_margin, max_deviation, min_impedance,
-    inductance_out_of_reach, snapping, groove, model_domain, count
+    inductance_out_of_reach, snapping, groove, shield, model_domain, count
 };
 struct ReasonText {
     const char *key, *words;
@@ -196,6 +196,7 @@ constexpr std::array<ReasonText, static_cast<std::size_t>(Reason::count)> reason
     {"inductance_out_of_reach", "the target inductance (out of reach with these turns)"},
     {"snapping", "snapping the turns to the step"},
     {"groove", "the former's groove (the pitch must exceed the wire by the groove's clearance)"},
+    {"shield", "the shield (its inner diameter, or the shielded inductance after the trim)"},
     {"model_domain", "the models' domain"},
 }};
 
@@ -314,6 +315,10 @@ private:
         const double mean = c.form_diameter + d_ins;
         const auto what = [&] { return w.label + " on " + mm(c.form_diameter) + " at pitch ratio " + detail::fixed(c.ratio, 2); };
         const double outer = mean + d_ins;
+        if (q_.shield && !(outer < q_.shield->inner_diameter)) {
+            t.reject(Reason::shield, outer / q_.shield->inner_diameter, [&] { return what() + ": outer diameter " + mm(outer) + " does not clear the shield"; });
+            return;
+        }
         if (outer > q_.max_outer_diameter) {
             t.reject(Reason::outer_diameter, outer / q_.max_outer_diameter, [&] { return what() + ": outer diameter " + mm(outer); });
             return;
@@ -331,7 +336,12 @@ private:
             return last.l.inductance;
         };
         const auto at = [&](double n, double p) { return last.n == n && last.p == p ? last.l.inductance : L(n, p); };
-        const double target = q_.inductance;
+        // With a shield the unshielded models aim at the target less the shield's change of L (its
+        // high-frequency limit, shield.hpp), taken at the geometry of the moment and settled after the trim.
+        double target = q_.inductance;
+        const auto shield_change = [&](double turns, double pitch) {
+            return q_.shield ? shield_inductance_change(Solenoid(Solenoid::Params{mean, turns, pitch, unlabelled_[c.wire], 0}), *q_.shield) : 0.0;
+        };
         double n = 0, p = c.ratio * d_ins, n_solved = 0;
         const double p_grid = p;
         // A grooved or ribbed former needs the groove's clearance between turns: no pitch below it.
@@ -343,8 +353,9 @@ private:
         try {
             if (q_.turns) {
                 n = n_solved = *q_.turns;
+                target = q_.inductance - shield_change(n, p);
                 L(n, p);
-                if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, false), p, last)) {
+                if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, false), target, p, last)) {
                     const double l_touch = L(n, p_min);
                     if (l_touch < target) {
                         t.reject(Reason::inductance_out_of_reach, target / l_touch, [&] { return what() + ": " + format_quantity(l_touch, Dimension::inductance) +
@@ -371,7 +382,7 @@ private:
                 // switch from Rosa's form to the filament sum (p = 0.4 a) the inductance can step up by
                 // a few per cent, so there the evaluation resumes.
                 const bool rosa = rosa_in_domain(p, mean / 2);
-                if (t.short_of_target.wire == c.wire && t.short_of_target.form_diameter == c.form_diameter &&
+                if (!q_.shield && t.short_of_target.wire == c.wire && t.short_of_target.form_diameter == c.form_diameter &&
                     t.short_of_target.rosa == rosa) {
                     t.count(Reason::length);
                     return;
@@ -384,6 +395,7 @@ private:
                     t.sheet_rho = rho_room;
                     t.sheet = nagaoka_coefficient_and_slope(rho_room);
                 }
+                target = q_.inductance - shield_change(n_max, p);
                 const double l_max = L(n_max, p, &t.sheet);
                 if (l_max < target) {
                     t.short_of_target = {c.wire, c.form_diameter, rosa};
@@ -412,6 +424,13 @@ private:
                     return;
                 }
                 n_solved = *solved;
+                if (q_.shield) {  // the shield's change at the solved length, and the turns again for it
+                    target = q_.inductance - shield_change(n_solved, p);
+                    first = true;
+                    if (const auto again = detail::bracketed_steps(turns_step, true, n_solved, {1, n_max, std::nullopt, std::nullopt}, 21, 2)) {
+                        n_solved = *again;
+                    }
+                }
                 // Snap to the step; trim the pitch. The nearest step first, then its neighbours. The guide
                 // is rescaled (and matched to the slopes) at the solve's last point, beside the solution.
                 const double step = q_.turns_step;
@@ -421,7 +440,7 @@ private:
                 for (double offset : {0.0, -1.0, 1.0}) {
                     n = nearest + offset * step;
                     if (n < 1) continue;
-                    if (solve_pitch(n, p_min, room, L, guide, p, last)) {
+                    if (solve_pitch(n, p_min, room, L, guide, target, p, last)) {
                         done = true;
                         break;
                     }
@@ -429,6 +448,16 @@ private:
                 if (!done) {
                     t.reject(Reason::snapping, 1.0 + step / n_solved, [&] { return what() + ": no pitch meets the target after snapping the turns"; });
                     return;
+                }
+            }
+            if (q_.shield) {
+                // The shield's change moves with the trimmed pitch: trim again until it settles (twice or
+                // three times; the check after the figures rejects what still misses).
+                for (int k = 0; k < 4; ++k) {
+                    const double next = q_.inductance - shield_change(n, p);
+                    if (std::fabs(next - target) <= 1e-9 * q_.inductance) break;
+                    target = next;
+                    if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, true), target, p, last)) break;
                 }
             }
         } catch (const InputError&) {
@@ -455,6 +484,15 @@ private:
         d.length_with_ends = d.overall_length + 2 * q_.former_ends;
         d.wire_length = s.wire_length();
         d.inductance = at(n, p);
+        if (q_.shield) {
+            // The shield's change at the final geometry: the shielded L must meet the target.
+            d.inductance += shield_change(n, p);
+            const double miss = d.inductance / q_.inductance - 1;
+            if (std::fabs(miss) > q_.tolerance) {
+                t.reject(Reason::shield, 1 + std::fabs(miss), [&] { return what() + ": the shielded inductance misses the target by " + detail::fixed(100 * miss, 2) + " %"; });
+                return;
+            }
+        }
         d.volume = pi / 4 * outer * outer * d.length_with_ends;
         if (q_.max_wire_length && d.wire_length > *q_.max_wire_length) {
             t.reject(Reason::wire_length, d.wire_length / *q_.max_wire_length, [&] { return what() + ": wire " + detail::fixed(d.wire_length, 2) + " m"; });
@@ -561,15 +599,15 @@ private:
     // first guess; Newton's steps follow with Rosa's slope (the filament sum's secant steps start from
     // the guide's). `p` receives the pitch; `last` is the last point `L` evaluated.
     template <class F>
-    bool solve_pitch(double n, double p_min, double room, const F& L, const WheelerGuide& guide, double& p,
+    bool solve_pitch(double n, double p_min, double room, const F& L, const WheelerGuide& guide, double target, double& p,
                      const Point& last) const {
         const double p_max = room / n;
         if (p_max < p_min) return false;
-        const double g = guide.pitch_for(q_.inductance, n);
+        const double g = guide.pitch_for(target, n);
         const double guess = std::isfinite(g) ? std::clamp(g, p_min, p_max) : 0.5 * (p_min + p_max);
         bool first = true;
         const auto pitch_step = [&](double x) {
-            const double f = L(n, x) - q_.inductance;
+            const double f = L(n, x) - target;
             const bool was_first = std::exchange(first, false);
             if (last.l.has_slopes) return detail::RootStep{f, f / last.l.d_pitch, true};
             return detail::RootStep{f, was_first ? f / guide.slope_pitch(n, x) : NAN};
@@ -722,7 +760,8 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
                                    "); the next one is taken");
             continue;
         }
-        const bool l_ok = std::fabs(a->inductance.recommended / q.inductance - 1) <= q.tolerance;
+        const double l_full = a->shield ? a->shield->result.perfect_conductor : a->inductance.recommended;
+        const bool l_ok = std::fabs(l_full / q.inductance - 1) <= q.tolerance;
         const bool band_ok = !a->band || a->band->pass;
         if (l_ok && band_ok) {
             out.chosen = i;
@@ -761,7 +800,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
 CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
     const Wire& w = q.wires[d.wire_index].wire;
     CoilSpec s{q.name.empty() ? "design" : q.name, "", Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, w, q.lead_length}),
-               q.conductor, {}, q.former, q.surroundings, q.band, {}};
+               q.conductor, {}, q.former, q.surroundings, q.band, {}, q.shield};
     s.description = "Designed by libcoil for " + format_quantity(q.inductance, Dimension::inductance) + " within " +
                     detail::fixed(q.tolerance * 100, 2) + " %";
     Operating op;
@@ -828,6 +867,12 @@ std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {
         if (f.flange) o << "  flange: {diameter: " << q(f.flange->diameter, "mm", 1e3) << ", thickness: " << q(f.flange->thickness, "mm", 1e3) << "}\n";
         o << "  min_wall: " << q(f.min_wall, "mm", 1e3) << "\n";
         if (f.bore_oversize > 0) o << "  bore_oversize: " << q(f.bore_oversize, "mm", 1e3) << "\n";
+    }
+    if (s.shield) {
+        const ShieldSpec& h = *s.shield;
+        o << "shield:\n  inner_diameter: " << q(h.inner_diameter, "mm", 1e3) << "\n  length: " << q(h.length, "mm", 1e3) << "\n  thickness: "
+          << q(h.thickness, "mm", 1e3) << "\n  material: " << h.material.name << "\n  end_discs: " << (h.end_discs ? "true" : "false") << "\n";
+        if (h.axial_offset != 0) o << "  axial_offset: " << q(h.axial_offset, "mm", 1e3) << "\n";
     }
     o << "surroundings:\n  relative_permittivity: " << detail::significant(s.surroundings.relative_permittivity, 10)
       << "\n  mounting: " << mounting_name(s.surroundings.mounting) << "\n";

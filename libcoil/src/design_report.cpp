@@ -77,8 +77,12 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
               << fixed(d.rise, 1) << " K, limit " << format_quantity(d.temperature_limit, Dimension::temperature)
               << ") in still air; an estimate, not a rating\n";
             if (r.chosen_analysis && r.chosen_analysis->band) {
-                o << "  full re-analysis: L " << format_quantity(r.chosen_analysis->inductance.recommended, Dimension::inductance)
-                  << ", SRF " << format_quantity(r.chosen_analysis->self_resonance.frequency, Dimension::frequency)
+                o << "  full re-analysis: L " << format_quantity(r.chosen_analysis->inductance.recommended, Dimension::inductance);
+                if (r.chosen_analysis->shield) {
+                    o << " unshielded, " << format_quantity(r.chosen_analysis->shield->result.perfect_conductor, Dimension::inductance)
+                      << " in the shield (its high-frequency limit)";
+                }
+                o << ", SRF " << format_quantity(r.chosen_analysis->self_resonance.frequency, Dimension::frequency)
                   << ", band check " << (r.chosen_analysis->band->pass ? "PASS" : "FAIL") << "\n";
             }
         } else {

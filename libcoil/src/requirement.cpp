@@ -69,7 +69,7 @@ WireOption read_wire_option(const std::string& text, const std::string& field) {
 Requirement read_requirement(const YAML::Node& root) {
     if (!root || root.IsNull()) throw InputError("requirement", "the requirement is empty; expected a mapping with \"target:\"");
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "target", "band", "operating", "limits", "search", "objective", "former",
+    top.allow_only({"name", "description", "target", "band", "operating", "limits", "search", "objective", "former", "shield",
                     "surroundings", "conductor", "tolerances"});
     Requirement q;
     q.name = top.optional_text("name").value_or("");
@@ -158,6 +158,7 @@ Requirement read_requirement(const YAML::Node& root) {
         q.former->ends = q.former_ends;
     }
     if (top.has("surroundings")) q.surroundings = detail::read_surroundings(top.map("surroundings"));
+    if (top.has("shield")) q.shield = detail::read_shield(top.map("shield"));
     q.conductor = conductor(top.optional_text("conductor").value_or("copper"), "conductor");
     if (top.has("tolerances")) {
         const detail::YamlMap tol = top.map("tolerances");

@@ -170,6 +170,23 @@ ShieldingEffectiveness magnetic_shielding(const ShieldSpec& s, double f, double 
     return e;
 }
 
+double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
+    require_positive("shield.inner_diameter", s.inner_diameter);
+    require_positive("shield.length", s.length);
+    require_positive("shield.thickness", s.thickness);
+    if (!(s.inner_diameter > coil.outer_diameter())) {
+        throw InputError("shield.inner_diameter", format_quantity(s.inner_diameter, Dimension::length) +
+                                                      " does not clear the winding (outer diameter " +
+                                                      format_quantity(coil.outer_diameter(), Dimension::length) + ")");
+    }
+    // The current of a perfect conductor is a sheet on the inner surface: one thin layer.
+    ShieldSpec sheet = s;
+    sheet.thickness = std::min(s.thickness, 1e-3 * s.inner_diameter / 2);
+    const System sys = assemble(shield_rings(sheet, coil.mean_radius(), INFINITY), coil, 1.0);
+    const Eigen::VectorXd x = sys.m.ldlt().solve(-sys.mc);
+    return finite_result("shield", sys.mc.dot(x));
+}
+
 double shield_terminal_capacitance(double c, bool grounded_end) {
     require_non_negative("capacitance_to_shield", c);
     return grounded_end ? c / 3 : c / 12;
@@ -192,15 +209,7 @@ ShieldResult shielded_coil(const Solenoid& coil, double inductance, const Shield
     out.unshielded_inductance = inductance;
     out.long_coil_limit = inductance * (1 - a * a / (b * b));
     out.capacitance_to_shield = 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
-    // The perfect conductor: the ring model with no resistance, one thin layer on the inner surface (the
-    // current there is a sheet).
-    {
-        ShieldSpec sheet = s;
-        sheet.thickness = std::min(s.thickness, 1e-3 * b);
-        const System sys = assemble(shield_rings(sheet, a, INFINITY), coil, rho);
-        const Eigen::VectorXd x = sys.m.ldlt().solve(-sys.mc);
-        out.perfect_conductor = finite_result("shield", inductance + sys.mc.dot(x));
-    }
+    out.perfect_conductor = finite_result("shield", inductance + shield_inductance_change(coil, s));
     for (double f : frequencies) {
         require_positive("frequency", f);
         const double delta = skin_depth(rho, f, s.material.relative_permeability);

@@ -116,14 +116,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));
         if (top.has("shield")) {
             const detail::YamlMap sh = top.map("shield");
-            sh.allow_only({"inner_diameter", "length", "thickness", "material", "end_discs", "axial_offset"});
-            ShieldSpec x;
-            x.inner_diameter = sh.positive_quantity("inner_diameter", Dimension::length);
-            x.length = sh.positive_quantity("length", Dimension::length);
-            x.thickness = sh.positive_quantity("thickness", Dimension::length);
-            x.material = conductor(sh.text("material"), sh.path_of("material"));
-            if (auto e = sh.optional_choice("end_discs", {"false", "true"})) x.end_discs = *e == 1;
-            if (sh.has("axial_offset")) x.axial_offset = sh.quantity("axial_offset", Dimension::length);
+            const ShieldSpec x = detail::read_shield(sh);
             if (!(x.inner_diameter > s.outer_diameter())) {
                 throw InputError(sh.path_of("inner_diameter"), "\"" + sh.text("inner_diameter") + "\" does not clear the winding (outer diameter " +
                                                                    format_quantity(s.outer_diameter(), Dimension::length) + ")");
@@ -151,6 +144,18 @@ FormerDielectric FormerSpec::dielectric(double form_diameter) const {
 }
 
 namespace detail {
+
+ShieldSpec read_shield(const YamlMap& sh) {
+    sh.allow_only({"inner_diameter", "length", "thickness", "material", "end_discs", "axial_offset"});
+    ShieldSpec x;
+    x.inner_diameter = sh.positive_quantity("inner_diameter", Dimension::length);
+    x.length = sh.positive_quantity("length", Dimension::length);
+    x.thickness = sh.positive_quantity("thickness", Dimension::length);
+    x.material = conductor(sh.text("material"), sh.path_of("material"));
+    if (auto e = sh.optional_choice("end_discs", {"false", "true"})) x.end_discs = *e == 1;
+    if (sh.has("axial_offset")) x.axial_offset = sh.quantity("axial_offset", Dimension::length);
+    return x;
+}
 
 FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
     m.allow_only({"material", "kind", "wall", "ribs", "rib_width", "ends", "groove", "flange", "hub_wall", "min_wall", "bore_oversize"});

@@ -18,6 +18,7 @@ namespace libcoil::detail {
 // `form_diameter` is the smallest former the section must fit (the wall, the ribs' gaps).
 FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes);
 Surroundings read_surroundings(const YamlMap& m);
+ShieldSpec read_shield(const YamlMap& m);
 BandSpec read_band(const YamlMap& m);
 
 // YAML text to a node; malformed YAML is an InputError naming source:line:column.

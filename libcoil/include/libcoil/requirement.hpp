@@ -24,6 +24,7 @@
 //     lead_length: 80 mm             # optional, both leads together
 //   objective: {loss: 1, size: 0.5, srf: 0.5}   # weights, see design.hpp
 //   former: {material: PETG, kind: grooved-tube, wall: 3 mm}
+//   shield: {inner_diameter: 50 mm, length: 80 mm, thickness: 0.1 mm, material: copper}   # optional
 //   surroundings: {mounting: floating}
 //   conductor: copper
 //   tolerances:                      # optional, one standard deviation each (defaults: spread.hpp)
@@ -86,6 +87,8 @@ struct Requirement {
     double lead_length = 0;       // m
     Objective objective;
     std::optional<FormerSpec> former;
+    // A shield around the coil: the search then meets the target with the shield's high-frequency L.
+    std::optional<ShieldSpec> shield;
     Surroundings surroundings;
     Conductor conductor;
     BuildTolerances tolerances;

@@ -53,6 +53,11 @@ struct ShieldResult {
     int rings = 0;                      // at the highest frequency
 };
 
+// The change of the coil's inductance by the shield in its high-frequency limit (the perfect conductor:
+// the ring model without resistance on one thin layer at the inner surface), in H (negative). Cheap: the
+// design search calls it per candidate.
+double shield_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
+
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);
