@@ -524,6 +524,8 @@ PYBIND11_MODULE(_core, m) {
     }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "M in H between two solenoids.");
     m.def("parallel_filament_mutual_inductance", py::vectorize(&libcoil::parallel_filament_mutual_inductance), "radius_a"_a,
           "radius_b"_a, "distance"_a, "axial_offset"_a);
+    m.def("sheet_in_long_shield_change", py::vectorize(&libcoil::sheet_in_long_shield_change), "mean_radius"_a, "length"_a,
+          "turns"_a, "shield_radius"_a, "dL in H of a current sheet in an infinitely long perfectly conducting tube.");
     m.def("text_report", &libcoil::text_report, "analysis"_a);
     m.def("json_report", &libcoil::json_report, "analysis"_a);
 }

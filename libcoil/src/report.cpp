@@ -67,6 +67,7 @@ void shield_text(std::ostringstream& o, const Analysis& a) {
       << shift(a.shield->self_resonance, a.self_resonance.frequency) << "\n";
     row(o, "capacitance to shield", farad(r.capacitance_to_shield),
         farad(a.shield->terminal_capacitance) + " between the terminals (" + mounting_name(a.spec.surroundings.mounting) + ")");
+    row(o, "closed form", format_quantity(r.closed_form, Dimension::inductance), "current sheet in a long tube (Fourier-Bessel), high-frequency limit");
     row(o, "long-coil form", format_quantity(r.long_coil_limit, Dimension::inductance), "L0 (1 - a^2/b^2), for a long coil in a long shield");
 }
 
@@ -329,7 +330,7 @@ std::string json_report(const Analysis& a) {
         }
         j["shield"] = {{"material", s.material.name}, {"inner_diameter_m", s.inner_diameter}, {"length_m", s.length},
                        {"thickness_m", s.thickness}, {"end_discs", s.end_discs}, {"axial_offset_m", s.axial_offset},
-                       {"inductance_high_frequency_H", r.perfect_conductor}, {"long_coil_form_H", r.long_coil_limit},
+                       {"inductance_high_frequency_H", r.perfect_conductor}, {"closed_form_H", r.closed_form}, {"long_coil_form_H", r.long_coil_limit},
                        {"capacitance_to_shield_F", r.capacitance_to_shield}, {"terminal_capacitance_F", a.shield->terminal_capacitance},
                        {"self_resonance_Hz", a.shield->self_resonance}, {"at_frequency", pts}, {"rings", r.rings}};
     }

@@ -5,6 +5,8 @@
 #include <complex>
 
 #include <Eigen/Dense>
+#include <boost/math/quadrature/gauss_kronrod.hpp>
+#include <boost/math/special_functions/bessel.hpp>
 
 #include "libcoil/coaxial_mutual.hpp"
 #include "libcoil/constants.hpp"
@@ -170,6 +172,31 @@ ShieldingEffectiveness magnetic_shielding(const ShieldSpec& s, double f, double 
     return e;
 }
 
+double sheet_in_long_shield_change(double a, double l, double n, double b) {
+    require_positive("mean_radius", a);
+    require_positive("length", l);
+    require_positive("turns", n);
+    require_positive("shield_radius", b);
+    if (!(b > a)) throw InputError("shield_radius", "must exceed the coil's radius");
+    namespace bm = boost::math;
+    // I1(x)^2 K1(y) / I1(y) ~ exp(2x - 2y): past 2 k (b - a) = 80 nothing is left; below k b = 600 no
+    // Bessel function overflows.
+    const double k_max = std::min(40 / (b - a), 600 / b);
+    const auto g = [&](double k) {
+        if (k <= 0) return l * l / 4 * a * a / (2 * b * b);  // the limit of sin^2 / k^2 times G
+        const double s = std::sin(k * l / 2) / k;
+        const double i_a = bm::cyl_bessel_i(1, k * a);
+        return s * s * i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
+    };
+    // The integrand oscillates with period 2 pi / l: integrate piece by piece.
+    const double period = 2 * pi / l;
+    double sum = 0;
+    for (double k0 = 0; k0 < k_max; k0 += period) {
+        sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(g, k0, std::min(k_max, k0 + period), 8, 1e-12);
+    }
+    return finite_result("sheet_in_long_shield_change", -8 * mu0 * a * a * n * n / (l * l) * sum);
+}
+
 double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
     require_positive("shield.inner_diameter", s.inner_diameter);
     require_positive("shield.length", s.length);
@@ -208,6 +235,7 @@ ShieldResult shielded_coil(const Solenoid& coil, double inductance, const Shield
     ShieldResult out;
     out.unshielded_inductance = inductance;
     out.long_coil_limit = inductance * (1 - a * a / (b * b));
+    out.closed_form = inductance + sheet_in_long_shield_change(a, coil.winding_length(), coil.turns(), b);
     out.capacitance_to_shield = 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
     out.perfect_conductor = finite_result("shield", inductance + shield_inductance_change(coil, s));
     for (double f : frequencies) {

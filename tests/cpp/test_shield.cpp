@@ -127,3 +127,28 @@ TEST(Shield, MagneticShieldingLimits) {
     // measured 9.9994 dB from 10 to 100 MHz.
     EXPECT_NEAR(magnetic_shielding(s, 1e8, r).reflection_db - magnetic_shielding(s, 1e7, r).reflection_db, 10, 1e-3);
 }
+
+TEST(Shield, RingModelAgainstTheFourierBesselClosedForm) {
+    // Two independent methods for a finite coil in a long perfectly conducting tube: the ring model
+    // (discrete turns, wall rings) and the current sheet's Fourier-Bessel integral (Boost.Math Bessel
+    // functions). Measured: the change of L within 0.19 % .. 1.1 %, the shielded L within 0.5 %, over
+    // l / D = 0.5 .. 10 and b / a = 1.25 .. 3.
+    double worst_change = 0, worst_l = 0;
+    for (double l_over_d : {0.5, 2.0, 10.0}) {
+        for (double b_over_a : {1.25, 1.5, 3.0}) {
+            const double a = 10e-3, l = 2 * a * l_over_d, pitch = 1e-3;
+            const Solenoid c(Solenoid::Params{2 * a, l / pitch, pitch, Wire{0.6e-3, 0.02e-3, "test"}, 0});
+            const double l0 = recommended_inductance(c);
+            ShieldSpec s = tube(2 * b_over_a * a, l + 6 * b_over_a * a);  // three radii beyond each end
+            const double ring = shield_inductance_change(c, s), sheet = sheet_in_long_shield_change(a, l, c.turns(), b_over_a * a);
+            worst_change = std::max(worst_change, std::fabs(ring / sheet - 1));
+            worst_l = std::max(worst_l, std::fabs((l0 + ring) / (l0 + sheet) - 1));
+        }
+    }
+    EXPECT_LT(worst_change, 0.02);
+    EXPECT_LT(worst_l, 0.006);
+    // The closed form's long-coil limit: -L_inf a^2 / b^2 (l / b = 200 here).
+    const double a = 10e-3, b = 15e-3, l = 3.0, n = 3000;
+    const double l_inf = mu0 * pi * a * a * n * n / l;
+    EXPECT_NEAR(sheet_in_long_shield_change(a, l, n, b) / (-l_inf * a * a / (b * b)), 1, 0.01);
+}

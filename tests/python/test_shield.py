@@ -2,6 +2,8 @@
 module. The physics checks (long-coil form, low-frequency limit, wall loss) are in tests/cpp/test_shield.cpp."""
 import json
 
+import numpy as np
+
 import pytest
 
 import libcoil
@@ -80,3 +82,19 @@ def test_a_shielded_requirement_gets_more_turns_and_meets_the_target_in_the_shie
             assert d["turns"] > twin["turns"]
             compared += 1
     assert compared >= 3
+
+
+@pytest.mark.parametrize("a, l, b", [(0.01, 0.01, 0.0125), (0.01, 0.04, 0.02), (0.01, 0.2, 0.03)])
+def test_fourier_bessel_closed_form_against_scipy(a, l, b):
+    # The same integral by scipy.special (iv, kv; exponentially scaled ive, kve so nothing overflows) and
+    # scipy.integrate.quad, an independent implementation:
+    # dL = -8 mu0 a^2 N^2 / l^2 int_0^inf sin^2(k l / 2) / k^2 I1(k a)^2 K1(k b) / I1(k b) dk.
+    from scipy import integrate, special
+    mu0, n = 1.25663706212e-6, 50
+    def g(k):
+        s = np.sin(k * l / 2) / k
+        return s * s * special.ive(1, k * a) ** 2 * special.kve(1, k * b) / special.ive(1, k * b) * np.exp(2 * k * (a - b))
+    val = sum(integrate.quad(g, k0, k0 + 2 * np.pi / l, epsabs=0, epsrel=1e-12, limit=200)[0]
+              for k0 in np.arange(1e-12, 60 / (b - a), 2 * np.pi / l))
+    ref = -8 * mu0 * a * a * n * n / (l * l) * val
+    assert libcoil.sheet_in_long_shield_change(a, l, n, b) == pytest.approx(ref, rel=1e-9)

@@ -47,11 +47,21 @@ struct ShieldPoint {
 struct ShieldResult {
     double unshielded_inductance = 0;   // H, as given
     double long_coil_limit = 0;         // H, L0 (1 - a^2 / b^2)
+    double closed_form = 0;             // H, L0 + sheet_in_long_shield_change: the finite coil in a long tube
     double perfect_conductor = 0;       // H, the ring model with no resistance (the high-frequency limit)
     double capacitance_to_shield = 0;   // F, coaxial over the winding length
     std::vector<ShieldPoint> points;
     int rings = 0;                      // at the highest frequency
 };
+
+// Closed form with the coil's finite length: a current sheet (radius a, length l, N turns) in an infinitely
+// long perfectly conducting tube of radius b. By Fourier transform along the axis, the sheet's vector
+// potential is (mu0 a / 2 pi) integral K(k) I1(|k| r<) K1(|k| r>) e^(ikz) dk, and the tube adds the
+// reflected part that makes A_phi(b) = 0, so that
+//   dL = -8 mu0 a^2 N^2 / l^2 integral_0^inf sin^2(k l / 2) / k^2 I1(k a)^2 K1(k b) / I1(k b) dk,
+// which for l >> b tends to -L_inf a^2 / b^2 (derived in docs/models.md; Boost.Math's Bessel functions
+// and Gauss-Kronrod quadrature). Negative, in H.
+double sheet_in_long_shield_change(double mean_radius, double length, double turns, double shield_radius);
 
 // The change of the coil's inductance by the shield in its high-frequency limit (the perfect conductor:
 // the ring model without resistance on one thin layer at the inner surface), in H (negative). Cheap: the
