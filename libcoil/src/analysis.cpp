@@ -163,6 +163,12 @@ void add_shield(Analysis& a) {
     const double c = a.self_resonance.capacitance + sh.terminal_capacitance;
     sh.self_resonance = 1 / (2 * pi * std::sqrt(sh.result.perfect_conductor * c));
     a.shield = sh;
+    const ShieldSpec& x = *spec.shield;
+    const double reach = x.length / 2 - std::fabs(x.axial_offset) - spec.solenoid.winding_length() / 2;
+    if (reach < 0.5 * x.inner_diameter / 2) {
+        a.warnings.push_back("the shield reaches only " + format_quantity(std::max(0.0, reach), Dimension::length) +
+                             " past the winding's end: the closed form (a long tube) does not hold there; the ring model's figures do");
+    }
     a.notes.push_back("shielded SRF: a lumped estimate from the high-frequency L and the self-capacitance plus the capacitance to the shield; "
                       "the band check and the impedance are of the unshielded coil");
 }
