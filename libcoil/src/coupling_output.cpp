@@ -61,9 +61,18 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
     for (double f : frequencies) {
         require_positive("frequency", f);
         const double ra = resistance_at(a, f), rb = resistance_at(b, f);
-        double se = 0;
-        if (a.shield) se += magnetic_shielding(*a.shield, f, a.shield->inner_diameter / 2).total_db;
-        if (b.shield) se += magnetic_shielding(*b.shield, f, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2)).total_db;
+        // Each wall's figure is capped at max_wall_db: the plane-sheet theory of a seamless wall runs to
+        // hundreds of dB, which no real can with seams and open ends reaches.
+        double se = 0, theory = 0;
+        // An open tube is no better than what leaks out of its ends.
+        const auto wall = [&](const ShieldSpec& sh, double r, const Solenoid& coil) {
+            const double x = magnetic_shielding(sh, f, r).total_db;
+            theory += x;
+            se += std::min({x, max_wall_db, open_end_leakage_db(sh, coil.winding_length())});
+        };
+        if (a.shield) wall(*a.shield, a.shield->inner_diameter / 2, a.solenoid);
+        if (b.shield) wall(*b.shield, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2), b.solenoid);
+        s.theoretical_shielding_db.push_back(theory);
         Coupling shielded = s.at;
         shielded.mutual *= std::pow(10.0, -se / 20);
         s.crosstalk.push_back(crosstalk(shielded, f, ra, rb, rs, rl));
@@ -72,8 +81,9 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
     }
     if (a.shield || b.shield) {
         s.notes.push_back("shields: Schelkunoff's plane-sheet shielding effectiveness of each wall against the near magnetic field, "
-                          "applied to M; a seamless, closed wall is assumed, and seams, slots and open tube ends leak long before these "
-                          "figures; L and R are the unshielded coils'");
+                          "applied to M, at most 100 dB a wall (common practice, no source: seams and slots leak long before the "
+                          "seamless wall's figure), and for an open tube no more than leaks from its ends (the TE01 mode below cutoff, "
+                          "33 dB per radius of tube beyond the winding); L and R are the unshielded coils'");
     }
     for (double d : sweep) {
         const Coupling c = coupling(a.solenoid, b.solenoid, arr, d, offset);
@@ -101,7 +111,9 @@ std::string coupling_text_report(const CouplingStudy& s, const std::vector<std::
         for (std::size_t i = 0; i < s.crosstalk.size(); ++i) {
             const auto& x = s.crosstalk[i];
             o << "  " << detail::pad(format_quantity(x.frequency, Dimension::frequency), 15)
-              << detail::pad(format_quantity(x.transfer_impedance, Dimension::resistance), 18) << detail::pad(fixed(x.transfer_db, 1) + " dB", 12);
+              << detail::pad(x.transfer_impedance >= 1e-12 ? format_quantity(x.transfer_impedance, Dimension::resistance)
+                                                           : significant(x.transfer_impedance, 3) + " \u03a9", 18)
+              << detail::pad(fixed(x.transfer_db, 1) + " dB", 12);
             if (shielded) o << detail::pad(fixed(s.shielding_db[i], 1) + " dB", 11) << fixed(s.unshielded_db[i], 1) << " dB";
             o << "\n";
         }
@@ -142,6 +154,7 @@ std::string coupling_json_report(const CouplingStudy& s, const std::vector<std::
     }
     for (std::size_t i = 0; i < xs.size(); ++i) {
         xs[i]["shielding_dB"] = s.shielding_db[i];
+        xs[i]["theoretical_shielding_dB"] = s.theoretical_shielding_db[i];
         xs[i]["unshielded_transfer_dB"] = s.unshielded_db[i];
     }
     j["crosstalk"] = xs;

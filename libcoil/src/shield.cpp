@@ -214,6 +214,14 @@ double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
     return finite_result("shield", sys.mc.dot(x));
 }
 
+double open_end_leakage_db(const ShieldSpec& s, double winding_length) {
+    require_positive("winding_length", winding_length);
+    if (s.end_discs) return INFINITY;
+    const double e = std::max(0.0, s.length / 2 - std::fabs(s.axial_offset) - winding_length / 2);
+    constexpr double j1_first_zero = 3.8317059702075123;
+    return 20 / std::log(10.0) * j1_first_zero * e / (s.inner_diameter / 2);
+}
+
 double shield_terminal_capacitance(double c, bool grounded_end) {
     require_non_negative("capacitance_to_shield", c);
     return grounded_end ? c / 3 : c / 12;

@@ -168,3 +168,15 @@ TEST(Shield, TubeLengthBeyondTheCoilMattersOnlyNearItsEnds) {
         }
     }
 }
+
+TEST(Shield, OpenEndsLeakAsTheTE01ModeBelowCutoff) {
+    // exp(-3.832 e / b) along the tube, 3.832 the first zero of J1 (textbook waveguide theory, from memory):
+    // 33.28 dB per radius of tube beyond the winding.
+    ShieldSpec s = tube(40e-3, 0.06);  // b = 20 mm, 21 mm beyond an 18 mm winding at each end
+    EXPECT_NEAR(open_end_leakage_db(s, 18e-3), 20 / std::log(10.0) * 3.8317059702075123 * 21e-3 / 20e-3, 1e-12);
+    EXPECT_NEAR(open_end_leakage_db(s, 18e-3), 34.94, 0.01);
+    s.axial_offset = 5e-3;  // the nearer end counts
+    EXPECT_NEAR(open_end_leakage_db(s, 18e-3), 33.28 * 16e-3 / 20e-3, 0.01);
+    s.end_discs = true;
+    EXPECT_TRUE(std::isinf(open_end_leakage_db(s, 18e-3)));
+}

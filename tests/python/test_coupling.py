@@ -107,8 +107,9 @@ def test_python_couple_matches_the_cli(specs, run_coil):
 
 def test_grounded_copper_shields_cut_side_by_side_coupling_by_tens_of_db(tmp_path, run_coil):
     # Common practice, no source: wrapping each coil in a grounded copper shield cuts the coupling between
-    # side-by-side coils by tens of dB at MHz frequencies. Found: 114 dB at 1 MHz and 190 dB at 10 MHz
-    # for 0.1 mm copper foil of 40 mm diameter, coils 60 mm apart (seamless walls; real seams leak).
+    # side-by-side coils by tens of dB at MHz frequencies. Found, for 0.1 mm copper foil of 40 mm diameter
+    # and 60 mm length around 18 mm windings, coils 60 mm apart: the walls alone 114 dB at 1 MHz and
+    # 190 dB at 10 MHz (seamless), but the open ends leak 35 dB per tube, so 70 dB at both frequencies.
     shield = "shield: {inner_diameter: 40 mm, length: 60 mm, thickness: 0.1 mm, material: copper}\n"
     a, b = tmp_path / "a.yaml", tmp_path / "b.yaml"
     a.write_text(SPEC.format(name="Coil A", form=20, turns=12) + shield)
@@ -118,8 +119,15 @@ def test_grounded_copper_shields_cut_side_by_side_coupling_by_tens_of_db(tmp_pat
     x = json.loads(r.stdout)["crosstalk"]
     assert [p["frequency_Hz"] for p in x] == [1e6, 1e7]
     for p in x:
-        assert p["shielding_dB"] > 40
+        assert 60 < p["shielding_dB"] < 80
         # The crosstalk is linear in M while the coupling is weak.
         assert p["unshielded_transfer_dB"] - p["transfer_dB"] == pytest.approx(p["shielding_dB"], abs=1e-3)
-    assert x[1]["shielding_dB"] > x[0]["shielding_dB"]
-    assert 100 < x[0]["shielding_dB"] < 130 and 170 < x[1]["shielding_dB"] < 210
+    assert 100 < x[0]["theoretical_shielding_dB"] < 130 and 170 < x[1]["theoretical_shielding_dB"] < 210
+    # Closed cans (end discs) are limited by their walls, each capped at 100 dB.
+    closed = shield.replace("material: copper", "material: copper, end_discs: true")
+    a.write_text(SPEC.format(name="Coil A", form=20, turns=12) + closed)
+    b.write_text(SPEC.format(name="Coil B", form=20, turns=12) + closed)
+    y = json.loads(run_coil("couple", a, b, "--distance", "60 mm", "--arrangement", "side-by-side", "--json",
+                            "--frequency", "1 MHz", "--frequency", "100 MHz").stdout)["crosstalk"]
+    assert y[0]["shielding_dB"] == pytest.approx(y[0]["theoretical_shielding_dB"])  # 114 dB: no cap, no leak
+    assert y[1]["theoretical_shielding_dB"] > 300 and y[1]["shielding_dB"] == pytest.approx(200)

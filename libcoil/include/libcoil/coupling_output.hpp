@@ -13,6 +13,10 @@
 
 namespace libcoil {
 
+// The most a wall is credited with (dB): common practice, no source; real cans with seams and open ends
+// rarely do better, whatever the seamless wall's theory says.
+inline constexpr double max_wall_db = 100;
+
 struct CouplingStudy {
     std::string name_a, name_b;
     Arrangement arrangement = Arrangement::coaxial;
@@ -21,7 +25,9 @@ struct CouplingStudy {
     double dipole_mutual = 0;               // H, the far-field estimate at `distance`, for comparison
     double source_resistance = 50, load_resistance = 50;  // ohm
     std::vector<Crosstalk> crosstalk;       // at each frequency, with the shields' effect when there are any
-    std::vector<double> shielding_db;       // at each frequency: both shields' magnetic shielding together (0: none)
+    std::vector<double> shielding_db;       // at each frequency: both shields' magnetic shielding together (0: none),
+                                            // each wall capped at max_wall_db
+    std::vector<double> theoretical_shielding_db;  // the same without the cap
     std::vector<double> unshielded_db;      // at each frequency: |S21| without the shields
     struct Point {
         double distance, mutual, coefficient;

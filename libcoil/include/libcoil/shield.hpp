@@ -88,4 +88,11 @@ struct ShieldingEffectiveness {
 };
 ShieldingEffectiveness magnetic_shielding(const ShieldSpec& shield, double frequency, double source_distance);
 
+// What leaks out of an open tube's ends, in dB: the coil's axisymmetric field travels along the tube as the
+// TE01 mode below cutoff, falling by exp(-3.832 e / b) over the distance e from the winding's end to the
+// tube's end (textbook waveguide theory: 3.832 is the first zero of J1, quoted from memory), so
+// 8.686 x 3.832 e / b = 33.3 e / b dB. Infinite (no leak) for a tube with end discs. `winding_length`: the
+// coil's, centred in the tube less the shield's axial offset.
+double open_end_leakage_db(const ShieldSpec& shield, double winding_length);
+
 }  // namespace libcoil
