@@ -126,10 +126,7 @@ std::string coupling_text_report(const CouplingStudy& s, const std::vector<std::
         }
     }
     detail::list_section(o, "Notes", s.notes, "-");
-    if (!files.empty()) {
-        o << "\nWritten: ";
-        for (std::size_t i = 0; i < files.size(); ++i) o << (i ? "         " : "") << files[i] << "\n";
-    }
+    detail::written_section(o, files);
     return o.str();
 }
 

@@ -273,10 +273,7 @@ std::string former_text_report(const FormerBuild& b, const std::vector<std::stri
       << " chord tolerance; closed, 2-manifold, outward, no degenerate triangle (checked)\n";
     detail::list_section(o, "Cautions", b.cautions, "!");
     detail::list_section(o, "Notes", g.notes, "-");
-    if (!files.empty()) {
-        o << "\nWritten: ";
-        for (std::size_t i = 0; i < files.size(); ++i) o << (i ? "         " : "") << files[i] << "\n";
-    }
+    detail::written_section(o, files);
     return o.str();
 }
 

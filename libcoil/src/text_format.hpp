@@ -45,6 +45,13 @@ inline std::string pad(const std::string& s, std::size_t width) {
 }
 
 // A report section of one line per item: "\nTitle\n  ! item" (nothing when empty).
+// "Written: PATH" and the other paths below it, aligned; nothing when no file was written.
+inline void written_section(std::ostream& o, const std::vector<std::string>& files) {
+    if (files.empty()) return;
+    o << "\nWritten: ";
+    for (std::size_t i = 0; i < files.size(); ++i) o << (i ? "         " : "") << files[i] << "\n";
+}
+
 inline void list_section(std::ostream& o, const char* title, const std::vector<std::string>& items, const char* mark) {
     if (items.empty()) return;
     o << "\n" << title << "\n";
