@@ -484,6 +484,7 @@ private:
         d.length_with_ends = d.overall_length + 2 * q_.former_ends;
         d.wire_length = s.wire_length();
         d.inductance = at(n, p);
+        const double l_bare = d.inductance;
         if (q_.shield) {
             // The shield's change at the final geometry: the shielded L must meet the target.
             d.inductance += shield_change(n, p);
@@ -551,13 +552,23 @@ private:
             return;
         }
         d.self_resonance = sr.frequency;
+        if (q_.shield) {
+            // In the shield: its capacitance between the terminals joins the coil's own, with the shielded L
+            // (the lumped estimate coil analyze reports; shield.hpp).
+            const double c_self = 1 / (std::pow(2 * pi * sr.frequency, 2) * l_bare);
+            const double b_r = q_.shield->inner_diameter / 2, r_out = outer / 2;
+            const double c_t = shield_terminal_capacitance(2 * pi * eps0 * s.winding_length() / std::log(b_r / r_out),
+                                                           q_.surroundings.mounting == Mounting::grounded_end);
+            d.self_resonance = 1 / (2 * pi * std::sqrt(d.inductance * (c_self + c_t)));
+        }
         if (q_.band) {
             const BandSpec& b = *q_.band;
-            d.srf_margin = sr.frequency / b.ceiling;
+            const double srf = d.self_resonance;
+            d.srf_margin = srf / b.ceiling;
             const bool none = !b.srf_margin && !b.max_deviation && !b.min_impedance;
             const double k = b.srf_margin.value_or(none ? default_srf_margin : 0);
-            if (k > 0 && sr.frequency < k * b.ceiling) {
-                t.reject(Reason::srf_margin, k * b.ceiling / sr.frequency, [&] { return what() + ": SRF " + format_quantity(sr.frequency, Dimension::frequency); });
+            if (k > 0 && srf < k * b.ceiling) {
+                t.reject(Reason::srf_margin, k * b.ceiling / srf, [&] { return what() + ": SRF " + format_quantity(srf, Dimension::frequency); });
                 return;
             }
             if (b.max_deviation || b.min_impedance) {
