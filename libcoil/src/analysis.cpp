@@ -76,7 +76,7 @@ std::vector<double> frequency_grid(double from, double to, int points, bool loga
 namespace {
 
 Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options) {
-    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, {}, {}, {}, {}, spec.notes};
+    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, {}, {}, {}, {}, spec.notes, {}};
     a.warnings = a.inductance.warnings;
     const Solenoid& s = spec.solenoid;
     const Operating& op = spec.operating;
@@ -160,8 +160,8 @@ void add_shield(Analysis& a) {
     Analysis::Shielded sh;
     sh.result = shielded_coil(spec.solenoid, a.inductance.recommended, *spec.shield, f);
     sh.terminal_capacitance = shield_terminal_capacitance(sh.result.capacitance_to_shield, spec.surroundings.mounting == Mounting::grounded_end);
-    const double c = a.self_resonance.capacitance + sh.terminal_capacitance;
-    sh.self_resonance = 1 / (2 * pi * std::sqrt(sh.result.perfect_conductor * c));
+    sh.self_resonance = shielded_self_resonance(a.self_resonance.frequency, a.inductance.recommended, sh.result.perfect_conductor,
+                                                sh.terminal_capacitance);
     a.shield = sh;
     const ShieldSpec& x = *spec.shield;
     const double reach = x.length / 2 - std::fabs(x.axial_offset) - spec.solenoid.winding_length() / 2;

@@ -12,26 +12,13 @@
 #include "libcoil/error.hpp"
 #include "libcoil/inductance.hpp"
 #include "libcoil/units.hpp"
+#include "turn_filaments.hpp"
 
 namespace libcoil {
 
 namespace {
 
-struct Filaments {
-    std::vector<double> z;  // m, from the coil's centre
-    double weight = 1;      // turns per filament
-    double radius = 0;
-};
-
-Filaments filaments(const Solenoid& s) {
-    Filaments f;
-    const int n = static_cast<int>(std::ceil(s.turns() - 1e-9));
-    const double length = s.winding_length();
-    f.weight = s.turns() / n;
-    f.radius = s.mean_radius();
-    for (int k = 0; k < n; ++k) f.z.push_back(-length / 2 + (k + 0.5) * length / n);
-    return f;
-}
+using detail::TurnFilaments;
 
 }  // namespace
 
@@ -57,7 +44,7 @@ double parallel_filament_mutual_inductance(double a, double b, double d, double 
 double coil_mutual_inductance(const Solenoid& a, const Solenoid& b, Arrangement arrangement, double distance, double axial_offset) {
     require_finite("distance", distance);
     require_finite("axial_offset", axial_offset);
-    const Filaments fa = filaments(a), fb = filaments(b);
+    const TurnFilaments fa = detail::turn_filaments(a), fb = detail::turn_filaments(b);
     double sum = 0;
     if (arrangement == Arrangement::coaxial) {
         // Each winding spans its current sheet, N p (its end turns' centres half a pitch inside): end to
@@ -95,6 +82,12 @@ double coil_mutual_inductance(const Solenoid& a, const Solenoid& b, Arrangement 
         }
     }
     return finite_result("coil_mutual_inductance", sum * fa.weight * fb.weight);
+}
+
+double dipole_mutual_inductance(const Solenoid& a, const Solenoid& b, Arrangement arr, double d) {
+    require_positive("distance", d);
+    const double ma = a.turns() * pi * a.mean_radius() * a.mean_radius(), mb = b.turns() * pi * b.mean_radius() * b.mean_radius();
+    return finite_result("dipole_mutual_inductance", (arr == Arrangement::coaxial ? 2.0 : -1.0) * mu0 * ma * mb / (4 * pi * d * d * d));
 }
 
 Coupling coupling(const Solenoid& a, const Solenoid& b, Arrangement arrangement, double distance, double axial_offset) {

@@ -22,13 +22,6 @@ namespace {
 using detail::fixed;
 using detail::significant;
 
-// The far-field (magnetic dipole) mutual inductance: m = N pi a^2 each, on the axis mu0 m1 m2 / (2 pi d^3),
-// across it -mu0 m1 m2 / (4 pi d^3).
-double dipole_mutual(const Solenoid& a, const Solenoid& b, Arrangement arr, double d) {
-    const double ma = a.turns() * pi * a.mean_radius() * a.mean_radius(), mb = b.turns() * pi * b.mean_radius() * b.mean_radius();
-    return (arr == Arrangement::coaxial ? 2.0 : -1.0) * mu0 * ma * mb / (4 * pi * d * d * d);
-}
-
 double resistance_at(const CoilSpec& s, double f) {
     const double l = recommended_inductance(s.solenoid);
     return coil_at_frequencies(s.solenoid, s.conductor, s.operating.temperature, l, {f}).front().resistance;
@@ -49,7 +42,7 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
     s.source_resistance = require_positive("source_resistance", rs);
     s.load_resistance = require_positive("load_resistance", rl);
     s.at = coupling(a.solenoid, b.solenoid, arr, distance, offset);
-    s.dipole_mutual = dipole_mutual(a.solenoid, b.solenoid, arr, distance);
+    s.dipole_mutual = dipole_mutual_inductance(a.solenoid, b.solenoid, arr, distance);
     if (frequencies.empty()) {
         frequencies = a.operating.frequencies;
         frequencies.insert(frequencies.end(), b.operating.frequencies.begin(), b.operating.frequencies.end());
@@ -61,14 +54,11 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
     for (double f : frequencies) {
         require_positive("frequency", f);
         const double ra = resistance_at(a, f), rb = resistance_at(b, f);
-        // Each wall's figure is capped at max_wall_db: the plane-sheet theory of a seamless wall runs to
-        // hundreds of dB, which no real can with seams and open ends reaches.
+        // Each shield is credited with its wall's figure, capped, and no more than its open ends let out.
         double se = 0, theory = 0;
-        // An open tube is no better than what leaks out of its ends.
         const auto wall = [&](const ShieldSpec& sh, double r, const Solenoid& coil) {
-            const double x = magnetic_shielding(sh, f, r).total_db;
-            theory += x;
-            se += std::min({x, max_wall_db, open_end_leakage_db(sh, coil.winding_length())});
+            theory += magnetic_shielding(sh, f, r).total_db;
+            se += credited_magnetic_shielding_db(sh, f, r, coil.winding_length());
         };
         if (a.shield) wall(*a.shield, a.shield->inner_diameter / 2, a.solenoid);
         if (b.shield) wall(*b.shield, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2), b.solenoid);

@@ -555,11 +555,8 @@ private:
         if (q_.shield) {
             // In the shield: its capacitance between the terminals joins the coil's own, with the shielded L
             // (the lumped estimate coil analyze reports; shield.hpp).
-            const double c_self = 1 / (std::pow(2 * pi * sr.frequency, 2) * l_bare);
-            const double b_r = q_.shield->inner_diameter / 2, r_out = outer / 2;
-            const double c_t = shield_terminal_capacitance(2 * pi * eps0 * s.winding_length() / std::log(b_r / r_out),
-                                                           q_.surroundings.mounting == Mounting::grounded_end);
-            d.self_resonance = 1 / (2 * pi * std::sqrt(d.inductance * (c_self + c_t)));
+            const double c_t = shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end);
+            d.self_resonance = shielded_self_resonance(sr.frequency, l_bare, d.inductance, c_t);
         }
         if (q_.band) {
             const BandSpec& b = *q_.band;

@@ -14,6 +14,7 @@
 #include "libcoil/ring_inductance.hpp"
 #include "libcoil/skin_effect.hpp"
 #include "libcoil/units.hpp"
+#include "turn_filaments.hpp"
 
 namespace libcoil {
 
@@ -106,15 +107,6 @@ std::vector<Ring> shield_rings(const ShieldSpec& s, double coil_radius, double d
     return rings;
 }
 
-// Turn filaments: one per turn (ceil(N) of weight N / ceil(N) for fractional N), on the mean radius.
-std::vector<double> turn_heights(const Solenoid& c, double& weight) {
-    const int n = static_cast<int>(std::ceil(c.turns() - 1e-9));
-    weight = c.turns() / n;
-    std::vector<double> z;
-    for (int k = 0; k < n; ++k) z.push_back(-c.winding_length() / 2 + (k + 0.5) * c.winding_length() / n);
-    return z;
-}
-
 struct System {
     Eigen::MatrixXd m;   // ring-ring mutual and self inductances
     Eigen::VectorXd mc;  // ring-coil mutuals (per ampere of coil current)
@@ -124,8 +116,7 @@ struct System {
 System assemble(const std::vector<Ring>& rings, const Solenoid& coil, double rho) {
     const auto n = static_cast<Eigen::Index>(rings.size());
     System s{Eigen::MatrixXd(n, n), Eigen::VectorXd(n), Eigen::VectorXd(n)};
-    double w = 1;
-    const auto zt = turn_heights(coil, w);
+    const detail::TurnFilaments turns = detail::turn_filaments(coil);
     for (Eigen::Index i = 0; i < n; ++i) {
         const Ring& a = rings[static_cast<std::size_t>(i)];
         s.m(i, i) = ring_self_inductance(a.r, rectangle_gmd(a.dr, a.dz) * std::exp(0.25));
@@ -134,8 +125,8 @@ System assemble(const std::vector<Ring>& rings, const Solenoid& coil, double rho
             s.m(i, j) = s.m(j, i) = ring_mutual(a, c);
         }
         double sum = 0;
-        for (double z : zt) sum += coaxial_mutual_inductance(a.r, coil.mean_radius(), a.z - z);
-        s.mc(i) = w * sum;
+        for (double z : turns.z) sum += coaxial_mutual_inductance(a.r, turns.radius, a.z - z);
+        s.mc(i) = turns.weight * sum;
         s.r(i) = rho * 2 * pi * a.r / (a.dr * a.dz);
     }
     return s;
@@ -222,6 +213,26 @@ double open_end_leakage_db(const ShieldSpec& s, double winding_length) {
     return 20 / std::log(10.0) * j1_first_zero * e / (s.inner_diameter / 2);
 }
 
+double credited_magnetic_shielding_db(const ShieldSpec& s, double f, double r, double winding_length) {
+    return std::min({magnetic_shielding(s, f, r).total_db, max_wall_db, open_end_leakage_db(s, winding_length)});
+}
+
+double shield_capacitance(const Solenoid& coil, const ShieldSpec& s) {
+    require_positive("shield.inner_diameter", s.inner_diameter);
+    const double b = s.inner_diameter / 2, r_out = coil.outer_diameter() / 2;
+    if (!(b > r_out)) throw InputError("shield.inner_diameter", "does not clear the winding");
+    return 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
+}
+
+double shielded_self_resonance(double f0, double l0, double l_shielded, double c_terminal) {
+    require_positive("bare_self_resonance", f0);
+    require_positive("bare_inductance", l0);
+    require_positive("shielded_inductance", l_shielded);
+    require_non_negative("terminal_capacitance", c_terminal);
+    const double c_self = 1 / (std::pow(2 * pi * f0, 2) * l0);
+    return finite_result("shielded_self_resonance", 1 / (2 * pi * std::sqrt(l_shielded * (c_self + c_terminal))));
+}
+
 double shield_terminal_capacitance(double c, bool grounded_end) {
     require_non_negative("capacitance_to_shield", c);
     return grounded_end ? c / 3 : c / 12;
@@ -244,7 +255,7 @@ ShieldResult shielded_coil(const Solenoid& coil, double inductance, const Shield
     out.unshielded_inductance = inductance;
     out.long_coil_limit = inductance * (1 - a * a / (b * b));
     out.closed_form = inductance + sheet_in_long_shield_change(a, coil.winding_length(), coil.turns(), b);
-    out.capacitance_to_shield = 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
+    out.capacitance_to_shield = shield_capacitance(coil, s);
     out.perfect_conductor = finite_result("shield", inductance + shield_inductance_change(coil, s));
     for (double f : frequencies) {
         require_positive("frequency", f);

@@ -110,7 +110,7 @@ CoilSpec read_spec(const YAML::Node& root) {
     try {
         const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
         Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
-        CoilSpec spec{std::move(name), std::move(description), s, cond, op, {}, {}, {}, {}};
+        CoilSpec spec{std::move(name), std::move(description), s, cond, op, {}, {}, {}, {}, {}};
         if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
         if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));

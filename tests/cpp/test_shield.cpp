@@ -57,7 +57,9 @@ TEST(Shield, VanishesAtLowFrequencyAndApproachesThePerfectConductor) {
     EXPECT_LT(r.points[0].added_resistance, 1e-6);
     for (std::size_t i = 0; i < f.size(); ++i) {
         EXPECT_GE(r.points[i].added_resistance, 0);  // passive
-        if (i > 0) EXPECT_LT(r.points[i].inductance, r.points[i - 1].inductance);  // L falls with f
+        if (i > 0) {
+            EXPECT_LT(r.points[i].inductance, r.points[i - 1].inductance);  // L falls with f
+        }
         // Above the perfect conductor, within the two layouts' difference (the perfect conductor's one thin
         // layer against the graded layers; measured 2e-4 below it at 100 MHz).
         EXPECT_GT(r.points[i].inductance, r.perfect_conductor * (1 - 5e-4));

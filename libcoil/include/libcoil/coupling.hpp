@@ -38,6 +38,10 @@ double coil_mutual_inductance(const Solenoid& a, const Solenoid& b, Arrangement 
 // across the axes and `axial_offset` along them. At distance 0 it is Maxwell's formula.
 double parallel_filament_mutual_inductance(double radius_a, double radius_b, double distance, double axial_offset);
 
+// The far field: both coils as magnetic dipoles m = N pi a^2, on the axis mu0 m1 m2 / (2 pi d^3), across it
+// -mu0 m1 m2 / (4 pi d^3) (textbook magnetostatics). H.
+double dipole_mutual_inductance(const Solenoid& a, const Solenoid& b, Arrangement arrangement, double distance);
+
 struct Coupling {
     double mutual = 0;          // H
     double inductance_a = 0;    // H, each coil's recommended inductance

@@ -9,13 +9,10 @@
 #include <vector>
 
 #include "libcoil/coupling.hpp"
+#include "libcoil/shield.hpp"
 #include "libcoil/spec.hpp"
 
 namespace libcoil {
-
-// The most a wall is credited with (dB): common practice, no source; real cans with seams and open ends
-// rarely do better, whatever the seamless wall's theory says.
-inline constexpr double max_wall_db = 100;
 
 struct CouplingStudy {
     std::string name_a, name_b;
@@ -26,7 +23,7 @@ struct CouplingStudy {
     double source_resistance = 50, load_resistance = 50;  // ohm
     std::vector<Crosstalk> crosstalk;       // at each frequency, with the shields' effect when there are any
     std::vector<double> shielding_db;       // at each frequency: both shields' magnetic shielding together (0: none),
-                                            // each wall capped at max_wall_db
+                                            // as credited_magnetic_shielding_db (shield.hpp)
     std::vector<double> theoretical_shielding_db;  // the same without the cap
     std::vector<double> unshielded_db;      // at each frequency: |S21| without the shields
     struct Point {

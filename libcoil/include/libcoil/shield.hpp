@@ -72,8 +72,14 @@ double shield_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
 // would touch the winding (shield.inner_diameter) or a non-positive size.
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);
 
+// The coaxial capacitance from the winding to the shield, 2 pi eps0 l / ln(b / r_outer), F.
+double shield_capacitance(const Solenoid& coil, const ShieldSpec& shield);
 // The capacitance to the shield as seen between the terminals: C/12 floating, C/3 with one end grounded.
 double shield_terminal_capacitance(double capacitance_to_shield, bool grounded_end);
+// The SRF in the shield, lumped: the coil's own capacitance C = 1 / ((2 pi f0)^2 L0) from its bare SRF f0
+// and inductance L0, joined by the shield's terminal capacitance, with the shielded inductance.
+double shielded_self_resonance(double bare_self_resonance, double bare_inductance, double shielded_inductance,
+                               double terminal_capacitance);
 
 // Shielding effectiveness of the wall against the near magnetic field of a source `source_distance`
 // inside it, after Schelkunoff's transmission-line theory of a plane sheet: SE = A + R + B in dB, with
@@ -94,5 +100,12 @@ ShieldingEffectiveness magnetic_shielding(const ShieldSpec& shield, double frequ
 // 8.686 x 3.832 e / b = 33.3 e / b dB. Infinite (no leak) for a tube with end discs. `winding_length`: the
 // coil's, centred in the tube less the shield's axial offset.
 double open_end_leakage_db(const ShieldSpec& shield, double winding_length);
+
+// The most a wall is credited with, dB: common practice, no source; real cans with seams and slots rarely
+// do better, whatever the seamless wall's theory says.
+inline constexpr double max_wall_db = 100;
+// What one shield is credited with against the near magnetic field: the wall's figure, at most
+// max_wall_db, and for an open tube at most what leaks from its ends.
+double credited_magnetic_shielding_db(const ShieldSpec& shield, double frequency, double source_distance, double winding_length);
 
 }  // namespace libcoil
