@@ -1,5 +1,6 @@
 // Two coils in one enclosure: the study `coil couple` prints (M, k, crosstalk at frequencies, and k
-// against distance), as text, JSON and an SVG picture. Every number comes from coupling.hpp and losses.hpp.
+// against distance), as text, JSON and an SVG picture. Every number comes from coupling.hpp, shield.hpp
+// and losses.hpp.
 //
 // The SVG plots |k| against the centre distance on log axes, with the magnetic-dipole asymptote dashed.
 // Its elements carry ids and data- attributes (coupling, dipole, data-distance-m, data-k) for tests.
