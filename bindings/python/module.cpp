@@ -500,14 +500,12 @@ PYBIND11_MODULE(_core, m) {
     m.def("couple", [](const libcoil::CoilSpec& a, const libcoil::CoilSpec& b, double distance, const std::string& arrangement,
                        double axial_offset, const std::vector<double>& frequencies, double source_resistance, double load_resistance,
                        const std::vector<double>& sweep_distances) {
-        if (arrangement != "coaxial" && arrangement != "side-by-side") {
-            throw libcoil::InputError("arrangement", "\"" + arrangement + "\": expected \"coaxial\" or \"side-by-side\"");
-        }
+        const libcoil::Arrangement arr = libcoil::parse_arrangement(arrangement);
         std::string json;
         {
             py::gil_scoped_release release;
             json = libcoil::coupling_json_report(libcoil::study_coupling(
-                a, b, arrangement == "coaxial" ? libcoil::Arrangement::coaxial : libcoil::Arrangement::side_by_side, distance,
+                a, b, arr, distance,
                 axial_offset, frequencies, source_resistance, load_resistance, sweep_distances));
         }
         return py::module_::import("json").attr("loads")(json);
@@ -516,11 +514,7 @@ PYBIND11_MODULE(_core, m) {
        "M, k and crosstalk between two coil specs: the dict `coil couple --json` prints (SI).");
     m.def("coil_mutual_inductance", [](const libcoil::Solenoid& a, const libcoil::Solenoid& b, double distance,
                                        const std::string& arrangement, double axial_offset) {
-        if (arrangement != "coaxial" && arrangement != "side-by-side") {
-            throw libcoil::InputError("arrangement", "\"" + arrangement + "\": expected \"coaxial\" or \"side-by-side\"");
-        }
-        return libcoil::coil_mutual_inductance(a, b, arrangement == "coaxial" ? libcoil::Arrangement::coaxial : libcoil::Arrangement::side_by_side,
-                                               distance, axial_offset);
+        return libcoil::coil_mutual_inductance(a, b, libcoil::parse_arrangement(arrangement), distance, axial_offset);
     }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "M in H between two solenoids.");
     m.def("parallel_filament_mutual_inductance", py::vectorize(&libcoil::parallel_filament_mutual_inductance), "radius_a"_a,
           "radius_b"_a, "distance"_a, "axial_offset"_a);

@@ -14,7 +14,6 @@ namespace {
 
 std::string mm(double v) { return format_quantity(v, Dimension::length); }
 
-// Where a groove's lowest point may sit at the least above the flange: a solid end ring of min_wall.
 constexpr double solid_radius_floor = 0.5e-3;  // a bore narrower than this is left solid
 
 }  // namespace

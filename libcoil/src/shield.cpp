@@ -107,6 +107,19 @@ std::vector<Ring> shield_rings(const ShieldSpec& s, double coil_radius, double d
     return rings;
 }
 
+// A shield of positive size that clears the winding, or an InputError naming the field.
+void require_around(const Solenoid& coil, const ShieldSpec& s) {
+    require_positive("shield.inner_diameter", s.inner_diameter);
+    require_positive("shield.length", s.length);
+    require_positive("shield.thickness", s.thickness);
+    require_finite("shield.axial_offset", s.axial_offset);
+    if (!(s.inner_diameter > coil.outer_diameter())) {
+        throw InputError("shield.inner_diameter", format_quantity(s.inner_diameter, Dimension::length) +
+                                                      " does not clear the winding (outer diameter " +
+                                                      format_quantity(coil.outer_diameter(), Dimension::length) + ")");
+    }
+}
+
 struct System {
     Eigen::MatrixXd m;   // ring-ring mutual and self inductances
     Eigen::VectorXd mc;  // ring-coil mutuals (per ampere of coil current)
@@ -189,14 +202,7 @@ double sheet_in_long_shield_change(double a, double l, double n, double b) {
 }
 
 double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
-    require_positive("shield.inner_diameter", s.inner_diameter);
-    require_positive("shield.length", s.length);
-    require_positive("shield.thickness", s.thickness);
-    if (!(s.inner_diameter > coil.outer_diameter())) {
-        throw InputError("shield.inner_diameter", format_quantity(s.inner_diameter, Dimension::length) +
-                                                      " does not clear the winding (outer diameter " +
-                                                      format_quantity(coil.outer_diameter(), Dimension::length) + ")");
-    }
+    require_around(coil, s);
     // The current of a perfect conductor is a sheet on the inner surface: one thin layer.
     ShieldSpec sheet = s;
     sheet.thickness = std::min(s.thickness, 1e-3 * s.inner_diameter / 2);
@@ -218,9 +224,8 @@ double credited_magnetic_shielding_db(const ShieldSpec& s, double f, double r, d
 }
 
 double shield_capacitance(const Solenoid& coil, const ShieldSpec& s) {
-    require_positive("shield.inner_diameter", s.inner_diameter);
+    require_around(coil, s);
     const double b = s.inner_diameter / 2, r_out = coil.outer_diameter() / 2;
-    if (!(b > r_out)) throw InputError("shield.inner_diameter", "does not clear the winding");
     return 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
 }
 
@@ -240,16 +245,8 @@ double shield_terminal_capacitance(double c, bool grounded_end) {
 
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& s, const std::vector<double>& frequencies) {
     require_positive("inductance", inductance);
-    require_positive("shield.inner_diameter", s.inner_diameter);
-    require_positive("shield.length", s.length);
-    require_positive("shield.thickness", s.thickness);
-    require_finite("shield.axial_offset", s.axial_offset);
-    const double b = s.inner_diameter / 2, a = coil.mean_radius(), r_out = coil.outer_diameter() / 2;
-    if (!(b > r_out)) {
-        throw InputError("shield.inner_diameter", format_quantity(s.inner_diameter, Dimension::length) +
-                                                      " does not clear the winding (outer diameter " +
-                                                      format_quantity(coil.outer_diameter(), Dimension::length) + ")");
-    }
+    require_around(coil, s);
+    const double b = s.inner_diameter / 2, a = coil.mean_radius();
     const double rho = s.material.resistivity_at(s.temperature);
     ShieldResult out;
     out.unshielded_inductance = inductance;

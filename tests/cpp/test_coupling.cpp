@@ -121,7 +121,8 @@ TEST(Coupling, CrosstalkOfAWeakCoupling) {
     const Crosstalk x = crosstalk(c, f, r, r, rs, rl);
     const double w = 2 * pi * f;
     EXPECT_NEAR(x.transfer_impedance, w * std::fabs(c.mutual), 1e-15);
-    // Weak coupling: |S21| = 2 sqrt(Rs Rl) w |M| / |(Rs + Za)(Rl + Zb)| to first order in k^2.
+    // Weak coupling: |S21| = 2 sqrt(Rs Rl) w |M| / |(Rs + Za)(Rl + Zb)| to first order in k^2 (derived from
+    // the two-port equations V_a = Z_a I_a + j w M I_b, V_b = j w M I_a + Z_b I_b by dropping the M^2 term).
     const double za = std::hypot(rs + r, w * c.inductance_a);
     const double first_order = 20 * std::log10(2 * std::sqrt(rs * rl) * w * std::fabs(c.mutual) / (za * za));
     EXPECT_NEAR(x.transfer_db, first_order, 1e-6);

@@ -131,3 +131,10 @@ def test_grounded_copper_shields_cut_side_by_side_coupling_by_tens_of_db(tmp_pat
                             "--frequency", "1 MHz", "--frequency", "100 MHz").stdout)["crosstalk"]
     assert y[0]["shielding_dB"] == pytest.approx(y[0]["theoretical_shielding_dB"])  # 114 dB: no cap, no leak
     assert y[1]["theoretical_shielding_dB"] > 300 and y[1]["shielding_dB"] == pytest.approx(200)
+
+
+def test_unknown_arrangement_names_the_field(specs):
+    a, b = specs
+    sa, sb = libcoil.load_coil_spec(str(a)).solenoid, libcoil.load_coil_spec(str(b)).solenoid
+    with pytest.raises(libcoil.InputError, match='arrangement: "sideways"'):
+        libcoil.coil_mutual_inductance(sa, sb, 0.08, "sideways")

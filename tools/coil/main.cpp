@@ -255,7 +255,7 @@ int run_couple(const CoupleOptions& o) {
         }
         sweep = libcoil::frequency_grid(lo, hi, static_cast<std::size_t>(n), true);
     }
-    const auto arr = o.arrangement == "coaxial" ? libcoil::Arrangement::coaxial : libcoil::Arrangement::side_by_side;
+    const auto arr = libcoil::parse_arrangement(o.arrangement, "--arrangement");
     const libcoil::CouplingStudy s = libcoil::study_coupling(
         libcoil::load_coil_spec(o.a), libcoil::load_coil_spec(o.b), arr, d, h, f, libcoil::parse_quantity(o.source, Dimension::resistance, "--source"),
         libcoil::parse_quantity(o.load, Dimension::resistance, "--load"), sweep);

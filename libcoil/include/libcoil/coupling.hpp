@@ -16,7 +16,9 @@
 // Domain:  the coils must not overlap: coaxial, centres at least half of each winding length (N p) apart,
 //          so that the end turns are a pitch apart; side by side, d at least the sum of the outer radii. The filament model ignores the wire's cross-section and
 //          the helix's pitch angle, both second order for coils apart.
-// Accuracy (tests/cpp/test_coupling.cpp): see docs/models.md.
+// Accuracy (tests/cpp/test_coupling.cpp, tests/python/test_coupling.py): the parallel-axis integral
+//          against Neumann's double integral 1e-9 (Boost) and 1e-8 (scipy); two halves of a coil against the
+//          filament model 1.6e-15; at 20 diameters within 1.1e-4 of the magnetic dipoles.
 #pragma once
 
 #include <string>
@@ -26,6 +28,8 @@
 namespace libcoil {
 
 enum class Arrangement { coaxial, side_by_side };
+// "coaxial" or "side-by-side"; anything else is an InputError naming `field`.
+Arrangement parse_arrangement(const std::string& name, const std::string& field = "arrangement");
 
 // M in H between coil a and coil b, the centre of b at `distance` from a's: along the common axis
 // (coaxial) or across, parallel axes (side by side, with an optional axial offset of b's centre). The

@@ -15,7 +15,10 @@
 //          meridional section S removes phi_end * integral(r dA) over S: closed forms for the arc and the
 //          vee, with the grooves of neighbouring turns cut at half a pitch where they overlap.
 // Domain:  turns >= 1; a round groove no deeper than its radius; every wall at least min_wall.
-// Accuracy (tests/cpp/test_former.cpp, tests/python/test_former.py): see docs/models.md.
+// Accuracy (tests/cpp/test_former.cpp, tests/python/test_former.py): the closed-form volume against
+//          Boost.Math quadrature of the exact height field 7e-16; the mesh's volume -0.007 .. -0.14 % of it,
+//          admesh's -0.013 .. -0.094 %; groove pitch from the vertices 2e-18 m (double), 9.5e-7 mm (STL
+//          float32); admesh finds no disconnected facets and fixes nothing.
 #pragma once
 
 #include <optional>

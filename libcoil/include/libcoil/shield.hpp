@@ -17,7 +17,10 @@
 // Source:  the ring model is the losses issue's (Maxwell 1873 art. 701; Grover 1946 for the GMD).
 // Domain:  coaxial shields around the coil (inner radius above the coil's outer radius), any thickness
 //          and frequency; nonmagnetic conductors.
-// Accuracy (tests/cpp/test_shield.cpp): see docs/models.md.
+// Accuracy (tests/cpp/test_shield.cpp, tests/python/test_shield.py): the long coil (l/D 20) against
+//          L0 (1 - a^2/b^2) -0.08 %; the ring model against the Fourier-Bessel closed form, dL within 1.1 %
+//          and the shielded L within 0.5 % (l/D 0.5 .. 10, b/a 1.25 .. 3); the closed form against scipy
+//          1e-9; the wall loss at 100 MHz +0.54 % from the surface-resistance form; at 1 Hz L changes 1e-6.
 #pragma once
 
 #include <vector>
