@@ -3,8 +3,8 @@
 // The target is 1 M candidates/s on one core; docs/models.md records where it stands.
 #include <benchmark/benchmark.h>
 
-#include "libcoil/design.hpp"
-#include "libcoil/requirement.hpp"
+#include "libcoil/studies/design.hpp"
+#include "libcoil/spec/requirement.hpp"
 
 namespace {
 

@@ -4,9 +4,9 @@
 
 #include <string>
 
-#include "libcoil/former.hpp"
-#include "libcoil/mesh.hpp"
-#include "libcoil/spec.hpp"
+#include "libcoil/models/former.hpp"
+#include "libcoil/models/mesh.hpp"
+#include "libcoil/spec/spec.hpp"
 
 namespace {
 

@@ -2,11 +2,11 @@
 // every candidate, so recommended_inductance is the number to watch.
 #include <benchmark/benchmark.h>
 
-#include "libcoil/coaxial_mutual.hpp"
-#include "libcoil/filament.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/nagaoka.hpp"
-#include "libcoil/rosa.hpp"
+#include "libcoil/models/coaxial_mutual.hpp"
+#include "libcoil/models/filament.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/models/nagaoka.hpp"
+#include "libcoil/models/rosa.hpp"
 
 namespace {
 

@@ -2,10 +2,10 @@
 // cross-section solve at the subdivision that holds 1 % for x <= 10.
 #include <benchmark/benchmark.h>
 
-#include "libcoil/cross_section.hpp"
-#include "libcoil/losses.hpp"
-#include "libcoil/materials.hpp"
-#include "libcoil/proximity.hpp"
+#include "libcoil/models/cross_section.hpp"
+#include "libcoil/models/losses.hpp"
+#include "libcoil/models/materials.hpp"
+#include "libcoil/models/proximity.hpp"
 
 namespace {
 

@@ -1,12 +1,12 @@
 // Self-resonance and impedance: what the band check and a sweep cost per coil.
 #include <benchmark/benchmark.h>
 
-#include "libcoil/analysis.hpp"
-#include "libcoil/band_check.hpp"
-#include "libcoil/impedance.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/medhurst.hpp"
-#include "libcoil/self_resonance.hpp"
+#include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/band_check.hpp"
+#include "libcoil/models/impedance.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/models/medhurst.hpp"
+#include "libcoil/models/self_resonance.hpp"
 
 namespace {
 

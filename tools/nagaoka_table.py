@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""Writes libcoil/src/nagaoka_table.hpp: Nagaoka's coefficient and its slope as piecewise polynomials.
+"""Writes libcoil/src/models/nagaoka_table.hpp: Nagaoka's coefficient and its slope as piecewise polynomials.
 
 Both come from the elliptic-integral form, evaluated by mpmath at 40 digits:
     K(rho) = 4 / (3 pi k') [ (k'^2 / k^2) (K(k) - E(k)) + E(k) - k ],   k^2 = rho^2 / (1 + rho^2),
@@ -9,7 +9,7 @@ On each part mpmath's chebyfit gives the polynomial of degree DEGREE in u in [-1
 the Chebyshev points; its coefficients are rounded to double. The script then measures the table in
 double arithmetic against mpmath on a dense grid and writes the worst errors into the header.
 
-Run:  /usr/bin/python3 tools/nagaoka_table.py > libcoil/src/nagaoka_table.hpp
+Run:  /usr/bin/python3 tools/nagaoka_table.py > libcoil/src/models/nagaoka_table.hpp
 """
 import mpmath as mp
 

@@ -3,8 +3,8 @@
 
 #include <string>
 
-#include "libcoil/error.hpp"
-#include "libcoil/spec.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/spec/spec.hpp"
 
 inline std::string error_of(const std::string& yaml) {
     try {

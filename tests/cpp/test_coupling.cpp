@@ -8,13 +8,13 @@
 
 #include <boost/math/quadrature/gauss_kronrod.hpp>
 
-#include "libcoil/coaxial_mutual.hpp"
-#include "libcoil/constants.hpp"
-#include "libcoil/coupling.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/filament.hpp"
-#include "libcoil/solenoid.hpp"
-#include "libcoil/wire.hpp"
+#include "libcoil/models/coaxial_mutual.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/models/coupling.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/filament.hpp"
+#include "libcoil/models/solenoid.hpp"
+#include "libcoil/models/wire.hpp"
 
 using namespace libcoil;
 

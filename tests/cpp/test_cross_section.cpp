@@ -3,11 +3,11 @@
 
 #include <cmath>
 
-#include "libcoil/cross_section.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/filament.hpp"
-#include "libcoil/ring_inductance.hpp"
-#include "libcoil/skin_effect.hpp"
+#include "libcoil/models/cross_section.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/filament.hpp"
+#include "libcoil/models/ring_inductance.hpp"
+#include "libcoil/models/skin_effect.hpp"
 
 using namespace libcoil;
 

@@ -3,12 +3,12 @@
 
 #include <cmath>
 
-#include "libcoil/analysis.hpp"
-#include "libcoil/design.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/requirement.hpp"
-#include "libcoil/rosa.hpp"
+#include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/design.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/spec/requirement.hpp"
+#include "libcoil/models/rosa.hpp"
 
 using namespace libcoil;
 

@@ -12,11 +12,11 @@
 
 #include <boost/math/quadrature/gauss_kronrod.hpp>
 
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/former.hpp"
-#include "libcoil/former_output.hpp"
-#include "libcoil/spec.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/former.hpp"
+#include "libcoil/outputs/former_output.hpp"
+#include "libcoil/spec/spec.hpp"
 
 using namespace libcoil;
 

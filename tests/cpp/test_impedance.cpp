@@ -5,13 +5,13 @@
 
 #include <cmath>
 
-#include "libcoil/analysis.hpp"
-#include "libcoil/band_check.hpp"
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/impedance.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/spec.hpp"
+#include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/band_check.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/impedance.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/spec/spec.hpp"
 
 using namespace libcoil;
 

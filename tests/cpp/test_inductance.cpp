@@ -4,16 +4,16 @@
 #include <cmath>
 #include <numbers>
 
-#include "libcoil/coaxial_mutual.hpp"
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/filament.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/lundin.hpp"
-#include "libcoil/nagaoka.hpp"
-#include "libcoil/ring_inductance.hpp"
-#include "libcoil/rosa.hpp"
-#include "libcoil/wheeler.hpp"
+#include "libcoil/models/coaxial_mutual.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/filament.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/models/lundin.hpp"
+#include "libcoil/models/nagaoka.hpp"
+#include "libcoil/models/ring_inductance.hpp"
+#include "libcoil/models/rosa.hpp"
+#include "libcoil/models/wheeler.hpp"
 
 using namespace libcoil;
 

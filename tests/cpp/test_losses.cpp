@@ -3,10 +3,10 @@
 
 #include <cmath>
 
-#include "libcoil/dc_resistance.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/kelvin.hpp"
-#include "libcoil/skin_effect.hpp"
+#include "libcoil/models/dc_resistance.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/kelvin.hpp"
+#include "libcoil/models/skin_effect.hpp"
 
 using namespace libcoil;
 

@@ -5,10 +5,10 @@
 
 #include <boost/math/quadrature/gauss_kronrod.hpp>
 
-#include "libcoil/coaxial_mutual.hpp"
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/ring_inductance.hpp"
+#include "libcoil/models/coaxial_mutual.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/ring_inductance.hpp"
 
 using namespace libcoil;
 

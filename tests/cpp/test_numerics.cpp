@@ -12,9 +12,9 @@
 #include <boost/math/special_functions/ellint_rd.hpp>
 #include <boost/math/special_functions/ellint_rf.hpp>
 
-#include "bessel_ik.hpp"
-#include "elliptic.hpp"
-#include "monotone_root.hpp"
+#include "models/bessel_ik.hpp"
+#include "models/elliptic.hpp"
+#include "models/monotone_root.hpp"
 
 namespace {
 

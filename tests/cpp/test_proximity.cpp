@@ -3,11 +3,11 @@
 
 #include <cmath>
 
-#include "libcoil/constants.hpp"
-#include "libcoil/cross_section.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/proximity.hpp"
-#include "libcoil/skin_effect.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/models/cross_section.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/proximity.hpp"
+#include "libcoil/models/skin_effect.hpp"
 
 using namespace libcoil;
 

@@ -6,13 +6,13 @@
 #include <cmath>
 #include <numbers>
 
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/helical_line.hpp"
-#include "libcoil/impedance.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/medhurst.hpp"
-#include "libcoil/self_resonance.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/helical_line.hpp"
+#include "libcoil/models/impedance.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/models/medhurst.hpp"
+#include "libcoil/models/self_resonance.hpp"
 
 using namespace libcoil;
 

@@ -6,12 +6,12 @@
 
 #include <cmath>
 
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/materials.hpp"
-#include "libcoil/shield.hpp"
-#include "libcoil/skin_effect.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/models/materials.hpp"
+#include "libcoil/models/shield.hpp"
+#include "libcoil/models/skin_effect.hpp"
 
 using namespace libcoil;
 

@@ -6,8 +6,8 @@
 
 #include <boost/math/quadrature/gauss_kronrod.hpp>
 
-#include "libcoil/error.hpp"
-#include "libcoil/solenoid.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/solenoid.hpp"
 
 using namespace libcoil;
 

@@ -3,10 +3,10 @@
 
 #include "spec_errors.hpp"
 
-#include "libcoil/analysis.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/spec.hpp"
-#include "libcoil/wire.hpp"
+#include "libcoil/studies/analysis.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/spec/spec.hpp"
+#include "libcoil/models/wire.hpp"
 
 using namespace libcoil;
 

@@ -3,9 +3,9 @@
 
 #include <cmath>
 
-#include "libcoil/constants.hpp"
-#include "libcoil/inductance.hpp"
-#include "libcoil/spread.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/studies/spread.hpp"
 
 using namespace libcoil;
 

@@ -4,9 +4,9 @@
 #include <cmath>
 #include <tuple>
 
-#include "libcoil/constants.hpp"
-#include "libcoil/error.hpp"
-#include "libcoil/thermal.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/thermal.hpp"
 
 using namespace libcoil;
 

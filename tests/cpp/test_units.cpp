@@ -2,8 +2,8 @@
 // 9th ed.), 1 in = 25.4 mm exactly (international yard and pound agreement, 1959), 0 degC = 273.15 K.
 #include <gtest/gtest.h>
 
-#include "libcoil/error.hpp"
-#include "libcoil/units.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/core/units.hpp"
 
 using libcoil::Dimension;
 using libcoil::parse_quantity;

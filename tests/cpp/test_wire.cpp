@@ -3,9 +3,9 @@
 
 #include <cmath>
 
-#include "libcoil/error.hpp"
-#include "libcoil/materials.hpp"
-#include "libcoil/wire.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/materials.hpp"
+#include "libcoil/models/wire.hpp"
 
 using namespace libcoil;
 

@@ -1,0 +1,60 @@
+// The coil at a frequency: resistance, inductance and Q, by the closed forms or the numerical reference.
+//
+// Method:  closed form: R(f) from ac_resistance (DC at temperature, Bessel skin ratio, Butterworth's
+//          proximity ratio). L(f) = L_dc - (mu0 / 8 pi) * helix length * (1 - L_int(f) / L_int(0)): the
+//          recommended low-frequency inductance (which holds the internal inductance of a uniform current)
+//          less what the skin effect removes from inside the wire. Q = 2 pi f L(f) / R(f).
+//          Numerical: the cross-section solver's R(f) and its change of L with frequency, added to the
+//          recommended L_dc; the rings' R is scaled from N ring circumferences to the helix length, and
+//          the leads get the isolated-wire skin ratio.
+// Source:  as the models used: skin_effect.hpp, proximity.hpp, cross_section.hpp, inductance.hpp.
+// Domain:  below the self-resonance (the parallel capacitance is not modelled here).
+// Accuracy: that of R (proximity.hpp: within 3 % of the solver for p/d >= 2.5) and of L (inductance.hpp).
+#pragma once
+
+#include <functional>
+#include <vector>
+
+#include "libcoil/models/cross_section.hpp"
+#include "libcoil/models/materials.hpp"
+#include "libcoil/models/solenoid.hpp"
+
+namespace libcoil {
+
+struct CoilAtFrequency {
+    double frequency = 0;        // Hz
+    double resistance = 0;       // ohm
+    double skin_ratio = 1;       // isolated-wire R_ac / R_dc
+    double proximity_ratio = 0;  // added by the other turns (closed form); solver: total ratio - skin ratio
+    double inductance = 0;       // H, effective, including the internal-inductance change
+    double q_factor = 0;         // omega L / R (0 at DC)
+    bool resolved = true;        // solver only: the subdivision resolves the skin depth
+    bool numerical = false;      // this point came from the cross-section solver
+};
+
+// One wire on its own: what `coil wire` prints.
+struct WireAtFrequency {
+    double bare_diameter = 0, insulated_diameter = 0;  // m
+    double dc_resistance_per_length = 0;              // ohm/m at the temperature
+    double frequency = 0, skin_depth = 0;             // Hz, m (skin depth 0 at DC)
+    double skin_ratio = 1;                            // isolated-wire R_ac / R_dc at the frequency
+    double skin_onset_frequency = 0;                  // Hz where R_ac / R_dc reaches 1.1
+};
+WireAtFrequency wire_at_frequency(const Wire& wire, const Conductor& conductor, double temperature, double frequency);
+
+// Closed forms at each frequency (f = 0 gives DC). `dc_inductance` is the recommended inductance.
+std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& coil, const Conductor& conductor, double temperature,
+                                                 double dc_inductance, const std::vector<double>& frequencies);
+// The same with the coil's mean_square_field_per_ampere (proximity.hpp) given, for callers that ask again
+// and again for one coil.
+std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& coil, const Conductor& conductor, double temperature,
+                                                 double dc_inductance, const std::vector<double>& frequencies,
+                                                 double mean_square_field);
+
+// The cross-section solver at each frequency. `progress(done, total)` is called after each solve.
+std::vector<CoilAtFrequency> coil_at_frequencies_numerical(
+    const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
+    const std::vector<double>& frequencies, const Subdivision& subdivision = {},
+    const std::function<void(std::size_t, std::size_t)>& progress = {});
+
+}  // namespace libcoil

@@ -1,0 +1,99 @@
+// Self-resonance and self-capacitance of a coil, by each model, with the recommended figure.
+//
+// Method:  helical_line (recommended): the sheath helix (helical_line.hpp) resonates first where the
+//          winding length holds half an axial wavelength (both ends free: beta l = pi) or a quarter (one
+//          end grounded: beta l = pi / 2). kandoian_sichak: the same resonance condition with Kandoian &
+//          Sichak's empirical velocity. medhurst: the lumped resonance of L with Medhurst's measured C.
+//          Each model's self-capacitance is the C that resonates with the low-frequency L at its SRF,
+//          C = 1 / ((2 pi f)^2 L). A measurement far below resonance extrapolates to the smaller
+//          low_frequency_capacitance = (pi^2 / 12) C of the line, since a line's apparent inductance rises
+//          as L (1 + theta^2 / 3) where a lumped one rises as L (1 + w^2 L C).
+// Why the helical line is recommended: it holds the pitch, the former, the surroundings and the mounting,
+//          and has the right physical limits; Medhurst's table is an empirical figure for one arrangement
+//          (one end on a grounded plate) with no pitch or dielectric. It is reported beside it as the
+//          measured cross-check, and the band check says when the two disagree on a verdict. Where the
+//          sheath helix has no slow wave (steep pitch over a dense core) Medhurst's value is recommended
+//          instead, with a warning; outside both, DomainError.
+// Source:  medhurst.hpp, helical_line.hpp. D. W. Knight, "The self-resonance and self-capacitance of
+//          solenoid coils" (2016, from memory) for the line view of self-capacitance.
+// Domain:  single-layer coils below and near the first resonance. Neither model holds the turn-to-turn
+//          capacitance of close-wound enamelled turns, which adds to C; leads and nearby metal add more.
+// Accuracy: see docs/models.md: Kandoian & Sichak 3 .. 15 % below the sheath helix on the test grid; the
+//          helical line's grounded-end low-frequency C is 0.39 .. 0.70 of Medhurst's table for l/D 0.4 .. 50.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "libcoil/models/helical_line.hpp"
+#include "libcoil/models/solenoid.hpp"
+
+namespace libcoil {
+
+enum class Mounting {
+    floating,      // both terminals free of ground: the first resonance is the half-wave one
+    grounded_end,  // one terminal on a ground plane, driven against it: the quarter-wave one (Medhurst's set-up)
+};
+
+// The dielectric under the winding as the capacitance models see it: a shell from the form radius inward.
+struct FormerDielectric {
+    double relative_permittivity = 1;
+    double wall = 0;  // m, radial thickness under the winding (0: no former, the coil is self-supporting)
+    double fill = 0;  // share of the circumference that is solid: 1 for a tube, k w / (pi D_form) for k ribs
+};
+
+struct Surroundings {
+    double relative_permittivity = 1;  // of the medium around (and, without a former, inside) the coil
+    Mounting mounting = Mounting::floating;
+};
+
+struct SelfResonanceMethod {
+    bool available = false;
+    double frequency = 0;    // Hz, first self-resonance
+    double capacitance = 0;  // F, equivalent parallel C with the low-frequency L
+};
+
+struct SelfResonance {
+    double frequency = 0;    // Hz, recommended
+    double capacitance = 0;  // F, recommended
+    std::string method = "helical_line";
+    SelfResonanceMethod helical_line, kandoian_sichak, medhurst;
+    double low_frequency_capacitance = 0;  // F, (pi^2 / 12) of the helical line's C (see above)
+    double inductance = 0;                 // H, the low-frequency L used
+    double winding_length = 0;             // m
+    double resonance_wavenumber = 0;       // rad/m, axial beta at the first resonance
+    double phase_velocity = 0;             // m/s, axial, at the first resonance (0 without a helical line)
+    double pitch_angle = 0;                // rad
+    double radius = 0;                     // m, sheath radius (mean radius)
+    HelixMedium medium;                    // effective permittivities inside and outside
+    Mounting mounting = Mounting::floating;
+    double half_wave_wire_frequency = 0;   // Hz, where the wire (helix, no leads) is half a wavelength
+    std::vector<std::string> warnings;
+    std::vector<std::string> notes;
+};
+
+// The helical line's first resonance alone, with the former's fixed point, and no cross-checks or text:
+// the fast path for searches (self_resonance() below builds on it). Throws DomainError where the sheath
+// helix has no slow wave, InputError for bad permittivities or fill.
+struct HelicalLineResonance {
+    double frequency = 0;       // Hz
+    double phase_velocity = 0;  // m/s, axial
+    HelixMedium medium;         // the effective permittivities found
+};
+// `tolerance`: relative, on the wavenumber and on the former's fixed point.
+HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDielectric& former = {},
+                                            const Surroundings& surroundings = {}, double tolerance = 1e-12);
+
+// `inductance` is the low-frequency inductance (inductance().recommended).
+// What the fast paths for searches solve to (relative): a search's figures are shown to four digits and
+// its decisions do not move at this level; its winners are re-analysed in full, to 1e-12.
+inline constexpr double search_tolerance = 1e-7;
+
+// `cross_checks` false is the fast path for searches, which need only the recommended SRF: it leaves out
+// Kandoian & Sichak, and Medhurst except as the fallback, writes no notes, and solves to search_tolerance.
+SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
+                             const Surroundings& surroundings = {}, bool cross_checks = true);
+
+const char* mounting_name(Mounting m);  // "floating", "grounded-end"
+
+}  // namespace libcoil

@@ -1,0 +1,114 @@
+// A coaxial conductive shield around a coil: what it does to L, R and the capacitance.
+//
+// Method:  numerical, axisymmetric: the shield's wall becomes rings, n_z along its length and n_t through
+//          its thickness (graded from the inner surface, the first layer a third of a skin depth, when the
+//          wall is thicker than half a skin depth), and optional end discs become rings across their
+//          radius. The coil's turns are filaments carrying the coil current. Each shield ring k obeys
+//          R_k I_k + j w sum_j M_kj I_j = -j w M_kc I, with Maxwell's formula for the mutuals
+//          (coaxial_mutual.hpp), a ring's self-inductance at the geometric mean distance of its rectangular
+//          section (ring_inductance.hpp) and its DC resistance 2 pi r rho / (w t); the coil's impedance
+//          gains dZ = j w M_ck I_k / I (Eigen's LU on the complex system). L(f) = L0 + Im(dZ) / w, and the
+//          shield's eddy loss R_s(f) = Re(dZ).
+//          Closed form, the long coil in a long shield at high frequency (the return flux confined between
+//          coil and wall): L = L0 (1 - a^2 / b^2), L0 the unshielded inductance (derived in docs/models.md).
+//          Capacitance to the shield: the coaxial C = 2 pi eps0 l / ln(b / r_outer) over the winding, seen
+//          between the terminals (voltage linear along the winding) as C/12 for a floating coil and C/3 with
+//          one end grounded to the shield, added to the coil's own self-capacitance for the shifted SRF.
+// Source:  the ring model is the losses issue's (Maxwell 1873 art. 701; Grover 1946 for the GMD).
+// Domain:  coaxial shields around the coil (inner radius above the coil's outer radius), any thickness
+//          and frequency; nonmagnetic conductors.
+// Accuracy (tests/cpp/test_shield.cpp, tests/python/test_shield.py): the long coil (l/D 20) against
+//          L0 (1 - a^2/b^2) -0.08 %; the ring model against the Fourier-Bessel closed form, dL within 1.1 %
+//          and the shielded L within 0.5 % (l/D 0.5 .. 10, b/a 1.25 .. 3); the closed form against scipy
+//          1e-9; the wall loss at 100 MHz +0.54 % from the surface-resistance form; at 1 Hz L changes 1e-6.
+#pragma once
+
+#include <vector>
+
+#include "libcoil/models/materials.hpp"
+#include "libcoil/models/solenoid.hpp"
+
+namespace libcoil {
+
+struct ShieldSpec {
+    double inner_diameter = 0;  // m
+    double length = 0;          // m
+    double thickness = 0;       // m, the wall (and the end discs)
+    Conductor material;
+    bool end_discs = false;     // closed at both ends
+    double axial_offset = 0;    // m, of the shield's centre from the coil's
+    double temperature = 293.15;  // K, of the shield
+};
+
+struct ShieldPoint {
+    double frequency = 0;         // Hz
+    double skin_depth = 0;        // m, in the shield
+    double inductance = 0;        // H, the coil's, shielded
+    double added_resistance = 0;  // ohm, the shield's eddy loss as seen at the coil's terminals
+};
+
+struct ShieldResult {
+    double unshielded_inductance = 0;   // H, as given
+    double long_coil_limit = 0;         // H, L0 (1 - a^2 / b^2)
+    double closed_form = 0;             // H, L0 + sheet_in_long_shield_change: the finite coil in a long tube
+    double perfect_conductor = 0;       // H, the ring model with no resistance (the high-frequency limit)
+    double capacitance_to_shield = 0;   // F, coaxial over the winding length
+    std::vector<ShieldPoint> points;
+    int rings = 0;                      // at the highest frequency
+};
+
+// Closed form with the coil's finite length: a current sheet (radius a, length l, N turns) in an infinitely
+// long perfectly conducting tube of radius b. By Fourier transform along the axis, the sheet's vector
+// potential is (mu0 a / 2 pi) integral K(k) I1(|k| r<) K1(|k| r>) e^(ikz) dk, and the tube adds the
+// reflected part that makes A_phi(b) = 0, so that
+//   dL = -8 mu0 a^2 N^2 / l^2 integral_0^inf sin^2(k l / 2) / k^2 I1(k a)^2 K1(k b) / I1(k b) dk,
+// which for l >> b tends to -L_inf a^2 / b^2 (derived in docs/models.md; Boost.Math's Bessel functions
+// and Gauss-Kronrod quadrature). Negative, in H.
+double sheet_in_long_shield_change(double mean_radius, double length, double turns, double shield_radius);
+
+// The change of the coil's inductance by the shield in its high-frequency limit (the perfect conductor:
+// the ring model without resistance on one thin layer at the inner surface), in H (negative). Cheap: the
+// design search calls it per candidate.
+double shield_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
+
+// `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
+// would touch the winding (shield.inner_diameter) or a non-positive size.
+ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);
+
+// The coaxial capacitance from the winding to the shield, 2 pi eps0 l / ln(b / r_outer), F.
+double shield_capacitance(const Solenoid& coil, const ShieldSpec& shield);
+// The capacitance to the shield as seen between the terminals: C/12 floating, C/3 with one end grounded.
+double shield_terminal_capacitance(double capacitance_to_shield, bool grounded_end);
+// The SRF in the shield, lumped: the coil's own capacitance C = 1 / ((2 pi f0)^2 L0) from its bare SRF f0
+// and inductance L0, joined by the shield's terminal capacitance, with the shielded inductance.
+double shielded_self_resonance(double bare_self_resonance, double bare_inductance, double shielded_inductance,
+                               double terminal_capacitance);
+
+// Shielding effectiveness of the wall against the near magnetic field of a source `source_distance`
+// inside it, after Schelkunoff's transmission-line theory of a plane sheet: SE = A + R + B in dB, with
+// absorption A = 8.686 t / delta, reflection R = 20 log10 |(Z_s + Z_w)^2 / (4 Z_s Z_w)| (the usual
+// |Z_w| / (4 |Z_s|) where |Z_w| >> |Z_s|) for the magnetic source's wave impedance Z_w = j w mu0 r against
+// the metal's Z_s = (1 + j) / (sigma delta), and the multiple-reflection
+// term B = 20 log10 |1 - ((Z_s - Z_w) / (Z_s + Z_w))^2 exp(-2 (1 + j) t / delta)|. Floored at 0 dB: the
+// plane-sheet theory says nothing useful where it falls below. It assumes a seamless wall; seams, slots
+// and the open ends of a tube leak long before these figures are reached.
+struct ShieldingEffectiveness {
+    double absorption_db = 0, reflection_db = 0, multiple_reflection_db = 0, total_db = 0;
+};
+ShieldingEffectiveness magnetic_shielding(const ShieldSpec& shield, double frequency, double source_distance);
+
+// What leaks out of an open tube's ends, in dB: the coil's axisymmetric field travels along the tube as the
+// TE01 mode below cutoff, falling by exp(-3.832 e / b) over the distance e from the winding's end to the
+// tube's end (textbook waveguide theory: 3.832 is the first zero of J1, quoted from memory), so
+// 8.686 x 3.832 e / b = 33.3 e / b dB. Infinite (no leak) for a tube with end discs. `winding_length`: the
+// coil's, centred in the tube less the shield's axial offset.
+double open_end_leakage_db(const ShieldSpec& shield, double winding_length);
+
+// The most a wall is credited with, dB: common practice, no source; real cans with seams and slots rarely
+// do better, whatever the seamless wall's theory says.
+inline constexpr double max_wall_db = 100;
+// What one shield is credited with against the near magnetic field: the wall's figure, at most
+// max_wall_db, and for an open tube at most what leaks from its ends.
+double credited_magnetic_shielding_db(const ShieldSpec& shield, double frequency, double source_distance, double winding_length);
+
+}  // namespace libcoil

@@ -1,0 +1,126 @@
+// The coil spec: a YAML document describing one coil, read at the edge and turned into SI geometry.
+//
+//   name: ...                    # optional
+//   coil:
+//     form_diameter: 20 mm       # or mean_diameter: (to the wire centre)
+//     turns: 10                  # may be fractional
+//     pitch: 1.5 mm              # or winding_length: (= turns * pitch)
+//     leads: 2 x 30 mm           # optional: lead_length: 60 mm (both leads together)
+//     wire:
+//       diameter: 1.0 mm         # bare conductor; or gauge: AWG 18
+//       insulation: 0.04 mm      # radial build; or enamel: grade 2; neither means bare wire
+//     conductor: copper
+//   operating:                   # optional
+//     frequencies: [1 MHz, 10 MHz]   # or one value
+//     temperature: 40 degC       # of the wire; 20 degC if not given
+//     current: 4 A               # RMS or DC, kept for the thermal and caution checks
+//   former:                      # optional: what the wire is wound on (none: self-supporting in air)
+//     material: PETG             # data/former_materials.yaml
+//     kind: grooved-tube         # or ribbed
+//     wall: 3 mm                 # radial thickness of solid under the winding (3 mm if not given)
+//     ribs: 6                    # ribbed only: number of axial ribs
+//     rib_width: 3 mm            # ribbed only: width of each rib where the wire rests
+//     # The rest matters only to the printable former (former.hpp); each has a default:
+//     ends: 5 mm                 # plain former beyond the winding at each end
+//     groove: {profile: round, depth: 0.6 mm, clearance: 0.1 mm}   # or profile: vee, angle_deg: 90
+//     flange: {diameter: 40 mm, thickness: 2 mm}                   # optional, at both ends
+//     hub_wall: 2 mm             # ribbed only: the hub tube inside the ribs
+//     bore_oversize: 0.2 mm      # the bore printed this much wider (diameter), as printed holes shrink
+//     min_wall: 1.2 mm           # the thinnest wall the printer makes well
+//   surroundings:                # optional
+//     relative_permittivity: 1   # of the medium around the coil
+//     mounting: floating         # or grounded-end (one terminal on a ground plane)
+//   shield:                      # optional: a coaxial conductive shield (shield.hpp)
+//     inner_diameter: 40 mm
+//     length: 80 mm
+//     thickness: 0.1 mm          # foil or tape 0.035 .. 0.1 mm; a can 0.5 mm or more
+//     material: copper           # or aluminium (data/conductors.yaml)
+//     end_discs: false           # true: closed at both ends
+//     axial_offset: 0 mm         # of the shield's centre from the coil's
+//   band:                        # optional: the band check (band_check.hpp)
+//     low: 150 kHz
+//     ceiling: 30 MHz
+//     srf_margin: 2              # SRF >= 2 x ceiling
+//     max_deviation: 10 %        # | |Z| / (w L) - 1 | <= 10 % up to the ceiling
+//     min_impedance: 250 ohm     # |Z| >= 250 ohm across the band
+//
+// Errors name the YAML path: `coil.pitch: "2 mn": unknown unit "mn"; expected a length such as "2 mm"`.
+// Unknown keys are errors with a "did you mean" hint.
+#pragma once
+
+#include <filesystem>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <optional>
+
+#include "libcoil/studies/band_check.hpp"
+#include "libcoil/models/materials.hpp"
+#include "libcoil/models/self_resonance.hpp"
+#include "libcoil/models/shield.hpp"
+#include "libcoil/models/solenoid.hpp"
+
+namespace libcoil {
+
+struct Operating {
+    std::vector<double> frequencies;  // Hz
+    double temperature = 293.15;      // K
+    double current = 0;               // A, 0 when not given
+    bool temperature_given = false;
+};
+
+enum class FormerKind { grooved_tube, ribbed };
+enum class GrooveProfile { round, vee };
+
+// The groove that holds each turn. The wire rests on its bottom at the form diameter, so that its centre
+// lies on the mean diameter; the clearance widens the groove, never deepens it.
+struct GrooveSpec {
+    GrooveProfile profile = GrooveProfile::round;
+    std::optional<double> depth;  // m, below the outer surface; default: half the insulated wire
+    double clearance = 0.1e-3;    // m, the groove is this much wider than the insulated wire
+    double angle = 1.5707963267948966;  // rad, a vee's included angle (90 degrees)
+};
+
+struct FlangeSpec {
+    double diameter = 0, thickness = 0;  // m
+};
+
+struct FormerSpec {
+    FormerMaterial material;
+    FormerKind kind = FormerKind::grooved_tube;
+    double wall = 3e-3;    // m
+    int ribs = 0;          // ribbed only
+    double rib_width = 0;  // m, ribbed only
+    // For the printable former only:
+    std::optional<double> ends;  // m, plain former beyond the winding at each end (default 5 mm)
+    GrooveSpec groove;
+    std::optional<FlangeSpec> flange;
+    double hub_wall = 2e-3;  // m, ribbed only
+    double bore_oversize = 0;  // m, on the diameter: printed holes come out small
+    double min_wall = 1.2e-3;  // m
+    // What the capacitance models see: the solid share of the circumference at the form diameter.
+    FormerDielectric dielectric(double form_diameter) const;
+};
+
+const char* former_kind_name(FormerKind k);  // "grooved-tube", "ribbed"
+
+struct CoilSpec {
+    std::string name;
+    std::string description;
+    Solenoid solenoid;
+    Conductor conductor;
+    Operating operating;
+    std::optional<FormerSpec> former;
+    Surroundings surroundings;
+    std::optional<BandSpec> band;
+    std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
+    std::optional<ShieldSpec> shield;
+};
+
+// Parses a spec from YAML text; `source` names it in messages (a file name).
+CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source = "spec");
+// Reads and parses a spec file. A missing or unreadable file is an InputError naming the path.
+CoilSpec load_coil_spec(const std::filesystem::path& path);
+
+}  // namespace libcoil

@@ -1,0 +1,60 @@
+#include "libcoil/core/error.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace libcoil {
+
+namespace {
+std::string compose(const std::string& field, const std::string& detail) {
+    return field.empty() ? detail : field + ": " + detail;
+}
+}  // namespace
+
+InputError::InputError(std::string field, std::string detail)
+    : std::invalid_argument(compose(field, detail)), field_(std::move(field)), detail_(std::move(detail)) {}
+
+InputError InputError::within(std::string_view prefix) const {
+    std::string f(prefix);
+    if (!field_.empty()) {
+        f += f.empty() ? field_ : "." + field_;
+    }
+    return InputError(f, detail_);
+}
+
+std::string format_value(double value) {
+    if (std::isnan(value)) return "nan";
+    if (std::isinf(value)) return value > 0 ? "inf" : "-inf";
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.6g", value);
+    return buf;
+}
+
+namespace detail {
+
+[[noreturn]] void throw_not_finite(std::string_view field, double value) {
+    throw InputError(std::string(field), format_value(value) + " is not a finite number");
+}
+
+[[noreturn]] void throw_not_positive(std::string_view field, double value) {
+    if (!std::isfinite(value)) throw_not_finite(field, value);
+    throw InputError(std::string(field), format_value(value) + " must be greater than zero");
+}
+
+[[noreturn]] void throw_negative(std::string_view field, double value) {
+    if (!std::isfinite(value)) throw_not_finite(field, value);
+    throw InputError(std::string(field), format_value(value) + " must not be negative");
+}
+
+}  // namespace detail
+
+void detail::throw_below(std::string_view field, double value, double minimum, std::string_view why) {
+    throw InputError(std::string(field), format_value(value) + " is below " + format_value(minimum) + ": " + std::string(why));
+}
+
+void detail::throw_not_finite_result(std::string_view model, double value) {
+    throw DomainError(std::string(model) + ": the inputs are outside the range this model can evaluate in "
+                      "double precision (result " + format_value(value) + ")");
+}
+
+}  // namespace libcoil

@@ -1,0 +1,124 @@
+#include "libcoil/models/impedance.hpp"
+
+#include <cmath>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/losses.hpp"
+#include "libcoil/models/proximity.hpp"
+
+namespace libcoil {
+
+const char* impedance_model_name(ImpedanceModel m) { return m == ImpedanceModel::helical_line ? "helical-line" : "lumped"; }
+
+namespace {
+
+using cplx = std::complex<double>;
+
+// e^z - 1 without cancellation for small z: (expm1(x) cos y - 2 sin^2(y/2)) + j e^x sin y.
+cplx expm1(cplx z) {
+    const double x = z.real(), y = z.imag(), s = std::sin(y / 2);
+    return {std::expm1(x) * std::cos(y) - 2 * s * s, std::exp(x) * std::sin(y)};
+}
+
+// tanh for any complex argument, without overflow for large Re z or cancellation for small |z|:
+// tanh z = -m / (2 + m), m = e^-2z - 1, for Re z >= 0.
+cplx stable_tanh(cplx z) {
+    if (z.real() < 0) return -stable_tanh(-z);
+    const cplx m = expm1(-2.0 * z);
+    return -m / (2.0 + m);
+}
+
+void require_finite_impedance(const cplx& z) {
+    if (!std::isfinite(z.real()) || !std::isfinite(z.imag())) {
+        throw DomainError("coil impedance: the result is not finite (an exact lossless resonance)");
+    }
+}
+
+}  // namespace
+
+cplx lumped_impedance(double w, double resistance, double inductance, double capacitance) {
+    require_non_negative("angular_frequency", w);
+    require_positive("resistance", resistance);
+    require_positive("inductance", inductance);
+    require_non_negative("capacitance", capacitance);
+    const cplx series(resistance, w * inductance);
+    const cplx z = series / (1.0 + cplx(0, w * capacitance) * series);
+    require_finite_impedance(z);
+    return z;
+}
+
+cplx line_impedance(double w, double resistance, double inductance, double phase_velocity, double length,
+                    Mounting mounting) {
+    require_non_negative("angular_frequency", w);
+    require_positive("resistance", resistance);
+    require_positive("inductance", inductance);
+    require_positive("phase_velocity", phase_velocity);
+    require_positive("length", length);
+    if (w == 0) return {resistance, 0};
+    const double lp = inductance / length;                        // L' (H/m)
+    const cplx z(resistance / length, w * lp);                    // series impedance per metre
+    const cplx y(0, w / (lp * phase_velocity * phase_velocity));  // j w C', C' = 1 / (L' v^2)
+    const cplx gamma = std::sqrt(z * y), z0 = std::sqrt(z / y);
+    const cplx zin = mounting == Mounting::floating ? 2.0 * z0 * stable_tanh(gamma * (length / 2))
+                                                    : z0 * stable_tanh(gamma * length);
+    require_finite_impedance(zin);
+    return zin;
+}
+
+CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
+                             const SelfResonance& sr)
+    : coil_(coil),
+      conductor_(conductor),
+      temperature_(temperature),
+      dc_inductance_(require_positive("dc_inductance", dc_inductance)),
+      field_(mean_square_field_per_ampere(coil)),
+      sr_(sr),
+      helix_(sr.radius, sr.pitch_angle, sr.medium) {}
+
+double CoilImpedance::phase_velocity(double frequency) const {
+    require_non_negative("frequency", frequency);
+    if (!sr_.helical_line.available) throw DomainError("the helical-line model does not hold for this coil");
+    if (frequency <= sr_.frequency) return sr_.phase_velocity;
+    const double k = 2 * pi * frequency / speed_of_light;
+    const double beta = helix_.axial_wavenumber(k);
+    if (beta <= sr_.resonance_wavenumber) return sr_.phase_velocity;
+    return 2 * pi * frequency / beta;
+}
+
+ImpedancePoint CoilImpedance::at(double frequency, ImpedanceModel model, double capacitance) const {
+    return sweep({frequency}, model, capacitance).front();
+}
+
+std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& frequencies, ImpedanceModel model,
+                                                 double capacitance) const {
+    require_non_negative("capacitance", capacitance);
+    const auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies, field_);
+    std::vector<ImpedancePoint> out;
+    out.reserve(frequencies.size());
+    for (std::size_t i = 0; i < frequencies.size(); ++i) {
+        out.push_back(with_wire(frequencies[i], wire[i].resistance, wire[i].inductance, model, capacitance));
+    }
+    return out;
+}
+
+ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double inductance, ImpedanceModel model,
+                                        double capacitance) const {
+    require_non_negative("capacitance", capacitance);
+    const double c = capacitance > 0 ? capacitance : sr_.capacitance;
+    // Without a helical-line solution (outside the sheath helix's domain) the lumped form stands in.
+    if (!sr_.helical_line.available) model = ImpedanceModel::lumped;
+    const double w = 2 * pi * f;
+    ImpedancePoint p;
+    p.frequency = f;
+    p.wire_resistance = resistance;
+    p.wire_inductance = inductance;
+    p.impedance = model == ImpedanceModel::lumped
+                      ? lumped_impedance(w, resistance, inductance, c)
+                      : line_impedance(w, resistance, inductance, phase_velocity(f), coil_.winding_length(), sr_.mounting);
+    p.apparent_inductance = f > 0 ? p.impedance.imag() / w : inductance;
+    p.q_factor = p.impedance.imag() / p.impedance.real();
+    return p;
+}
+
+}  // namespace libcoil

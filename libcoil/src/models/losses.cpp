@@ -1,0 +1,113 @@
+#include "libcoil/models/losses.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/models/dc_resistance.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/proximity.hpp"
+#include "libcoil/models/skin_effect.hpp"
+
+namespace libcoil {
+
+namespace {
+
+double q_of(double f, double l, double r) { return f > 0 ? 2 * pi * f * l / r : 0.0; }
+
+void check_frequencies(const std::vector<double>& fs) {
+    for (std::size_t i = 0; i < fs.size(); ++i) require_non_negative("frequencies[" + std::to_string(i) + "]", fs[i]);
+}
+
+}  // namespace
+
+WireAtFrequency wire_at_frequency(const Wire& w, const Conductor& cond, double temperature, double f) {
+    require_positive("wire.diameter", w.bare_diameter);
+    require_non_negative("frequency", f);
+    WireAtFrequency out;
+    out.bare_diameter = w.bare_diameter;
+    out.insulated_diameter = w.insulated_diameter();
+    out.dc_resistance_per_length = dc_resistance_per_length(cond, w.bare_diameter, temperature);
+    out.frequency = f;
+    const double rho = cond.resistivity_at(temperature);
+    if (f > 0) {
+        out.skin_depth = skin_depth(rho, f, cond.relative_permeability);
+        out.skin_ratio = skin_ratios(std::sqrt(2.0) * w.radius() / out.skin_depth).resistance;
+    }
+    // R_ac / R_dc = 1.1 at x = 2.13695 (the root of skin_ratios, found once by bisection); then
+    // delta = sqrt(2) r / x and f = rho / (pi mu0 mu_r delta^2).
+    static const double x_onset = [] {
+        double lo = 1.0, hi = 4.0;
+        for (int i = 0; i < 200; ++i) {
+            const double mid = (lo + hi) / 2;
+            (skin_ratios(mid).resistance < 1.1 ? lo : hi) = mid;
+        }
+        return (lo + hi) / 2;
+    }();
+    const double delta = std::sqrt(2.0) * w.radius() / x_onset;
+    out.skin_onset_frequency = rho / (pi * mu0 * cond.relative_permeability * delta * delta);
+    return out;
+}
+
+std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conductor& cond, double temperature,
+                                                 double l_dc, const std::vector<double>& fs) {
+    check_frequencies(fs);
+    require_positive("dc_inductance", l_dc);
+    const bool any_ac = std::any_of(fs.begin(), fs.end(), [](double f) { return f > 0; });
+    return coil_at_frequencies(c, cond, temperature, l_dc, fs, any_ac ? mean_square_field_per_ampere(c) : 0.0);
+}
+
+std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conductor& cond, double temperature,
+                                                 double l_dc, const std::vector<double>& fs, double field) {
+    check_frequencies(fs);
+    require_positive("dc_inductance", l_dc);
+    require_non_negative("mean_square_field", field);
+    const double l_int_dc = mu0 * cond.relative_permeability / (8 * pi) * c.helix_length();
+    std::vector<CoilAtFrequency> out;
+    for (double f : fs) {
+        const AcResistance r = ac_resistance(c, cond, temperature, f, field);
+        CoilAtFrequency p;
+        p.frequency = f;
+        p.resistance = r.resistance;
+        p.skin_ratio = r.skin_ratio;
+        p.proximity_ratio = r.proximity_ratio;
+        p.inductance = l_dc - l_int_dc * (1 - r.internal_inductance_ratio);
+        p.q_factor = q_of(f, p.inductance, p.resistance);
+        out.push_back(p);
+    }
+    return out;
+}
+
+std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, const Conductor& cond, double temperature,
+                                                           double l_dc, const std::vector<double>& fs,
+                                                           const Subdivision& sub,
+                                                           const std::function<void(std::size_t, std::size_t)>& progress) {
+    check_frequencies(fs);
+    require_positive("dc_inductance", l_dc);
+    const double rho = cond.resistivity_at(temperature);
+    const CrossSectionSolver solver(c, rho, sub);
+    const RingImpedance dc = solver.solve(0);
+    const double rings = std::max(1.0, std::round(c.turns())) * 2 * pi * c.mean_radius();
+    const double scale = c.helix_length() / rings;  // ring circumferences -> helix
+    const double per_m = dc_resistance_per_length(cond, c.wire().bare_diameter, temperature);
+    std::vector<CoilAtFrequency> out;
+    for (std::size_t i = 0; i < fs.size(); ++i) {
+        const double f = fs[i];
+        const RingImpedance z = f > 0 ? solver.solve(f) : dc;
+        const double skin = f > 0 ? wire_skin_ratios(c.wire().radius(), rho, f, cond.relative_permeability).resistance : 1.0;
+        CoilAtFrequency p;
+        p.frequency = f;
+        p.resolved = z.resolved;
+        p.numerical = true;
+        p.resistance = z.resistance * scale + per_m * c.lead_length() * skin;
+        p.skin_ratio = skin;
+        p.proximity_ratio = z.resistance / dc.resistance - skin;
+        p.inductance = l_dc + (z.inductance - dc.inductance);
+        p.q_factor = q_of(f, p.inductance, p.resistance);
+        out.push_back(p);
+        if (progress) progress(i + 1, fs.size());
+    }
+    return out;
+}
+
+}  // namespace libcoil

@@ -1,0 +1,275 @@
+#include "libcoil/models/shield.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <complex>
+
+#include <Eigen/Dense>
+#include <boost/math/quadrature/gauss_kronrod.hpp>
+#include <boost/math/special_functions/bessel.hpp>
+
+#include "libcoil/models/coaxial_mutual.hpp"
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/ring_inductance.hpp"
+#include "libcoil/models/skin_effect.hpp"
+#include "libcoil/core/units.hpp"
+#include "models/turn_filaments.hpp"
+
+namespace libcoil {
+
+namespace {
+
+struct Ring {
+    double r, z, dr, dz;  // centre radius and height, radial and axial extent
+    bool disc = false;    // in an end disc: long along r, thin along z (in the wall: long along z)
+};
+
+// Geometric mean distance between two parallel line segments a distance s apart, [a0, a1] and [b0, b1]
+// along them: ln g = (1 / (la lb)) (P(a1 - b0) - P(a0 - b0) - P(a1 - b1) + P(a0 - b1)) with
+// P''(u) = ln(u^2 + s^2) / 2, P(u) = (u^2 - s^2) / 4 ln(u^2 + s^2) - 3 u^2 / 4 + s u atan(u / s)
+// (the double integral of ln r, done by hand; at s = 0 and b = a it gives the segment's own l e^(-3/2)).
+double segments_gmd(double a0, double a1, double b0, double b1, double s) {
+    const auto P = [s](double u) {
+        const double q = u * u + s * s;
+        const double log_term = q > 0 ? (u * u - s * s) / 4 * std::log(q) : 0;
+        return log_term - 0.75 * u * u + (s > 0 ? s * u * std::atan(u / s) : 0);
+    };
+    const double j = P(a1 - b0) - P(a0 - b0) - P(a1 - b1) + P(a0 - b1);
+    return std::exp(j / ((a1 - a0) * (b1 - b0)));
+}
+
+// Rings close against their long side: Maxwell's formula at the geometric mean distance of their
+// sections (thin strips as segments), which a filament pair at the centres would overestimate badly for
+// layers thinner than they are long.
+double ring_mutual(const Ring& a, const Ring& c) {
+    if (a.disc == c.disc) {
+        const double la = a.disc ? a.dr : a.dz, lc = c.disc ? c.dr : c.dz;
+        const double along_a = a.disc ? a.r : a.z, along_c = c.disc ? c.r : c.z;
+        const double across = a.disc ? std::fabs(a.z - c.z) : std::fabs(a.r - c.r);
+        const double reach = 3 * std::max(la, lc);
+        if (std::fabs(along_a - along_c) <= reach && across <= reach) {
+            const double g = segments_gmd(along_a - la / 2, along_a + la / 2, along_c - lc / 2, along_c + lc / 2, across);
+            const double rm = 0.5 * (a.r + c.r);
+            return coaxial_mutual_inductance(rm, rm, g);
+        }
+    }
+    return coaxial_mutual_inductance(a.r, c.r, a.z - c.z);
+}
+
+// Layer boundaries through a wall of thickness t from its inner surface: uniform when the wall is thin
+// against the skin depth, else graded from a first layer of delta / 3.
+std::vector<double> layers(double t, double delta, int max_layers) {
+    const int n = std::clamp(static_cast<int>(std::ceil(t / (delta / 2))), 1, max_layers);
+    std::vector<double> edge(1, 0.0);
+    if (n < max_layers || delta / 3 * n >= t) {
+        for (int i = 1; i <= n; ++i) edge.push_back(t * i / n);
+        return edge;
+    }
+    const double h0 = delta / 3;
+    double lo = 1, hi = 100;  // ratio q with h0 (q^n - 1) / (q - 1) = t
+    for (int it = 0; it < 200; ++it) {
+        const double q = 0.5 * (lo + hi);
+        ((h0 * (std::pow(q, n) - 1) / (q - 1)) > t ? hi : lo) = q;
+    }
+    const double q = 0.5 * (lo + hi);
+    double h = h0, x = 0;
+    for (int i = 1; i < n; ++i, h *= q) edge.push_back(x += h);
+    edge.push_back(t);
+    return edge;
+}
+
+std::vector<Ring> shield_rings(const ShieldSpec& s, double coil_radius, double delta) {
+    const double b = s.inner_diameter / 2, t = s.thickness, len = s.length;
+    std::vector<Ring> rings;
+    const auto through = layers(t, delta, 6);
+    // Along the wall: fine enough for the field's scale (the gap to the coil and the coil's radius).
+    const double step = std::min({(b - coil_radius) / 1.5, coil_radius / 3, len / 24});
+    const int nz = std::clamp(static_cast<int>(std::ceil(len / step)), 24, 240);
+    for (int i = 0; i < nz; ++i) {
+        const double z = s.axial_offset - len / 2 + (i + 0.5) * len / nz;
+        for (std::size_t k = 1; k < through.size(); ++k) {
+            rings.push_back({b + 0.5 * (through[k - 1] + through[k]), z, through[k] - through[k - 1], len / nz});
+        }
+    }
+    if (s.end_discs) {
+        const int nr = std::clamp(static_cast<int>(std::ceil((b + t) / step)), 8, 60);
+        for (double side : {-1.0, 1.0}) {
+            for (int i = 0; i < nr; ++i) {
+                const double r = (i + 0.5) * (b + t) / nr;
+                for (std::size_t k = 1; k < through.size(); ++k) {
+                    const double z = s.axial_offset + side * (len / 2 + 0.5 * (through[k - 1] + through[k]));
+                    rings.push_back({r, z, (b + t) / nr, through[k] - through[k - 1], true});
+                }
+            }
+        }
+    }
+    return rings;
+}
+
+// A shield of positive size that clears the winding, or an InputError naming the field.
+void require_around(const Solenoid& coil, const ShieldSpec& s) {
+    require_positive("shield.inner_diameter", s.inner_diameter);
+    require_positive("shield.length", s.length);
+    require_positive("shield.thickness", s.thickness);
+    require_finite("shield.axial_offset", s.axial_offset);
+    if (!(s.inner_diameter > coil.outer_diameter())) {
+        throw InputError("shield.inner_diameter", format_quantity(s.inner_diameter, Dimension::length) +
+                                                      " does not clear the winding (outer diameter " +
+                                                      format_quantity(coil.outer_diameter(), Dimension::length) + ")");
+    }
+}
+
+struct System {
+    Eigen::MatrixXd m;   // ring-ring mutual and self inductances
+    Eigen::VectorXd mc;  // ring-coil mutuals (per ampere of coil current)
+    Eigen::VectorXd r;   // ring resistances
+};
+
+System assemble(const std::vector<Ring>& rings, const Solenoid& coil, double rho) {
+    const auto n = static_cast<Eigen::Index>(rings.size());
+    System s{Eigen::MatrixXd(n, n), Eigen::VectorXd(n), Eigen::VectorXd(n)};
+    const detail::TurnFilaments turns = detail::turn_filaments(coil);
+    for (Eigen::Index i = 0; i < n; ++i) {
+        const Ring& a = rings[static_cast<std::size_t>(i)];
+        s.m(i, i) = ring_self_inductance(a.r, rectangle_gmd(a.dr, a.dz) * std::exp(0.25));
+        for (Eigen::Index j = 0; j < i; ++j) {
+            const Ring& c = rings[static_cast<std::size_t>(j)];
+            s.m(i, j) = s.m(j, i) = ring_mutual(a, c);
+        }
+        double sum = 0;
+        for (double z : turns.z) sum += coaxial_mutual_inductance(a.r, turns.radius, a.z - z);
+        s.mc(i) = turns.weight * sum;
+        s.r(i) = rho * 2 * pi * a.r / (a.dr * a.dz);
+    }
+    return s;
+}
+
+// dZ per ampere at angular frequency w (w = INFINITY: the perfect conductor, returns j-less dL).
+std::complex<double> added_impedance(const System& s, double w) {
+    using C = std::complex<double>;
+    const auto n = s.r.size();
+    Eigen::MatrixXcd a(n, n);
+    a = (C(0, w) * s.m.cast<C>());
+    a.diagonal() += s.r.cast<C>();
+    const Eigen::VectorXcd rhs = C(0, -w) * s.mc.cast<C>();
+    const Eigen::VectorXcd x = a.partialPivLu().solve(rhs);
+    return C(0, w) * s.mc.cast<C>().dot(x);  // dot conjugates its first argument, real here
+}
+
+}  // namespace
+
+ShieldingEffectiveness magnetic_shielding(const ShieldSpec& s, double f, double r) {
+    require_positive("frequency", f);
+    require_positive("source_distance", r);
+    require_positive("shield.thickness", s.thickness);
+    using C = std::complex<double>;
+    const double rho = s.material.resistivity_at(s.temperature);
+    const double delta = skin_depth(rho, f, s.material.relative_permeability), w = 2 * pi * f;
+    const C zs = C(1, 1) * rho / delta, zw = C(0, w * mu0 * r);
+    ShieldingEffectiveness e;
+    e.absorption_db = 20 / std::log(10.0) * s.thickness / delta;  // 8.686 t / delta
+    e.reflection_db = 20 * std::log10(std::abs((zs + zw) * (zs + zw) / (4.0 * zs * zw)));
+    const C g = (zs - zw) / (zs + zw);
+    e.multiple_reflection_db = 20 * std::log10(std::abs(1.0 - g * g * std::exp(-2.0 * C(1, 1) * s.thickness / delta)));
+    e.total_db = std::max(0.0, e.absorption_db + e.reflection_db + e.multiple_reflection_db);
+    return e;
+}
+
+double sheet_in_long_shield_change(double a, double l, double n, double b) {
+    require_positive("mean_radius", a);
+    require_positive("length", l);
+    require_positive("turns", n);
+    require_positive("shield_radius", b);
+    if (!(b > a)) throw InputError("shield_radius", "must exceed the coil's radius");
+    namespace bm = boost::math;
+    // I1(x)^2 K1(y) / I1(y) ~ exp(2x - 2y): past 2 k (b - a) = 80 nothing is left; below k b = 600 no
+    // Bessel function overflows.
+    const double k_max = std::min(40 / (b - a), 600 / b);
+    const auto g = [&](double k) {
+        if (k <= 0) return l * l / 4 * a * a / (2 * b * b);  // the limit of sin^2 / k^2 times G
+        const double s = std::sin(k * l / 2) / k;
+        const double i_a = bm::cyl_bessel_i(1, k * a);
+        return s * s * i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
+    };
+    // The integrand oscillates with period 2 pi / l: integrate piece by piece.
+    const double period = 2 * pi / l;
+    double sum = 0;
+    for (double k0 = 0; k0 < k_max; k0 += period) {
+        sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(g, k0, std::min(k_max, k0 + period), 8, 1e-12);
+    }
+    return finite_result("sheet_in_long_shield_change", -8 * mu0 * a * a * n * n / (l * l) * sum);
+}
+
+double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
+    require_around(coil, s);
+    // The current of a perfect conductor is a sheet on the inner surface: one thin layer.
+    ShieldSpec sheet = s;
+    sheet.thickness = std::min(s.thickness, 1e-3 * s.inner_diameter / 2);
+    const System sys = assemble(shield_rings(sheet, coil.mean_radius(), INFINITY), coil, 1.0);
+    const Eigen::VectorXd x = sys.m.ldlt().solve(-sys.mc);
+    return finite_result("shield", sys.mc.dot(x));
+}
+
+double open_end_leakage_db(const ShieldSpec& s, double winding_length) {
+    require_positive("winding_length", winding_length);
+    if (s.end_discs) return INFINITY;
+    const double e = std::max(0.0, s.length / 2 - std::fabs(s.axial_offset) - winding_length / 2);
+    constexpr double j1_first_zero = 3.8317059702075123;
+    return 20 / std::log(10.0) * j1_first_zero * e / (s.inner_diameter / 2);
+}
+
+double credited_magnetic_shielding_db(const ShieldSpec& s, double f, double r, double winding_length) {
+    return std::min({magnetic_shielding(s, f, r).total_db, max_wall_db, open_end_leakage_db(s, winding_length)});
+}
+
+double shield_capacitance(const Solenoid& coil, const ShieldSpec& s) {
+    require_around(coil, s);
+    const double b = s.inner_diameter / 2, r_out = coil.outer_diameter() / 2;
+    return 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
+}
+
+double shielded_self_resonance(double f0, double l0, double l_shielded, double c_terminal) {
+    require_positive("bare_self_resonance", f0);
+    require_positive("bare_inductance", l0);
+    require_positive("shielded_inductance", l_shielded);
+    require_non_negative("terminal_capacitance", c_terminal);
+    const double c_self = 1 / (std::pow(2 * pi * f0, 2) * l0);
+    return finite_result("shielded_self_resonance", 1 / (2 * pi * std::sqrt(l_shielded * (c_self + c_terminal))));
+}
+
+double shield_terminal_capacitance(double c, bool grounded_end) {
+    require_non_negative("capacitance_to_shield", c);
+    return grounded_end ? c / 3 : c / 12;
+}
+
+ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& s, const std::vector<double>& frequencies) {
+    require_positive("inductance", inductance);
+    require_around(coil, s);
+    const double b = s.inner_diameter / 2, a = coil.mean_radius();
+    const double rho = s.material.resistivity_at(s.temperature);
+    ShieldResult out;
+    out.unshielded_inductance = inductance;
+    out.long_coil_limit = inductance * (1 - a * a / (b * b));
+    out.closed_form = inductance + sheet_in_long_shield_change(a, coil.winding_length(), coil.turns(), b);
+    out.capacitance_to_shield = shield_capacitance(coil, s);
+    out.perfect_conductor = finite_result("shield", inductance + shield_inductance_change(coil, s));
+    for (double f : frequencies) {
+        require_positive("frequency", f);
+        const double delta = skin_depth(rho, f, s.material.relative_permeability);
+        const auto rings = shield_rings(s, a, delta);
+        const System sys = assemble(rings, coil, rho);
+        const double w = 2 * pi * f;
+        const std::complex<double> dz = added_impedance(sys, w);
+        ShieldPoint p;
+        p.frequency = f;
+        p.skin_depth = delta;
+        p.inductance = finite_result("shield", inductance + dz.imag() / w);
+        p.added_resistance = finite_result("shield", dz.real());
+        out.points.push_back(p);
+        out.rings = static_cast<int>(rings.size());
+    }
+    return out;
+}
+
+}  // namespace libcoil

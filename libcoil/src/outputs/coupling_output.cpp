@@ -1,0 +1,207 @@
+#include "libcoil/outputs/coupling_output.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/models/inductance.hpp"
+#include "libcoil/models/losses.hpp"
+#include "libcoil/models/shield.hpp"
+#include "libcoil/core/units.hpp"
+#include "libcoil/version.hpp"
+#include "core/text_format.hpp"
+
+namespace libcoil {
+
+namespace {
+
+using detail::fixed;
+using detail::significant;
+
+double resistance_at(const CoilSpec& s, double f) {
+    const double l = recommended_inductance(s.solenoid);
+    return coil_at_frequencies(s.solenoid, s.conductor, s.operating.temperature, l, {f}).front().resistance;
+}
+
+}  // namespace
+
+const char* arrangement_name(Arrangement a) { return a == Arrangement::coaxial ? "coaxial" : "side-by-side"; }
+
+CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement arr, double distance, double offset,
+                             std::vector<double> frequencies, double rs, double rl, const std::vector<double>& sweep) {
+    CouplingStudy s;
+    s.name_a = a.name.empty() ? "coil A" : a.name;
+    s.name_b = b.name.empty() ? "coil B" : b.name;
+    s.arrangement = arr;
+    s.distance = require_positive("distance", distance);
+    s.axial_offset = require_finite("axial_offset", offset);
+    s.source_resistance = require_positive("source_resistance", rs);
+    s.load_resistance = require_positive("load_resistance", rl);
+    s.at = coupling(a.solenoid, b.solenoid, arr, distance, offset);
+    s.dipole_mutual = dipole_mutual_inductance(a.solenoid, b.solenoid, arr, distance);
+    if (frequencies.empty()) {
+        frequencies = a.operating.frequencies;
+        frequencies.insert(frequencies.end(), b.operating.frequencies.begin(), b.operating.frequencies.end());
+        std::sort(frequencies.begin(), frequencies.end());
+        frequencies.erase(std::unique(frequencies.begin(), frequencies.end()), frequencies.end());
+        frequencies.erase(std::remove_if(frequencies.begin(), frequencies.end(), [](double f) { return !(f > 0); }), frequencies.end());
+        if (frequencies.empty()) s.notes.push_back("no frequency given (--frequency, or operating.frequencies in a spec): no crosstalk figures");
+    }
+    for (double f : frequencies) {
+        require_positive("frequency", f);
+        const double ra = resistance_at(a, f), rb = resistance_at(b, f);
+        // Each shield is credited with its wall's figure, capped, and no more than its open ends let out.
+        double se = 0, theory = 0;
+        const auto wall = [&](const ShieldSpec& sh, double r, const Solenoid& coil) {
+            theory += magnetic_shielding(sh, f, r).total_db;
+            se += credited_magnetic_shielding_db(sh, f, r, coil.winding_length());
+        };
+        if (a.shield) wall(*a.shield, a.shield->inner_diameter / 2, a.solenoid);
+        if (b.shield) wall(*b.shield, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2), b.solenoid);
+        s.theoretical_shielding_db.push_back(theory);
+        Coupling shielded = s.at;
+        shielded.mutual *= std::pow(10.0, -se / 20);
+        s.crosstalk.push_back(crosstalk(shielded, f, ra, rb, rs, rl));
+        s.unshielded_db.push_back(crosstalk(s.at, f, ra, rb, rs, rl).transfer_db);
+        s.shielding_db.push_back(se);
+    }
+    if (a.shield || b.shield) {
+        s.notes.push_back("shields: Schelkunoff's plane-sheet shielding effectiveness of each wall against the near magnetic field, "
+                          "applied to M, at most 100 dB a wall (common practice, no source: seams and slots leak long before the "
+                          "seamless wall's figure), and for an open tube no more than leaks from its ends (the TE01 mode below cutoff, "
+                          "33 dB per radius of tube beyond the winding); L and R are the unshielded coils'");
+    }
+    for (double d : sweep) {
+        const Coupling c = coupling(a.solenoid, b.solenoid, arr, d, offset);
+        s.sweep.push_back({d, c.mutual, c.coefficient});
+    }
+    s.notes.push_back("each coil as circular filaments, one per turn, on its mean diameter; the crosstalk takes each coil as R + jwL, "
+                      "so it holds well below either coil's self-resonance");
+    s.notes.push_back("no shield or nearby metal is modelled: a conductive enclosure changes both L and M");
+    return s;
+}
+
+std::string coupling_text_report(const CouplingStudy& s, const std::vector<std::string>& files) {
+    std::ostringstream o;
+    o << "libcoil " << version << " \u2014 coil couple\n";
+    o << "A: " << s.name_a << "\nB: " << s.name_b << "\n\n";
+    o << "Arrangement: " << arrangement_name(s.arrangement) << ", centres " << format_quantity(s.distance, Dimension::length) << " apart";
+    if (s.axial_offset != 0) o << ", B offset " << format_quantity(s.axial_offset, Dimension::length) << " along the axes";
+    o << "\n  L_A " << format_quantity(s.at.inductance_a, Dimension::inductance) << ", L_B " << format_quantity(s.at.inductance_b, Dimension::inductance)
+      << "\n  M   " << format_quantity(s.at.mutual, Dimension::inductance) << " (the far-field dipole estimate: "
+      << format_quantity(s.dipole_mutual, Dimension::inductance) << ")\n  k   " << significant(s.at.coefficient, 4) << "\n";
+    if (!s.crosstalk.empty()) {
+        const bool shielded = std::any_of(s.shielding_db.begin(), s.shielding_db.end(), [](double v) { return v > 0; });
+        o << "\nCrosstalk, A driven from " << significant(s.source_resistance, 4) << " \u03a9, B loaded by " << significant(s.load_resistance, 4)
+          << " \u03a9\n  frequency      V_B open / I_A    |S21|" << (shielded ? "      shields    unshielded |S21|" : "") << "\n";
+        for (std::size_t i = 0; i < s.crosstalk.size(); ++i) {
+            const auto& x = s.crosstalk[i];
+            o << "  " << detail::pad(format_quantity(x.frequency, Dimension::frequency), 15)
+              << detail::pad(x.transfer_impedance >= 1e-12 ? format_quantity(x.transfer_impedance, Dimension::resistance)
+                                                           : significant(x.transfer_impedance, 3) + " \u03a9", 18)
+              << detail::pad(fixed(x.transfer_db, 1) + " dB", 12);
+            if (shielded) o << detail::pad(fixed(s.shielding_db[i], 1) + " dB", 11) << fixed(s.unshielded_db[i], 1) << " dB";
+            o << "\n";
+        }
+    }
+    if (!s.sweep.empty()) {
+        o << "\nCoupling against distance\n  distance       M              k\n";
+        for (const auto& p : s.sweep) {
+            o << "  " << detail::pad(format_quantity(p.distance, Dimension::length), 15) << detail::pad(format_quantity(p.mutual, Dimension::inductance), 15)
+              << significant(p.coefficient, 4) << "\n";
+        }
+    }
+    detail::list_section(o, "Notes", s.notes, "-");
+    detail::written_section(o, files);
+    return o.str();
+}
+
+std::string coupling_json_report(const CouplingStudy& s, const std::vector<std::string>& files) {
+    nlohmann::ordered_json j;
+    j["libcoil_version"] = version;
+    j["coil_a"] = s.name_a;
+    j["coil_b"] = s.name_b;
+    j["arrangement"] = arrangement_name(s.arrangement);
+    j["distance_m"] = s.distance;
+    j["axial_offset_m"] = s.axial_offset;
+    j["inductance_a_H"] = s.at.inductance_a;
+    j["inductance_b_H"] = s.at.inductance_b;
+    j["mutual_inductance_H"] = s.at.mutual;
+    j["dipole_mutual_inductance_H"] = s.dipole_mutual;
+    j["coupling_coefficient"] = s.at.coefficient;
+    j["source_resistance_ohm"] = s.source_resistance;
+    j["load_resistance_ohm"] = s.load_resistance;
+    auto xs = nlohmann::ordered_json::array();
+    for (const auto& x : s.crosstalk) {
+        xs.push_back({{"frequency_Hz", x.frequency}, {"transfer_impedance_ohm", x.transfer_impedance}, {"transfer_dB", x.transfer_db}});
+    }
+    for (std::size_t i = 0; i < xs.size(); ++i) {
+        xs[i]["shielding_dB"] = s.shielding_db[i];
+        xs[i]["theoretical_shielding_dB"] = s.theoretical_shielding_db[i];
+        xs[i]["unshielded_transfer_dB"] = s.unshielded_db[i];
+    }
+    j["crosstalk"] = xs;
+    auto sw = nlohmann::ordered_json::array();
+    for (const auto& p : s.sweep) sw.push_back({{"distance_m", p.distance}, {"mutual_inductance_H", p.mutual}, {"coupling_coefficient", p.coefficient}});
+    j["sweep"] = sw;
+    j["files"] = files;
+    j["notes"] = s.notes;
+    return j.dump(2) + "\n";
+}
+
+std::string coupling_svg(const CouplingStudy& s) {
+    if (s.sweep.size() < 2) throw InputError("sweep_distance", "the picture needs two or more distances");
+    const double W = 720, H = 480, left = 80, right = W - 30, top = 84, bottom = H - 60;
+    double d0 = s.sweep.front().distance, d1 = s.sweep.back().distance;
+    double k0 = INFINITY, k1 = 0;
+    for (const auto& p : s.sweep) {
+        k0 = std::min(k0, std::fabs(p.coefficient));
+        k1 = std::max(k1, std::fabs(p.coefficient));
+    }
+    k0 = std::max(k0, 1e-12);
+    const double lk0 = std::floor(std::log10(k0)), lk1 = std::ceil(std::log10(k1));
+    const auto X = [&](double d) { return left + (right - left) * std::log(d / d0) / std::log(d1 / d0); };
+    const auto Y = [&](double k) { return bottom - (bottom - top) * (std::log10(std::max(k, 1e-300)) - lk0) / std::max(1.0, lk1 - lk0); };
+    std::ostringstream o;
+    o << "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" << W << "\" height=\"" << H << "\" viewBox=\"0 0 " << W << " " << H
+      << "\" font-family=\"sans-serif\" font-size=\"12\">\n<rect width=\"" << W << "\" height=\"" << H << "\" fill=\"white\"/>\n";
+    o << "<text x=\"" << left << "\" y=\"26\" font-size=\"14\" font-weight=\"bold\">A: " << detail::xml_escape(s.name_a)
+      << "</text>\n<text x=\"" << left << "\" y=\"44\" font-size=\"14\" font-weight=\"bold\">B: " << detail::xml_escape(s.name_b)
+      << "</text>\n<text x=\"" << left << "\" y=\"64\">|k| against centre distance, " << arrangement_name(s.arrangement)
+      << "; dashed: the magnetic-dipole far field</text>\n";
+    o << "<rect x=\"" << left << "\" y=\"" << top << "\" width=\"" << right - left << "\" height=\"" << bottom - top
+      << "\" fill=\"none\" stroke=\"#444\"/>\n";
+    for (double e = lk0; e <= lk1; e += 1) {
+        o << "<line x1=\"" << left << "\" x2=\"" << right << "\" y1=\"" << fixed(Y(std::pow(10, e)), 2) << "\" y2=\"" << fixed(Y(std::pow(10, e)), 2)
+          << "\" stroke=\"#ddd\"/>\n<text x=\"" << left - 8 << "\" y=\"" << fixed(Y(std::pow(10, e)) + 4, 2) << "\" text-anchor=\"end\">1e"
+          << static_cast<int>(e) << "</text>\n";
+    }
+    for (double d : {d0, std::sqrt(d0 * d1), d1}) {
+        o << "<text x=\"" << fixed(X(d), 2) << "\" y=\"" << bottom + 18 << "\" text-anchor=\"middle\">"
+          << detail::xml_escape(format_quantity(d, Dimension::length, 3)) << "</text>\n";
+    }
+    o << "<text x=\"" << (left + right) / 2 << "\" y=\"" << H - 18 << "\" text-anchor=\"middle\">centre distance</text>\n";
+    o << "<polyline id=\"coupling\" fill=\"none\" stroke=\"#1f5fa8\" stroke-width=\"2\" points=\"";
+    for (const auto& p : s.sweep) o << fixed(X(p.distance), 2) << "," << fixed(Y(std::fabs(p.coefficient)), 2) << " ";
+    o << "\"/>\n";
+    const double la = s.at.inductance_a, lb = s.at.inductance_b;
+    const double scale = s.dipole_mutual * std::pow(s.distance, 3) / std::sqrt(la * lb);  // k_dipole d^3
+    o << "<polyline id=\"dipole\" fill=\"none\" stroke=\"#a33\" stroke-dasharray=\"6 4\" points=\"";
+    for (const auto& p : s.sweep) {
+        const double k = std::fabs(scale) / std::pow(p.distance, 3);
+        if (Y(k) >= top) o << fixed(X(p.distance), 2) << "," << fixed(Y(k), 2) << " ";
+    }
+    o << "\"/>\n";
+    for (const auto& p : s.sweep) {
+        o << "<circle r=\"2.5\" fill=\"#1f5fa8\" cx=\"" << fixed(X(p.distance), 2) << "\" cy=\"" << fixed(Y(std::fabs(p.coefficient)), 2)
+          << "\" data-distance-m=\"" << significant(p.distance, 9) << "\" data-k=\"" << significant(p.coefficient, 9) << "\"/>\n";
+    }
+    o << "</svg>\n";
+    return o.str();
+}
+
+}  // namespace libcoil

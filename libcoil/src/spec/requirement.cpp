@@ -1,0 +1,191 @@
+#include "libcoil/spec/requirement.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/core/units.hpp"
+#include "spec/spec_sections.hpp"
+#include "spec/yaml_reader.hpp"
+
+namespace libcoil {
+
+std::vector<double> SearchRange::values() const {
+    std::vector<double> v;
+    if (max == min) return {min};
+    const auto n = static_cast<long>(std::floor((max - min) / step * (1 + 1e-12))) + 1;
+    for (long i = 0; i < n; ++i) v.push_back(min + static_cast<double>(i) * step);
+    return v;
+}
+
+namespace {
+
+SearchRange read_range(const YAML::Node& node, const std::string& path, Dimension d, double smallest) {
+    SearchRange r;
+    if (!node) throw InputError(path, "missing; give {min: ..., max: ..., step: ...} or one value");
+    if (node.IsScalar()) {
+        r.min = r.max = parse_quantity(node.Scalar(), d, path);
+    } else {
+        const detail::YamlMap m(node, path);
+        m.allow_only({"min", "max", "step"});
+        r.min = m.quantity("min", d);
+        r.max = m.quantity("max", d);
+        if (!(r.max >= r.min)) throw InputError(m.path_of("max"), "\"" + m.text("max") + "\" is below min");
+        if (r.max > r.min) {
+            if (!m.has("step")) throw InputError(m.path_of("step"), "missing; a range needs a step");
+            r.step = m.positive_quantity("step", d);
+            if ((r.max - r.min) / r.step > 1e6) {
+                throw InputError(m.path_of("step"), "\"" + m.text("step") + "\" makes more than a million values");
+            }
+        }
+    }
+    if (!(r.min >= smallest) || !std::isfinite(r.max)) {
+        throw InputError(path, format_value(r.min) + " is too small; expected at least " + format_value(smallest));
+    }
+    return r;
+}
+
+WireOption read_wire_option(const std::string& text, const std::string& field) {
+    WireOption o;
+    std::string name = text;
+    const auto g = text.find("grade");
+    if (g != std::string::npos) {
+        o.choice.enamel_grade = parse_enamel_grade(text.substr(g), field);
+        name = text.substr(0, g);
+        while (!name.empty() && (name.back() == ' ' || name.back() == ',')) name.pop_back();
+    } else {
+        o.choice.enamel_grade = 1;
+    }
+    if (name.find("AWG") != std::string::npos || name.find("awg") != std::string::npos) {
+        o.choice.gauge = parse_awg(name, field);
+    } else {
+        o.choice.diameter = parse_quantity(name, Dimension::length, field);
+    }
+    o.wire = make_wire(o.choice, field + ".");
+    return o;
+}
+
+Requirement read_requirement(const YAML::Node& root) {
+    if (!root || root.IsNull()) throw InputError("requirement", "the requirement is empty; expected a mapping with \"target:\"");
+    const detail::YamlMap top(root, "");
+    top.allow_only({"name", "description", "target", "band", "operating", "limits", "search", "objective", "former", "shield",
+                    "surroundings", "conductor", "tolerances"});
+    Requirement q;
+    q.name = top.optional_text("name").value_or("");
+    q.description = top.optional_text("description").value_or("");
+
+    const detail::YamlMap t = top.map("target");
+    t.allow_only({"inductance", "tolerance"});
+    q.inductance = t.positive_quantity("inductance", Dimension::inductance);
+    q.tolerance = t.positive_quantity("tolerance", Dimension::dimensionless);
+    if (q.tolerance >= 0.5) throw InputError(t.path_of("tolerance"), "\"" + t.text("tolerance") + "\"; expected below 50 %");
+
+    if (top.has("band")) q.band = detail::read_band(top.map("band"));
+
+    const detail::YamlMap op = top.map("operating");
+    op.allow_only({"current", "frequency", "ambient", "supply_voltage", "rf_power"});
+    q.current = op.non_negative_quantity("current", Dimension::current);
+    if (op.has("frequency")) q.current_frequency = op.non_negative_quantity("frequency", Dimension::frequency);
+    if (op.has("ambient")) {
+        q.ambient = op.positive_quantity("ambient", Dimension::temperature);
+    } else {
+        q.notes.push_back("no operating.ambient given: 25 degC still air assumed");
+    }
+    if (op.has("supply_voltage")) q.supply_voltage = std::fabs(op.quantity("supply_voltage", Dimension::voltage));
+    if (op.has("rf_power")) q.rf_power = op.non_negative_quantity("rf_power", Dimension::power);
+
+    const detail::YamlMap lim = top.map("limits");
+    lim.allow_only({"max_outer_diameter", "max_length", "former_ends", "max_wire_length", "enamel_class"});
+    q.max_outer_diameter = lim.positive_quantity("max_outer_diameter", Dimension::length);
+    q.max_length = lim.positive_quantity("max_length", Dimension::length);
+    if (lim.has("former_ends")) {
+        q.former_ends = lim.non_negative_quantity("former_ends", Dimension::length);
+    } else {
+        q.notes.push_back("no limits.former_ends given: 5 mm of former at each end assumed");
+    }
+    if (lim.has("max_wire_length")) q.max_wire_length = lim.positive_quantity("max_wire_length", Dimension::length);
+    if (lim.has("enamel_class")) {
+        const double c = lim.quantity("enamel_class", Dimension::dimensionless);
+        static const double classes[] = {105, 120, 130, 155, 180, 200, 220, 240};
+        if (std::find(std::begin(classes), std::end(classes), c) == std::end(classes)) {
+            throw InputError(lim.path_of("enamel_class"), "\"" + lim.text("enamel_class") +
+                                                              "\"; expected an IEC 60317 thermal class: 105, 120, 130, "
+                                                              "155, 180, 200, 220 or 240");
+        }
+        q.enamel_class = c + zero_celsius;
+    } else {
+        q.notes.push_back("no limits.enamel_class given: thermal class 155 assumed (common for polyurethane and polyester enamels)");
+    }
+
+    const detail::YamlMap se = top.map("search");
+    se.allow_only({"wires", "form_diameter", "pitch_ratio", "turns", "turns_step", "lead_length"});
+    if (!se.has("wires")) throw InputError(se.path_of("wires"), "missing; give a list such as [AWG 16, 1.2 mm]");
+    const YAML::Node wires = root["search"]["wires"];
+    if (!wires.IsSequence() || wires.size() == 0) {
+        throw InputError(se.path_of("wires"), "expected a non-empty list such as [AWG 16, 1.2 mm]");
+    }
+    for (std::size_t i = 0; i < wires.size(); ++i) {
+        const std::string field = se.path_of("wires") + "[" + std::to_string(i) + "]";
+        if (!wires[i].IsScalar()) throw InputError(field, "expected a wire such as \"AWG 18\" or \"1.2 mm grade 2\"");
+        q.wires.push_back(read_wire_option(wires[i].Scalar(), field));
+    }
+    q.form_diameter = read_range(root["search"]["form_diameter"], se.path_of("form_diameter"), Dimension::length, 1e-4);
+    q.pitch_ratio = read_range(root["search"]["pitch_ratio"], se.path_of("pitch_ratio"), Dimension::dimensionless, 1.0);
+    if (se.has("turns")) {
+        q.turns = se.quantity("turns", Dimension::dimensionless);
+        require_at_least(se.path_of("turns"), *q.turns, 1.0, "a coil needs at least one turn");
+    }
+    if (se.has("turns_step")) q.turns_step = se.positive_quantity("turns_step", Dimension::dimensionless);
+    if (se.has("lead_length")) q.lead_length = se.non_negative_quantity("lead_length", Dimension::length);
+
+    if (top.has("objective")) {
+        const detail::YamlMap ob = top.map("objective");
+        ob.allow_only({"loss", "size", "srf"});
+        if (ob.has("loss")) q.objective.loss = ob.non_negative_quantity("loss", Dimension::dimensionless);
+        if (ob.has("size")) q.objective.size = ob.non_negative_quantity("size", Dimension::dimensionless);
+        if (ob.has("srf")) q.objective.srf = ob.non_negative_quantity("srf", Dimension::dimensionless);
+        if (q.objective.loss + q.objective.size + q.objective.srf <= 0) {
+            throw InputError(ob.path_of("loss"), "all objective weights are zero; give at least one above zero");
+        }
+    }
+    if (top.has("former")) {
+        const detail::YamlMap fm = top.map("former");
+        if (fm.has("ends")) {
+            throw InputError(fm.path_of("ends"), "a requirement gives the former's ends as limits.former_ends, which the length limit counts");
+        }
+        q.former = detail::read_former(fm, q.form_diameter.min, q.notes);
+        q.former->ends = q.former_ends;
+    }
+    if (top.has("surroundings")) q.surroundings = detail::read_surroundings(top.map("surroundings"));
+    if (top.has("shield")) q.shield = detail::read_shield(top.map("shield"));
+    q.conductor = conductor(top.optional_text("conductor").value_or("copper"), "conductor");
+    if (top.has("tolerances")) {
+        const detail::YamlMap tol = top.map("tolerances");
+        tol.allow_only({"form_diameter", "pitch", "wire_diameter", "turns"});
+        if (tol.has("form_diameter")) q.tolerances.form_diameter = tol.non_negative_quantity("form_diameter", Dimension::length);
+        if (tol.has("pitch")) q.tolerances.pitch = tol.non_negative_quantity("pitch", Dimension::length);
+        if (tol.has("wire_diameter")) {
+            if (tol.text("wire_diameter").find('%') == std::string::npos) {
+                throw InputError(tol.path_of("wire_diameter"), "\"" + tol.text("wire_diameter") +
+                                                                   "\"; expected a percentage such as \"0.5 %\"");
+            }
+            q.tolerances.wire_diameter = tol.non_negative_quantity("wire_diameter", Dimension::dimensionless);
+        }
+        if (tol.has("turns")) q.tolerances.turns = tol.non_negative_quantity("turns", Dimension::dimensionless);
+        q.tolerances_given = true;
+    }
+    return q;
+}
+
+}  // namespace
+
+Requirement parse_requirement(std::string_view yaml_text, std::string_view source) {
+    return read_requirement(detail::load_yaml(yaml_text, source));
+}
+
+Requirement load_requirement(const std::filesystem::path& path) {
+    return parse_requirement(detail::read_text_file(path, "requirement file"), path.string());
+}
+
+}  // namespace libcoil

@@ -1,0 +1,288 @@
+#include "libcoil/spec/spec.hpp"
+
+#include <fstream>
+#include <sstream>
+
+#include <algorithm>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/core/units.hpp"
+#include "libcoil/models/wire.hpp"
+#include "spec/spec_sections.hpp"
+#include "spec/yaml_reader.hpp"
+
+namespace libcoil {
+
+namespace {
+
+Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
+    w.allow_only({"diameter", "gauge", "insulation", "enamel"});
+    WireChoice c;
+    if (w.one_of("diameter", "gauge") == "gauge") {
+        c.gauge = parse_awg(w.text("gauge"), w.path_of("gauge"));
+    } else {
+        c.diameter = w.positive_quantity("diameter", Dimension::length);
+    }
+    w.at_most_one_of("insulation", "enamel");
+    if (w.has("insulation")) {
+        c.insulation = w.non_negative_quantity("insulation", Dimension::length);
+    } else if (w.has("enamel")) {
+        c.enamel_grade = parse_enamel_grade(w.text("enamel"), w.path_of("enamel"));
+    } else {
+        notes.push_back("no insulation given: the wire is taken as bare (" + w.path_of("insulation") + " = 0)");
+    }
+    return make_wire(c, w.path_of(""));
+}
+
+Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& notes) {
+    m.allow_only({"frequencies", "temperature", "current"});
+    Operating op;
+    if (m.has("frequencies")) {
+        op.frequencies = m.quantity_list("frequencies", Dimension::frequency);
+        for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
+            if (op.frequencies[i] < 0) {
+                throw InputError(m.path_of("frequencies") + "[" + std::to_string(i) + "]", "must not be negative");
+            }
+        }
+    }
+    if (m.has("temperature")) {
+        op.temperature = m.positive_quantity("temperature", Dimension::temperature);
+        op.temperature_given = true;
+    } else {
+        notes.push_back("no operating.temperature given: the wire is taken at 20 degC");
+    }
+    if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);
+    return op;
+}
+
+// Re-labels a geometry error with the YAML path the user actually wrote.
+InputError relabel(const InputError& e, const std::string& diameter_key, const std::string& pitch_key) {
+    std::string f = e.field(), detail = e.detail();
+    if (f == "mean_diameter" && diameter_key != f) {
+        f = diameter_key;
+        detail += " (mean diameter = form diameter + insulated wire diameter)";
+    }
+    if (f == "pitch" && pitch_key != f) {
+        f = pitch_key;
+        detail += " (pitch = winding_length / turns)";
+    }
+    return InputError(f, detail).within("coil");
+}
+
+CoilSpec read_spec(const YAML::Node& root) {
+    if (!root || root.IsNull()) {
+        throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
+    }
+    const detail::YamlMap top(root, "");
+    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield"});
+    std::vector<std::string> notes;
+    std::string name = top.optional_text("name").value_or("");
+    std::string description = top.optional_text("description").value_or("");
+
+    const detail::YamlMap c = top.map("coil");
+    c.allow_only({"form_diameter", "mean_diameter", "turns", "pitch", "winding_length", "lead_length", "wire",
+                  "conductor"});
+    const Wire wire = read_wire(c.map("wire"), notes);
+
+    const double turns = c.quantity("turns", Dimension::dimensionless);
+    const std::string diameter_key(c.one_of("form_diameter", "mean_diameter"));
+    const double diameter = c.positive_quantity(diameter_key, Dimension::length);
+    const std::string pitch_key(c.one_of("pitch", "winding_length"));
+    double pitch = c.positive_quantity(pitch_key, Dimension::length);
+    if (pitch_key == "winding_length") {
+        require_at_least(c.path_of("turns"), turns, 1.0, "a coil needs at least one turn");
+        pitch /= turns;
+    }
+    const double leads = c.has("lead_length") ? c.non_negative_quantity("lead_length", Dimension::length) : 0.0;
+
+    std::string conductor_name = "copper";
+    if (auto t = c.optional_text("conductor")) {
+        conductor_name = *t;
+    } else {
+        notes.push_back("no conductor given: copper assumed");
+    }
+    const Conductor& cond = conductor(conductor_name, c.path_of("conductor"));
+
+    Operating op;
+    if (top.has("operating")) op = read_operating(top.map("operating"), notes);
+
+    try {
+        const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
+        Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
+        CoilSpec spec{std::move(name), std::move(description), s, cond, op, {}, {}, {}, {}, {}};
+        if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
+        if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
+        if (top.has("band")) spec.band = detail::read_band(top.map("band"));
+        if (top.has("shield")) {
+            const detail::YamlMap sh = top.map("shield");
+            const ShieldSpec x = detail::read_shield(sh);
+            if (!(x.inner_diameter > s.outer_diameter())) {
+                throw InputError(sh.path_of("inner_diameter"), "\"" + sh.text("inner_diameter") + "\" does not clear the winding (outer diameter " +
+                                                                   format_quantity(s.outer_diameter(), Dimension::length) + ")");
+            }
+            spec.shield = x;
+        }
+        spec.notes = std::move(notes);
+        return spec;
+    } catch (const InputError& e) {
+        if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 || e.field().rfind("shield", 0) == 0 ||
+            e.field().rfind("surroundings", 0) == 0) {
+            throw;
+        }
+        throw relabel(e, diameter_key, pitch_key);
+    }
+}
+
+}  // namespace
+
+const char* former_kind_name(FormerKind k) { return k == FormerKind::ribbed ? "ribbed" : "grooved-tube"; }
+
+FormerDielectric FormerSpec::dielectric(double form_diameter) const {
+    const double fill = kind == FormerKind::ribbed ? ribs * rib_width / (pi * form_diameter) : 1.0;
+    return FormerDielectric{material.relative_permittivity, wall, fill};
+}
+
+namespace detail {
+
+ShieldSpec read_shield(const YamlMap& sh) {
+    sh.allow_only({"inner_diameter", "length", "thickness", "material", "end_discs", "axial_offset"});
+    ShieldSpec x;
+    x.inner_diameter = sh.positive_quantity("inner_diameter", Dimension::length);
+    x.length = sh.positive_quantity("length", Dimension::length);
+    x.thickness = sh.positive_quantity("thickness", Dimension::length);
+    x.material = conductor(sh.text("material"), sh.path_of("material"));
+    if (auto e = sh.optional_choice("end_discs", {"false", "true"})) x.end_discs = *e == 1;
+    if (sh.has("axial_offset")) x.axial_offset = sh.quantity("axial_offset", Dimension::length);
+    return x;
+}
+
+FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes) {
+    m.allow_only({"material", "kind", "wall", "ribs", "rib_width", "ends", "groove", "flange", "hub_wall", "min_wall", "bore_oversize"});
+    FormerSpec f;
+    f.material = former_material(m.text("material"), m.path_of("material"));
+    if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
+        f.kind = *k == 0 ? FormerKind::grooved_tube : FormerKind::ribbed;
+    }
+    const double form_radius = form_diameter / 2;
+    if (m.has("wall")) {
+        f.wall = m.positive_quantity("wall", Dimension::length);
+        if (f.wall > form_radius) {
+            throw InputError(m.path_of("wall"), "\"" + m.text("wall") + "\" is thicker than the former's radius (" +
+                                                    format_quantity(form_radius, Dimension::length) + ")");
+        }
+    } else {
+        f.wall = std::min(3e-3, form_radius);
+        notes.push_back("no former.wall given: " + format_quantity(f.wall, Dimension::length) +
+                        " of solid under the winding assumed");
+    }
+    if (f.kind == FormerKind::ribbed) {
+        const double ribs = m.quantity("ribs", Dimension::dimensionless);
+        if (!(ribs >= 3) || ribs != std::floor(ribs) || ribs > 360) {
+            throw InputError(m.path_of("ribs"), "\"" + m.text("ribs") + "\"; expected a whole number of ribs, 3 or more");
+        }
+        f.ribs = static_cast<int>(ribs);
+        f.rib_width = m.positive_quantity("rib_width", Dimension::length);
+        const double fill = f.ribs * f.rib_width / (pi * form_diameter);
+        if (!(fill < 1)) {
+            throw InputError(m.path_of("rib_width"), std::to_string(f.ribs) + " ribs of " + m.text("rib_width") +
+                                                         " cover the whole circumference of the former (" +
+                                                         format_quantity(pi * form_diameter, Dimension::length) +
+                                                         "); expected gaps between the ribs");
+        }
+    } else if (m.has("ribs") || m.has("rib_width") || m.has("hub_wall")) {
+        const char* key = m.has("ribs") ? "ribs" : m.has("rib_width") ? "rib_width" : "hub_wall";
+        throw InputError(m.path_of(key), "applies to kind: ribbed only");
+    }
+    if (m.has("ends")) f.ends = m.non_negative_quantity("ends", Dimension::length);
+    if (m.has("hub_wall")) f.hub_wall = m.positive_quantity("hub_wall", Dimension::length);
+    if (m.has("min_wall")) f.min_wall = m.positive_quantity("min_wall", Dimension::length);
+    if (m.has("bore_oversize")) f.bore_oversize = m.non_negative_quantity("bore_oversize", Dimension::length);
+    if (m.has("groove")) {
+        const YamlMap g = m.map("groove");
+        g.allow_only({"profile", "depth", "clearance", "angle_deg"});
+        if (auto k = g.optional_choice("profile", {"round", "vee"})) f.groove.profile = *k == 0 ? GrooveProfile::round : GrooveProfile::vee;
+        if (g.has("depth")) f.groove.depth = g.positive_quantity("depth", Dimension::length);
+        if (g.has("clearance")) f.groove.clearance = g.non_negative_quantity("clearance", Dimension::length);
+        if (g.has("angle_deg")) {
+            if (f.groove.profile != GrooveProfile::vee) throw InputError(g.path_of("angle_deg"), "applies to profile: vee only");
+            const double a = g.quantity("angle_deg", Dimension::dimensionless);
+            if (!(a >= 30 && a <= 150)) {
+                throw InputError(g.path_of("angle_deg"), "\"" + g.text("angle_deg") + "\"; expected a vee's included angle in degrees, 30 to 150");
+            }
+            f.groove.angle = a * pi / 180;
+        }
+    }
+    if (m.has("flange")) {
+        const YamlMap fl = m.map("flange");
+        fl.allow_only({"diameter", "thickness"});
+        f.flange = FlangeSpec{fl.positive_quantity("diameter", Dimension::length), fl.positive_quantity("thickness", Dimension::length)};
+    }
+    return f;
+}
+
+Surroundings read_surroundings(const YamlMap& m) {
+    m.allow_only({"relative_permittivity", "mounting"});
+    Surroundings s;
+    if (m.has("relative_permittivity")) {
+        s.relative_permittivity = m.quantity("relative_permittivity", Dimension::dimensionless);
+        if (!(s.relative_permittivity >= 1)) {
+            throw InputError(m.path_of("relative_permittivity"),
+                             "\"" + m.text("relative_permittivity") + "\"; expected a relative permittivity of 1 or more");
+        }
+    }
+    if (auto k = m.optional_choice("mounting", {"floating", "grounded-end"})) {
+        s.mounting = *k == 0 ? Mounting::floating : Mounting::grounded_end;
+    }
+    return s;
+}
+
+BandSpec read_band(const YamlMap& m) {
+    m.allow_only({"low", "ceiling", "srf_margin", "max_deviation", "min_impedance"});
+    BandSpec b;
+    b.low = m.positive_quantity("low", Dimension::frequency);
+    b.ceiling = m.positive_quantity("ceiling", Dimension::frequency);
+    if (m.has("srf_margin")) b.srf_margin = m.quantity("srf_margin", Dimension::dimensionless);
+    if (m.has("max_deviation")) {
+        if (m.text("max_deviation").find('%') == std::string::npos) {
+            throw InputError(m.path_of("max_deviation"),
+                             "\"" + m.text("max_deviation") + "\"; expected a percentage such as \"10 %\"");
+        }
+        b.max_deviation = m.quantity("max_deviation", Dimension::dimensionless);
+    }
+    if (m.has("min_impedance")) b.min_impedance = m.quantity("min_impedance", Dimension::resistance);
+    validate_band(b);
+    return b;
+}
+
+YAML::Node load_yaml(std::string_view text, std::string_view source) {
+    try {
+        return YAML::Load(std::string(text));
+    } catch (const YAML::Exception& e) {
+        std::ostringstream where;
+        where << source;
+        if (!e.mark.is_null()) where << ":" << e.mark.line + 1 << ":" << e.mark.column + 1;
+        throw InputError(where.str(), "malformed YAML: " + e.msg);
+    }
+}
+
+std::string read_text_file(const std::filesystem::path& path, std::string_view what) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) throw InputError(path.string(), "cannot open the " + std::string(what));
+    std::ostringstream buf;
+    buf << in.rdbuf();
+    if (in.bad()) throw InputError(path.string(), "cannot read the " + std::string(what));
+    return buf.str();
+}
+
+}  // namespace detail
+
+CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
+    return read_spec(detail::load_yaml(yaml_text, source));
+}
+
+CoilSpec load_coil_spec(const std::filesystem::path& path) {
+    return parse_coil_spec(detail::read_text_file(path, "spec file"), path.string());
+}
+
+}  // namespace libcoil

@@ -1,0 +1,29 @@
+// Internal: the YAML sections that a coil spec and a design requirement share.
+#pragma once
+
+#include <filesystem>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <yaml-cpp/yaml.h>
+
+#include "libcoil/studies/band_check.hpp"
+#include "libcoil/models/self_resonance.hpp"
+#include "libcoil/spec/spec.hpp"
+#include "spec/yaml_reader.hpp"
+
+namespace libcoil::detail {
+
+// `form_diameter` is the smallest former the section must fit (the wall, the ribs' gaps).
+FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::string>& notes);
+Surroundings read_surroundings(const YamlMap& m);
+ShieldSpec read_shield(const YamlMap& m);
+BandSpec read_band(const YamlMap& m);
+
+// YAML text to a node; malformed YAML is an InputError naming source:line:column.
+YAML::Node load_yaml(std::string_view text, std::string_view source);
+// A whole file's text; InputError naming the path when it cannot be read.
+std::string read_text_file(const std::filesystem::path& path, std::string_view what);
+
+}  // namespace libcoil::detail
