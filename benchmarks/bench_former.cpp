@@ -6,6 +6,7 @@
 
 #include "libcoil/models/former.hpp"
 #include "libcoil/models/mesh.hpp"
+#include "libcoil/outputs/stl.hpp"
 #include "libcoil/spec/spec.hpp"
 
 namespace {

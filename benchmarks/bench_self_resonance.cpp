@@ -2,6 +2,7 @@
 #include <benchmark/benchmark.h>
 
 #include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/sweep.hpp"
 #include "libcoil/studies/band_check.hpp"
 #include "libcoil/models/impedance.hpp"
 #include "libcoil/models/inductance.hpp"
@@ -38,7 +39,7 @@ BENCHMARK(BM_HelicalLineResonance)->Arg(0)->Arg(1)->ArgName("former")->Unit(benc
 void BM_ImpedanceSweep401(benchmark::State& s) {
     const double L = libcoil::inductance(demo_coil).recommended;
     const libcoil::CoilImpedance z(demo_coil, libcoil::conductor("copper"), 293.15, L, libcoil::self_resonance(demo_coil, L));
-    const auto f = libcoil::frequency_grid(75e3, 3.2e8, 401, true);
+    const auto f = libcoil::frequency_grid(75e3, 3.2e8, 401, libcoil::Spacing::logarithmic);
     for (auto _ : s) benchmark::DoNotOptimize(z.sweep(f));
 }
 BENCHMARK(BM_ImpedanceSweep401)->Unit(benchmark::kMillisecond);

@@ -9,9 +9,12 @@
 #include <optional>
 
 #include "libcoil/libcoil.hpp"
+#include "option_table.hpp"
+#include "results.hpp"
 
 namespace py = pybind11;
 using namespace pybind11::literals;
+using libcoil::python::record;
 
 namespace {
 
@@ -43,58 +46,6 @@ py::dict by_method(const libcoil::InductanceByMethod& m) {
                     "filament"_a = m.filament);
 }
 
-py::dict at_frequency_dict(const libcoil::CoilAtFrequency& p) {
-    return py::dict("frequency"_a = p.frequency, "resistance"_a = p.resistance, "skin_ratio"_a = p.skin_ratio,
-                    "proximity_ratio"_a = p.proximity_ratio, "inductance"_a = p.inductance, "q_factor"_a = p.q_factor,
-                    "resolved"_a = p.resolved);
-}
-
-py::dict method_dict(const libcoil::SelfResonanceMethod& m) {
-    return py::dict("available"_a = m.available, "frequency"_a = m.frequency, "capacitance"_a = m.capacitance);
-}
-
-py::dict self_resonance_dict(const libcoil::SelfResonance& r) {
-    return py::dict("frequency"_a = r.frequency, "capacitance"_a = r.capacitance, "method"_a = r.method,
-                    "helical_line"_a = method_dict(r.helical_line), "kandoian_sichak"_a = method_dict(r.kandoian_sichak),
-                    "medhurst"_a = method_dict(r.medhurst), "low_frequency_capacitance"_a = r.low_frequency_capacitance,
-                    "inductance"_a = r.inductance, "winding_length"_a = r.winding_length,
-                    "resonance_wavenumber"_a = r.resonance_wavenumber, "phase_velocity"_a = r.phase_velocity,
-                    "pitch_angle"_a = r.pitch_angle, "radius"_a = r.radius, "inner_permittivity"_a = r.medium.inner,
-                    "outer_permittivity"_a = r.medium.outer, "mounting"_a = libcoil::mounting_name(r.mounting),
-                    "half_wave_wire_frequency"_a = r.half_wave_wire_frequency, "warnings"_a = r.warnings,
-                    "notes"_a = r.notes);
-}
-
-libcoil::Mounting mounting_from_name(const std::string& n) {
-    if (n == "floating") return libcoil::Mounting::floating;
-    if (n == "grounded-end") return libcoil::Mounting::grounded_end;
-    throw libcoil::InputError("mounting", "\"" + n + "\": expected \"floating\" or \"grounded-end\"");
-}
-
-libcoil::ImpedanceModel model_from_name(const std::string& n) {
-    if (n == "helical-line") return libcoil::ImpedanceModel::helical_line;
-    if (n == "lumped") return libcoil::ImpedanceModel::lumped;
-    throw libcoil::InputError("model", "\"" + n + "\": expected \"helical-line\" or \"lumped\"");
-}
-
-// Z(f) of a sweep as numpy arrays.
-py::dict sweep_dict(const std::vector<libcoil::ImpedancePoint>& pts) {
-    const auto n = static_cast<py::ssize_t>(pts.size());
-    py::array_t<double> f(n), r(n), l(n), la(n), q(n);
-    py::array_t<std::complex<double>> z(n);
-    for (py::ssize_t i = 0; i < n; ++i) {
-        const auto& p = pts[static_cast<std::size_t>(i)];
-        f.mutable_at(i) = p.frequency;
-        z.mutable_at(i) = p.impedance;
-        r.mutable_at(i) = p.wire_resistance;
-        l.mutable_at(i) = p.wire_inductance;
-        la.mutable_at(i) = p.apparent_inductance;
-        q.mutable_at(i) = p.q_factor;
-    }
-    return py::dict("frequency"_a = f, "impedance"_a = z, "wire_resistance"_a = r, "wire_inductance"_a = l,
-                    "apparent_inductance"_a = la, "q_factor"_a = q);
-}
-
 }  // namespace
 
 PYBIND11_MODULE(_core, m) {
@@ -124,9 +75,8 @@ PYBIND11_MODULE(_core, m) {
     m.def("metric_wire_diameters", &libcoil::metric_wire_diameters);
 
     // Inductance models.
-    m.def("nagaoka", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a,
+    m.def("nagaoka_coefficient", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a,
           "Nagaoka's coefficient K(D/l), exact.");
-    m.def("nagaoka_coefficient", py::vectorize(&libcoil::nagaoka_coefficient), "diameter_to_length"_a);
     m.def("nagaoka_slope", py::vectorize([](double rho) { return libcoil::nagaoka_coefficient_and_slope(rho).slope; }),
           "diameter_to_length"_a, "dK/d(D/l), the derivative of Nagaoka's coefficient.");
     m.def("wheeler_coefficient", py::vectorize(&libcoil::wheeler_coefficient), "diameter_to_length"_a);
@@ -304,16 +254,16 @@ PYBIND11_MODULE(_core, m) {
     m.def("self_resonance", [](const libcoil::Solenoid& s, double inductance, double former_permittivity,
                                double former_wall, double former_fill, double surroundings_permittivity,
                                const std::string& mounting) {
-        return self_resonance_dict(libcoil::self_resonance(
+        return record("Record", libcoil::python::self_resonance_dict(libcoil::self_resonance(
             s, inductance, libcoil::FormerDielectric{former_permittivity, former_wall, former_fill},
-            libcoil::Surroundings{surroundings_permittivity, mounting_from_name(mounting)}));
+            libcoil::Surroundings{surroundings_permittivity, libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting")})));
     }, "solenoid"_a, "inductance"_a, "former_permittivity"_a = 1.0, "former_wall"_a = 0.0, "former_fill"_a = 0.0,
        "surroundings_permittivity"_a = 1.0, "mounting"_a = "floating",
        "Self-resonance by each model (dict); former_* describe the dielectric shell under the winding.");
     m.def("lumped_impedance", py::vectorize(&libcoil::lumped_impedance), "angular_frequency"_a, "resistance"_a,
           "inductance"_a, "capacitance"_a);
     m.def("line_impedance", [](double w, double r, double l, double v, double len, const std::string& mounting) {
-        return libcoil::line_impedance(w, r, l, v, len, mounting_from_name(mounting));
+        return libcoil::line_impedance(w, r, l, v, len, libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting"));
     }, "angular_frequency"_a, "resistance"_a, "inductance"_a, "phase_velocity"_a, "length"_a, "mounting"_a = "floating");
 
     // Thermal estimate.
@@ -347,14 +297,14 @@ PYBIND11_MODULE(_core, m) {
         o.spread = spread;
         o.samples = samples;
         o.seed = seed;
-        std::string json;
+        libcoil::DesignResult r;
         {
             py::gil_scoped_release release;
-            json = libcoil::design_json_report(q, libcoil::design(q, o), top);
+            r = libcoil::design(q, o);
         }
-        return py::module_::import("json").attr("loads")(json);
+        return record("DesignResult", libcoil::python::design_dict(q, r));
     }, "requirement"_a, "threads"_a = 0, "top"_a = 10, "spread"_a = false, "samples"_a = 2000, "seed"_a = 1,
-       "The ranked designs for a requirement, as the dict `coil design --json` prints.");
+       "The ranked designs for a requirement: a DesignResult whose `designs` holds numpy arrays over the ranking.");
     m.def("design_array", [](const libcoil::Requirement& q, unsigned threads, std::size_t top) {
         libcoil::DesignOptions o;
         o.threads = threads;
@@ -417,40 +367,73 @@ PYBIND11_MODULE(_core, m) {
         .def_readonly("spec", &libcoil::Analysis::spec)
         .def_readonly("inductance", &libcoil::Analysis::inductance)
         .def_readonly("dc_resistance", &libcoil::Analysis::dc_resistance)
-        .def_readonly("loss_method", &libcoil::Analysis::loss_method)
+        .def_property_readonly("loss_method", [](const libcoil::Analysis& a) { return libcoil::choice_name(a.loss_method); })
         .def_property_readonly("at_frequency", [](const libcoil::Analysis& a) {
-            py::list out;
-            for (const auto& p : a.at_frequency) out.append(at_frequency_dict(p));
-            return out;
+            return record("Record", libcoil::python::at_frequency_dict(a.at_frequency));
         })
-        .def_property_readonly("self_resonance", [](const libcoil::Analysis& a) { return self_resonance_dict(a.self_resonance); })
-        .def_property_readonly("impedance", [](const libcoil::Analysis& a) { return sweep_dict(a.impedance); })
+        .def_property_readonly("self_resonance", [](const libcoil::Analysis& a) {
+            return record("Record", libcoil::python::self_resonance_dict(a.self_resonance));
+        })
+        .def_readonly("self_resonance_as_mounted", &libcoil::Analysis::self_resonance_as_mounted)
+        .def_property_readonly("impedance", [](const libcoil::Analysis& a) { return record("Record", libcoil::python::impedance_dict(a.impedance)); })
+        .def_property_readonly("band", [](const libcoil::Analysis& a) {
+            const py::object b = libcoil::python::band_dict(a.band, a.band_srf_by_medhurst);
+            return b.is_none() ? b : record("Record", b);
+        })
+        .def_property_readonly("thermal", [](const libcoil::Analysis& a) {
+            const py::object t = libcoil::python::thermal_dict(a.thermal);
+            return t.is_none() ? t : record("Record", t);
+        })
+        .def_property_readonly("shield", [](const libcoil::Analysis& a) {
+            const py::object t = libcoil::python::shield_dict(a);
+            return t.is_none() ? t : record("Record", t);
+        })
+        .def_readonly("cautions", &libcoil::Analysis::cautions)
         .def_readonly("warnings", &libcoil::Analysis::warnings)
-        .def_readonly("notes", &libcoil::Analysis::notes);
-    m.def("sweep", [](const libcoil::Analysis& a, const std::vector<double>& frequencies, const std::string& model,
-                      const std::string& capacitance) {
-        double c = 0;
-        if (capacitance == "medhurst") {
-            if (!a.self_resonance.medhurst.available) throw libcoil::InputError("capacitance", "outside Medhurst's table");
-            c = a.self_resonance.medhurst.capacitance;
-        } else if (capacitance != "helical-line") {
-            throw libcoil::InputError("capacitance", "\"" + capacitance + "\": expected \"helical-line\" or \"medhurst\"");
+        .def_readonly("notes", &libcoil::Analysis::notes)
+        .def("to_dict", [](const libcoil::Analysis& a) {
+            namespace lp = libcoil::python;
+            const auto& ind = a.inductance;
+            return py::dict("name"_a = a.spec.name, "inductance"_a = py::dict("recommended"_a = ind.recommended, "method"_a = ind.method,
+                                                                           "nagaoka_coefficient"_a = ind.nagaoka_coefficient,
+                                                                           "by_method"_a = by_method(ind.by_method)),
+                            "dc_resistance"_a = a.dc_resistance, "temperature"_a = a.spec.operating.temperature,
+                            "loss_method"_a = libcoil::choice_name(a.loss_method), "at_frequency"_a = lp::at_frequency_dict(a.at_frequency),
+                            "self_resonance"_a = lp::self_resonance_dict(a.self_resonance),
+                            "self_resonance_as_mounted"_a = a.self_resonance_as_mounted, "impedance"_a = lp::impedance_dict(a.impedance),
+                            "band"_a = lp::band_dict(a.band, a.band_srf_by_medhurst), "thermal"_a = lp::thermal_dict(a.thermal),
+                            "shield"_a = lp::shield_dict(a), "cautions"_a = a.cautions, "warnings"_a = a.warnings, "notes"_a = a.notes);
+        }, "The analysis as plain dicts and numpy arrays (SI).");
+    m.def("sweep", [](const libcoil::Analysis& a, std::vector<double> frequencies, const std::string& model, const std::string& capacitance) {
+        libcoil::SweepRequest q;
+        q.frequencies = std::move(frequencies);
+        q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
+        q.capacitance = libcoil::parse_choice<libcoil::CapacitanceSource>(capacitance, "capacitance");
+        libcoil::Sweep s;
+        {
+            py::gil_scoped_release release;
+            s = libcoil::sweep_study(a, q);
         }
-        return sweep_dict(libcoil::coil_impedance(a).sweep(frequencies, model_from_name(model), c));
+        return record("Sweep", libcoil::python::sweep_dict(s));
     }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "capacitance"_a = "helical-line",
-       "Z(f) of an analysed coil: dict of numpy arrays (frequency, impedance, ...).");
-    m.def("frequency_grid", &libcoil::frequency_grid, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);
-    m.def("touchstone_s1p", [](const libcoil::Analysis& a, const std::vector<double>& f, const std::string& model) {
-        return libcoil::touchstone_s1p(libcoil::coil_impedance(a).sweep(f, model_from_name(model)), {"libcoil"});
-    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line");
+       "Z(f) of an analysed coil as mounted (its shield, its mounting): a Sweep of numpy arrays (frequency, impedance, ...).");
+    m.def("frequency_grid", [](double start, double stop, int points, bool logarithmic) {
+        return libcoil::frequency_grid(start, stop, points, logarithmic ? libcoil::Spacing::logarithmic : libcoil::Spacing::linear);
+    }, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);
+    m.def("touchstone_s1p", [](const libcoil::Analysis& a, std::vector<double> f, const std::string& model) {
+        libcoil::SweepRequest q;
+        q.frequencies = std::move(f);
+        q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
+        return libcoil::touchstone_s1p(libcoil::sweep_study(a, q));
+    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "The Touchstone one-port text of the coil as mounted.");
     m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<libcoil::Subdivision> sub) {
         libcoil::AnalysisOptions o;
-        if (solver == "filaments") o.solver = libcoil::LossSolver::filaments;
-        else if (solver != "closed-form") throw libcoil::InputError("solver", "\"" + solver + "\": expected \"closed-form\" or \"filaments\"");
+        o.solver = libcoil::parse_choice<libcoil::LossSolver>(solver, "solver");
         if (sub) {
             o.auto_subdivision = false;
             o.subdivision = *sub;
         }
+        py::gil_scoped_release release;
         return libcoil::analyze(spec, o);
     }, "spec"_a, "solver"_a = "closed-form", "subdivision"_a = py::none());
     m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,
@@ -459,14 +442,8 @@ PYBIND11_MODULE(_core, m) {
                        std::optional<std::pair<double, double>> flange, std::optional<double> ends,
                        std::optional<double> bore_oversize, double chord_tolerance, bool ascii) {
         libcoil::FormerOptions o;
-        if (kind) {
-            if (*kind != "grooved-tube" && *kind != "ribbed") throw libcoil::InputError("kind", "\"" + *kind + "\": expected \"grooved-tube\" or \"ribbed\"");
-            o.kind = *kind == "ribbed" ? libcoil::FormerKind::ribbed : libcoil::FormerKind::grooved_tube;
-        }
-        if (profile) {
-            if (*profile != "round" && *profile != "vee") throw libcoil::InputError("profile", "\"" + *profile + "\": expected \"round\" or \"vee\"");
-            o.profile = *profile == "vee" ? libcoil::GrooveProfile::vee : libcoil::GrooveProfile::round;
-        }
+        if (kind) o.kind = libcoil::parse_choice<libcoil::FormerKind>(*kind, "kind");
+        if (profile) o.profile = libcoil::parse_choice<libcoil::GrooveProfile>(*profile, "profile");
         o.ribs = ribs;
         o.rib_width = rib_width;
         o.groove_depth = groove_depth;
@@ -480,46 +457,56 @@ PYBIND11_MODULE(_core, m) {
         {
             py::gil_scoped_release release;
             b = libcoil::build_former(spec, o);
-            if (out_dir) files = libcoil::write_former_files(b, *out_dir, stem, ascii);
+            if (out_dir) {
+                const libcoil::FileSet set = libcoil::former_files(b, *out_dir, stem, ascii);
+                libcoil::write_file_set(set);
+                for (const auto& [p, c] : set) files.push_back(p.string());
+            }
         }
-        const auto np = py::module_::import("numpy");
-        py::array_t<double> v({b.mesh.vertices.size(), std::size_t{3}});
-        std::copy_n(&b.mesh.vertices[0][0], 3 * b.mesh.vertices.size(), v.mutable_data());
-        py::array_t<std::uint32_t> f({b.mesh.triangles.size(), std::size_t{3}});
-        std::copy_n(&b.mesh.triangles[0][0], 3 * b.mesh.triangles.size(), f.mutable_data());
-        py::dict out = py::module_::import("json").attr("loads")(libcoil::former_json_report(b, files));
-        out["vertices"] = v;
-        out["faces"] = f;
-        return out;
+        return record("FormerResult", libcoil::python::former_dict(b, files));
     }, "spec"_a, "out_dir"_a = py::none(), "stem"_a = "former", "kind"_a = py::none(), "ribs"_a = py::none(),
        "rib_width"_a = py::none(), "profile"_a = py::none(), "groove_depth"_a = py::none(), "clearance"_a = py::none(),
        "flange"_a = py::none(), "ends"_a = py::none(), "bore_oversize"_a = py::none(), "chord_tolerance"_a = 0.01e-3, "ascii"_a = false,
-       "The printable former of a coil spec: the summary `coil former --json` prints (mm keys), plus the mesh as numpy "
-       "arrays, vertices (n, 3) in m and faces (m, 3) of vertex indices wound outward. With out_dir, also writes "
-       "STEM.former.stl, .svg and .yaml there.");
+       "The printable former of a coil spec: a FormerResult with its dimensions (SI), the mesh as numpy arrays, vertices "
+       "(n, 3) in m and faces (m, 3) of vertex indices wound outward. With out_dir, also writes STEM.former.stl, .svg and "
+       ".yaml there, all three or none.");
     m.def("couple", [](const libcoil::CoilSpec& a, const libcoil::CoilSpec& b, double distance, const std::string& arrangement,
                        double axial_offset, const std::vector<double>& frequencies, double source_resistance, double load_resistance,
                        const std::vector<double>& sweep_distances) {
-        const libcoil::Arrangement arr = libcoil::parse_arrangement(arrangement);
-        std::string json;
+        const libcoil::Arrangement arr = libcoil::parse_choice<libcoil::Arrangement>(arrangement, "arrangement");
+        libcoil::CouplingStudy s;
         {
             py::gil_scoped_release release;
-            json = libcoil::coupling_json_report(libcoil::study_coupling(
-                a, b, arr, distance,
-                axial_offset, frequencies, source_resistance, load_resistance, sweep_distances));
+            s = libcoil::study_coupling(a, b, arr, distance, axial_offset, frequencies, source_resistance, load_resistance, sweep_distances);
         }
-        return py::module_::import("json").attr("loads")(json);
+        return record("CouplingResult", libcoil::python::coupling_dict(s));
     }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "frequencies"_a = std::vector<double>{},
        "source_resistance"_a = 50.0, "load_resistance"_a = 50.0, "sweep_distances"_a = std::vector<double>{},
-       "M, k and crosstalk between two coil specs: the dict `coil couple --json` prints (SI).");
+       "M, k and crosstalk between two coil specs as mounted: a CouplingResult (SI, arrays over frequency and distance).");
     m.def("coil_mutual_inductance", [](const libcoil::Solenoid& a, const libcoil::Solenoid& b, double distance,
                                        const std::string& arrangement, double axial_offset) {
-        return libcoil::coil_mutual_inductance(a, b, libcoil::parse_arrangement(arrangement), distance, axial_offset);
+        return libcoil::coil_mutual_inductance(a, b, libcoil::parse_choice<libcoil::Arrangement>(arrangement, "arrangement"), distance,
+                                               axial_offset);
     }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "M in H between two solenoids.");
     m.def("parallel_filament_mutual_inductance", py::vectorize(&libcoil::parallel_filament_mutual_inductance), "radius_a"_a,
           "radius_b"_a, "distance"_a, "axial_offset"_a);
     m.def("sheet_in_long_shield_change", py::vectorize(&libcoil::sheet_in_long_shield_change), "mean_radius"_a, "length"_a,
           "turns"_a, "shield_radius"_a, "dL in H of a current sheet in an infinitely long perfectly conducting tube.");
     m.def("text_report", &libcoil::text_report, "analysis"_a);
+
+    // The one option table the `coil` command is built from, and the choices behind its words.
+    m.def("option_table", [] {
+        py::list rows;
+        for (const auto& o : libcoil::frontend::option_table()) {
+            py::list choices;
+            if (o.choices) {
+                for (const auto& w : o.choices()) choices.append(w);
+            }
+            static const char* kinds[] = {"flag", "integer", "quantity", "choice", "text"};
+            rows.append(py::dict("verb"_a = o.verb, "key"_a = o.key, "flag"_a = o.flag, "kind"_a = kinds[static_cast<int>(o.kind)],
+                                 "choices"_a = choices, "default"_a = o.default_text, "python"_a = o.python, "help"_a = o.help));
+        }
+        return rows;
+    }, "Every option of every `coil` verb: its flag, the Python keyword (key) and, for a choice, its words.");
     m.def("json_report", &libcoil::json_report, "analysis"_a);
 }

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/cautions.hpp"
 #include "libcoil/studies/design.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/inductance.hpp"
@@ -185,11 +186,8 @@ TEST(Design, InfeasibleRequirementSaysWhatBinds) {
 }
 
 TEST(Design, Cautions) {
-    Requirement q = parse_requirement(base);
-    EXPECT_TRUE(design_cautions(q, 0, 0).empty());
-    q.supply_voltage = 230;
-    q.rf_power = 100;
-    const auto c = design_cautions(q, 340, 343.15);
+    EXPECT_TRUE(safety_cautions(0, 0, 0, 0).empty());
+    const auto c = safety_cautions(230, 100, 340, 343.15);
     ASSERT_EQ(c.size(), 3u);
     EXPECT_NE(c[0].find("extra-low voltage"), std::string::npos);
     EXPECT_NE(c[1].find("RF power"), std::string::npos);

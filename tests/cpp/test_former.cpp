@@ -15,7 +15,8 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/former.hpp"
-#include "libcoil/outputs/former_output.hpp"
+#include "libcoil/outputs/former_files.hpp"
+#include "libcoil/outputs/stl.hpp"
 #include "libcoil/spec/spec.hpp"
 
 using namespace libcoil;

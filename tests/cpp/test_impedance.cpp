@@ -7,6 +7,7 @@
 
 #include "libcoil/studies/analysis.hpp"
 #include "libcoil/studies/band_check.hpp"
+#include "libcoil/studies/sweep.hpp"
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/impedance.hpp"
@@ -40,7 +41,7 @@ TEST(Impedance, LumpedPeaksAtTheResonanceOfLAndC) {
     // phase crosses zero there (circuit theory). L is the wire's L at that frequency (skin effect).
     const Fixture fx;
     const double c = 1.3e-12;
-    const auto f = frequency_grid(40e6, 120e6, 4001, false);  // 20 kHz resolution
+    const auto f = frequency_grid(40e6, 120e6, 4001, Spacing::linear);  // 20 kHz resolution
     const auto pts = fx.z.sweep(f, ImpedanceModel::lumped, c);
     std::size_t peak = 0;
     for (std::size_t i = 0; i < pts.size(); ++i) {
@@ -63,7 +64,7 @@ TEST(Impedance, LumpedPeaksAtTheResonanceOfLAndC) {
 TEST(Impedance, HelicalLinePolesAtTheSelfResonance) {
     const Fixture fx;
     const double srf = fx.sr.frequency;
-    const auto f = frequency_grid(0.8 * srf, 1.2 * srf, 4001, false);
+    const auto f = frequency_grid(0.8 * srf, 1.2 * srf, 4001, Spacing::linear);
     const auto pts = fx.z.sweep(f);
     std::size_t peak = 0;
     for (std::size_t i = 0; i < pts.size(); ++i) {

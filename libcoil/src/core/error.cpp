@@ -30,6 +30,29 @@ std::string format_value(double value) {
     return buf;
 }
 
+std::string quoted(std::string_view text) {
+    constexpr std::size_t longest = 60;
+    std::string o = "\"";
+    std::size_t shown = 0;
+    for (const char ch : text) {
+        const auto u = static_cast<unsigned char>(ch);
+        const bool continuation = (u & 0xC0) == 0x80;  // within a UTF-8 character
+        if (shown == longest && !continuation) {
+            o += "...";
+            break;
+        }
+        if (u < 0x20 || u == 0x7f) {
+            char buf[8];
+            std::snprintf(buf, sizeof buf, "\\x%02x", u);
+            o += buf;
+        } else {
+            o += ch;
+        }
+        if (!continuation) ++shown;
+    }
+    return o + "\"";
+}
+
 namespace detail {
 
 [[noreturn]] void throw_not_finite(std::string_view field, double value) {

@@ -22,12 +22,6 @@ using detail::TurnFilaments;
 
 }  // namespace
 
-Arrangement parse_arrangement(const std::string& name, const std::string& field) {
-    if (name == "coaxial") return Arrangement::coaxial;
-    if (name == "side-by-side") return Arrangement::side_by_side;
-    throw InputError(field, "\"" + name + "\": expected \"coaxial\" or \"side-by-side\"");
-}
-
 double parallel_filament_mutual_inductance(double a, double b, double d, double h) {
     require_positive("radius_a", a);
     require_positive("radius_b", b);

@@ -97,15 +97,23 @@ FormerGeometry former_geometry(const CoilSpec& spec, const FormerOptions& o) {
         f.material = former_material("PETG");
         g.notes.push_back("the spec has no former section: a PETG grooved tube with a 3 mm wall assumed");
     }
+    // The options are named by their own keys (a front end shows its name for each).
+    if (o.kind == FormerKind::ribbed && f.kind != FormerKind::ribbed && !(o.ribs && o.rib_width)) {
+        throw InputError("kind", "ribbed needs ribs and rib_width when the spec's former is not ribbed");
+    }
     if (o.kind) f.kind = *o.kind;
     if (o.ribs) f.ribs = *o.ribs;
-    if (o.rib_width) f.rib_width = *o.rib_width;
+    if (o.rib_width) f.rib_width = require_positive("rib_width", *o.rib_width);
     if (o.profile) f.groove.profile = *o.profile;
-    if (o.groove_depth) f.groove.depth = *o.groove_depth;
-    if (o.clearance) f.groove.clearance = require_non_negative("former.groove.clearance", *o.clearance);
-    if (o.flange) f.flange = *o.flange;
-    if (o.ends) f.ends = *o.ends;
-    if (o.bore_oversize) f.bore_oversize = require_non_negative("former.bore_oversize", *o.bore_oversize);
+    if (o.groove_depth) f.groove.depth = require_positive("groove_depth", *o.groove_depth);
+    if (o.clearance) f.groove.clearance = require_non_negative("clearance", *o.clearance);
+    if (o.flange) {
+        require_positive("flange", o.flange->diameter);
+        require_positive("flange", o.flange->thickness);
+        f.flange = *o.flange;
+    }
+    if (o.ends) f.ends = require_non_negative("ends", *o.ends);
+    if (o.bore_oversize) f.bore_oversize = require_non_negative("bore_oversize", *o.bore_oversize);
     require_positive("chord_tolerance", o.chord_tolerance);
 
     const Solenoid& s = spec.solenoid;

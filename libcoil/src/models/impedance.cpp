@@ -9,8 +9,6 @@
 
 namespace libcoil {
 
-const char* impedance_model_name(ImpedanceModel m) { return m == ImpedanceModel::helical_line ? "helical-line" : "lumped"; }
-
 namespace {
 
 using cplx = std::complex<double>;
@@ -67,18 +65,33 @@ cplx line_impedance(double w, double resistance, double inductance, double phase
 }
 
 CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
-                             const SelfResonance& sr)
+                             const SelfResonance& sr, std::optional<ShieldLoad> shield)
     : coil_(coil),
       conductor_(conductor),
       temperature_(temperature),
       dc_inductance_(require_positive("dc_inductance", dc_inductance)),
       field_(mean_square_field_per_ampere(coil)),
       sr_(sr),
-      helix_(sr.radius, sr.pitch_angle, sr.medium) {}
+      helix_(sr.radius, sr.pitch_angle, sr.medium),
+      shield_(std::move(shield)) {
+    if (shield_) {
+        require_positive("shield.self_resonance", shield_->self_resonance);
+        require_positive("shield.inductance", shield_->inductance);
+        require_non_negative("shield.terminal_capacitance", shield_->terminal_capacitance);
+    }
+}
 
 double CoilImpedance::phase_velocity(double frequency) const {
     require_non_negative("frequency", frequency);
     if (!sr_.helical_line.available) throw DomainError("the helical-line model does not hold for this coil");
+    if (shield_) {  // the bare line's dispersion, scaled to resonate at the shielded SRF
+        const double s = shield_->self_resonance / sr_.frequency;
+        return s * bare_phase_velocity(frequency / s);
+    }
+    return bare_phase_velocity(frequency);
+}
+
+double CoilImpedance::bare_phase_velocity(double frequency) const {
     if (frequency <= sr_.frequency) return sr_.phase_velocity;
     const double k = 2 * pi * frequency / speed_of_light;
     const double beta = helix_.axial_wavenumber(k);
@@ -105,7 +118,12 @@ std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& freq
 ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double inductance, ImpedanceModel model,
                                         double capacitance) const {
     require_non_negative("capacitance", capacitance);
-    const double c = capacitance > 0 ? capacitance : sr_.capacitance;
+    double c = capacitance > 0 ? capacitance : sr_.capacitance;
+    if (shield_) {
+        resistance += shield_->table.added_resistance(f);
+        inductance += shield_->table.inductance_change(f);
+        c += shield_->terminal_capacitance;
+    }
     // Without a helical-line solution (outside the sheath helix's domain) the lumped form stands in.
     if (!sr_.helical_line.available) model = ImpedanceModel::lumped;
     const double w = 2 * pi * f;

@@ -15,7 +15,6 @@
 
 namespace libcoil {
 
-const char* mounting_name(Mounting m) { return m == Mounting::floating ? "floating" : "grounded-end"; }
 
 namespace {
 

@@ -272,4 +272,57 @@ ShieldResult shielded_coil(const Solenoid& coil, double inductance, const Shield
     return out;
 }
 
+ShieldTable::ShieldTable(const Solenoid& coil, double inductance, const ShieldSpec& shield, double low, double high, int per_decade) {
+    require_positive("low", low);
+    require_positive("high", high);
+    high = std::max(high, 1.01 * low);  // a grid of one frequency still needs two points
+    if (per_decade < 1 || per_decade > 100) throw InputError("per_decade", std::to_string(per_decade) + "; expected 1 .. 100");
+    const double decades = std::max(std::log10(high / low), 0.0);
+    const int n = std::max(2, static_cast<int>(std::ceil(decades * per_decade)) + 1);
+    if (n > 2000) throw InputError("high", "the shield's table would span " + format_value(decades) + " decades; expected at most 300");
+    std::vector<double> f(static_cast<std::size_t>(n));
+    for (int i = 0; i < n; ++i) f[static_cast<std::size_t>(i)] = low * std::pow(high / low, static_cast<double>(i) / (n - 1));
+    const ShieldResult r = shielded_coil(coil, inductance, shield, f);
+    for (const ShieldPoint& p : r.points) {
+        f_.push_back(p.frequency);
+        dl_.push_back(p.inductance - inductance);
+        r_.push_back(std::max(p.added_resistance, 1e-300));
+    }
+}
+
+ShieldTable ShieldTable::perfect(double inductance_change) {
+    ShieldTable t;
+    t.constant_change_ = finite_result("shield", inductance_change);
+    return t;
+}
+
+namespace {
+
+// Where f falls in the grid: the index i of [f_i, f_i+1] and the fraction t in log f.
+std::pair<std::size_t, double> locate(const std::vector<double>& grid, double f) {
+    const auto it = std::upper_bound(grid.begin(), grid.end(), f);
+    std::size_t i = it == grid.begin() ? 0 : static_cast<std::size_t>(it - grid.begin()) - 1;
+    i = std::min(i, grid.size() - 2);
+    return {i, std::log(f / grid[i]) / std::log(grid[i + 1] / grid[i])};
+}
+
+}  // namespace
+
+double ShieldTable::inductance_change(double f) const {
+    if (f_.empty()) return constant_change_;
+    if (!(f > 0)) return 0;
+    if (f < f_.front()) return dl_.front() * (f / f_.front()) * (f / f_.front());
+    if (f >= f_.back()) return dl_.back();
+    const auto [i, t] = locate(f_, f);
+    return dl_[i] + t * (dl_[i + 1] - dl_[i]);
+}
+
+double ShieldTable::added_resistance(double f) const {
+    if (f_.empty() || !(f > 0)) return 0;
+    if (f < f_.front()) return r_.front() * (f / f_.front()) * (f / f_.front());
+    if (f >= f_.back()) return r_.back() * std::sqrt(f / f_.back());
+    const auto [i, t] = locate(f_, f);
+    return std::exp(std::log(r_[i]) + t * std::log(r_[i + 1] / r_[i]));
+}
+
 }  // namespace libcoil

@@ -4,7 +4,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "libcoil/outputs/report.hpp"
+#include "libcoil/outputs/design_report.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/version.hpp"
 #include "core/text_format.hpp"
@@ -82,7 +82,7 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
                     o << " unshielded, " << format_quantity(r.chosen_analysis->shield->result.perfect_conductor, Dimension::inductance)
                       << " in the shield (its high-frequency limit)";
                 }
-                o << ", SRF " << format_quantity(r.chosen_analysis->self_resonance.frequency, Dimension::frequency)
+                o << ", SRF " << format_quantity(r.chosen_analysis->self_resonance_as_mounted, Dimension::frequency)
                   << ", band check " << (r.chosen_analysis->band->pass ? "PASS" : "FAIL") << "\n";
             }
         } else {
@@ -150,7 +150,7 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
                            {"temperature_limit_K", d.temperature_limit},
                            {"volume_m3", d.volume},
                            {"score", d.score},
-                           {"spec", coil_spec_yaml(design_spec(q, d), q.wires[d.wire_index].choice)}});
+                           {"spec", i < r.specs.size() ? coil_spec_yaml(r.specs[i], q.wires[d.wire_index].choice) : std::string()}});
     }
     j["designs"] = designs;
     j["chosen"] = r.chosen ? nlohmann::ordered_json(*r.chosen) : nlohmann::ordered_json(nullptr);

@@ -106,14 +106,7 @@ Requirement read_requirement(const YAML::Node& root) {
     }
     if (lim.has("max_wire_length")) q.max_wire_length = lim.positive_quantity("max_wire_length", Dimension::length);
     if (lim.has("enamel_class")) {
-        const double c = lim.quantity("enamel_class", Dimension::dimensionless);
-        static const double classes[] = {105, 120, 130, 155, 180, 200, 220, 240};
-        if (std::find(std::begin(classes), std::end(classes), c) == std::end(classes)) {
-            throw InputError(lim.path_of("enamel_class"), "\"" + lim.text("enamel_class") +
-                                                              "\"; expected an IEC 60317 thermal class: 105, 120, 130, "
-                                                              "155, 180, 200, 220 or 240");
-        }
-        q.enamel_class = c + zero_celsius;
+        q.enamel_class = detail::read_enamel_class(lim);
     } else {
         q.notes.push_back("no limits.enamel_class given: thermal class 155 assumed (common for polyurethane and polyester enamels)");
     }

@@ -36,7 +36,7 @@ Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
 }
 
 Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& notes) {
-    m.allow_only({"frequencies", "temperature", "current"});
+    m.allow_only({"frequencies", "temperature", "current", "current_frequency", "ambient", "supply_voltage", "rf_power"});
     Operating op;
     if (m.has("frequencies")) {
         op.frequencies = m.quantity_list("frequencies", Dimension::frequency);
@@ -46,13 +46,19 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
             }
         }
     }
+    if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);
+    if (m.has("current_frequency")) op.current_frequency = m.non_negative_quantity("current_frequency", Dimension::frequency);
+    if (m.has("ambient")) op.ambient = m.positive_quantity("ambient", Dimension::temperature);
+    if (m.has("supply_voltage")) op.supply_voltage = m.non_negative_quantity("supply_voltage", Dimension::voltage);
+    if (m.has("rf_power")) op.rf_power = m.non_negative_quantity("rf_power", Dimension::power);
     if (m.has("temperature")) {
         op.temperature = m.positive_quantity("temperature", Dimension::temperature);
         op.temperature_given = true;
+    } else if (op.current > 0) {
+        notes.push_back("no operating.temperature given: the wire is taken at the thermal estimate for the current");
     } else {
         notes.push_back("no operating.temperature given: the wire is taken at 20 degC");
     }
-    if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);
     return op;
 }
 
@@ -75,7 +81,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
     }
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield"});
+    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield", "limits"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
     std::string description = top.optional_text("description").value_or("");
@@ -114,6 +120,11 @@ CoilSpec read_spec(const YAML::Node& root) {
         if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
         if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));
+        if (top.has("limits")) {
+            const detail::YamlMap lim = top.map("limits");
+            lim.allow_only({"enamel_class"});
+            if (lim.has("enamel_class")) spec.enamel_class = detail::read_enamel_class(lim);
+        }
         if (top.has("shield")) {
             const detail::YamlMap sh = top.map("shield");
             const ShieldSpec x = detail::read_shield(sh);
@@ -127,7 +138,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         return spec;
     } catch (const InputError& e) {
         if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 || e.field().rfind("shield", 0) == 0 ||
-            e.field().rfind("surroundings", 0) == 0) {
+            e.field().rfind("surroundings", 0) == 0 || e.field().rfind("limits", 0) == 0) {
             throw;
         }
         throw relabel(e, diameter_key, pitch_key);
@@ -135,13 +146,6 @@ CoilSpec read_spec(const YAML::Node& root) {
 }
 
 }  // namespace
-
-const char* former_kind_name(FormerKind k) { return k == FormerKind::ribbed ? "ribbed" : "grooved-tube"; }
-
-FormerDielectric FormerSpec::dielectric(double form_diameter) const {
-    const double fill = kind == FormerKind::ribbed ? ribs * rib_width / (pi * form_diameter) : 1.0;
-    return FormerDielectric{material.relative_permittivity, wall, fill};
-}
 
 namespace detail {
 
@@ -161,9 +165,7 @@ FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::
     m.allow_only({"material", "kind", "wall", "ribs", "rib_width", "ends", "groove", "flange", "hub_wall", "min_wall", "bore_oversize"});
     FormerSpec f;
     f.material = former_material(m.text("material"), m.path_of("material"));
-    if (auto k = m.optional_choice("kind", {"grooved-tube", "ribbed"})) {
-        f.kind = *k == 0 ? FormerKind::grooved_tube : FormerKind::ribbed;
-    }
+    if (auto k = m.optional_choice_of<FormerKind>("kind")) f.kind = *k;
     const double form_radius = form_diameter / 2;
     if (m.has("wall")) {
         f.wall = m.positive_quantity("wall", Dimension::length);
@@ -201,7 +203,7 @@ FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::
     if (m.has("groove")) {
         const YamlMap g = m.map("groove");
         g.allow_only({"profile", "depth", "clearance", "angle_deg"});
-        if (auto k = g.optional_choice("profile", {"round", "vee"})) f.groove.profile = *k == 0 ? GrooveProfile::round : GrooveProfile::vee;
+        if (auto k = g.optional_choice_of<GrooveProfile>("profile")) f.groove.profile = *k;
         if (g.has("depth")) f.groove.depth = g.positive_quantity("depth", Dimension::length);
         if (g.has("clearance")) f.groove.clearance = g.non_negative_quantity("clearance", Dimension::length);
         if (g.has("angle_deg")) {
@@ -231,10 +233,19 @@ Surroundings read_surroundings(const YamlMap& m) {
                              "\"" + m.text("relative_permittivity") + "\"; expected a relative permittivity of 1 or more");
         }
     }
-    if (auto k = m.optional_choice("mounting", {"floating", "grounded-end"})) {
-        s.mounting = *k == 0 ? Mounting::floating : Mounting::grounded_end;
-    }
+    if (auto k = m.optional_choice_of<Mounting>("mounting")) s.mounting = *k;
     return s;
+}
+
+double read_enamel_class(const YamlMap& lim) {
+    const double c = lim.quantity("enamel_class", Dimension::dimensionless);
+    static const double classes[] = {105, 120, 130, 155, 180, 200, 220, 240};
+    if (std::find(std::begin(classes), std::end(classes), c) == std::end(classes)) {
+        throw InputError(lim.path_of("enamel_class"), "\"" + lim.text("enamel_class") +
+                                                          "\"; expected an IEC 60317 thermal class: 105, 120, 130, "
+                                                          "155, 180, 200, 220 or 240");
+    }
+    return c + zero_celsius;
 }
 
 BandSpec read_band(const YamlMap& m) {

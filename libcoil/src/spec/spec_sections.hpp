@@ -8,8 +8,6 @@
 
 #include <yaml-cpp/yaml.h>
 
-#include "libcoil/studies/band_check.hpp"
-#include "libcoil/models/self_resonance.hpp"
 #include "libcoil/spec/spec.hpp"
 #include "spec/yaml_reader.hpp"
 
@@ -20,6 +18,8 @@ FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::
 Surroundings read_surroundings(const YamlMap& m);
 ShieldSpec read_shield(const YamlMap& m);
 BandSpec read_band(const YamlMap& m);
+// limits.enamel_class: an IEC 60317 thermal class in degC, returned in K.
+double read_enamel_class(const YamlMap& m);
 
 // YAML text to a node; malformed YAML is an InputError naming source:line:column.
 YAML::Node load_yaml(std::string_view text, std::string_view source);

@@ -1,6 +1,8 @@
 // Internal: a YAML mapping with its path, for reading specs with clear errors.
 #pragma once
 
+#include "libcoil/spec/choices.hpp"
+
 #include <initializer_list>
 #include <optional>
 #include <string>
@@ -39,6 +41,13 @@ public:
     // An optional word from a fixed list: its index, or nullopt when the key is absent. Any other word is
     // an InputError listing the choices.
     std::optional<std::size_t> optional_choice(std::string_view key, std::initializer_list<std::string_view> words) const;
+    // A word of the choices table (choices.hpp), or nothing when the key is absent.
+    template <class E>
+    std::optional<E> optional_choice_of(std::string_view key) const {
+        const auto t = optional_text(key);
+        if (!t) return std::nullopt;
+        return parse_choice<E>(*t, path_of(key));
+    }
 
 private:
     YAML::Node scalar(std::string_view key) const;

@@ -2,154 +2,128 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 
-#include "libcoil/core/constants.hpp"
-#include "libcoil/models/dc_resistance.hpp"
 #include "libcoil/core/error.hpp"
-#include "libcoil/models/skin_effect.hpp"
 #include "libcoil/core/units.hpp"
+#include "libcoil/models/dc_resistance.hpp"
+#include "libcoil/models/proximity.hpp"
+#include "libcoil/models/shield.hpp"
+#include "libcoil/models/skin_effect.hpp"
+#include "libcoil/studies/cautions.hpp"
+#include "libcoil/studies/winding_heat.hpp"
 #include "core/text_format.hpp"
 
 namespace libcoil {
 
-CoilImpedance coil_impedance(const Analysis& a) {
-    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended,
-                         a.self_resonance);
-}
-
 namespace {
 
 std::string three_digits(double v) { return detail::significant(v, 3); }
+std::string hz(double f) { return format_quantity(f, Dimension::frequency); }
+
+// The winding's temperature under the operating current. Unless the spec fixes the wire temperature, the
+// losses are then taken at this one.
+void add_thermal(Analysis& a) {
+    Operating& op = a.spec.operating;
+    if (!(op.current > 0)) return;
+    const std::optional<FormerMaterial> former = a.spec.former ? std::optional(a.spec.former->material) : std::nullopt;
+    double limit = a.spec.enamel_class;
+    if (former && former->max_service_temperature > 0) limit = std::min(limit, former->max_service_temperature);
+    const WindingHeat heat = winding_heat(a.spec.solenoid, a.spec.conductor, op.current, op.current_frequency, op.ambient, limit);
+    const WindingTemperature w = settle_winding(heat, 3e-11, true);
+    ThermalEstimate t{op.current, op.current_frequency, op.ambient, w.temperature, w.rise, w.power, limit,
+                      winding_limit_source(a.spec.enamel_class, former), w.over_limit, w.runaway, false};
+    if (w.runaway) {
+        a.warnings.push_back("at " + format_quantity(op.current, Dimension::current) +
+                             " the winding finds no balance below 500 \u00b0C: it would run away thermally");
+    } else if (w.over_limit) {
+        a.warnings.push_back("at " + format_quantity(op.current, Dimension::current) + " the winding settles at " +
+                             format_quantity(w.temperature, Dimension::temperature) + ", above its limit (" + t.limit_source + ")");
+    }
+    if (!op.temperature_given) {
+        // Runaway: the losses at the limit, the hottest temperature the build is meant to see.
+        op.temperature = w.runaway ? limit : w.temperature;
+        t.sets_wire_temperature = true;
+    } else if (!w.runaway && std::fabs(op.temperature - w.temperature) > 5) {
+        a.warnings.push_back("operating.temperature (" + format_quantity(op.temperature, Dimension::temperature) +
+                             ") is taken for the losses, but the thermal estimate for the current is " +
+                             format_quantity(w.temperature, Dimension::temperature));
+    }
+    a.thermal = t;
+}
+
+void add_losses(Analysis& a, const AnalysisOptions& options) {
+    const CoilSpec& spec = a.spec;
+    const Solenoid& s = spec.solenoid;
+    const Operating& op = spec.operating;
+    a.dc_resistance = dc_resistance(spec.conductor, s.wire().bare_diameter, s.wire_length(), op.temperature);
+    if (op.frequencies.empty()) return;
+
+    const double rho = spec.conductor.resistivity_at(op.temperature);
+    if (options.solver == LossSolver::filaments) {
+        a.loss_method = LossSolver::filaments;
+        a.subdivision = options.subdivision;
+        const double f_max = *std::max_element(op.frequencies.begin(), op.frequencies.end());
+        if (options.auto_subdivision && f_max > 0) a.subdivision = subdivision_for(s.wire().radius(), skin_depth(rho, f_max));
+        a.at_frequency = coil_at_frequencies_numerical(s, spec.conductor, op.temperature, a.inductance.recommended,
+                                                       op.frequencies, a.subdivision, options.progress);
+        for (const auto& p : a.at_frequency) {
+            if (!p.resolved) {
+                a.warnings.push_back("at " + hz(p.frequency) + " the cross-section subdivision does not resolve the skin depth to 1 %; refine it");
+            }
+        }
+        return;
+    }
+    a.at_frequency = coil_at_frequencies(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies);
+    // Where the closed-form proximity model is outside its domain, the solver takes over when it is small enough.
+    double worst_x = 0;
+    std::vector<double> outside;
+    for (double f : op.frequencies) {
+        if (f <= 0) continue;
+        const double x = std::sqrt(2.0) * s.wire().radius() / skin_depth(rho, f);
+        worst_x = std::max(worst_x, x);
+        if (!closed_form_proximity_holds(s.pitch_to_wire(), x)) outside.push_back(f);
+    }
+    if (outside.empty()) return;
+    const double f_max = *std::max_element(outside.begin(), outside.end());
+    const Subdivision sub = subdivision_for(s.wire().radius(), skin_depth(rho, f_max));
+    const double turns = std::max(1.0, std::round(s.turns()));
+    const double estimate = turns * (1 + (sub.layers - 1) * sub.sectors) / 2;
+    if (estimate > static_cast<double>(options.fallback_unknowns)) {
+        a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
+                             " wire diameters) at wire diameter / skin depth up to " + three_digits(worst_x * std::sqrt(2.0)) +
+                             ": for such coils the closed-form proximity model was measured between -22 % and "
+                             "+12 % of the numerical solver (for wire diameter / skin depth up to 42); the cross-section "
+                             "solver (the filaments loss method) checks it");
+        return;
+    }
+    const auto numeric = coil_at_frequencies_numerical(s, spec.conductor, op.temperature, a.inductance.recommended, outside, sub,
+                                                       options.progress);
+    std::string at;
+    for (auto& p : a.at_frequency) {
+        for (const auto& q : numeric) {
+            if (q.frequency == p.frequency) p = q;
+        }
+    }
+    for (double f : outside) at += (at.empty() ? "" : ", ") + hz(f);
+    a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) + " wire diameters): at " + at +
+                         " the closed-form proximity model is outside its 3 % domain, so those points come from the "
+                         "cross-section solver (marked *)");
+    a.subdivision = sub;
+}
 
 void add_self_resonance(Analysis& a) {
     const CoilSpec& spec = a.spec;
     const Solenoid& s = spec.solenoid;
     const FormerDielectric former = spec.former ? spec.former->dielectric(s.form_diameter()) : FormerDielectric{};
     a.self_resonance = self_resonance(s, a.inductance.recommended, former, spec.surroundings);
-    const SelfResonance& sr = a.self_resonance;
-    for (const auto& w : sr.warnings) a.warnings.push_back(w);
-    for (const auto& n : sr.notes) a.notes.push_back(n);
-    const CoilImpedance zc = coil_impedance(a);
-    for (const auto& p : a.at_frequency) {
-        // With this analysis's R and L, which may come from the cross-section solver.
-        a.impedance.push_back(zc.with_wire(p.frequency, p.resistance, p.inductance));
-        if (p.frequency >= sr.frequency) {
-            a.warnings.push_back("at " + format_quantity(p.frequency, Dimension::frequency) +
-                                 " the coil is above its self-resonance (" + format_quantity(sr.frequency, Dimension::frequency) +
-                                 "): it is capacitive there");
-        }
-    }
-    if (spec.band) {
-        a.band = check_band(*spec.band, zc);
-        for (const auto& c : a.band->criteria) {
-            if (c.name != "srf_margin" || !sr.medhurst.available) continue;
-            a.band_srf_by_medhurst = check_srf_margin(sr.medhurst.frequency, a.band->ceiling, c.required);
-            if (a.band_srf_by_medhurst->pass != c.pass) {
-                a.warnings.push_back(std::string("the SRF margin ") + (c.pass ? "passes" : "fails") +
-                                     " by the helical line but " + (c.pass ? "fails" : "passes") +
-                                     " by Medhurst's measured capacitance (SRF " +
-                                     format_quantity(sr.medhurst.frequency, Dimension::frequency) +
-                                     ", one end grounded); near grounded metal expect the lower figure");
-            }
-        }
-    }
+    for (const auto& w : a.self_resonance.warnings) a.warnings.push_back(w);
+    for (const auto& n : a.self_resonance.notes) a.notes.push_back(n);
+    a.self_resonance_as_mounted = a.self_resonance.frequency;
 }
 
-}  // namespace
-
-std::vector<double> frequency_grid(double from, double to, int points, bool logarithmic) {
-    require_non_negative("--from", from);
-    require_positive("--to", to);
-    if (!(to > from)) throw InputError("--to", format_value(to) + " Hz is not above --from (" + format_value(from) + " Hz)");
-    if (points < 2 || points > 1000000) throw InputError("--points", std::to_string(points) + "; expected 2 .. 1000000");
-    if (logarithmic && !(from > 0)) throw InputError("--from", "a log sweep must start above 0 Hz");
-    std::vector<double> f(points);
-    for (int i = 0; i < points; ++i) {
-        const double t = static_cast<double>(i) / (points - 1);
-        f[i] = logarithmic ? from * std::pow(to / from, t) : from + (to - from) * t;
-    }
-    f.back() = to;
-    return f;
-}
-
-namespace {
-
-Analysis analyze_losses(const CoilSpec& spec, const AnalysisOptions& options) {
-    Analysis a{spec, inductance(spec.solenoid), 0, {}, "closed-form", {}, {}, {}, {}, {}, {}, spec.notes, {}};
-    a.warnings = a.inductance.warnings;
-    const Solenoid& s = spec.solenoid;
-    const Operating& op = spec.operating;
-    a.dc_resistance = dc_resistance(spec.conductor, s.wire().bare_diameter, s.wire_length(), op.temperature);
-    if (op.frequencies.empty()) return a;
-
-    if (options.solver == LossSolver::filaments) {
-        a.loss_method = "filaments";
-        a.subdivision = options.subdivision;
-        const double f_max = *std::max_element(op.frequencies.begin(), op.frequencies.end());
-        if (options.auto_subdivision && f_max > 0) {
-            a.subdivision = subdivision_for(s.wire().radius(), skin_depth(spec.conductor.resistivity_at(op.temperature), f_max));
-        }
-        a.at_frequency = coil_at_frequencies_numerical(s, spec.conductor, op.temperature, a.inductance.recommended,
-                                                       op.frequencies, a.subdivision, options.progress);
-        for (const auto& p : a.at_frequency) {
-            if (!p.resolved) {
-                a.warnings.push_back("at " + format_quantity(p.frequency, Dimension::frequency) +
-                                     " the cross-section subdivision does not resolve the skin depth to 1 %; refine it");
-            }
-        }
-    } else {
-        a.at_frequency = coil_at_frequencies(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies);
-        // The closed-form proximity model holds to 3 % for p/d >= 2.5; closer turns at x > 3 spread wider
-        // (proximity.hpp, docs/models.md). There the solver takes over when it is small enough.
-        const double rho = spec.conductor.resistivity_at(op.temperature);
-        double worst_x = 0;
-        std::vector<double> outside;
-        for (double f : op.frequencies) {
-            if (f <= 0) continue;
-            const double x = std::sqrt(2.0) * s.wire().radius() / skin_depth(rho, f);
-            worst_x = std::max(worst_x, x);
-            if (s.pitch_to_wire() < 2.5 && x > 3) outside.push_back(f);
-        }
-        bool fell_back = false;
-        if (!outside.empty()) {
-            const double f_max = *std::max_element(outside.begin(), outside.end());
-            const Subdivision sub = subdivision_for(s.wire().radius(), skin_depth(rho, f_max));
-            const double turns = std::max(1.0, std::round(s.turns()));
-            const double estimate = turns * (1 + (sub.layers - 1) * sub.sectors) / 2;
-            if (estimate <= static_cast<double>(options.fallback_unknowns)) {
-                const auto numeric = coil_at_frequencies_numerical(s, spec.conductor, op.temperature,
-                                                                   a.inductance.recommended, outside, sub, options.progress);
-                std::string at;
-                for (auto& p : a.at_frequency) {
-                    for (const auto& q : numeric) {
-                        if (q.frequency == p.frequency) p = q;
-                    }
-                }
-                for (double f : outside) at += (at.empty() ? "" : ", ") + format_quantity(f, Dimension::frequency);
-                a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
-                                     " wire diameters): at " + at + " the closed-form proximity model is outside its "
-                                     "3 % domain, so those points come from the cross-section solver (marked *)");
-                a.subdivision = sub;
-                fell_back = true;
-            }
-        }
-        if (!outside.empty() && !fell_back) {
-            a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
-                                 " wire diameters) at wire diameter / skin depth up to " + three_digits(worst_x * std::sqrt(2.0)) +
-                                 ": for such coils the closed-form proximity model was measured between -22 % and "
-                                 "+12 % of the numerical solver (for wire diameter / skin depth up to 42); run with "
-                                 "--solver filaments to check");
-        }
-    }
-    return a;
-}
-
-}  // namespace
-
-// The shielded coil: the ring model at the operating frequencies, and the SRF with the shield's
-// capacitance, lumped: f = 1 / (2 pi sqrt(L_hf (C + C_t))), L_hf the perfect-conductor limit (at the SRF the
-// wall is many skin depths thick for any practical shield).
+// The shielded coil: the ring model at the operating frequencies and over the span, and the SRF with the
+// shield's capacitance, lumped: f = 1 / (2 pi sqrt(L_hf (C + C_t))), L_hf the perfect-conductor limit (at
+// the SRF the wall is many skin depths thick for any practical shield).
 void add_shield(Analysis& a) {
     const CoilSpec& spec = a.spec;
     if (!spec.shield) return;
@@ -158,25 +132,103 @@ void add_shield(Analysis& a) {
         if (p.frequency > 0) f.push_back(p.frequency);
     }
     Analysis::Shielded sh;
-    sh.result = shielded_coil(spec.solenoid, a.inductance.recommended, *spec.shield, f);
+    const double l0 = a.inductance.recommended;
+    sh.result = shielded_coil(spec.solenoid, l0, *spec.shield, f);
     sh.terminal_capacitance = shield_terminal_capacitance(sh.result.capacitance_to_shield, spec.surroundings.mounting == Mounting::grounded_end);
-    sh.self_resonance = shielded_self_resonance(a.self_resonance.frequency, a.inductance.recommended, sh.result.perfect_conductor,
-                                                sh.terminal_capacitance);
+    sh.self_resonance = shielded_self_resonance(a.self_resonance.frequency, l0, sh.result.perfect_conductor, sh.terminal_capacitance);
+    a.self_resonance_as_mounted = sh.self_resonance;
     a.shield = sh;
+    const FrequencySpan span = default_span(a);
+    a.shield->table = ShieldTable(spec.solenoid, l0, *spec.shield, span.low, span.high);
     const ShieldSpec& x = *spec.shield;
     const double reach = x.length / 2 - std::fabs(x.axial_offset) - spec.solenoid.winding_length() / 2;
     if (reach < 0.5 * x.inner_diameter / 2) {
         a.warnings.push_back("the shield reaches only " + format_quantity(std::max(0.0, reach), Dimension::length) +
                              " past the winding's end: the closed form (a long tube) does not hold there; the ring model's figures do");
     }
-    a.notes.push_back("shielded SRF: a lumped estimate from the high-frequency L and the self-capacitance plus the capacitance to the shield; "
-                      "the band check and the impedance are of the unshielded coil");
+    a.notes.push_back("in the shield: its L(f) and wall loss come from the ring model, and the SRF is a lumped estimate from the "
+                      "high-frequency L and the self-capacitance plus the capacitance to the shield; the impedance and the "
+                      "band check are of the shielded coil");
+}
+
+void add_impedance_and_band(Analysis& a) {
+    const CoilSpec& spec = a.spec;
+    const CoilImpedance zc = coil_impedance(a);
+    for (const auto& p : a.at_frequency) {
+        // With this analysis's R and L, which may come from the cross-section solver.
+        a.impedance.push_back(zc.with_wire(p.frequency, p.resistance, p.inductance));
+        if (p.frequency >= a.self_resonance_as_mounted) {
+            a.warnings.push_back("at " + hz(p.frequency) + " the coil is above its self-resonance (" + hz(a.self_resonance_as_mounted) +
+                                 "): it is capacitive there");
+        }
+    }
+    if (!spec.band) return;
+    a.band = check_band(*spec.band, zc);
+    const SelfResonance& sr = a.self_resonance;
+    for (const auto& c : a.band->criteria) {
+        if (c.name != "srf_margin" || !sr.medhurst.available) continue;
+        double medhurst = sr.medhurst.frequency;
+        if (a.shield) {
+            medhurst = shielded_self_resonance(medhurst, a.inductance.recommended, a.shield->result.perfect_conductor,
+                                               a.shield->terminal_capacitance);
+        }
+        a.band_srf_by_medhurst = check_srf_margin(medhurst, a.band->ceiling, c.required);
+        if (a.band_srf_by_medhurst->pass != c.pass) {
+            a.warnings.push_back(std::string("the SRF margin ") + (c.pass ? "passes" : "fails") + " by the helical line but " +
+                                 (c.pass ? "fails" : "passes") + " by Medhurst's measured capacitance (SRF " + hz(medhurst) +
+                                 "); near grounded metal expect the lower figure");
+        }
+    }
+}
+
+ShieldLoad shield_load(const Analysis& a, ShieldTable table) {
+    return ShieldLoad{std::move(table), a.shield->terminal_capacitance, a.shield->self_resonance, a.shield->result.perfect_conductor};
+}
+
+}  // namespace
+
+FrequencySpan default_span(const Analysis& a) {
+    const double srf = a.self_resonance_as_mounted;
+    const auto& band = a.spec.band;
+    FrequencySpan s{band ? band->low / 2 : srf / 1000, std::max(3 * srf, band ? 2 * band->ceiling : 0.0)};
+    for (double f : a.spec.operating.frequencies) {
+        if (f > 0) {
+            s.low = std::min(s.low, f);
+            s.high = std::max(s.high, f);
+        }
+    }
+    return s;
+}
+
+CoilImpedance coil_impedance(const Analysis& a) {
+    std::optional<ShieldLoad> load;
+    if (a.shield) load = shield_load(a, a.shield->table);
+    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
+                         std::move(load));
+}
+
+CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
+    if (!a.shield || (low >= a.shield->table.low() && high <= a.shield->table.high())) return coil_impedance(a);
+    const ShieldTable wider(a.spec.solenoid, a.inductance.recommended, *a.spec.shield, std::min(low, a.shield->table.low()),
+                            std::max(high, a.shield->table.high()));
+    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
+                         shield_load(a, wider));
 }
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
-    Analysis a = analyze_losses(spec, options);
+    Analysis a{spec};
+    a.inductance = inductance(spec.solenoid);
+    a.warnings = a.inductance.warnings;
+    a.notes = spec.notes;
+    add_thermal(a);
+    add_losses(a, options);
     add_self_resonance(a);
     add_shield(a);
+    add_impedance_and_band(a);
+    const Operating& op = a.spec.operating;
+    double hottest = 0;  // a winding that runs away is past any limit
+    if (a.thermal) hottest = a.thermal->runaway ? default_max_temperature : a.thermal->temperature;
+    a.cautions = safety_cautions(op.supply_voltage, op.rf_power, hottest, a.thermal ? a.thermal->limit : 0);
     return a;
 }
 

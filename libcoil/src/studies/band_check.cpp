@@ -49,20 +49,36 @@ Scan scan(const BandSpec& b, const std::function<double(double)>& value, const s
 
 }  // namespace
 
-void validate_band(const BandSpec& b) {
-    require_positive("band.low", b.low);
-    require_positive("band.ceiling", b.ceiling);
-    if (!(b.ceiling > b.low)) {
-        throw InputError("band.ceiling", format_quantity(b.ceiling, Dimension::frequency) + " is not above band.low (" +
-                                             format_quantity(b.low, Dimension::frequency) + "); expected the top of the band");
+double required_srf_margin(const BandSpec& b) {
+    const bool none = !b.srf_margin && !b.max_deviation && !b.min_impedance;
+    return b.srf_margin.value_or(none ? default_srf_margin : 0);
+}
+
+double impedance_deviation(const ImpedancePoint& p, double nominal_inductance) {
+    return p.magnitude() / (2 * pi * p.frequency * nominal_inductance) - 1;
+}
+
+std::optional<BandMiss> screen_srf_margin(const BandSpec& b, double srf) {
+    if (const double k = required_srf_margin(b); k > 0 && srf < k * b.ceiling) return BandMiss{"srf_margin", k * b.ceiling / srf, srf, srf};
+    return std::nullopt;
+}
+
+std::optional<BandMiss> screen_band(const BandSpec& b, const CoilImpedance& zc, int points) {
+    if (auto miss = screen_srf_margin(b, zc.resonance())) return miss;
+    if (!b.max_deviation && !b.min_impedance) return std::nullopt;
+    std::vector<double> f(static_cast<std::size_t>(points));
+    for (int i = 0; i < points; ++i) f[static_cast<std::size_t>(i)] = b.low * std::pow(b.ceiling / b.low, i / (points - 1.0));
+    const double l = zc.nominal_inductance();
+    for (const auto& p : zc.sweep(f)) {
+        if (b.max_deviation) {
+            const double dev = std::fabs(impedance_deviation(p, l));
+            if (dev > *b.max_deviation) return BandMiss{"max_deviation", dev / *b.max_deviation, p.frequency, dev};
+        }
+        if (b.min_impedance && p.magnitude() < *b.min_impedance) {
+            return BandMiss{"min_impedance", *b.min_impedance / p.magnitude(), p.frequency, p.magnitude()};
+        }
     }
-    if (b.srf_margin) {
-        require_finite("band.srf_margin", *b.srf_margin);
-        require_at_least("band.srf_margin", *b.srf_margin, 1.0,
-                         "the self-resonance must lie at least at the ceiling (a factor >= 1)");
-    }
-    if (b.max_deviation) require_positive("band.max_deviation", *b.max_deviation);
-    if (b.min_impedance) require_positive("band.min_impedance", *b.min_impedance);
+    return std::nullopt;
 }
 
 CriterionResult check_srf_margin(double srf, double ceiling, double margin) {
@@ -82,16 +98,15 @@ BandCheck check_band(const BandSpec& b, const CoilImpedance& zc) {
     BandCheck out;
     out.low = b.low;
     out.ceiling = b.ceiling;
-    const bool none = !b.srf_margin && !b.max_deviation && !b.min_impedance;
-    if (b.srf_margin || none) {
-        auto r = check_srf_margin(zc.self_resonance().frequency, b.ceiling, b.srf_margin.value_or(default_srf_margin));
-        r.defaulted = none;
+    if (const double k = required_srf_margin(b); k > 0) {
+        auto r = check_srf_margin(zc.resonance(), b.ceiling, k);
+        r.defaulted = !b.srf_margin;
         out.criteria.push_back(r);
     }
-    const double L = zc.dc_inductance();
+    const double L = zc.nominal_inductance();
     if (b.max_deviation) {
         const double x = *b.max_deviation;
-        const auto dev = [&](double f) { return zc.at(f).magnitude() / (2 * pi * f * L) - 1; };
+        const auto dev = [&](double f) { return impedance_deviation(zc.at(f), L); };
         const auto s = scan(b, dev, [&](double v) { return std::fabs(v) > x; },
                             [](double v, double w) { return std::fabs(v) > std::fabs(w); });
         CriterionResult r{"max_deviation", x, !s.first_failure, x - std::fabs(s.worst), s.worst, s.worst_frequency,

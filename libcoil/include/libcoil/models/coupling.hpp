@@ -24,12 +24,10 @@
 #include <string>
 
 #include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/choices.hpp"
 
 namespace libcoil {
 
-enum class Arrangement { coaxial, side_by_side };
-// "coaxial" or "side-by-side"; anything else is an InputError naming `field`.
-Arrangement parse_arrangement(const std::string& name, const std::string& field = "arrangement");
 
 // M in H between coil a and coil b, the centre of b at `distance` from a's: along the common axis
 // (coaxial) or across, parallel axes (side by side, with an optional axial offset of b's centre). The

@@ -9,6 +9,11 @@
 //          Z = 2 Z0 tanh(gamma l / 2); one end grounded: Z = Z0 tanh(gamma l), gamma = sqrt(z y),
 //          Z0 = sqrt(z / y). Lossless, this is the tan-shaped apparent inductance L tan(theta) / theta.
 //          R(f) and L(f) are the closed forms of losses.hpp (skin and proximity effect).
+//          With a shield (ShieldLoad): the series impedance gains the shield's change of L and its wall
+//          loss at each frequency (shield.hpp's ring model, tabulated), the lumped C gains the capacitance
+//          to the shield between the terminals, and the line's phase velocity is scaled, v(f) ->
+//          s v(f / s) with s = f_shielded / f_bare, so that its first resonance lies at the shielded SRF
+//          (shield.hpp's lumped estimate) and the dispersion above it keeps its shape.
 // Source:  transmission-line theory (any text, e.g. Ramo, Whinnery & Van Duzer); the lumped model is the
 //          common practice. The line form's low-frequency limit is R + j w L exactly.
 // Domain:  up to about the second resonance; radiation, the leads and nearby metal are not modelled.
@@ -16,22 +21,22 @@
 #pragma once
 
 #include <complex>
+#include <optional>
 #include <vector>
 
 #include "libcoil/models/materials.hpp"
 #include "libcoil/models/self_resonance.hpp"
+#include "libcoil/models/shield.hpp"
 #include "libcoil/models/solenoid.hpp"
 
 namespace libcoil {
 
-enum class ImpedanceModel { helical_line, lumped };
-const char* impedance_model_name(ImpedanceModel m);  // "helical-line", "lumped"
 
 struct ImpedancePoint {
     double frequency = 0;               // Hz
     std::complex<double> impedance{};   // ohm, between the terminals
-    double wire_resistance = 0;         // ohm, R(f) of the wire alone
-    double wire_inductance = 0;         // H, L(f) of the wire alone
+    double wire_resistance = 0;         // ohm, the series R(f): the wire's, plus a shield's wall loss
+    double wire_inductance = 0;         // H, the series L(f): the winding's, with a shield's change
     double apparent_inductance = 0;     // H, Im Z / w (the low-frequency L at DC); negative above resonance
     double q_factor = 0;                // Im Z / Re Z; negative above resonance (capacitive)
 
@@ -45,10 +50,18 @@ std::complex<double> lumped_impedance(double w, double resistance, double induct
 std::complex<double> line_impedance(double w, double resistance, double inductance, double phase_velocity,
                                     double length, Mounting mounting);
 
+// A coaxial shield around the coil, as the coil's impedance sees it.
+struct ShieldLoad {
+    ShieldTable table;                // the change of L and the wall's loss over frequency
+    double terminal_capacitance = 0;  // F, the capacitance to the shield between the terminals
+    double self_resonance = 0;        // Hz, the shielded SRF
+    double inductance = 0;            // H, the shielded L at high frequency: the coil's nominal L in its shield
+};
+
 class CoilImpedance {
 public:
     CoilImpedance(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
-                  const SelfResonance& self_resonance);
+                  const SelfResonance& self_resonance, std::optional<ShieldLoad> shield = std::nullopt);
 
     // Z at f (Hz, >= 0). For the lumped form `capacitance` (F) picks the self-capacitance; 0 takes the
     // recommended one.
@@ -63,16 +76,25 @@ public:
     // Axial phase velocity the line form uses at f (m/s).
     double phase_velocity(double frequency) const;
     double dc_inductance() const { return dc_inductance_; }
+    // The L the coil is meant to have where it works: the shielded high-frequency L in a shield, else the
+    // low-frequency L. The band check's ideal wL uses it.
+    double nominal_inductance() const { return shield_ ? shield_->inductance : dc_inductance_; }
+    // The first self-resonance of the coil as mounted (in its shield, if any), Hz.
+    double resonance() const { return shield_ ? shield_->self_resonance : sr_.frequency; }
+    const std::optional<ShieldLoad>& shield() const { return shield_; }
     double mean_square_field() const { return field_; }  // (A/m / A)^2, proximity.hpp
     const SelfResonance& self_resonance() const { return sr_; }
 
 private:
+    double bare_phase_velocity(double frequency) const;
+
     Solenoid coil_;
     Conductor conductor_;
     double temperature_, dc_inductance_;
     double field_;  // the proximity field sum, computed once
     SelfResonance sr_;
     SheathHelix helix_;
+    std::optional<ShieldLoad> shield_;
 };
 
 }  // namespace libcoil

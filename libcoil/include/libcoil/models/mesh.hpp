@@ -1,4 +1,4 @@
-// Triangle meshes: the checks a slicer relies on, and STL output.
+// Triangle meshes: the checks a slicer relies on (the STL writer is outputs/stl.hpp).
 //
 // A mesh is a list of vertices (m, SI like every other value in the library) and of triangles as
 // vertex indices, wound counter-clockwise seen from outside (the right-hand rule gives the outward
@@ -21,6 +21,8 @@ struct TriangleMesh {
     // Appends a triangle unless two of its indices coincide (the zipper of two chains that share
     // vertices produces such empty triangles); returns whether it was added.
     bool add_triangle(std::uint32_t a, std::uint32_t b, std::uint32_t c);
+    // Triangle i's unit normal by the right-hand rule on its winding (0 for a degenerate one).
+    std::array<double, 3> normal(std::size_t i) const;
 };
 
 // What a slicer needs of a mesh, counted.
@@ -41,11 +43,5 @@ struct MeshCheck {
 
 // `min_area`: triangles smaller than this (m^2) count as degenerate.
 MeshCheck check_mesh(const TriangleMesh& mesh, double min_area = 1e-18);
-
-// Binary STL in millimetres: an 80-byte header (the text given, cut or padded), the triangle count, and
-// per triangle the unit normal from the winding order, three vertices and a zero attribute word.
-std::string stl_binary(const TriangleMesh& mesh, const std::string& header);
-// ASCII STL in millimetres, `solid NAME` ... `endsolid NAME`.
-std::string stl_ascii(const TriangleMesh& mesh, const std::string& name);
 
 }  // namespace libcoil

@@ -27,25 +27,9 @@
 
 #include "libcoil/models/helical_line.hpp"
 #include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/records.hpp"
 
 namespace libcoil {
-
-enum class Mounting {
-    floating,      // both terminals free of ground: the first resonance is the half-wave one
-    grounded_end,  // one terminal on a ground plane, driven against it: the quarter-wave one (Medhurst's set-up)
-};
-
-// The dielectric under the winding as the capacitance models see it: a shell from the form radius inward.
-struct FormerDielectric {
-    double relative_permittivity = 1;
-    double wall = 0;  // m, radial thickness under the winding (0: no former, the coil is self-supporting)
-    double fill = 0;  // share of the circumference that is solid: 1 for a tube, k w / (pi D_form) for k ribs
-};
-
-struct Surroundings {
-    double relative_permittivity = 1;  // of the medium around (and, without a former, inside) the coil
-    Mounting mounting = Mounting::floating;
-};
 
 struct SelfResonanceMethod {
     bool available = false;
@@ -94,6 +78,5 @@ inline constexpr double search_tolerance = 1e-7;
 SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
                              const Surroundings& surroundings = {}, bool cross_checks = true);
 
-const char* mounting_name(Mounting m);  // "floating", "grounded-end"
 
 }  // namespace libcoil

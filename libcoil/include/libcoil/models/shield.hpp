@@ -27,18 +27,9 @@
 
 #include "libcoil/models/materials.hpp"
 #include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/records.hpp"
 
 namespace libcoil {
-
-struct ShieldSpec {
-    double inner_diameter = 0;  // m
-    double length = 0;          // m
-    double thickness = 0;       // m, the wall (and the end discs)
-    Conductor material;
-    bool end_discs = false;     // closed at both ends
-    double axial_offset = 0;    // m, of the shield's centre from the coil's
-    double temperature = 293.15;  // K, of the shield
-};
 
 struct ShieldPoint {
     double frequency = 0;         // Hz
@@ -74,6 +65,29 @@ double shield_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);
+
+// The shield as the coil's impedance sees it at any frequency: the ring model (shielded_coil) solved on a
+// log grid of `per_decade` points a decade over [low, high] and interpolated, the inductance change
+// linearly and the wall's loss log-log in log f. Beyond the grid the eddy currents' own limits hold:
+// below it dL and R grow as f^2 (the resistive limit of the ring system), above it dL stays and R grows
+// as sqrt(f) (the skin-effect limit). With 6 points a decade the interpolation is within 0.2 % of the
+// ring model between its points (tests/cpp/test_shield.cpp).
+class ShieldTable {
+public:
+    ShieldTable() = default;  // no shield: no change
+    ShieldTable(const Solenoid& coil, double inductance, const ShieldSpec& shield, double low, double high, int per_decade = 6);
+    // A constant change and no loss: the perfect conductor, for screening in a search.
+    static ShieldTable perfect(double inductance_change);
+
+    double inductance_change(double frequency) const;  // H, negative
+    double added_resistance(double frequency) const;   // ohm
+    double low() const { return f_.empty() ? 0 : f_.front(); }
+    double high() const { return f_.empty() ? 0 : f_.back(); }
+
+private:
+    std::vector<double> f_, dl_, r_;  // the grid, the change of L and the wall's loss there
+    double constant_change_ = 0;
+};
 
 // The coaxial capacitance from the winding to the shield, 2 pi eps0 l / ln(b / r_outer), F.
 double shield_capacitance(const Solenoid& coil, const ShieldSpec& shield);

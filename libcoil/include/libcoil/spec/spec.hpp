@@ -12,8 +12,14 @@
 //     conductor: copper
 //   operating:                   # optional
 //     frequencies: [1 MHz, 10 MHz]   # or one value
-//     temperature: 40 degC       # of the wire; 20 degC if not given
-//     current: 4 A               # RMS or DC, kept for the thermal and caution checks
+//     temperature: 40 degC       # of the wire; without it: the thermal estimate for the current, or 20 degC
+//     current: 4 A               # RMS or DC: the winding's temperature and the thermal cautions
+//     current_frequency: 100 kHz # optional: the current's frequency, for its AC resistance (DC if not given)
+//     ambient: 25 degC           # the air around the coil (25 degC if not given)
+//     supply_voltage: 230 V      # optional, for the safety cautions
+//     rf_power: 50 W             # optional, for the safety cautions
+//   limits:                      # optional
+//     enamel_class: 155          # IEC 60317 thermal class in degC (155 if not given)
 //   former:                      # optional: what the wire is wound on (none: self-supporting in air)
 //     material: PETG             # data/former_materials.yaml
 //     kind: grooved-tube         # or ribbed
@@ -55,55 +61,12 @@
 
 #include <optional>
 
-#include "libcoil/studies/band_check.hpp"
 #include "libcoil/models/materials.hpp"
-#include "libcoil/models/self_resonance.hpp"
-#include "libcoil/models/shield.hpp"
+#include "libcoil/spec/records.hpp"
 #include "libcoil/models/solenoid.hpp"
+#include "libcoil/models/wire.hpp"
 
 namespace libcoil {
-
-struct Operating {
-    std::vector<double> frequencies;  // Hz
-    double temperature = 293.15;      // K
-    double current = 0;               // A, 0 when not given
-    bool temperature_given = false;
-};
-
-enum class FormerKind { grooved_tube, ribbed };
-enum class GrooveProfile { round, vee };
-
-// The groove that holds each turn. The wire rests on its bottom at the form diameter, so that its centre
-// lies on the mean diameter; the clearance widens the groove, never deepens it.
-struct GrooveSpec {
-    GrooveProfile profile = GrooveProfile::round;
-    std::optional<double> depth;  // m, below the outer surface; default: half the insulated wire
-    double clearance = 0.1e-3;    // m, the groove is this much wider than the insulated wire
-    double angle = 1.5707963267948966;  // rad, a vee's included angle (90 degrees)
-};
-
-struct FlangeSpec {
-    double diameter = 0, thickness = 0;  // m
-};
-
-struct FormerSpec {
-    FormerMaterial material;
-    FormerKind kind = FormerKind::grooved_tube;
-    double wall = 3e-3;    // m
-    int ribs = 0;          // ribbed only
-    double rib_width = 0;  // m, ribbed only
-    // For the printable former only:
-    std::optional<double> ends;  // m, plain former beyond the winding at each end (default 5 mm)
-    GrooveSpec groove;
-    std::optional<FlangeSpec> flange;
-    double hub_wall = 2e-3;  // m, ribbed only
-    double bore_oversize = 0;  // m, on the diameter: printed holes come out small
-    double min_wall = 1.2e-3;  // m
-    // What the capacitance models see: the solid share of the circumference at the form diameter.
-    FormerDielectric dielectric(double form_diameter) const;
-};
-
-const char* former_kind_name(FormerKind k);  // "grooved-tube", "ribbed"
 
 struct CoilSpec {
     std::string name;
@@ -116,11 +79,17 @@ struct CoilSpec {
     std::optional<BandSpec> band;
     std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
     std::optional<ShieldSpec> shield;
+    double enamel_class = default_enamel_class;  // K, limits.enamel_class: the winding's thermal limit
 };
 
 // Parses a spec from YAML text; `source` names it in messages (a file name).
 CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source = "spec");
 // Reads and parses a spec file. A missing or unreadable file is an InputError naming the path.
 CoilSpec load_coil_spec(const std::filesystem::path& path);
+
+// A coil spec as YAML text that parse_coil_spec reads back to the same spec: SI values written with
+// units, enough digits to reproduce the inductance; `wire` says how the wire is named (a gauge or a
+// diameter, an enamel grade or an insulation). spec_writer.cpp.
+std::string coil_spec_yaml(const CoilSpec& spec, const WireChoice& wire);
 
 }  // namespace libcoil

@@ -1,63 +1,92 @@
-// One coil, analysed: the geometry and every model's result, ready for a report.
+// The analysis study: one coil spec in, one record out, holding every number any output of `coil analyze`
+// shows. It applies everything the spec asks for: the operating current (the winding's temperature, which
+// then sets every loss figure), the former, the surroundings and mounting, and the shield. The band check,
+// the impedance rows and the sweeps built on it (sweep.hpp) all see the coil as mounted: in its shield,
+// with the shield's L(f), wall loss, capacitance and shifted SRF.
 #pragma once
 
 #include <cstddef>
 #include <functional>
+#include <optional>
 #include <string>
 #include <vector>
 
-#include <optional>
-
-#include "libcoil/studies/band_check.hpp"
 #include "libcoil/models/cross_section.hpp"
 #include "libcoil/models/impedance.hpp"
 #include "libcoil/models/inductance.hpp"
 #include "libcoil/models/losses.hpp"
 #include "libcoil/spec/spec.hpp"
+#include "libcoil/studies/band_check.hpp"
 
 namespace libcoil {
-
-enum class LossSolver { closed_form, filaments };
 
 struct AnalysisOptions {
     LossSolver solver = LossSolver::closed_form;
     bool auto_subdivision = true;  // choose it from the highest frequency (subdivision_for)
-    // closed_form only: where the closed-form proximity model is outside its 3 % domain (close-wound
-    // turns, x > 3), take those points from the solver if it has at most this many unknowns; else warn.
+    // closed_form only: where the closed-form proximity model is outside its domain (proximity.hpp),
+    // take those points from the solver if it has at most this many unknowns; else warn.
     std::size_t fallback_unknowns = 1200;
     Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
 };
 
+// The winding under its operating current (winding_heat.hpp), when the spec gives one.
+struct ThermalEstimate {
+    double current = 0;                       // A
+    std::optional<double> current_frequency;  // Hz
+    double ambient = 0;                       // K
+    double temperature = 0;                   // K, the balance (0 when it runs away)
+    double rise = 0;                          // K
+    double power = 0;                         // W
+    double limit = 0;                         // K
+    std::string limit_source;                 // "enamel class 155 °C", "PETG former, 65 °C"
+    bool over_limit = false, runaway = false;
+    bool sets_wire_temperature = false;       // the losses are taken at this temperature
+};
+
 struct Analysis {
-    CoilSpec spec;
+    CoilSpec spec;  // as given, with operating.temperature set to the thermal estimate where that applies
     InductanceResult inductance;
     double dc_resistance = 0;                 // ohm, whole wire at the operating temperature
-    std::vector<CoilAtFrequency> at_frequency;
-    std::string loss_method = "closed-form";  // or "filaments"
+    std::vector<CoilAtFrequency> at_frequency;  // the winding alone (no shield)
+    LossSolver loss_method = LossSolver::closed_form;
     Subdivision subdivision{};                // what the solver used
-    SelfResonance self_resonance;
-    // Z between the terminals at each operating frequency: the helical-line form with the R and L above.
-    std::vector<ImpedancePoint> impedance;
-    std::optional<BandCheck> band;
-    // The srf_margin criterion judged with Medhurst's SRF instead (when the band asks for it).
-    std::optional<CriterionResult> band_srf_by_medhurst;
-    std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs, cautions
-    std::vector<std::string> notes;     // assumptions
+    SelfResonance self_resonance;             // every model, for the bare coil
+    std::optional<ThermalEstimate> thermal;
     // With a shield: the shielded coil beside the unshielded one.
     struct Shielded {
-        ShieldResult result;            // L(f) and the added R at the operating frequencies, the limits
+        ShieldResult result;              // L(f) and the added R at the operating frequencies, the limits
         double terminal_capacitance = 0;  // F, the capacitance to the shield as seen between the terminals
-        double self_resonance = 0;      // Hz, lumped estimate: L at the high-frequency limit, C + the above
+        double self_resonance = 0;        // Hz, lumped estimate: L at the high-frequency limit, C + the above
+        ShieldTable table;                // the shield over the analysis's frequency span, for the impedance
     };
     std::optional<Shielded> shield;
+    // The first self-resonance of the coil as mounted: the shielded one in a shield, else the recommended.
+    double self_resonance_as_mounted = 0;
+    // Z between the terminals at each operating frequency, of the coil as mounted (helical-line form, with
+    // the R and L of at_frequency and the shield's change).
+    std::vector<ImpedancePoint> impedance;
+    std::optional<BandCheck> band;
+    // The srf_margin criterion judged with Medhurst's SRF instead (as mounted), when the band asks for it.
+    std::optional<CriterionResult> band_srf_by_medhurst;
+    std::vector<std::string> cautions;  // safety, as the inputs call for them (cautions.hpp)
+    std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs
+    std::vector<std::string> notes;     // assumptions
 };
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options = {});
 
-// The impedance evaluator of an analysed coil (closed-form R and L), for sweeps and plots.
+// The impedance of the analysed coil as mounted (closed-form R and L at each frequency, the shield's
+// table), for sweeps and plots. A shield's table covers the analysis's span; where a sweep reaches
+// further, give its span and the table is extended to cover it.
 CoilImpedance coil_impedance(const Analysis& a);
-// Frequencies from `from` to `to` (Hz), `points` >= 2, log (from > 0) or linear spacing.
-std::vector<double> frequency_grid(double from, double to, int points, bool logarithmic);
+CoilImpedance coil_impedance(const Analysis& a, double low, double high);
+
+// The frequency span the analysis tabulates a shield over, and a sweep defaults to: from half the band's
+// low edge (or SRF / 1000) to 3 x SRF (or twice the ceiling if higher), widened to the operating frequencies.
+struct FrequencySpan {
+    double low = 0, high = 0;  // Hz
+};
+FrequencySpan default_span(const Analysis& a);
 
 }  // namespace libcoil

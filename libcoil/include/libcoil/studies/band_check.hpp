@@ -4,7 +4,8 @@
 //   srf_margin k      the self-resonance lies at or above k x ceiling;
 //   max_deviation x   | |Z| / (w L) - 1 | <= x from the low edge to the ceiling (L the low-frequency L);
 //   min_impedance Z   |Z| >= Z across the band (a fixture coil that must dominate a 50 ohm port).
-// The impedance is the recommended helical-line form (impedance.hpp). The curves are scanned on 512
+// The impedance is the recommended helical-line form of the coil as mounted (impedance.hpp): with a
+// shield, the shielded L(f), wall loss and SRF, and wL is the shielded nominal L. The curves are scanned on 512
 // log-spaced points and the first failure is refined by bisection to 1e-9 relative. The margin is
 // SRF / (k ceiling) for srf_margin, x - worst |deviation| for max_deviation, and min |Z| / Z for
 // min_impedance; a criterion passes when its margin is >= 1 (>= 0 for max_deviation).
@@ -15,18 +16,9 @@
 #include <vector>
 
 #include "libcoil/models/impedance.hpp"
+#include "libcoil/spec/records.hpp"
 
 namespace libcoil {
-
-struct BandSpec {
-    double low = 0;      // Hz, > 0
-    double ceiling = 0;  // Hz, > low
-    std::optional<double> srf_margin;     // >= 1
-    std::optional<double> max_deviation;  // > 0, a fraction (10 % = 0.1)
-    std::optional<double> min_impedance;  // ohm, > 0
-};
-
-inline constexpr double default_srf_margin = 2.0;
 
 struct CriterionResult {
     std::string name;        // "srf_margin", "max_deviation", "min_impedance"
@@ -45,10 +37,25 @@ struct BandCheck {
     bool pass = false;
 };
 
-// Validates the band (InputError naming band.low, band.ceiling, band.srf_margin, ...).
-void validate_band(const BandSpec& band);
 BandCheck check_band(const BandSpec& band, const CoilImpedance& impedance);
 // The SRF criterion alone at a given SRF (for cross-checks with another model's SRF).
 CriterionResult check_srf_margin(double srf, double ceiling, double margin);
+
+// The SRF factor a band asks for: its srf_margin, the default when it names no criterion, else 0 (none).
+double required_srf_margin(const BandSpec& band);
+// The two impedance criteria at one frequency, as check_band judges them.
+double impedance_deviation(const ImpedancePoint& point, double nominal_inductance);  // |Z| / (w L) - 1
+
+// The band's criteria on `points` log-spaced frequencies only: the screen a search runs on each candidate
+// (its winners are then checked in full by check_band). The first criterion that fails, with how far.
+struct BandMiss {
+    const char* criterion = "";  // "srf_margin", "max_deviation", "min_impedance"
+    double excess = 1;           // > 1: how far past the limit, as a ratio
+    double frequency = 0;        // Hz where it failed (the SRF for srf_margin)
+    double value = 0;            // the SRF (Hz), the |deviation| or |Z| (ohm) there
+};
+std::optional<BandMiss> screen_band(const BandSpec& band, const CoilImpedance& impedance, int points);
+// The SRF margin alone, for a search that has the SRF before it builds the impedance.
+std::optional<BandMiss> screen_srf_margin(const BandSpec& band, double self_resonance);
 
 }  // namespace libcoil

@@ -17,8 +17,9 @@
 //   size  the outer volume pi/4 D_out^2 (overall length + former ends),
 //   srf   ceiling / SRF (with no band: 1 MHz / SRF).
 // A weighted sum with positive weights is minimised on the Pareto set, so ranking the set ranks all.
-// The winner is re-analysed in full (analysis.hpp, the band check at 512 points); if it fails there, the
-// next one is taken and the report says so.
+// The winner is re-analysed in full (analysis.hpp: the band check at 512 points, the shield's ring model,
+// the thermal estimate); if it fails there, the next one is taken and the report says so. The steps of
+// one candidate's evaluation are in src/studies/design_search.hpp.
 #pragma once
 
 #include <cstddef>
@@ -85,6 +86,7 @@ struct DesignResult {
     std::vector<std::string> cautions;  // safety cautions the inputs call for
     std::vector<std::string> notes;     // assumptions
     std::vector<std::string> warnings;
+    std::vector<CoilSpec> specs;              // the coil spec of each ranked design, for the first `top`
     std::optional<Analysis> chosen_analysis;  // the full re-analysis of the chosen design
     std::optional<Spread> spread;             // with DesignOptions::spread and a chosen design
 };
@@ -93,10 +95,6 @@ DesignResult design(const Requirement& requirement, const DesignOptions& options
 
 // The coil spec of a design, which `coil analyze`, `coil sweep` and the former generator accept.
 CoilSpec design_spec(const Requirement& requirement, const DesignFigures& figures);
-// A coil spec as YAML text (SI values written with units, enough digits to reproduce the inductance).
-std::string coil_spec_yaml(const CoilSpec& spec, const WireChoice& wire);
 
-// The safety cautions for a requirement and an estimated winding temperature (K, 0 if unknown).
-std::vector<std::string> design_cautions(const Requirement& requirement, double temperature, double limit);
 
 }  // namespace libcoil

@@ -1,110 +1,35 @@
-#include "libcoil/outputs/sweep_output.hpp"
+#include "libcoil/outputs/sweep_files.hpp"
 
 #include <algorithm>
-#include <cmath>
-#include <cstdio>
 #include <sstream>
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
-#include "libcoil/core/units.hpp"
-#include "core/text_format.hpp"
+#include "outputs/svg_axes.hpp"
 
 namespace libcoil {
 
-namespace {
+using detail::g;
+using detail::LinAxis;
+using detail::LogAxis;
+using detail::log_ticks;
+using detail::px;
+using detail::tick_label;
 
-std::string g(double v, int digits) { return detail::significant(v, digits); }
-std::string px(double v) { return detail::fixed(v, 2); }
-
-// A log axis from lo to hi mapped onto [p0, p1] pixels.
-struct LogAxis {
-    double lo, hi, p0, p1;
-    double operator()(double v) const { return p0 + (p1 - p0) * std::log(v / lo) / std::log(hi / lo); }
-};
-struct LinAxis {
-    double lo, hi, p0, p1;
-    double operator()(double v) const { return p0 + (p1 - p0) * (v - lo) / (hi - lo); }
-};
-
-// Nice decade ticks 1, 2, 5 x 10^n within [lo, hi]; only decades when the span is wide.
-std::vector<double> log_ticks(double lo, double hi, bool minor) {
-    std::vector<double> t;
-    for (double d = std::pow(10, std::floor(std::log10(lo))); d <= hi * 1.0000001; d *= 10) {
-        for (double m : minor ? std::vector<double>{1, 2, 5} : std::vector<double>{1}) {
-            const double v = d * m;
-            if (v >= lo * 0.9999999 && v <= hi * 1.0000001) t.push_back(v);
-        }
-    }
-    return t;
-}
-
-// A tick label without trailing zeros: "100 kHz", "1 MΩ", "2.5 MHz".
-std::string tick_label(double v, Dimension d) {
-    std::string s = format_quantity(v, d, 3);
-    const auto space = s.find(' ');
-    std::string num = s.substr(0, space), unit = space == std::string::npos ? "" : s.substr(space);
-    if (num.find('.') != std::string::npos) {
-        while (!num.empty() && num.back() == '0') num.pop_back();
-        if (!num.empty() && num.back() == '.') num.pop_back();
-    }
-    return num + unit;
-}
-
-// Touchstone files are ASCII: unit symbols are spelled out.
-std::string ascii(const std::string& s) {
-    std::string o;
-    for (std::size_t i = 0; i < s.size();) {
-        const auto starts = [&](const char* t) { return s.compare(i, std::char_traits<char>::length(t), t) == 0; };
-        if (starts("\u00b5")) { o += "u"; i += 2; }
-        else if (starts("\u00b0C")) { o += "degC"; i += 3; }
-        else if (starts("\u03a9")) { o += "ohm"; i += 2; }
-        else if (starts("\u2014") || starts("\u2013")) { o += "-"; i += 3; }
-        else if (static_cast<unsigned char>(s[i]) < 0x80) { o += s[i]; ++i; }
-        else { o += '?'; ++i; }
-    }
-    return o;
-}
-
-}  // namespace
-
-std::string sweep_csv(const std::vector<ImpedancePoint>& points) {
-    std::ostringstream o;
-    o << "frequency_Hz,impedance_magnitude_ohm,phase_deg,resistance_ohm,reactance_ohm,apparent_inductance_H,q_factor\n";
-    for (const auto& p : points) {
-        o << g(p.frequency, 15) << ',' << g(p.magnitude(), 15) << ',' << g(p.phase() * 180 / pi, 15) << ','
-          << g(p.impedance.real(), 15) << ',' << g(p.impedance.imag(), 15) << ',' << g(p.apparent_inductance, 15) << ','
-          << g(p.q_factor, 15) << '\n';
-    }
-    return o.str();
-}
-
-std::string touchstone_s1p(const std::vector<ImpedancePoint>& points, const std::vector<std::string>& comments,
-                           double r0) {
-    require_positive("reference_impedance", r0);
-    std::ostringstream o;
-    for (const auto& c : comments) o << "! " << ascii(c) << "\n";
-    o << "# Hz S RI R " << g(r0, 15) << "\n";
-    for (const auto& p : points) {
-        const auto s = (p.impedance - r0) / (p.impedance + r0);
-        o << g(p.frequency, 17) << ' ' << g(s.real(), 17) << ' ' << g(s.imag(), 17) << '\n';
-    }
-    return o.str();
-}
-
-std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPicture& pic) {
+std::string impedance_svg(const Sweep& pic) {
+    const auto& all = pic.points;
     std::vector<ImpedancePoint> pts;
     for (const auto& p : all) {
         if (p.frequency > 0) pts.push_back(p);
     }
-    if (pts.size() < 2) throw InputError("--from", "the picture needs two or more frequencies above 0 Hz");
+    if (pts.size() < 2) throw InputError("points", "the picture needs two or more frequencies above 0 Hz");
     const double f_lo = pts.front().frequency, f_hi = pts.back().frequency;
     double z_lo = pts.front().magnitude(), z_hi = z_lo;
     for (const auto& p : pts) {
         z_lo = std::min(z_lo, p.magnitude());
         z_hi = std::max(z_hi, p.magnitude());
-        if (pic.inductance > 0) {
-            const double ideal = 2 * pi * p.frequency * pic.inductance;
+        if (pic.nominal_inductance > 0) {
+            const double ideal = 2 * pi * p.frequency * pic.nominal_inductance;
             z_lo = std::min(z_lo, ideal);
             z_hi = std::max(z_hi, ideal);
         }
@@ -125,7 +50,9 @@ std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPic
     o << " data-x-min-hz=\"" << g(f_lo, 17) << "\" data-x-max-hz=\"" << g(f_hi, 17) << "\" data-x-left=\"" << left
       << "\" data-x-right=\"" << right << "\" data-z-min-ohm=\"" << g(z_lo, 17) << "\" data-z-max-ohm=\"" << g(z_hi, 17)
       << "\" data-z-top=\"" << top1 << "\" data-z-bottom=\"" << bottom1 << "\">\n";
-    o << "<title>" << detail::xml_escape(pic.title) << "</title>\n";
+    o << "<title>" << detail::xml_escape(pic.title) << "</title>\n<desc>";
+    for (const auto& line : sweep_description(pic)) o << detail::xml_escape(line) << "\n";
+    o << "</desc>\n";
     o << "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n";
     o << "<text x=\"" << left << "\" y=\"28\" font-size=\"15\" font-weight=\"bold\">" << detail::xml_escape(pic.title) << "</text>\n";
 
@@ -176,9 +103,9 @@ std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPic
       << ")\" text-anchor=\"middle\">phase of Z</text>\n";
 
     // Curves.
-    if (pic.inductance > 0) {
+    if (pic.nominal_inductance > 0) {
         o << "<polyline id=\"ideal\" fill=\"none\" stroke=\"#555555\" stroke-width=\"1.2\" stroke-dasharray=\"6 4\" points=\"";
-        for (const auto& p : pts) o << px(x(p.frequency)) << ',' << px(y1(2 * pi * p.frequency * pic.inductance)) << ' ';
+        for (const auto& p : pts) o << px(x(p.frequency)) << ',' << px(y1(2 * pi * p.frequency * pic.nominal_inductance)) << ' ';
         o << "\"/>\n";
     }
     o << "<polyline id=\"impedance\" fill=\"none\" stroke=\"#0050a0\" stroke-width=\"2\" points=\"";
@@ -201,16 +128,20 @@ std::string impedance_svg(const std::vector<ImpedancePoint>& all, const SweepPic
     o << "<g id=\"legend\">\n";
     o << "<line x1=\"" << lx << "\" y1=\"" << ly << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly
       << "\" stroke=\"#0050a0\" stroke-width=\"2\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 4 << "\">|Z|, "
-      << detail::xml_escape(pic.model) << " model</text>\n";
-    if (pic.inductance > 0) {
+      << detail::xml_escape(choice_name(pic.model)) << " model</text>\n";
+    if (pic.nominal_inductance > 0) {
         o << "<line x1=\"" << lx << "\" y1=\"" << ly + 18 << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly + 18
           << "\" stroke=\"#555555\" stroke-dasharray=\"6 4\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 22
-          << "\">ideal \u03c9L, L = " << detail::xml_escape(format_quantity(pic.inductance, Dimension::inductance)) << "</text>\n";
+          << "\">ideal \u03c9L, L = " << detail::xml_escape(format_quantity(pic.nominal_inductance, Dimension::inductance)) << "</text>\n";
     }
     if (pic.band_low && pic.band_ceiling) {
         o << "<rect x=\"" << lx << "\" y=\"" << ly + 30 << "\" width=\"26\" height=\"10\" fill=\"#d9ecff\"/><text x=\""
           << lx + 32 << "\" y=\"" << ly + 40 << "\">band " << detail::xml_escape(format_quantity(*pic.band_low, Dimension::frequency))
           << " \u2013 " << detail::xml_escape(format_quantity(*pic.band_ceiling, Dimension::frequency)) << "</text>\n";
+    }
+    if (pic.shield) {
+        o << "<text id=\"shield\" x=\"" << lx << "\" y=\"" << ly + 58 << "\">in its shield: " << detail::xml_escape(*pic.shield)
+          << "</text>\n";
     }
     o << "</g>\n</svg>\n";
     return o.str();

@@ -1,4 +1,4 @@
-#include "libcoil/outputs/report.hpp"
+#include "libcoil/outputs/analysis_report.hpp"
 
 #include <cmath>
 #include <cstdio>
@@ -71,6 +71,23 @@ void shield_text(std::ostringstream& o, const Analysis& a) {
     row(o, "long-coil form", format_quantity(r.long_coil_limit, Dimension::inductance), "L0 (1 - a^2/b^2), for a long coil in a long shield");
 }
 
+void thermal_text(std::ostringstream& o, const Analysis& a) {
+    if (!a.thermal) return;
+    const ThermalEstimate& t = *a.thermal;
+    const auto kelvin = [](double v) { return format_quantity(v, Dimension::temperature, 4); };
+    o << "\nWinding under load (still air, no enclosure)\n";
+    row(o, "current", format_quantity(t.current, Dimension::current),
+        t.current_frequency && *t.current_frequency > 0 ? "at " + hz(*t.current_frequency) : "DC");
+    row(o, "ambient", kelvin(t.ambient));
+    if (t.runaway) {
+        row(o, "winding", "runaway", "no balance below 500 \u00b0C");
+    } else {
+        row(o, "winding", kelvin(t.temperature), "rise " + fixed(t.rise, 1) + " K, " + format_quantity(t.power, Dimension::power) + " dissipated");
+    }
+    row(o, "limit", kelvin(t.limit), t.limit_source + (t.over_limit ? ": EXCEEDED" : ""));
+    if (t.sets_wire_temperature) o << "  the losses above are taken at this winding temperature\n";
+}
+
 void self_resonance_text(std::ostringstream& o, const Analysis& a) {
     const SelfResonance& sr = a.self_resonance;
     o << "\nSelf-resonance (" << mounting_name(sr.mounting)
@@ -106,7 +123,8 @@ void self_resonance_text(std::ostringstream& o, const Analysis& a) {
         row(o, "former", what);
     }
     if (!a.impedance.empty()) {
-        o << "\n  Impedance between the terminals (helical-line model, with the R and L above)\n";
+        o << "\n  Impedance between the terminals (helical-line model, with the R and L above"
+          << (a.shield ? ", in the shield" : "") << ")\n";
         o << "  " << pad("frequency", 13) << pad("|Z|", 13) << pad("phase", 10) << pad("apparent L", 13) << "apparent Q\n";
         for (const auto& p : a.impedance) {
             o << "  " << pad(hz(p.frequency), 13) << pad(format_quantity(p.magnitude(), Dimension::resistance), 13)
@@ -203,7 +221,7 @@ std::string text_report(const Analysis& a) {
     row(o, "wire temperature", format_quantity(op.temperature, Dimension::temperature, 4));
     row(o, "DC resistance", format_quantity(a.dc_resistance, Dimension::resistance), "whole wire, leads included");
     if (!a.at_frequency.empty()) {
-        if (a.loss_method == "filaments") {
+        if (a.loss_method == LossSolver::filaments) {
             o << "  losses by the cross-section filament solver (" << a.subdivision.layers << " layers, grading "
               << fixed(a.subdivision.grading, 2) << ", " << a.subdivision.sectors << " sectors)\n";
         } else {
@@ -216,12 +234,12 @@ std::string text_report(const Analysis& a) {
                             pad(format_quantity(p.resistance, Dimension::resistance), 13) + pad(fixed(p.skin_ratio, 3), 9) +
                             pad(fixed(p.proximity_ratio, 3), 11) + pad(henry(p.inductance), 12) +
                             (p.frequency > 0 ? fixed(p.q_factor, 1) : "-") +
-                            (p.numerical && a.loss_method != "filaments" ? "  *" : "");
+                            (p.numerical && a.loss_method != LossSolver::filaments ? "  *" : "");
             o << s << "\n";
         }
         o << "  R = R_dc x (skin + proximity); L includes the internal inductance left by the skin effect\n";
         bool starred = false;
-        for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method != "filaments");
+        for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method != LossSolver::filaments);
         if (starred) {
             o << "  * from the cross-section filament solver (" << a.subdivision.layers << " layers, "
               << a.subdivision.sectors << " sectors): the closed form is outside its domain there\n";
@@ -230,10 +248,12 @@ std::string text_report(const Analysis& a) {
         o << "  (add operating.frequencies to the spec for R, L and Q at frequency)\n";
     }
 
+    thermal_text(o, a);
     self_resonance_text(o, a);
     shield_text(o, a);
     band_text(o, a);
 
+    detail::list_section(o, "Cautions", a.cautions, "!");
     detail::list_section(o, "Warnings", a.warnings, "!");
     detail::list_section(o, "Assumptions", a.notes, "-");
     return o.str();
@@ -274,8 +294,8 @@ std::string json_report(const Analysis& a) {
     j["inductance_method"] = ind.method;
     j["temperature_K"] = a.spec.operating.temperature;
     j["dc_resistance_ohm"] = a.dc_resistance;
-    j["loss_method"] = a.loss_method;
-    if (a.loss_method == "filaments") {
+    j["loss_method"] = choice_name(a.loss_method);
+    if (a.loss_method == LossSolver::filaments) {
         j["subdivision"] = {{"layers", a.subdivision.layers}, {"grading", a.subdivision.grading}, {"sectors", a.subdivision.sectors}};
     }
     nlohmann::ordered_json points = nlohmann::ordered_json::array();
@@ -369,68 +389,25 @@ std::string json_report(const Analysis& a) {
         if (first) j["band"]["first_failure_Hz"] = *first;
         if (a.band_srf_by_medhurst) j["band"]["srf_margin_by_medhurst"] = criterion(*a.band_srf_by_medhurst);
     }
+    if (a.thermal) {
+        const ThermalEstimate& t = *a.thermal;
+        j["thermal"] = {{"current_A", t.current},
+                        {"current_frequency_Hz", t.current_frequency.value_or(0.0)},
+                        {"ambient_K", t.ambient},
+                        {"winding_temperature_K", t.runaway ? nlohmann::ordered_json(nullptr) : nlohmann::ordered_json(t.temperature)},
+                        {"rise_K", t.rise},
+                        {"power_W", t.power},
+                        {"limit_K", t.limit},
+                        {"limit_source", t.limit_source},
+                        {"over_limit", t.over_limit},
+                        {"runaway", t.runaway},
+                        {"sets_wire_temperature", t.sets_wire_temperature}};
+    }
+    j["self_resonance_as_mounted_Hz"] = a.self_resonance_as_mounted;
+    j["cautions"] = a.cautions;
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;
     return j.dump(2) + "\n";
 }
 
-std::string wire_text_report(const Wire& w, const Conductor& c, double temperature, double frequency) {
-    const WireAtFrequency r = wire_at_frequency(w, c, temperature, frequency);
-    std::ostringstream o;
-    o << "libcoil " << version << " \u2014 wire\n\n";
-    row(o, "wire", w.label);
-    row(o, "conductor", c.name);
-    row(o, "bare diameter", len(r.bare_diameter));
-    row(o, "insulated diameter", len(r.insulated_diameter));
-    row(o, "temperature", format_quantity(temperature, Dimension::temperature));
-    row(o, "DC resistance", format_quantity(r.dc_resistance_per_length, Dimension::resistance) + "/m");
-    if (frequency > 0) {
-        row(o, "frequency", format_quantity(frequency, Dimension::frequency));
-        row(o, "skin depth", len(r.skin_depth), fixed(r.bare_diameter / r.skin_depth, 2) + " per wire diameter");
-        row(o, "R_ac / R_dc", fixed(r.skin_ratio, 4), "isolated straight wire (Bessel solution)");
-    }
-    row(o, "skin effect +10 % at", format_quantity(r.skin_onset_frequency, Dimension::frequency));
-    return o.str();
-}
-
-std::string wire_json_report(const Wire& w, const Conductor& c, double temperature, double frequency) {
-    const WireAtFrequency r = wire_at_frequency(w, c, temperature, frequency);
-    nlohmann::ordered_json j;
-    j["libcoil_version"] = version;
-    j["label"] = w.label;
-    j["conductor"] = c.name;
-    j["temperature_K"] = temperature;
-    j["frequency_Hz"] = frequency;
-    j["bare_diameter_m"] = r.bare_diameter;
-    j["insulated_diameter_m"] = r.insulated_diameter;
-    j["dc_resistance_per_m_ohm"] = r.dc_resistance_per_length;
-    j["skin_depth_m"] = r.skin_depth;
-    j["skin_ac_dc_ratio"] = r.skin_ratio;
-    j["skin_onset_frequency_Hz"] = r.skin_onset_frequency;
-    return j.dump(2) + "\n";
-}
-
-std::string wire_table_text(const Conductor& c, double temperature, double frequency) {
-    std::ostringstream o;
-    o << "libcoil " << version << " \u2014 wire table, " << c.name << " at "
-      << format_quantity(temperature, Dimension::temperature) << ", R_ac/R_dc at "
-      << format_quantity(frequency, Dimension::frequency) << ", enamel grade 1\n\n";
-    o << "  " << pad("wire", 10) << pad("bare", 11) << pad("enamelled", 11) << pad("R_dc / m", 13) << pad("R_ac/R_dc", 11)
-      << "+10 % skin at\n";
-    const auto line = [&](const std::string& label, double d) {
-        Wire w{d, enamel_build(d, 1), label};
-        const WireAtFrequency r = wire_at_frequency(w, c, temperature, frequency);
-        o << "  " << pad(label, 10) << pad(len(d), 11) << pad(len(r.insulated_diameter), 11)
-          << pad(format_quantity(r.dc_resistance_per_length, Dimension::resistance), 13) << pad(fixed(r.skin_ratio, 3), 11)
-          << format_quantity(r.skin_onset_frequency, Dimension::frequency) << "\n";
-    };
-    for (int g = 10; g <= 40; g += 2) line(awg_label(g), awg_diameter(g));
-    o << "\n";
-    for (double d : metric_wire_diameters()) {
-        if (d >= 0.1e-3 - 1e-12 && d <= 3.15e-3 + 1e-12) line(fixed(d * 1e3, 3) + " mm", d);
-    }
-    return o.str();
-}
-
 }  // namespace libcoil
-

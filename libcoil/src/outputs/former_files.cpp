@@ -1,4 +1,4 @@
-#include "libcoil/outputs/former_output.hpp"
+#include "libcoil/outputs/former_files.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -9,7 +9,8 @@
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
-#include "libcoil/outputs/io.hpp"
+#include "libcoil/outputs/files.hpp"
+#include "libcoil/outputs/stl.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/version.hpp"
 #include "core/text_format.hpp"
@@ -24,35 +25,8 @@ using detail::xml_escape;
 std::string mm(double m, int decimals = 3) { return fixed(m * 1e3, decimals); }
 std::string q(double m) { return format_quantity(m, Dimension::length); }
 const char* kind_words(FormerKind k) { return k == FormerKind::ribbed ? "ribbed former" : "grooved tube"; }
-const char* profile_name(GrooveProfile p) { return p == GrooveProfile::vee ? "vee" : "round"; }
 
 }  // namespace
-
-FormerBuild build_former(const CoilSpec& spec, const FormerOptions& o) {
-    FormerBuild b;
-    b.name = spec.name.empty() ? "former" : spec.name;
-    b.geometry = former_geometry(spec, o);
-    b.chord_tolerance = o.chord_tolerance;
-    const FormerMaterial material = spec.former ? spec.former->material : former_material("PETG");
-    b.material = material.name;
-    b.mesh = former_mesh(b.geometry, o.chord_tolerance);
-    b.check = check_mesh(b.mesh);
-    if (!b.check.sound()) throw DomainError("the former's mesh failed its own check; please report this spec");
-    const Operating& op = spec.operating;
-    if (op.temperature_given && material.max_service_temperature > 0) {
-        const double t = op.temperature, limit = material.max_service_temperature;
-        const std::string at = format_value(t - zero_celsius) + " \u00b0C";
-        const std::string lim = format_value(limit - zero_celsius) + " \u00b0C";
-        if (t > limit) {
-            b.cautions.push_back("The winding runs at " + at + ", above " + b.material + "'s service temperature (" + lim +
-                                 "): the former will soften and the pitch creep. Choose a material rated higher, or lower the current.");
-        } else if (t > limit - 10) {
-            b.cautions.push_back("The winding runs at " + at + ", within 10 K of " + b.material + "'s service temperature (" + lim +
-                                 "). The estimate is for still air; measure the part under load before relying on it.");
-        }
-    }
-    return b;
-}
 
 std::string former_dimensions_yaml(const FormerBuild& b) {
     const FormerGeometry& g = b.geometry;
@@ -63,7 +37,7 @@ std::string former_dimensions_yaml(const FormerBuild& b) {
     o << "turns: " << detail::significant(g.turns, 12) << "\npitch: " << mm(g.pitch, 6) << "\n";
     o << "outer_diameter: " << mm(2 * g.outer_radius, 4) << "\nroot_diameter: " << mm(2 * g.root_radius, 4)
       << "\nwire_centre_diameter: " << mm(2 * g.seat_radius, 4) << "\nbore_diameter: " << mm(2 * g.bore_radius, 4) << "   # as printed, with bore_oversize: " << mm(g.bore_oversize, 4) << "\n";
-    o << "groove:\n  profile: " << profile_name(g.profile) << "\n  depth: " << mm(g.groove_depth(), 4) << "\n  width_at_wire_centre: "
+    o << "groove:\n  profile: " << choice_name(g.profile) << "\n  depth: " << mm(g.groove_depth(), 4) << "\n  width_at_wire_centre: "
       << mm(2 * g.groove_radius, 4) << "\n  clearance: " << mm(g.clearance, 4) << "\n  width_at_surface: " << mm(std::min(2 * g.half_width, g.pitch), 4) << "\n";
     if (g.profile == GrooveProfile::vee) o << "  angle_deg: " << detail::significant(2 * g.vee_half_angle * 180 / pi, 6) << "\n";
     o << "length: " << mm(g.length, 4) << "\nends: " << mm(g.ends, 4) << "\nwinding_length: " << mm(g.length - 2 * g.ends, 4) << "\n";
@@ -73,7 +47,7 @@ std::string former_dimensions_yaml(const FormerBuild& b) {
           << ", from_z: " << mm(g.rib_zone_low, 4) << ", to_z: " << mm(g.rib_zone_high, 4) << "}\n";
     }
     o << "wire_cut_length: " << mm(g.wire_cut_length, 1) << "   # the winding plus the spec's leads\n";
-    o << "volume_mm3: " << detail::significant(g.volume() * 1e9, 7) << "\n";
+    o << "volume_mm3: " << detail::significant(b.volume * 1e9, 7) << "\n";
     o << "mesh: {triangles: " << b.check.triangles << ", chord_tolerance: " << mm(b.chord_tolerance, 4)
       << ", volume_mm3: " << detail::significant(b.check.volume * 1e9, 7) << "}\n";
     if (!g.notes.empty()) {
@@ -140,7 +114,7 @@ std::string former_sheet_svg(const FormerBuild& b) {
          " .bore{stroke:#333;stroke-width:0.9;stroke-dasharray:5 3} .solid{fill:#e9dcc4;stroke:#333;stroke-width:0.9} .wire{fill:#c87533;stroke:#6b3b12;stroke-width:0.6}</style></defs>\n";
     o << "<rect width=\"" << W << "\" height=\"" << H << "\" fill=\"white\"/>\n";
     p.text(x0, 32, b.name, "font-size=\"16\" font-weight=\"bold\"");
-    p.text(x0, 52, std::string(kind_words(g.kind)) + " of " + b.material + ", " + profile_name(g.profile) + " groove, " +
+    p.text(x0, 52, std::string(kind_words(g.kind)) + " of " + b.material + ", " + choice_name(g.profile) + " groove, " +
                        detail::significant(g.turns, 6) + " turns at " + mm(g.pitch, 4) + " mm pitch; dimensions in mm");
 
     // The section: solid between the outline and the bore (or the axis) on each side.
@@ -237,7 +211,7 @@ std::string former_sheet_svg(const FormerBuild& b) {
     // Notes block.
     double ny = below + 64;
     p.text(x0, ny, "wire to cut: " + mm(g.wire_cut_length, 0) + " mm (the winding and the spec's leads)");
-    p.text(x0, ny += 16, "volume " + detail::significant(g.volume() * 1e9, 5) + " mm\u00b3; mesh " + std::to_string(b.check.triangles) +
+    p.text(x0, ny += 16, "volume " + detail::significant(b.volume * 1e9, 5) + " mm\u00b3; mesh " + std::to_string(b.check.triangles) +
                              " triangles at " + mm(b.chord_tolerance, 3) + " mm chord tolerance");
     if (g.kind == FormerKind::ribbed) {
         p.text(x0, ny += 16, std::to_string(g.ribs) + " ribs, " + mm(g.rib_angle * g.root_radius, 2) + " wide at the root, hub \u2300" +
@@ -253,7 +227,7 @@ std::string former_text_report(const FormerBuild& b, const std::vector<std::stri
     const FormerGeometry& g = b.geometry;
     std::ostringstream o;
     o << "libcoil " << version << " \u2014 coil former\n" << b.name << "\n\n";
-    o << "Former: " << kind_words(g.kind) << " of " << b.material << ", " << profile_name(g.profile) << " groove\n";
+    o << "Former: " << kind_words(g.kind) << " of " << b.material << ", " << choice_name(g.profile) << " groove\n";
     o << "  " << detail::significant(g.turns, 6) << " turns at " << q(g.pitch) << " pitch\n";
     o << "  outer diameter " << q(2 * g.outer_radius) << ", groove root " << q(2 * g.root_radius) << " (wire centre "
       << q(2 * g.seat_radius) << ")";
@@ -266,7 +240,7 @@ std::string former_text_report(const FormerBuild& b, const std::vector<std::stri
     if (g.flange_thickness > 0) o << "  flanges " << q(2 * g.flange_radius) << " x " << q(g.flange_thickness) << " at both ends\n";
     o << "  length " << q(g.length) << ": winding " << q(g.length - 2 * g.ends) << ", plain ends " << q(g.ends) << "\n";
     o << "  wire to cut " << detail::fixed(g.wire_cut_length, 3) << " m (the winding and the spec's leads)\n";
-    const double v = g.volume();
+    const double v = b.volume;
     o << "  volume " << detail::significant(v * 1e6, 4) << " cm\u00b3 (the mesh's is " << detail::significant(100 * (b.check.volume / v - 1), 2)
       << " % from the closed form)\n";
     o << "Mesh: " << b.check.triangles << " triangles at " << q(b.chord_tolerance)
@@ -284,7 +258,7 @@ std::string former_json_report(const FormerBuild& b, const std::vector<std::stri
     j["kind"] = former_kind_name(g.kind);
     j["material"] = b.material;
     j["triangles"] = b.check.triangles;
-    j["volume_mm3"] = g.volume() * 1e9;
+    j["volume_mm3"] = b.volume * 1e9;
     j["mesh_volume_mm3"] = b.check.volume * 1e9;
     j["outer_diameter_mm"] = 2e3 * g.outer_radius;
     j["root_diameter_mm"] = 2e3 * g.root_radius;
@@ -293,7 +267,7 @@ std::string former_json_report(const FormerBuild& b, const std::vector<std::stri
     j["bore_oversize_mm"] = 1e3 * g.bore_oversize;
     j["pitch_mm"] = 1e3 * g.pitch;
     j["turns"] = g.turns;
-    j["groove"] = {{"profile", profile_name(g.profile)}, {"depth_mm", 1e3 * g.groove_depth()}, {"clearance_mm", 1e3 * g.clearance},
+    j["groove"] = {{"profile", choice_name(g.profile)}, {"depth_mm", 1e3 * g.groove_depth()}, {"clearance_mm", 1e3 * g.clearance},
                    {"width_at_wire_centre_mm", 2e3 * g.groove_radius}};
     j["length_mm"] = 1e3 * g.length;
     j["ends_mm"] = 1e3 * g.ends;
@@ -317,12 +291,11 @@ std::vector<std::string> former_file_paths(const std::string& dir, const std::st
     return {(d / (stem + ".former.stl")).string(), (d / (stem + ".former.svg")).string(), (d / (stem + ".former.yaml")).string()};
 }
 
-std::vector<std::string> write_former_files(const FormerBuild& b, const std::string& dir, const std::string& stem, bool ascii_stl) {
+FileSet former_files(const FormerBuild& b, const std::string& dir, const std::string& stem, bool ascii_stl) {
     const auto paths = former_file_paths(dir, stem);
-    const std::string contents[] = {ascii_stl ? stl_ascii(b.mesh, "libcoil_former") : stl_binary(b.mesh, "libcoil former, mm: " + b.name),
-                                    former_sheet_svg(b), former_dimensions_yaml(b)};
-    for (std::size_t i = 0; i < paths.size(); ++i) write_file_atomically(paths[i], contents[i]);
-    return paths;
+    return {{paths[0], ascii_stl ? stl_ascii(b.mesh, "libcoil_former") : stl_binary(b.mesh, "libcoil former, mm: " + b.name)},
+            {paths[1], former_sheet_svg(b)},
+            {paths[2], former_dimensions_yaml(b)}};
 }
 
 }  // namespace libcoil

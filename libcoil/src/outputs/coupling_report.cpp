@@ -1,4 +1,4 @@
-#include "libcoil/outputs/coupling_output.hpp"
+#include "libcoil/outputs/coupling_report.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -8,9 +8,6 @@
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
-#include "libcoil/models/inductance.hpp"
-#include "libcoil/models/losses.hpp"
-#include "libcoil/models/shield.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/version.hpp"
 #include "core/text_format.hpp"
@@ -22,68 +19,7 @@ namespace {
 using detail::fixed;
 using detail::significant;
 
-double resistance_at(const CoilSpec& s, double f) {
-    const double l = recommended_inductance(s.solenoid);
-    return coil_at_frequencies(s.solenoid, s.conductor, s.operating.temperature, l, {f}).front().resistance;
-}
-
 }  // namespace
-
-const char* arrangement_name(Arrangement a) { return a == Arrangement::coaxial ? "coaxial" : "side-by-side"; }
-
-CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement arr, double distance, double offset,
-                             std::vector<double> frequencies, double rs, double rl, const std::vector<double>& sweep) {
-    CouplingStudy s;
-    s.name_a = a.name.empty() ? "coil A" : a.name;
-    s.name_b = b.name.empty() ? "coil B" : b.name;
-    s.arrangement = arr;
-    s.distance = require_positive("distance", distance);
-    s.axial_offset = require_finite("axial_offset", offset);
-    s.source_resistance = require_positive("source_resistance", rs);
-    s.load_resistance = require_positive("load_resistance", rl);
-    s.at = coupling(a.solenoid, b.solenoid, arr, distance, offset);
-    s.dipole_mutual = dipole_mutual_inductance(a.solenoid, b.solenoid, arr, distance);
-    if (frequencies.empty()) {
-        frequencies = a.operating.frequencies;
-        frequencies.insert(frequencies.end(), b.operating.frequencies.begin(), b.operating.frequencies.end());
-        std::sort(frequencies.begin(), frequencies.end());
-        frequencies.erase(std::unique(frequencies.begin(), frequencies.end()), frequencies.end());
-        frequencies.erase(std::remove_if(frequencies.begin(), frequencies.end(), [](double f) { return !(f > 0); }), frequencies.end());
-        if (frequencies.empty()) s.notes.push_back("no frequency given (--frequency, or operating.frequencies in a spec): no crosstalk figures");
-    }
-    for (double f : frequencies) {
-        require_positive("frequency", f);
-        const double ra = resistance_at(a, f), rb = resistance_at(b, f);
-        // Each shield is credited with its wall's figure, capped, and no more than its open ends let out.
-        double se = 0, theory = 0;
-        const auto wall = [&](const ShieldSpec& sh, double r, const Solenoid& coil) {
-            theory += magnetic_shielding(sh, f, r).total_db;
-            se += credited_magnetic_shielding_db(sh, f, r, coil.winding_length());
-        };
-        if (a.shield) wall(*a.shield, a.shield->inner_diameter / 2, a.solenoid);
-        if (b.shield) wall(*b.shield, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2), b.solenoid);
-        s.theoretical_shielding_db.push_back(theory);
-        Coupling shielded = s.at;
-        shielded.mutual *= std::pow(10.0, -se / 20);
-        s.crosstalk.push_back(crosstalk(shielded, f, ra, rb, rs, rl));
-        s.unshielded_db.push_back(crosstalk(s.at, f, ra, rb, rs, rl).transfer_db);
-        s.shielding_db.push_back(se);
-    }
-    if (a.shield || b.shield) {
-        s.notes.push_back("shields: Schelkunoff's plane-sheet shielding effectiveness of each wall against the near magnetic field, "
-                          "applied to M, at most 100 dB a wall (common practice, no source: seams and slots leak long before the "
-                          "seamless wall's figure), and for an open tube no more than leaks from its ends (the TE01 mode below cutoff, "
-                          "33 dB per radius of tube beyond the winding); L and R are the unshielded coils'");
-    }
-    for (double d : sweep) {
-        const Coupling c = coupling(a.solenoid, b.solenoid, arr, d, offset);
-        s.sweep.push_back({d, c.mutual, c.coefficient});
-    }
-    s.notes.push_back("each coil as circular filaments, one per turn, on its mean diameter; the crosstalk takes each coil as R + jwL, "
-                      "so it holds well below either coil's self-resonance");
-    s.notes.push_back("no shield or nearby metal is modelled: a conductive enclosure changes both L and M");
-    return s;
-}
 
 std::string coupling_text_report(const CouplingStudy& s, const std::vector<std::string>& files) {
     std::ostringstream o;
@@ -92,19 +28,21 @@ std::string coupling_text_report(const CouplingStudy& s, const std::vector<std::
     o << "Arrangement: " << arrangement_name(s.arrangement) << ", centres " << format_quantity(s.distance, Dimension::length) << " apart";
     if (s.axial_offset != 0) o << ", B offset " << format_quantity(s.axial_offset, Dimension::length) << " along the axes";
     o << "\n  L_A " << format_quantity(s.at.inductance_a, Dimension::inductance) << ", L_B " << format_quantity(s.at.inductance_b, Dimension::inductance)
-      << "\n  M   " << format_quantity(s.at.mutual, Dimension::inductance) << " (the far-field dipole estimate: "
-      << format_quantity(s.dipole_mutual, Dimension::inductance) << ")\n  k   " << significant(s.at.coefficient, 4) << "\n";
-    if (!s.crosstalk.empty()) {
-        const bool shielded = std::any_of(s.shielding_db.begin(), s.shielding_db.end(), [](double v) { return v > 0; });
+      << " (bare)\n  M   " << format_quantity(s.at.mutual, Dimension::inductance) << " (the far-field dipole estimate: "
+      << format_quantity(s.dipole_mutual, Dimension::inductance) << ")\n  k   " << significant(s.at.coefficient, 4) << " (bare coils)\n";
+    if (!s.shield_a.empty()) o << "  A in its " << s.shield_a << ": L " << format_quantity(s.mounted_inductance_a, Dimension::inductance) << "\n";
+    if (!s.shield_b.empty()) o << "  B in its " << s.shield_b << ": L " << format_quantity(s.mounted_inductance_b, Dimension::inductance) << "\n";
+    if (!s.at_frequency.empty()) {
+        const bool shielded = !s.shield_a.empty() || !s.shield_b.empty();
         o << "\nCrosstalk, A driven from " << significant(s.source_resistance, 4) << " \u03a9, B loaded by " << significant(s.load_resistance, 4)
           << " \u03a9\n  frequency      V_B open / I_A    |S21|" << (shielded ? "      shields    unshielded |S21|" : "") << "\n";
-        for (std::size_t i = 0; i < s.crosstalk.size(); ++i) {
-            const auto& x = s.crosstalk[i];
+        for (const auto& row : s.at_frequency) {
+            const Crosstalk& x = row.crosstalk;
             o << "  " << detail::pad(format_quantity(x.frequency, Dimension::frequency), 15)
               << detail::pad(x.transfer_impedance >= 1e-12 ? format_quantity(x.transfer_impedance, Dimension::resistance)
                                                            : significant(x.transfer_impedance, 3) + " \u03a9", 18)
               << detail::pad(fixed(x.transfer_db, 1) + " dB", 12);
-            if (shielded) o << detail::pad(fixed(s.shielding_db[i], 1) + " dB", 11) << fixed(s.unshielded_db[i], 1) << " dB";
+            if (shielded) o << detail::pad(fixed(row.shielding_db, 1) + " dB", 11) << fixed(row.unshielded_db, 1) << " dB";
             o << "\n";
         }
     }
@@ -135,14 +73,17 @@ std::string coupling_json_report(const CouplingStudy& s, const std::vector<std::
     j["coupling_coefficient"] = s.at.coefficient;
     j["source_resistance_ohm"] = s.source_resistance;
     j["load_resistance_ohm"] = s.load_resistance;
+    j["shield_a"] = s.shield_a.empty() ? nlohmann::ordered_json(nullptr) : nlohmann::ordered_json(s.shield_a);
+    j["shield_b"] = s.shield_b.empty() ? nlohmann::ordered_json(nullptr) : nlohmann::ordered_json(s.shield_b);
+    j["mounted_inductance_a_H"] = s.mounted_inductance_a;
+    j["mounted_inductance_b_H"] = s.mounted_inductance_b;
     auto xs = nlohmann::ordered_json::array();
-    for (const auto& x : s.crosstalk) {
-        xs.push_back({{"frequency_Hz", x.frequency}, {"transfer_impedance_ohm", x.transfer_impedance}, {"transfer_dB", x.transfer_db}});
-    }
-    for (std::size_t i = 0; i < xs.size(); ++i) {
-        xs[i]["shielding_dB"] = s.shielding_db[i];
-        xs[i]["theoretical_shielding_dB"] = s.theoretical_shielding_db[i];
-        xs[i]["unshielded_transfer_dB"] = s.unshielded_db[i];
+    for (const auto& row : s.at_frequency) {
+        const Crosstalk& x = row.crosstalk;
+        xs.push_back({{"frequency_Hz", x.frequency}, {"transfer_impedance_ohm", x.transfer_impedance}, {"transfer_dB", x.transfer_db},
+                      {"shielding_dB", row.shielding_db}, {"theoretical_shielding_dB", row.theoretical_shielding_db},
+                      {"unshielded_transfer_dB", row.unshielded_db}, {"resistance_a_ohm", row.resistance_a},
+                      {"inductance_a_H", row.inductance_a}, {"resistance_b_ohm", row.resistance_b}, {"inductance_b_H", row.inductance_b}});
     }
     j["crosstalk"] = xs;
     auto sw = nlohmann::ordered_json::array();
@@ -188,11 +129,9 @@ std::string coupling_svg(const CouplingStudy& s) {
     o << "<polyline id=\"coupling\" fill=\"none\" stroke=\"#1f5fa8\" stroke-width=\"2\" points=\"";
     for (const auto& p : s.sweep) o << fixed(X(p.distance), 2) << "," << fixed(Y(std::fabs(p.coefficient)), 2) << " ";
     o << "\"/>\n";
-    const double la = s.at.inductance_a, lb = s.at.inductance_b;
-    const double scale = s.dipole_mutual * std::pow(s.distance, 3) / std::sqrt(la * lb);  // k_dipole d^3
     o << "<polyline id=\"dipole\" fill=\"none\" stroke=\"#a33\" stroke-dasharray=\"6 4\" points=\"";
     for (const auto& p : s.sweep) {
-        const double k = std::fabs(scale) / std::pow(p.distance, 3);
+        const double k = std::fabs(p.dipole_coefficient);
         if (Y(k) >= top) o << fixed(X(p.distance), 2) << "," << fixed(Y(k), 2) << " ";
     }
     o << "\"/>\n";

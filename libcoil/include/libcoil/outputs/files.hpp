@@ -1,0 +1,22 @@
+// Writing result files: all or nothing.
+#pragma once
+
+#include <filesystem>
+#include <string>
+#include <string_view>
+#include <utility>
+#include <vector>
+
+namespace libcoil {
+
+// Writes `content` to a temporary file beside `path`, then renames it over `path`, so that a reader never
+// sees a partial file. Creates missing parent directories. Throws InputError naming the path on failure.
+void write_file_atomically(const std::filesystem::path& path, std::string_view content);
+
+// A command's output set, written whole or not at all: every file is first staged beside its final name
+// (NAME.tmp.PID), and only when all are staged are they renamed into place. If staging fails, what was
+// staged is removed and nothing under a final name has changed; the InputError names the path that failed.
+using FileSet = std::vector<std::pair<std::filesystem::path, std::string>>;
+void write_file_set(const FileSet& files);
+
+}  // namespace libcoil

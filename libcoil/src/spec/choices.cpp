@@ -1,0 +1,89 @@
+#include "libcoil/spec/choices.hpp"
+
+#include <array>
+
+#include "libcoil/core/error.hpp"
+
+namespace libcoil {
+
+namespace {
+
+constexpr std::array<Choice<Mounting>, 2> mountings{{
+    {Mounting::floating, "floating", "both terminals free of ground"},
+    {Mounting::grounded_end, "grounded-end", "one terminal on a ground plane, driven against it"},
+}};
+constexpr std::array<Choice<FormerKind>, 2> former_kinds{{
+    {FormerKind::grooved_tube, "grooved-tube", "a tube with a helical groove"},
+    {FormerKind::ribbed, "ribbed", "axial ribs on a hub, grooved"},
+}};
+constexpr std::array<Choice<GrooveProfile>, 2> groove_profiles{{
+    {GrooveProfile::round, "round", "a round-bottomed groove that fits the wire"},
+    {GrooveProfile::vee, "vee", "a vee groove"},
+}};
+constexpr std::array<Choice<ImpedanceModel>, 2> impedance_models{{
+    {ImpedanceModel::helical_line, "helical-line", "the winding as a distributed line (recommended)"},
+    {ImpedanceModel::lumped, "lumped", "(R + jwL) in parallel with the self-capacitance"},
+}};
+constexpr std::array<Choice<CapacitanceSource>, 2> capacitance_sources{{
+    {CapacitanceSource::helical_line, "helical-line", "the helical line's self-capacitance"},
+    {CapacitanceSource::medhurst, "medhurst", "Medhurst's measured self-capacitance (lumped model only)"},
+}};
+constexpr std::array<Choice<LossSolver>, 2> loss_solvers{{
+    {LossSolver::closed_form, "closed-form", "Bessel skin effect and Butterworth proximity effect"},
+    {LossSolver::filaments, "filaments", "the numerical cross-section solver"},
+}};
+constexpr std::array<Choice<Arrangement>, 2> arrangements{{
+    {Arrangement::coaxial, "coaxial", "on one axis"},
+    {Arrangement::side_by_side, "side-by-side", "parallel axes"},
+}};
+constexpr std::array<Choice<Spacing>, 2> spacings{{
+    {Spacing::logarithmic, "log", "logarithmic"},
+    {Spacing::linear, "linear", "linear"},
+}};
+
+template <class E, std::size_t N>
+const char* name_in(const std::array<Choice<E>, N>& table, E value) {
+    for (const auto& c : table) {
+        if (c.value == value) return c.name;
+    }
+    return "?";
+}
+
+template <class E, std::size_t N>
+E parse_in(const std::array<Choice<E>, N>& table, std::string_view text, std::string_view field) {
+    std::string allowed;
+    for (const auto& c : table) {
+        if (text == c.name) return c.value;
+        allowed += (allowed.empty() ? "\"" : ", \"") + std::string(c.name) + "\"";
+    }
+    throw InputError(std::string(field), quoted(text) + "; expected one of " + allowed);
+}
+
+}  // namespace
+
+#define LIBCOIL_CHOICES(E, table)                                                                   \
+    template <>                                                                                     \
+    std::span<const Choice<E>> choices<E>() {                                                       \
+        return table;                                                                               \
+    }                                                                                               \
+    template <>                                                                                     \
+    const char* choice_name<E>(E value) {                                                           \
+        return name_in(table, value);                                                               \
+    }                                                                                               \
+    template <>                                                                                     \
+    E parse_choice<E>(std::string_view text, std::string_view field) {                             \
+        return parse_in(table, text, field);                                                        \
+    }
+
+LIBCOIL_CHOICES(Mounting, mountings)
+LIBCOIL_CHOICES(FormerKind, former_kinds)
+LIBCOIL_CHOICES(GrooveProfile, groove_profiles)
+LIBCOIL_CHOICES(ImpedanceModel, impedance_models)
+LIBCOIL_CHOICES(CapacitanceSource, capacitance_sources)
+LIBCOIL_CHOICES(LossSolver, loss_solvers)
+LIBCOIL_CHOICES(Arrangement, arrangements)
+LIBCOIL_CHOICES(Spacing, spacings)
+
+#undef LIBCOIL_CHOICES
+
+}  // namespace libcoil

@@ -1,0 +1,139 @@
+// Internal: the design search's evaluation of one candidate, step by step, and what one thread keeps.
+//
+// The steps, in order of cost: fit (the shield, the outer diameter, the room for a winding, the groove),
+// solve (the turns and pitch that meet the target, with the shield's change of L), figures, wire length,
+// thermal (winding_heat.hpp, as `coil analyze` computes it), band (band_check.hpp's screen_band on the
+// coil as mounted: with a shield, its high-frequency L, its capacitance and the shielded SRF), and last
+// the loss at the reference frequency. A failing step counts the candidate under its reason.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <cstdint>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "libcoil/models/nagaoka.hpp"
+#include "libcoil/models/rosa.hpp"
+#include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/requirement.hpp"
+#include "libcoil/studies/design.hpp"
+#include "studies/pareto_archive.hpp"
+
+namespace libcoil::detail {
+
+// Band screening points during the search: the winners are checked in full at 512.
+inline constexpr int screen_points = 9;
+
+struct Candidate {
+    std::size_t wire;
+    double form_diameter, ratio;
+};
+
+// Why a candidate fails, with the key the report and JSON use and the words of the binding-limit note.
+enum class Reason : std::size_t {
+    outer_diameter, length, wire_length, thermal, srf_margin, max_deviation, min_impedance,
+    inductance_out_of_reach, snapping, groove, shield, model_domain, count
+};
+struct ReasonText {
+    const char *key, *words;
+};
+constexpr std::array<ReasonText, static_cast<std::size_t>(Reason::count)> reason_text{{
+    {"outer_diameter", "the outer diameter limit"},
+    {"length", "the length limit (the target needs more winding than fits)"},
+    {"wire_length", "the wire length limit"},
+    {"thermal", "the thermal limit (enamel class or former service temperature)"},
+    {"srf_margin", "the band's SRF margin"},
+    {"max_deviation", "the band's deviation limit"},
+    {"min_impedance", "the band's minimum impedance"},
+    {"inductance_out_of_reach", "the target inductance (out of reach with these turns)"},
+    {"snapping", "snapping the turns to the step"},
+    {"groove", "the former's groove (the pitch must exceed the wire by the groove's clearance)"},
+    {"shield", "the shield (its inner diameter, or the shielded inductance after the trim)"},
+    {"model_domain", "the models' domain"},
+}};
+
+// The words of a reason's key ("the length limit ..."), for the binding-limit note.
+std::string reason_words(const std::string& key);
+
+// One thread's share of the search: its Pareto archive, counts and closest miss.
+struct Tally {
+    Archive front;
+    std::array<std::size_t, static_cast<std::size_t>(Reason::count)> rejected = {};
+    std::optional<Rejection> closest = std::nullopt;
+    std::size_t feasible = 0;
+    double sheet_rho = -1;  // Nagaoka's coefficient at the last longest winding's D / l
+    NagaokaSlope sheet{};
+    // The last wire and form whose longest winding fell short of the target, and in which model (Rosa's
+    // or the filament sum's); see Evaluator::check.
+    struct ShortOfTarget {
+        std::size_t wire = SIZE_MAX;
+        double form_diameter = 0;
+        bool rosa = false;
+    } short_of_target{};
+
+    // A miss known to be no closer than one already counted.
+    void count(Reason reason) { ++rejected[static_cast<std::size_t>(reason)]; }
+
+    // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).
+    template <class Detail>
+    void reject(Reason reason, double excess, const Detail& detail) {
+        const auto r = static_cast<std::size_t>(reason);
+        ++rejected[r];
+        if (!closest || excess < closest->excess) keep_closest(r, excess, detail);
+    }
+
+private:
+    // Out of line and cold: the text is built rarely, and kept apart it leaves the search's hot code small.
+    template <class Detail>
+    [[gnu::noinline, gnu::cold]] void keep_closest(std::size_t r, double excess, const Detail& detail) {
+        closest = Rejection{reason_text[r].key, excess, detail()};
+    }
+};
+
+// One evaluation of the recommended inductance: where, what, and its slopes where Rosa's form gives them.
+struct Point {
+    double n = 0, p = 0;
+    RecommendedInductance l;
+};
+
+// What the geometry steps settle for a candidate.
+struct Geometry {
+    double d_ins = 0, mean = 0, outer = 0, room = 0;  // m; room: for N p
+    double n = 0, p = 0, n_solved = 0, p_grid = 0;    // the turns and pitch found, before snapping and trim
+    double bare_inductance = 0;                        // H, unshielded, at (n, p)
+    double shielded_change = 0;                        // H, the shield's high-frequency change at (n, p)
+};
+
+class Evaluator {
+public:
+    explicit Evaluator(const Requirement& q);
+
+    double ceiling() const { return ceiling_; }
+
+    // A model that still throws for a candidate (a DomainError from a result out of double range, say)
+    // rejects that candidate under the models' domain; it never stops the search or its thread.
+    void evaluate(const Candidate& c, Tally& t) const;
+
+private:
+    void check(const Candidate& c, Tally& t) const;
+    bool fit(const Candidate& c, Geometry& g, Tally& t) const;
+    bool solve(const Candidate& c, Geometry& g, Tally& t) const;
+    DesignFigures figures(const Candidate& c, const Geometry& g, const Solenoid& s) const;
+    bool screen_thermal(const Candidate& c, const Solenoid& s, DesignFigures& d, Tally& t) const;
+    bool screen_band(const Candidate& c, const Solenoid& s, const Geometry& g, DesignFigures& d, Tally& t,
+                     std::optional<double>& field) const;
+    void loss_at_reference(const Solenoid& s, DesignFigures& d, const std::optional<double>& field) const;
+    std::string what(const Candidate& c) const;
+    double shield_change(double mean, std::size_t wire, double turns, double pitch) const;
+    template <class F, class Guide>
+    bool solve_pitch(double n, double p_min, double room, const F& L, const Guide& guide, double target, double& p,
+                     const Point& last) const;
+
+    const Requirement& q_;
+    std::vector<Wire> unlabelled_;
+    double ceiling_ = 0, reference_ = 0, limit_ = 0, fewest_turns_ = 1;
+};
+
+}  // namespace libcoil::detail

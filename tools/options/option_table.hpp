@@ -1,0 +1,137 @@
+// The one table of front-end options: every option of every `coil` verb, with the name the command line
+// gives it (its flag) and the name the Python module gives it (its keyword, which is also the field name
+// the library's errors use). The CLI builds its parser from this table and turns a library error's field
+// back into the flag the user typed; the Python module names its keywords from it and exposes it as
+// libcoil.option_table(), so that a test can drive both front ends from the same rows.
+//
+// Enumerated options take their words from the library's choices table (libcoil/spec/choices.hpp): neither
+// front end spells a choice itself.
+#pragma once
+
+#include <stdexcept>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "libcoil/core/units.hpp"
+#include "libcoil/spec/choices.hpp"
+
+namespace libcoil::frontend {
+
+enum class Kind {
+    flag,      // on or off
+    integer,   // a whole number
+    quantity,  // a number with a unit ("20 mm"); SI float in Python
+    choice,    // one word of a choices table
+    text,      // free text (a gauge, a flange "40 mm x 2 mm", a path)
+};
+
+struct Option {
+    const char* verb;   // "analyze", "sweep", ...; "" for a positional argument's verb as well
+    const char* key;    // the Python keyword and the library's field name
+    const char* flag;   // the command-line flag, "--solver"; a positional argument has none ("")
+    Kind kind;
+    const char* help;
+    Dimension dimension = Dimension::dimensionless;      // quantity only
+    std::vector<std::string> (*choices)() = nullptr;     // choice only
+    const char* default_text = "";                        // shown in help; "" when there is none
+    bool python = true;                                   // the Python function takes it by this key
+};
+
+inline const std::vector<Option>& option_table() {
+    using D = Dimension;
+    static const std::vector<Option> table{
+        // coil analyze SPEC
+        {"analyze", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
+        {"analyze", "out", "--out", Kind::text, "Also write the report and the JSON into this directory", D::dimensionless, nullptr, "", false},
+        {"analyze", "solver", "--solver", Kind::choice,
+         "Losses by 'closed-form' (Bessel skin + Butterworth proximity) or 'filaments' (numerical cross-section solver)",
+         D::dimensionless, &choice_names<LossSolver>, "closed-form"},
+        {"analyze", "layers", "--layers", Kind::integer, "Solver: radial layers across the wire (default: enough to resolve the skin depth)"},
+        {"analyze", "sectors", "--sectors", Kind::integer, "Solver: angular cells per layer (default: twice the layers)"},
+        // coil sweep SPEC
+        {"sweep", "from", "--from", Kind::quantity, "First frequency (default: half the band's low edge, or SRF / 1000)", D::frequency,
+         nullptr, "", false},
+        {"sweep", "to", "--to", Kind::quantity, "Last frequency (default: 3 x SRF, or twice the band ceiling if higher)", D::frequency,
+         nullptr, "", false},
+        {"sweep", "points", "--points", Kind::integer, "Number of frequencies", D::dimensionless, nullptr, "401", false},
+        {"sweep", "spacing", "--spacing", Kind::choice, "Frequency spacing", D::dimensionless, &choice_names<Spacing>, "log", false},
+        {"sweep", "model", "--model", Kind::choice, "Impedance model: helical-line (distributed) or lumped (R + jwL parallel C)",
+         D::dimensionless, &choice_names<ImpedanceModel>, "helical-line"},
+        {"sweep", "capacitance", "--capacitance", Kind::choice, "Lumped model only: self-capacitance by helical-line or medhurst",
+         D::dimensionless, &choice_names<CapacitanceSource>, "helical-line"},
+        {"sweep", "out", "--out", Kind::text, "Write STEM.sweep.csv, STEM.s1p and STEM.sweep.svg here (else CSV to stdout)",
+         D::dimensionless, nullptr, "", false},
+        // coil design REQUIREMENT
+        {"design", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
+        {"design", "out", "--out", Kind::text, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)",
+         D::dimensionless, nullptr, "", false},
+        {"design", "top", "--top", Kind::integer, "Designs to list", D::dimensionless, nullptr, "10"},
+        {"design", "threads", "--threads", Kind::integer, "Search threads (default: all cores)"},
+        {"design", "spread", "--spread", Kind::flag, "Monte Carlo of the build tolerances on the chosen design"},
+        {"design", "samples", "--samples", Kind::integer, "Spread: number of samples", D::dimensionless, nullptr, "2000"},
+        {"design", "seed", "--seed", Kind::integer, "Spread: random seed (the same seed gives the same samples)", D::dimensionless, nullptr, "1"},
+        // coil former SPEC
+        {"former", "out_dir", "--out", Kind::text, "Write STEM.former.stl, STEM.former.svg and STEM.former.yaml here"},
+        {"former", "kind", "--kind", Kind::choice, "Former kind (default: the spec's former.kind)", D::dimensionless,
+         &choice_names<FormerKind>},
+        {"former", "ribs", "--ribs", Kind::integer, "Ribbed: number of ribs"},
+        {"former", "rib_width", "--rib-width", Kind::quantity, "Ribbed: width of each rib at the groove root, e.g. \"3 mm\"", D::length},
+        {"former", "profile", "--profile", Kind::choice, "Groove profile", D::dimensionless, &choice_names<GrooveProfile>},
+        {"former", "groove_depth", "--groove-depth", Kind::quantity, "Groove depth below the outer surface (default: half the insulated wire)",
+         D::length},
+        {"former", "clearance", "--clearance", Kind::quantity, "How much wider than the insulated wire the groove is (default 0.1 mm)",
+         D::length},
+        {"former", "flange", "--flange", Kind::text, "End flanges, DIAMETER x THICKNESS, e.g. \"40 mm x 2 mm\" (Python: a pair in m)"},
+        {"former", "bore_oversize", "--bore-oversize", Kind::quantity,
+         "Print the bore this much wider (on the diameter) than nominal, for the shrinkage of printed holes", D::length},
+        {"former", "ends", "--ends", Kind::quantity, "Plain former beyond the winding at each end (default: the spec's, else 5 mm)", D::length},
+        {"former", "chord_tolerance", "--chord", Kind::quantity, "Chord tolerance of the mesh", D::length, nullptr, "0.01 mm"},
+        {"former", "ascii", "--ascii", Kind::flag, "Write ASCII STL instead of binary"},
+        {"former", "json", "--json", Kind::flag, "Print one JSON summary instead of the report", D::dimensionless, nullptr, "", false},
+        // coil couple A B
+        {"couple", "distance", "--distance", Kind::quantity, "Centre-to-centre distance, e.g. \"60 mm\"", D::length},
+        {"couple", "arrangement", "--arrangement", Kind::choice, "coaxial (one axis) or side-by-side (parallel axes)", D::dimensionless,
+         &choice_names<Arrangement>, "coaxial"},
+        {"couple", "axial_offset", "--offset", Kind::quantity, "Side by side: B's centre shifted along the axes", D::length, nullptr, "0 mm"},
+        {"couple", "frequencies", "--frequency", Kind::quantity, "Crosstalk frequencies (default: the specs' operating frequencies)",
+         D::frequency},
+        {"couple", "source_resistance", "--source", Kind::quantity, "Source resistance driving A", D::resistance, nullptr, "50 ohm"},
+        {"couple", "load_resistance", "--load", Kind::quantity, "Load resistance on B", D::resistance, nullptr, "50 ohm"},
+        {"couple", "sweep_distances", "--sweep-distance", Kind::text,
+         "FROM:TO:POINTS, log-spaced: a table of k, and a picture with --out (Python: an array of distances in m)"},
+        {"couple", "out", "--out", Kind::text, "Write A+B.couple.json (and .svg with --sweep-distance) here", D::dimensionless, nullptr, "", false},
+        {"couple", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
+        // coil wire
+        {"wire", "gauge", "--gauge", Kind::text, "AWG gauge, e.g. \"AWG 18\""},
+        {"wire", "diameter", "--diameter", Kind::quantity, "Bare diameter, e.g. \"1 mm\"", D::length},
+        {"wire", "insulation", "--insulation", Kind::quantity, "Radial insulation build, e.g. \"0.04 mm\"", D::length},
+        {"wire", "enamel_grade", "--enamel", Kind::text, "IEC 60317 enamel grade 1, 2 or 3 (when no --insulation)", D::dimensionless,
+         nullptr, "1"},
+        {"wire", "frequency", "--frequency", Kind::quantity, "Frequency", D::frequency, nullptr, "1 MHz", false},
+        {"wire", "temperature", "--temperature", Kind::quantity, "Wire temperature", D::temperature, nullptr, "20 degC", false},
+        {"wire", "conductor", "--conductor", Kind::text, "copper, aluminium or silver", D::dimensionless, nullptr, "copper", false},
+        {"wire", "json", "--json", Kind::flag, "Print one JSON object with SI values", D::dimensionless, nullptr, "", false},
+        {"wire", "table", "--table", Kind::flag, "Print a table of AWG and metric wires instead", D::dimensionless, nullptr, "", false},
+    };
+    return table;
+}
+
+inline const Option& option(std::string_view verb, std::string_view key) {
+    for (const Option& o : option_table()) {
+        if (verb == o.verb && key == o.key) return o;
+    }
+    throw std::logic_error("no option " + std::string(key) + " for " + std::string(verb));
+}
+
+// The flag a library field names for a verb (an error's field: an option's key, or its flag's word, as
+// make_wire's "enamel"), or the field itself when no option has it.
+inline std::string flag_for_field(std::string_view verb, const std::string& field) {
+    for (const Option& o : option_table()) {
+        if (verb != o.verb || !*o.flag) continue;
+        if (field == o.key || field == std::string_view(o.flag).substr(2)) return o.flag;
+    }
+    return field;
+}
+
+}  // namespace libcoil::frontend
