@@ -5,6 +5,7 @@ import math
 import pathlib
 import time
 
+import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
@@ -63,12 +64,17 @@ def test_bad_requirement_exits_2(run_coil, tmp_path):
 def test_python_design_matches_the_cli(run_coil, source_dir):
     q = libcoil.load_requirement(str(source_dir / DEMO))
     py = libcoil.design(q, top=3)
+    assert isinstance(py, libcoil.DesignResult)
     cli = json.loads(run_coil("design", source_dir / DEMO, "--json", "--top", "3").stdout)
-    assert py["candidates_evaluated"] == cli["candidates_evaluated"]
-    assert [d["score"] for d in py["designs"]] == [d["score"] for d in cli["designs"]]
-    spread = libcoil.design(q, top=1, spread=True, samples=200, seed=3)["spread"]
-    assert spread["samples"] + spread["left_out"] == 200
-    assert spread["inductance_H"]["low_2_5_percent"] < spread["inductance_H"]["mean"] < spread["inductance_H"]["high_97_5_percent"]
+    assert py.candidates_evaluated == cli["candidates_evaluated"]
+    assert list(py.designs.score) == [d["score"] for d in cli["designs"]]
+    assert list(py.designs.spec) == [d["spec"] for d in cli["designs"]]
+    assert py.chosen == cli["chosen"]
+    # The chosen design's full re-analysis comes along as an Analysis object.
+    assert py.chosen_analysis.inductance.recommended == pytest.approx(py.designs.inductance[py.chosen], rel=1e-7)
+    spread = libcoil.design(q, top=1, spread=True, samples=200, seed=3).spread
+    assert spread.samples + spread.left_out == 200
+    assert spread.inductance.low < spread.inductance.mean < spread.inductance.high
 
 
 def test_thermal_energy_balance_from_python():
@@ -110,22 +116,21 @@ def test_any_requirement_gets_designs_or_an_explanation(L, outer, length, curren
             f"search: {{wires: [{wire}], form_diameter: {{min: 3 mm, max: 60 mm, step: 19 mm}},"
             f" pitch_ratio: {{min: 1.1, max: 3, step: 0.95}}}}\n")
     r = libcoil.design(libcoil.parse_requirement(text), top=3)
-    assert r["candidates_evaluated"] == 4 * 3
-    assert r["feasible"] + sum(r["rejected_by_reason"].values()) == r["candidates_evaluated"]
-    if r["designs"]:
-        assert r["chosen"] is not None or r["warnings"]
-        for d in r["designs"]:
-            assert abs(d["inductance_H"] / L - 1) < 1e-6
-            assert math.isfinite(d["score"])
+    assert r.candidates_evaluated == 4 * 3
+    assert r.feasible + sum(r.rejected_by_reason.values()) == r.candidates_evaluated
+    if len(r.designs.score):
+        assert r.chosen is not None or r.warnings
+        assert np.all(np.abs(r.designs.inductance / L - 1) < 1e-6)
+        assert np.all(np.isfinite(r.designs.score))
     else:
-        assert r["binding"].startswith("No candidate meets the requirement")
+        assert r.binding.startswith("No candidate meets the requirement")
 
 
 def test_designs_as_a_numpy_record_array(source_dir):
     q = libcoil.load_requirement(str(source_dir / DEMO))
     a = libcoil.design_array(q, top=20)
     d = libcoil.design(q, top=20)
-    assert len(a) == len(d["designs"]) == 20
-    assert list(a.score) == [x["score"] for x in d["designs"]]
+    assert len(a) == len(d.designs.score) == 20
+    assert list(a.score) == list(d.designs.score)
     assert (a.turns % 0.25 == 0).all()
     assert abs(a.inductance / 5e-6 - 1).max() < 1e-9

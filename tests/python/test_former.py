@@ -107,16 +107,18 @@ def test_pitch_and_root_from_the_stl_vertices(spec_file, run_coil, tmp_path):
 def test_python_module_returns_the_mesh_and_writes_the_files(spec_file, tmp_path):
     spec = libcoil.load_coil_spec(str(spec_file))
     r = libcoil.former(spec, out_dir=str(tmp_path), stem="py", kind="ribbed", ribs=6, rib_width=3e-3)
-    v, f = r["vertices"], r["faces"]
-    assert v.shape[1] == 3 and f.shape == (r["triangles"], 3) and f.max() < len(v)
-    # The signed volume by the divergence theorem, in numpy, equals the library's check (m^3 vs mm^3).
+    assert isinstance(r, libcoil.FormerResult)
+    v, f = r.vertices, r.faces
+    assert v.shape[1] == 3 and f.shape == (r.triangles, 3) and f.max() < len(v)
+    # The signed volume by the divergence theorem, in numpy, equals the library's check (both m^3).
     vol = np.einsum("ij,ij->i", v[f[:, 0]], np.cross(v[f[:, 1]], v[f[:, 2]])).sum() / 6
-    assert vol * 1e9 == pytest.approx(r["mesh_volume_mm3"], rel=1e-12)
-    assert vol * 1e9 == pytest.approx(r["volume_mm3"], rel=5e-3)
-    assert [p.split("/")[-1] for p in r["files"]] == ["py.former.stl", "py.former.svg", "py.former.yaml"]
-    assert all((tmp_path / p.split("/")[-1]).stat().st_size > 0 for p in r["files"])
-    assert r["ribs"]["count"] == 6 and r["mesh_check"]["sound"]
-    assert any("ribs" in n for n in r["notes"])  # the chord between ribs, stated
+    assert vol == pytest.approx(r.mesh_volume, rel=1e-12)
+    assert vol == pytest.approx(r.volume, rel=5e-3)
+    assert [p.split("/")[-1] for p in r.files] == ["py.former.stl", "py.former.svg", "py.former.yaml"]
+    assert all((tmp_path / p.split("/")[-1]).stat().st_size > 0 for p in r.files)
+    assert r.ribs.count == 6 and r.mesh_check.sound
+    assert any("ribs" in n for n in r.notes)  # the chord between ribs, stated
+    assert set(r.to_dict()) >= {"vertices", "faces", "pitch", "outer_diameter", "groove"}
     with pytest.raises(libcoil.InputError, match="former.ribs"):
         libcoil.former(spec, kind="ribbed", ribs=12, rib_width=4.5e-3)
 
@@ -124,13 +126,14 @@ def test_python_module_returns_the_mesh_and_writes_the_files(spec_file, tmp_path
 def test_every_design_of_a_requirement_makes_a_former(source_dir, tmp_path, run_coil):
     req = libcoil.load_requirement(str(source_dir / "data" / "examples" / "bench-network-requirement.yaml"))
     result = libcoil.design(req, threads=1, top=10)
-    assert result["designs"]
-    for d in result["designs"]:
-        spec = libcoil.parse_coil_spec(d["spec"], "design")
+    d = result.designs
+    assert len(d.spec) == 10
+    for text, pitch, form in zip(d.spec, d.pitch, d.form_diameter):
+        spec = libcoil.parse_coil_spec(text, "design")
         r = libcoil.former(spec)  # the design spec, unchanged
-        assert r["mesh_check"]["sound"]
-        assert r["pitch_mm"] == pytest.approx(d["pitch_m"] * 1e3, rel=1e-9)
-        assert r["root_diameter_mm"] == pytest.approx(d["form_diameter_m"] * 1e3, rel=1e-9)
+        assert r.mesh_check.sound
+        assert r.pitch == pytest.approx(pitch, rel=1e-9)
+        assert r.root_diameter == pytest.approx(form, rel=1e-9)
 
 
 def test_the_sheet_carries_the_dimensions(spec_file, run_coil, tmp_path):
@@ -178,8 +181,9 @@ def test_the_search_keeps_the_grooves_clearance_between_turns(source_dir):
     result = libcoil.design(libcoil.parse_requirement(text), threads=1, top=50)
     base = libcoil.design(libcoil.load_requirement(str(source_dir / "data" / "examples" / "bench-network-requirement.yaml")),
                           threads=1, top=50)
-    assert result["rejected_by_reason"]["groove"] > base["rejected_by_reason"]["groove"]
-    for d in result["designs"]:
-        insulated = (d["outer_diameter_m"] - d["form_diameter_m"]) / 2
-        assert d["pitch_m"] >= insulated + 0.3e-3 * (1 - 1e-12)
-    assert min(d["pitch_m"] - (d["outer_diameter_m"] - d["form_diameter_m"]) / 2 for d in base["designs"]) < 0.3e-3
+    assert result.rejected_by_reason["groove"] > base.rejected_by_reason["groove"]
+    d = result.designs
+    insulated = (d.outer_diameter - d.form_diameter) / 2
+    assert len(d.pitch) > 0 and np.all(d.pitch >= insulated + 0.3e-3 * (1 - 1e-12))
+    b = base.designs
+    assert np.min(b.pitch - (b.outer_diameter - b.form_diameter) / 2) < 0.3e-3

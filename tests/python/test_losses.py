@@ -129,4 +129,4 @@ def test_close_wound_small_coil_falls_back_to_the_solver(run_coil, tmp_path):
                  "operating: {frequencies: [2 MHz]}\n")
     j = json.loads(run_coil("analyze", p, "--json").stdout)
     assert j["at_frequency"][0]["method"] == "closed-form"
-    assert any("--solver filaments" in w for w in j["warnings"])
+    assert any("rerun with the solver set to filaments" in w for w in j["warnings"])

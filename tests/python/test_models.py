@@ -50,7 +50,7 @@ def test_maxwell_vectorised_over_distance():
 def test_lundin_bound():
     # Lundin 1985: 3 ppm over all D/l.
     rho = np.logspace(-3, 3, 3001)
-    rel = np.abs(libcoil.lundin_coefficient(rho) / libcoil.nagaoka(rho) - 1)
+    rel = np.abs(libcoil.lundin_coefficient(rho) / libcoil.nagaoka_coefficient(rho) - 1)
     assert rel.max() <= 3e-6
 
 

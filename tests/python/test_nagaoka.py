@@ -33,7 +33,7 @@ def nagaoka_scipy(rho):
 def test_against_mpmath_whole_range():
     # Measured: 4.4e-16 within the table (D/l <= 9), 5.6e-16 beyond it (the elliptic integrals).
     rho = np.logspace(-3, 3, 1201)
-    ours = libcoil.nagaoka(rho)
+    ours = libcoil.nagaoka_coefficient(rho)
     ref = np.array([float(nagaoka_mpmath(r)) for r in rho])
     rel = np.abs(ours / ref - 1)
     assert rel.max() <= 2e-15, (rel.max(), rho[rel.argmax()])
@@ -43,7 +43,7 @@ def test_table_against_mpmath_at_random_points():
     # Points that fall anywhere within the table's parts (not on a grid its generator saw).
     rng = np.random.default_rng(2026)
     rho = np.exp(rng.uniform(np.log(1e-4), np.log(9), 400))
-    rel_value = np.abs(libcoil.nagaoka(rho) / np.array([float(nagaoka_mpmath(r)) for r in rho]) - 1)
+    rel_value = np.abs(libcoil.nagaoka_coefficient(rho) / np.array([float(nagaoka_mpmath(r)) for r in rho]) - 1)
     assert rel_value.max() <= 2e-15, rel_value.max()
     ref_slope = np.array([float(mpmath.diff(nagaoka_mpmath, mpmath.mpf(r))) for r in rho[:100]])
     rel_slope = np.abs(libcoil.nagaoka_slope(rho[:100]) / ref_slope - 1)
@@ -54,7 +54,7 @@ def test_against_scipy_where_double_precision_resolves_1e12():
     # In double precision E - k loses digits as 1/k'^2 for short coils: the scipy reference itself is good
     # to 1e-12 only up to D/l of about 100; mpmath (above) carries the check to 1e3.
     rho = np.logspace(-3, 2, 1001)
-    rel = np.abs(libcoil.nagaoka(rho) / nagaoka_scipy(rho) - 1)
+    rel = np.abs(libcoil.nagaoka_coefficient(rho) / nagaoka_scipy(rho) - 1)
     assert rel.max() <= 1e-12, (rel.max(), rho[rel.argmax()])
 
 
@@ -65,26 +65,26 @@ def test_textbook_scipy_closed_form_in_the_middle():
     k, kc = np.sqrt(m), np.sqrt(1 - m)
     K, E = sp.ellipk(m), sp.ellipe(m)
     ref = 4 / (3 * np.pi * kc) * ((kc**2 / k**2) * (K - E) + E - k)
-    assert np.max(np.abs(libcoil.nagaoka(rho) / ref - 1)) <= 1e-12
+    assert np.max(np.abs(libcoil.nagaoka_coefficient(rho) / ref - 1)) <= 1e-12
 
 
 def test_published_table():
     # Nagaoka 1909 / Grover 1946 table, quoted from memory, +-1 in the last digit.
     table = {0.1: 0.9588, 0.2: 0.9201, 0.5: 0.8181, 1: 0.6884, 2: 0.5255, 5: 0.3198, 10: 0.2033}
     for rho, k in table.items():
-        assert libcoil.nagaoka(rho) == pytest.approx(k, abs=1e-4)
+        assert libcoil.nagaoka_coefficient(rho) == pytest.approx(k, abs=1e-4)
 
 
 def test_vectorised_shapes_and_errors():
     a = np.array([[0.1, 1.0], [10.0, 100.0]])
-    out = libcoil.nagaoka(a)
+    out = libcoil.nagaoka_coefficient(a)
     assert isinstance(out, np.ndarray) and out.shape == (2, 2)
     assert out[0, 1] == pytest.approx(0.6884, abs=1e-4)
-    assert isinstance(libcoil.nagaoka(1.0), float)
+    assert isinstance(libcoil.nagaoka_coefficient(1.0), float)
     with pytest.raises(libcoil.InputError, match="diameter_to_length: -1 must be greater than zero"):
-        libcoil.nagaoka(np.array([1.0, -1.0]))
+        libcoil.nagaoka_coefficient(np.array([1.0, -1.0]))
     with pytest.raises(ValueError):  # InputError is a ValueError
-        libcoil.nagaoka(float("nan"))
+        libcoil.nagaoka_coefficient(float("nan"))
 
 
 def test_slope_against_mpmath_derivative():

@@ -22,7 +22,7 @@ def finite_or_error(f, *args):
 @settings(max_examples=300, deadline=None)
 @given(anything)
 def test_coefficients(x):
-    for f in (libcoil.nagaoka, libcoil.lundin_coefficient, libcoil.wheeler_coefficient,
+    for f in (libcoil.nagaoka_coefficient, libcoil.lundin_coefficient, libcoil.wheeler_coefficient,
               libcoil.rosa_self_correction, libcoil.rosa_mutual_correction):
         finite_or_error(f, x)
 

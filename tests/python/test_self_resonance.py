@@ -116,7 +116,7 @@ def test_touchstone_read_by_scikit_rf(run_coil, source_dir, tmp_path, monkeypatc
     assert np.all(np.abs(net.z[:, 0, 0] / ours["impedance"] - 1) < 1e-9)
     assert net.z0[0, 0] == pytest.approx(50)
     # The CSV holds the same numbers (15 significant digits).
-    rows = list(csv.DictReader(io.StringIO(csv_path.read_text())))
+    rows = list(csv.DictReader(line for line in io.StringIO(csv_path.read_text()) if not line.startswith("#")))
     z_csv = np.array([float(r["resistance_ohm"]) + 1j * float(r["reactance_ohm"]) for r in rows])
     assert np.all(np.abs(z_csv / ours["impedance"] - 1) < 1e-12)
     mag = np.array([float(r["impedance_magnitude_ohm"]) for r in rows])
@@ -162,7 +162,7 @@ def test_sweep_picture_holds_what_it_should(run_coil, source_dir, tmp_path):
 def test_sweep_to_stdout_and_spacing(run_coil, source_dir):
     r = run_coil("sweep", source_dir / DEMO, "--from", "1 MHz", "--to", "2 MHz", "--points", "3", "--spacing", "linear")
     assert r.returncode == 0, r.stderr
-    rows = list(csv.DictReader(io.StringIO(r.stdout)))
+    rows = list(csv.DictReader(line for line in io.StringIO(r.stdout) if not line.startswith("#")))
     assert [float(x["frequency_Hz"]) for x in rows] == [1e6, 1.5e6, 2e6]
     bad = run_coil("sweep", source_dir / DEMO, "--from", "2 MHz", "--to", "1 MHz")
     assert bad.returncode == 2 and "--to" in bad.stderr and bad.stdout == ""

@@ -70,17 +70,19 @@ SHIELD = "shield: {inner_diameter: 50 mm, length: 90 mm, thickness: 0.1 mm, mate
 def test_a_shielded_requirement_gets_more_turns_and_meets_the_target_in_the_shield():
     plain = libcoil.design(libcoil.parse_requirement(REQUIREMENT), threads=1, top=50)
     shielded = libcoil.design(libcoil.parse_requirement(REQUIREMENT + SHIELD), threads=1, top=50)
-    assert shielded["designs"] and plain["designs"]
-    by_grid = {(d["form_diameter_m"], d["pitch_before_trim_m"]): d for d in plain["designs"]}
+    assert len(shielded.designs.score) and len(plain.designs.score)
+    p = plain.designs
+    by_grid = {(f, g): t for f, g, t in zip(p.form_diameter, p.pitch_before_trim, p.turns)}
     compared = 0
-    for d in shielded["designs"]:
+    s = shielded.designs
+    for text, form, grid, turns in zip(s.spec, s.form_diameter, s.pitch_before_trim, s.turns):
         # Fed back to the analysis, the shielded coil meets the target in its high-frequency limit.
-        a = json.loads(libcoil.json_report(libcoil.analyze(libcoil.parse_coil_spec(d["spec"], "design"))))
-        assert a["shield"]["inductance_high_frequency_H"] == pytest.approx(5e-6, rel=0.02)
-        assert a["inductance_H"] > 5e-6 * 1.02  # unshielded it is well above: the search compensated
-        twin = by_grid.get((d["form_diameter_m"], d["pitch_before_trim_m"]))
+        a = libcoil.analyze(libcoil.parse_coil_spec(text, "design"))
+        assert a.shield.high_frequency_inductance == pytest.approx(5e-6, rel=0.02)
+        assert a.inductance.recommended > 5e-6 * 1.02  # unshielded it is well above: the search compensated
+        twin = by_grid.get((form, grid))
         if twin:
-            assert d["turns"] > twin["turns"]
+            assert turns > twin
             compared += 1
     assert compared >= 3
 
@@ -105,7 +107,10 @@ def test_the_search_screens_the_shielded_self_resonance():
     # With a shield the search's SRF is the lumped estimate with the shield's capacitance, the same one
     # coil analyze reports for the chosen spec.
     shielded = libcoil.design(libcoil.parse_requirement(REQUIREMENT + SHIELD), threads=1, top=5)
-    for d in shielded["designs"]:
-        a = json.loads(libcoil.json_report(libcoil.analyze(libcoil.parse_coil_spec(d["spec"], "design"))))
-        assert d["self_resonance_Hz"] == pytest.approx(a["shield"]["self_resonance_Hz"], rel=1e-6)  # measured 3e-8
-        assert d["self_resonance_Hz"] < 0.9 * a["self_resonance_Hz"]  # the shield lowers it here by 17 .. 21 %
+    s = shielded.designs
+    assert len(s.spec) == 5
+    for text, srf in zip(s.spec, s.self_resonance):
+        a = libcoil.analyze(libcoil.parse_coil_spec(text, "design"))
+        assert srf == pytest.approx(a.shield.self_resonance, rel=1e-6)  # measured 3e-8
+        assert srf == pytest.approx(a.self_resonance_as_mounted, rel=1e-6)
+        assert srf < 0.9 * a.self_resonance.frequency  # the shield lowers it here by 17 .. 21 %

@@ -67,6 +67,9 @@ class Record:
     def keys(self):
         return self._fields.keys()
 
+    def values(self):
+        return self._fields.values()
+
     def items(self):
         return self._fields.items()
 

@@ -92,8 +92,8 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
         a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
                              " wire diameters) at wire diameter / skin depth up to " + three_digits(worst_x * std::sqrt(2.0)) +
                              ": for such coils the closed-form proximity model was measured between -22 % and "
-                             "+12 % of the numerical solver (for wire diameter / skin depth up to 42); the cross-section "
-                             "solver (the filaments loss method) checks it");
+                             "+12 % of the numerical solver (for wire diameter / skin depth up to 42); to check it, rerun with the "
+                             "solver set to filaments (the cross-section solver)");
         return;
     }
     const auto numeric = coil_at_frequencies_numerical(s, spec.conductor, op.temperature, a.inductance.recommended, outside, sub,
