@@ -360,7 +360,19 @@ PYBIND11_MODULE(_core, m) {
         .def_readonly("description", &libcoil::CoilSpec::description)
         .def_readonly("solenoid", &libcoil::CoilSpec::solenoid)
         .def_readonly("conductor", &libcoil::CoilSpec::conductor)
-        .def_readonly("notes", &libcoil::CoilSpec::notes);
+        .def_readonly("notes", &libcoil::CoilSpec::notes)
+        .def_property_readonly("mounting", [](const libcoil::CoilSpec& s) { return libcoil::choice_name(s.surroundings.mounting); })
+        .def_property_readonly("has_shield", [](const libcoil::CoilSpec& s) { return s.shield.has_value(); })
+        .def_property_readonly("has_band", [](const libcoil::CoilSpec& s) { return s.band.has_value(); })
+        .def_property_readonly("operating", [](const libcoil::CoilSpec& s) {
+            const libcoil::Operating& op = s.operating;
+            return record("Record", py::dict("frequencies"_a = op.frequencies, "temperature"_a = op.temperature,
+                                             "temperature_given"_a = op.temperature_given, "current"_a = op.current,
+                                             "current_frequency"_a = op.current_frequency ? py::object(py::float_(*op.current_frequency))
+                                                                                          : py::object(py::none()),
+                                             "ambient"_a = op.ambient, "supply_voltage"_a = op.supply_voltage, "rf_power"_a = op.rf_power));
+        })
+        .def_readonly("enamel_class", &libcoil::CoilSpec::enamel_class);
     m.def("parse_coil_spec", &libcoil::parse_coil_spec, "yaml_text"_a, "source"_a = "spec");
     m.def("load_coil_spec", &libcoil::load_coil_spec, "path"_a);
     py::class_<libcoil::Analysis>(m, "Analysis")
@@ -426,16 +438,26 @@ PYBIND11_MODULE(_core, m) {
         q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
         return libcoil::touchstone_s1p(libcoil::sweep_study(a, q));
     }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "The Touchstone one-port text of the coil as mounted.");
-    m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<libcoil::Subdivision> sub) {
+    m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<int> layers, std::optional<int> sectors,
+                        std::optional<libcoil::Subdivision> sub) {
         libcoil::AnalysisOptions o;
         o.solver = libcoil::parse_choice<libcoil::LossSolver>(solver, "solver");
         if (sub) {
             o.auto_subdivision = false;
             o.subdivision = *sub;
         }
+        if (layers) {
+            o.auto_subdivision = false;
+            o.subdivision.layers = *layers;
+            o.subdivision.sectors = sectors.value_or(2 * *layers);
+        } else if (sectors) {
+            throw libcoil::InputError("sectors", "goes with layers");
+        }
         py::gil_scoped_release release;
         return libcoil::analyze(spec, o);
-    }, "spec"_a, "solver"_a = "closed-form", "subdivision"_a = py::none());
+    }, "spec"_a, "solver"_a = "closed-form", "layers"_a = py::none(), "sectors"_a = py::none(), "subdivision"_a = py::none(),
+       "The analysis study of a coil spec. The filaments solver's subdivision follows the highest frequency unless layers "
+       "(and sectors, default twice the layers) or a Subdivision are given.");
     m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,
                        std::optional<std::string> kind, std::optional<int> ribs, std::optional<double> rib_width,
                        std::optional<std::string> profile, std::optional<double> groove_depth, std::optional<double> clearance,

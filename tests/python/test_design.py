@@ -134,3 +134,50 @@ def test_designs_as_a_numpy_record_array(source_dir):
     assert list(a.score) == list(d.designs.score)
     assert (a.turns % 0.25 == 0).all()
     assert abs(a.inductance / 5e-6 - 1).max() < 1e-9
+
+
+WINNERS = """\
+name: "Reanalysis check"
+target: {inductance: 5 uH, tolerance: 2 %}
+band: {low: 150 kHz, ceiling: 30 MHz, srf_margin: 1.5, max_deviation: 10 %}
+operating: {current: 3 A, frequency: 100 kHz, ambient: 30 degC}
+limits: {max_outer_diameter: 45 mm, max_length: 110 mm}
+search:
+  wires: [AWG 16, AWG 18, AWG 20]
+  form_diameter: {min: 14 mm, max: 34 mm, step: 2 mm}
+  pitch_ratio: {min: 1.1, max: 2.5, step: 0.1}
+former: {material: PETG, kind: grooved-tube, wall: 2 mm}
+"""
+
+
+@pytest.mark.parametrize("extra, ceiling", [
+    ("", "30 MHz"),
+    ("shield: {inner_diameter: 50 mm, length: 120 mm, thickness: 0.1 mm, material: copper}\n", "30 MHz"),
+    # One end grounded halves the first resonance (a quarter-wave line): a lower ceiling.
+    ("shield: {inner_diameter: 48 mm, length: 120 mm, thickness: 0.5 mm, material: aluminium}\n"
+     "surroundings: {mounting: grounded-end}\n", "12 MHz"),
+])
+def test_every_winner_reanalyses_to_the_search_figures(extra, ceiling):
+    # What `coil design` found for each ranked design, `coil analyze` of the spec it writes finds again, with
+    # the shield and the current: the inductance in the shield (the same model, to 1e-9), the SRF as mounted
+    # and the winding temperature (each solved to the search tolerance, 1e-7 relative; analyze to 3e-11).
+    q = libcoil.parse_requirement(WINNERS.replace("ceiling: 30 MHz", "ceiling: " + ceiling) + extra)
+    r = libcoil.design(q, threads=1, top=12)
+    d = r.designs
+    assert len(d.spec) >= 8
+    shielded = "shield" in extra
+    for i, text_i in enumerate(d.spec):
+        a = libcoil.analyze(libcoil.parse_coil_spec(text_i, "design"))
+        nominal = a.shield.high_frequency_inductance if shielded else a.inductance.recommended
+        assert nominal == pytest.approx(d.inductance[i], rel=1e-9)
+        assert abs(nominal / 5e-6 - 1) <= 0.02 * (1 + 1e-9)
+        assert a.self_resonance_as_mounted == pytest.approx(d.self_resonance[i], rel=1e-6)
+        assert a.thermal.sets_wire_temperature and a.thermal.current_frequency == 100e3
+        assert a.thermal.temperature == pytest.approx(d.temperature[i], rel=1e-6)
+        # The same verdict on the SRF margin the search screened.
+        srf = next(c for c in a.band.criteria if c.name == "srf_margin")
+        assert srf["pass"]
+    chosen = r.chosen_analysis
+    assert chosen is not None and chosen.band["pass"]
+    assert (chosen.shield is not None) == shielded
+    assert chosen.spec.mounting == ("grounded-end" if "grounded" in extra else "floating")

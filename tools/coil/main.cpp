@@ -125,12 +125,15 @@ void print_written(const std::vector<std::string>& names) {
 int run_analyze(const Given& g) {
     libcoil::AnalysisOptions opt;
     opt.solver = *g.choice<libcoil::LossSolver>("solver");
+    if (g.has("layers")) {
+        const long layers = g.whole("layers", -1000000, 1000000);
+        opt.auto_subdivision = false;
+        opt.subdivision.layers = static_cast<int>(layers);
+        opt.subdivision.sectors = static_cast<int>(g.whole("sectors", -1000000, 1000000, 2 * layers));
+    } else if (g.has("sectors")) {
+        throw libcoil::InputError("--sectors", "goes with --layers");
+    }
     if (opt.solver == libcoil::LossSolver::filaments) {
-        if (const long layers = g.whole("layers", 1, 200); layers > 0) {
-            opt.auto_subdivision = false;
-            opt.subdivision.layers = static_cast<int>(layers);
-            opt.subdivision.sectors = static_cast<int>(g.whole("sectors", 1, 400, 2 * layers));
-        }
         auto progress = std::make_shared<Progress>(Progress{std::chrono::steady_clock::now(), "cross-section solver, frequency"});
         opt.progress = [progress](std::size_t d, std::size_t t) { (*progress)(d, t); };
     }

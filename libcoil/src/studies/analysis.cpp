@@ -216,6 +216,15 @@ CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
 }
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
+    if (!options.auto_subdivision) {
+        const Subdivision& d = options.subdivision;
+        if (d.layers < 1 || d.layers > 200) throw InputError("layers", std::to_string(d.layers) + "; expected 1 .. 200");
+        if (d.sectors < 1 || d.sectors > 400) throw InputError("sectors", std::to_string(d.sectors) + "; expected 1 .. 400");
+        require_positive("grading", d.grading);
+        if (options.solver != LossSolver::filaments) {
+            throw InputError("layers", "applies to the filaments solver only");
+        }
+    }
     Analysis a{spec};
     a.inductance = inductance(spec.solenoid);
     a.warnings = a.inductance.warnings;
