@@ -34,6 +34,10 @@ py::object optional_float(const std::optional<double>& v) { return v ? py::objec
 
 }  // namespace
 
+py::dict by_method(const InductanceByMethod& m) {
+    return py::dict("wheeler"_a = m.wheeler, "nagaoka"_a = m.nagaoka, "lundin"_a = m.lundin, "rosa"_a = m.rosa, "filament"_a = m.filament);
+}
+
 py::object record(const char* kind, py::dict fields) { return py::module_::import("libcoil._records").attr(kind)(fields); }
 
 py::dict self_resonance_dict(const SelfResonance& r) {

@@ -14,6 +14,8 @@ namespace py = pybind11;
 // A record class of the package (Record, Sweep, DesignResult, ...) around a dict.
 py::object record(const char* kind, py::dict fields);
 
+py::dict by_method(const InductanceByMethod& m);
+
 py::dict self_resonance_dict(const SelfResonance& r);
 py::dict impedance_dict(const std::vector<ImpedancePoint>& points);  // arrays over frequency
 py::dict at_frequency_dict(const std::vector<CoilAtFrequency>& points);

@@ -225,7 +225,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
             throw InputError("layers", "applies to the filaments solver only");
         }
     }
-    Analysis a{spec};
+    Analysis a{.spec = spec};
     a.inductance = inductance(spec.solenoid);
     a.warnings = a.inductance.warnings;
     a.notes = spec.notes;

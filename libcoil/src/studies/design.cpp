@@ -87,7 +87,6 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     // Re-analyse the leaders in full; the first that passes is chosen.
     const std::size_t tries = std::min<std::size_t>(out.pareto.size(), std::max<std::size_t>(options.top, 1));
     for (std::size_t i = 0; i < tries; ++i) {
-        const DesignFigures& d = out.pareto[i];
         std::optional<Analysis> a;
         try {
             a = analyze(out.specs[i]);
@@ -135,8 +134,10 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
 
 CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
     const Wire& w = q.wires[d.wire_index].wire;
-    CoilSpec s{q.name.empty() ? "design" : q.name, "", Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, w, q.lead_length}),
-               q.conductor};
+    CoilSpec s{.name = q.name.empty() ? "design" : q.name,
+               .description = "",
+               .solenoid = Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, w, q.lead_length}),
+               .conductor = q.conductor};
     s.description = "Designed by libcoil for " + format_quantity(q.inductance, Dimension::inductance) + " within " +
                     detail::fixed(q.tolerance * 100, 2) + " %";
     s.former = q.former;

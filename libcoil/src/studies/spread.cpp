@@ -69,7 +69,7 @@ Spread tolerance_spread(const Solenoid& coil, double target, double tolerance, c
     require_non_negative("tolerances.pitch", t.pitch);
     require_non_negative("tolerances.wire_diameter", t.wire_diameter);
     require_non_negative("tolerances.turns", t.turns);
-    if (samples < 10 || samples > 10'000'000) throw InputError("--samples", std::to_string(samples) + "; expected 10 .. 10000000");
+    if (samples < 10 || samples > 10'000'000) throw InputError("samples", std::to_string(samples) + "; expected 10 .. 10000000");
     const Inputs nominal{coil.form_diameter(), coil.pitch(), coil.wire().bare_diameter, coil.turns()};
     const Figures f0 = evaluate(coil, nominal, former, surroundings);
 

@@ -3,7 +3,7 @@
 // it, so that each accepts and rejects the same words; none keeps a list of its own.
 //
 //   parse_choice<Mounting>("grounded-end", "surroundings.mounting")   -> Mounting::grounded_end
-//   parse_choice<Mounting>("ground", "--mounting")                    -> InputError naming "--mounting"
+//   parse_choice<Mounting>("ground", "mounting")                      -> InputError naming "mounting"
 //   choice_name(Mounting::floating)                                   -> "floating"
 //   choice_names<Mounting>()                                          -> {"floating", "grounded-end"}
 //

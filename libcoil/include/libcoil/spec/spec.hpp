@@ -69,16 +69,16 @@
 namespace libcoil {
 
 struct CoilSpec {
-    std::string name;
-    std::string description;
+    std::string name{};
+    std::string description{};
     Solenoid solenoid;
-    Conductor conductor;
-    Operating operating;
-    std::optional<FormerSpec> former;
-    Surroundings surroundings;
-    std::optional<BandSpec> band;
-    std::vector<std::string> notes;  // assumptions the reader made (e.g. bare wire)
-    std::optional<ShieldSpec> shield;
+    Conductor conductor{};
+    Operating operating{};
+    std::optional<FormerSpec> former{};
+    Surroundings surroundings{};
+    std::optional<BandSpec> band{};
+    std::vector<std::string> notes{};  // assumptions the reader made (e.g. bare wire)
+    std::optional<ShieldSpec> shield{};
     double enamel_class = default_enamel_class;  // K, limits.enamel_class: the winding's thermal limit
 };
 

@@ -46,32 +46,32 @@ struct ThermalEstimate {
 
 struct Analysis {
     CoilSpec spec;  // as given, with operating.temperature set to the thermal estimate where that applies
-    InductanceResult inductance;
+    InductanceResult inductance{};
     double dc_resistance = 0;                 // ohm, whole wire at the operating temperature
-    std::vector<CoilAtFrequency> at_frequency;  // the winding alone (no shield)
+    std::vector<CoilAtFrequency> at_frequency{};  // the winding alone (no shield)
     LossSolver loss_method = LossSolver::closed_form;
     Subdivision subdivision{};                // what the solver used
-    SelfResonance self_resonance;             // every model, for the bare coil
-    std::optional<ThermalEstimate> thermal;
+    SelfResonance self_resonance{};             // every model, for the bare coil
+    std::optional<ThermalEstimate> thermal{};
     // With a shield: the shielded coil beside the unshielded one.
     struct Shielded {
         ShieldResult result;              // L(f) and the added R at the operating frequencies, the limits
         double terminal_capacitance = 0;  // F, the capacitance to the shield as seen between the terminals
         double self_resonance = 0;        // Hz, lumped estimate: L at the high-frequency limit, C + the above
-        ShieldTable table;                // the shield over the analysis's frequency span, for the impedance
+        ShieldTable table{};                // the shield over the analysis's frequency span, for the impedance
     };
-    std::optional<Shielded> shield;
+    std::optional<Shielded> shield{};
     // The first self-resonance of the coil as mounted: the shielded one in a shield, else the recommended.
     double self_resonance_as_mounted = 0;
     // Z between the terminals at each operating frequency, of the coil as mounted (helical-line form, with
     // the R and L of at_frequency and the shield's change).
-    std::vector<ImpedancePoint> impedance;
-    std::optional<BandCheck> band;
+    std::vector<ImpedancePoint> impedance{};
+    std::optional<BandCheck> band{};
     // The srf_margin criterion judged with Medhurst's SRF instead (as mounted), when the band asks for it.
-    std::optional<CriterionResult> band_srf_by_medhurst;
-    std::vector<std::string> cautions;  // safety, as the inputs call for them (cautions.hpp)
-    std::vector<std::string> warnings;  // everything a reader must see: domains, fall-backs
-    std::vector<std::string> notes;     // assumptions
+    std::optional<CriterionResult> band_srf_by_medhurst{};
+    std::vector<std::string> cautions{};  // safety, as the inputs call for them (cautions.hpp)
+    std::vector<std::string> warnings{};  // everything a reader must see: domains, fall-backs
+    std::vector<std::string> notes{};     // assumptions
 };
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options = {});

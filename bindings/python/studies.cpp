@@ -1,0 +1,273 @@
+// Python bindings, the studies: each parses its choice words through the library's table (named by the
+// option table's keys), runs a study with the GIL released, and returns its record (results.hpp).
+#include <pybind11/numpy.h>
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+#include <pybind11/functional.h>
+#include <pybind11/stl/filesystem.h>
+
+#include <optional>
+
+#include "libcoil/libcoil.hpp"
+#include "option_table.hpp"
+#include "bindings.hpp"
+#include "results.hpp"
+
+namespace py = pybind11;
+using namespace pybind11::literals;
+using libcoil::python::by_method;
+using libcoil::python::record;
+
+
+void bind_studies(py::module_& m) {
+    // Design search.
+    py::class_<libcoil::Requirement>(m, "Requirement")
+        .def_readonly("name", &libcoil::Requirement::name)
+        .def_readonly("inductance", &libcoil::Requirement::inductance)
+        .def_readonly("tolerance", &libcoil::Requirement::tolerance)
+        .def_readonly("notes", &libcoil::Requirement::notes);
+    m.def("parse_requirement", &libcoil::parse_requirement, "yaml_text"_a, "source"_a = "requirement");
+    m.def("load_requirement", &libcoil::load_requirement, "path"_a);
+    m.def("design", [](const libcoil::Requirement& q, unsigned threads, std::size_t top, bool spread,
+                       std::size_t samples, std::uint64_t seed) {
+        libcoil::DesignOptions o;
+        o.threads = threads;
+        o.top = top;
+        o.spread = spread;
+        o.samples = samples;
+        o.seed = seed;
+        libcoil::DesignResult r;
+        {
+            py::gil_scoped_release release;
+            r = libcoil::design(q, o);
+        }
+        return record("DesignResult", libcoil::python::design_dict(q, r));
+    }, "requirement"_a, "threads"_a = 0, "top"_a = 10, "spread"_a = false, "samples"_a = 2000, "seed"_a = 1,
+       "The ranked designs for a requirement: a DesignResult whose `designs` holds numpy arrays over the ranking.");
+    m.def("design_array", [](const libcoil::Requirement& q, unsigned threads, std::size_t top) {
+        libcoil::DesignOptions o;
+        o.threads = threads;
+        o.top = top;
+        libcoil::DesignResult r;
+        {
+            py::gil_scoped_release release;
+            r = libcoil::design(q, o);
+        }
+        const std::size_t n = std::min(top, r.pareto.size());
+        std::vector<double> form(n), turns(n), pitch(n), ind(n), srf(n), res(n), temp(n), vol(n), score(n);
+        std::vector<long> wire(n);
+        for (std::size_t i = 0; i < n; ++i) {
+            const auto& d = r.pareto[i];
+            wire[i] = static_cast<long>(d.wire_index);
+            form[i] = d.form_diameter;
+            turns[i] = d.turns;
+            pitch[i] = d.pitch;
+            ind[i] = d.inductance;
+            srf[i] = d.self_resonance;
+            res[i] = d.resistance;
+            temp[i] = d.temperature;
+            vol[i] = d.volume;
+            score[i] = d.score;
+        }
+        const auto np = py::module_::import("numpy");
+        const auto arr = [&](const auto& v) { return np.attr("array")(py::cast(v)); };
+        return np.attr("rec").attr("fromarrays")(
+            py::make_tuple(arr(wire), arr(form), arr(turns), arr(pitch), arr(ind), arr(srf), arr(res), arr(temp), arr(vol),
+                           arr(score)),
+            "names"_a = "wire_index,form_diameter,turns,pitch,inductance,self_resonance,resistance,temperature,volume,score");
+    }, "requirement"_a, "threads"_a = 0, "top"_a = 100,
+       "The ranked designs as a numpy record array (SI), best first; wire_index refers to search.wires.");
+    m.def("tolerance_spread", [](const libcoil::Solenoid& s, double target, double tolerance, double form_sd,
+                                 double pitch_sd, double wire_sd, double turns_sd, std::size_t samples, std::uint64_t seed) {
+        const auto r = libcoil::tolerance_spread(s, target, tolerance, {}, {},
+                                                 libcoil::BuildTolerances{form_sd, pitch_sd, wire_sd, turns_sd}, samples, seed);
+        py::dict sens;
+        for (const auto& x : r.sensitivities) sens[py::str(x.input)] = py::make_tuple(x.inductance, x.self_resonance);
+        const auto stat = [](const libcoil::SpreadStatistics& st) {
+            return py::dict("nominal"_a = st.nominal, "mean"_a = st.mean, "sd"_a = st.standard_deviation,
+                            "low"_a = st.low, "high"_a = st.high);
+        };
+        return py::dict("samples"_a = r.samples, "left_out"_a = r.left_out, "inductance"_a = stat(r.inductance),
+                        "self_resonance"_a = stat(r.self_resonance), "within_tolerance"_a = r.within_tolerance,
+                        "sensitivities"_a = sens, "first_order_inductance_sd"_a = r.first_order_inductance_deviation);
+    }, "solenoid"_a, "target"_a, "tolerance"_a, "form_diameter_sd"_a = 0.1e-3, "pitch_sd"_a = 0.02e-3,
+       "wire_diameter_sd"_a = 0.005, "turns_sd"_a = 0.1, "samples"_a = 2000, "seed"_a = 1);
+
+    // Specs, analysis and reports.
+    py::class_<libcoil::CoilSpec>(m, "CoilSpec")
+        .def_readonly("name", &libcoil::CoilSpec::name)
+        .def_readonly("description", &libcoil::CoilSpec::description)
+        .def_readonly("solenoid", &libcoil::CoilSpec::solenoid)
+        .def_readonly("conductor", &libcoil::CoilSpec::conductor)
+        .def_readonly("notes", &libcoil::CoilSpec::notes)
+        .def_property_readonly("mounting", [](const libcoil::CoilSpec& s) { return libcoil::choice_name(s.surroundings.mounting); })
+        .def_property_readonly("has_shield", [](const libcoil::CoilSpec& s) { return s.shield.has_value(); })
+        .def_property_readonly("has_band", [](const libcoil::CoilSpec& s) { return s.band.has_value(); })
+        .def_property_readonly("operating", [](const libcoil::CoilSpec& s) {
+            const libcoil::Operating& op = s.operating;
+            return record("Record", py::dict("frequencies"_a = op.frequencies, "temperature"_a = op.temperature,
+                                             "temperature_given"_a = op.temperature_given, "current"_a = op.current,
+                                             "current_frequency"_a = op.current_frequency ? py::object(py::float_(*op.current_frequency))
+                                                                                          : py::object(py::none()),
+                                             "ambient"_a = op.ambient, "supply_voltage"_a = op.supply_voltage, "rf_power"_a = op.rf_power));
+        })
+        .def_readonly("enamel_class", &libcoil::CoilSpec::enamel_class);
+    m.def("parse_coil_spec", &libcoil::parse_coil_spec, "yaml_text"_a, "source"_a = "spec");
+    m.def("load_coil_spec", &libcoil::load_coil_spec, "path"_a);
+    py::class_<libcoil::Analysis>(m, "Analysis")
+        .def_readonly("spec", &libcoil::Analysis::spec)
+        .def_readonly("inductance", &libcoil::Analysis::inductance)
+        .def_readonly("dc_resistance", &libcoil::Analysis::dc_resistance)
+        .def_property_readonly("loss_method", [](const libcoil::Analysis& a) { return libcoil::choice_name(a.loss_method); })
+        .def_property_readonly("at_frequency", [](const libcoil::Analysis& a) {
+            return record("Record", libcoil::python::at_frequency_dict(a.at_frequency));
+        })
+        .def_property_readonly("self_resonance", [](const libcoil::Analysis& a) {
+            return record("Record", libcoil::python::self_resonance_dict(a.self_resonance));
+        })
+        .def_readonly("self_resonance_as_mounted", &libcoil::Analysis::self_resonance_as_mounted)
+        .def_property_readonly("impedance", [](const libcoil::Analysis& a) { return record("Record", libcoil::python::impedance_dict(a.impedance)); })
+        .def_property_readonly("band", [](const libcoil::Analysis& a) {
+            const py::object b = libcoil::python::band_dict(a.band, a.band_srf_by_medhurst);
+            return b.is_none() ? b : record("Record", b);
+        })
+        .def_property_readonly("thermal", [](const libcoil::Analysis& a) {
+            const py::object t = libcoil::python::thermal_dict(a.thermal);
+            return t.is_none() ? t : record("Record", t);
+        })
+        .def_property_readonly("shield", [](const libcoil::Analysis& a) {
+            const py::object t = libcoil::python::shield_dict(a);
+            return t.is_none() ? t : record("Record", t);
+        })
+        .def_readonly("cautions", &libcoil::Analysis::cautions)
+        .def_readonly("warnings", &libcoil::Analysis::warnings)
+        .def_readonly("notes", &libcoil::Analysis::notes)
+        .def("to_dict", [](const libcoil::Analysis& a) {
+            namespace lp = libcoil::python;
+            const auto& ind = a.inductance;
+            return py::dict("name"_a = a.spec.name, "inductance"_a = py::dict("recommended"_a = ind.recommended, "method"_a = ind.method,
+                                                                           "nagaoka_coefficient"_a = ind.nagaoka_coefficient,
+                                                                           "by_method"_a = by_method(ind.by_method)),
+                            "dc_resistance"_a = a.dc_resistance, "temperature"_a = a.spec.operating.temperature,
+                            "loss_method"_a = libcoil::choice_name(a.loss_method), "at_frequency"_a = lp::at_frequency_dict(a.at_frequency),
+                            "self_resonance"_a = lp::self_resonance_dict(a.self_resonance),
+                            "self_resonance_as_mounted"_a = a.self_resonance_as_mounted, "impedance"_a = lp::impedance_dict(a.impedance),
+                            "band"_a = lp::band_dict(a.band, a.band_srf_by_medhurst), "thermal"_a = lp::thermal_dict(a.thermal),
+                            "shield"_a = lp::shield_dict(a), "cautions"_a = a.cautions, "warnings"_a = a.warnings, "notes"_a = a.notes);
+        }, "The analysis as plain dicts and numpy arrays (SI).");
+    m.def("sweep", [](const libcoil::Analysis& a, std::vector<double> frequencies, const std::string& model, const std::string& capacitance) {
+        libcoil::SweepRequest q;
+        q.frequencies = std::move(frequencies);
+        q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
+        q.capacitance = libcoil::parse_choice<libcoil::CapacitanceSource>(capacitance, "capacitance");
+        libcoil::Sweep s;
+        {
+            py::gil_scoped_release release;
+            s = libcoil::sweep_study(a, q);
+        }
+        return record("Sweep", libcoil::python::sweep_dict(s));
+    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "capacitance"_a = "helical-line",
+       "Z(f) of an analysed coil as mounted (its shield, its mounting): a Sweep of numpy arrays (frequency, impedance, ...).");
+    m.def("frequency_grid", [](double start, double stop, int points, bool logarithmic) {
+        return libcoil::frequency_grid(start, stop, points, logarithmic ? libcoil::Spacing::logarithmic : libcoil::Spacing::linear);
+    }, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);
+    m.def("touchstone_s1p", [](const libcoil::Analysis& a, std::vector<double> f, const std::string& model) {
+        libcoil::SweepRequest q;
+        q.frequencies = std::move(f);
+        q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
+        return libcoil::touchstone_s1p(libcoil::sweep_study(a, q));
+    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "The Touchstone one-port text of the coil as mounted.");
+    m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<int> layers, std::optional<int> sectors,
+                        std::optional<libcoil::Subdivision> sub) {
+        libcoil::AnalysisOptions o;
+        o.solver = libcoil::parse_choice<libcoil::LossSolver>(solver, "solver");
+        if (sub) {
+            o.auto_subdivision = false;
+            o.subdivision = *sub;
+        }
+        if (layers) {
+            o.auto_subdivision = false;
+            o.subdivision.layers = *layers;
+            o.subdivision.sectors = sectors.value_or(2 * *layers);
+        } else if (sectors) {
+            throw libcoil::InputError("sectors", "goes with layers");
+        }
+        py::gil_scoped_release release;
+        return libcoil::analyze(spec, o);
+    }, "spec"_a, "solver"_a = "closed-form", "layers"_a = py::none(), "sectors"_a = py::none(), "subdivision"_a = py::none(),
+       "The analysis study of a coil spec. The filaments solver's subdivision follows the highest frequency unless layers "
+       "(and sectors, default twice the layers) or a Subdivision are given.");
+    m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,
+                       std::optional<std::string> kind, std::optional<int> ribs, std::optional<double> rib_width,
+                       std::optional<std::string> profile, std::optional<double> groove_depth, std::optional<double> clearance,
+                       std::optional<std::pair<double, double>> flange, std::optional<double> ends,
+                       std::optional<double> bore_oversize, double chord_tolerance, bool ascii) {
+        libcoil::FormerOptions o;
+        if (kind) o.kind = libcoil::parse_choice<libcoil::FormerKind>(*kind, "kind");
+        if (profile) o.profile = libcoil::parse_choice<libcoil::GrooveProfile>(*profile, "profile");
+        o.ribs = ribs;
+        o.rib_width = rib_width;
+        o.groove_depth = groove_depth;
+        o.clearance = clearance;
+        if (flange) o.flange = libcoil::FlangeSpec{flange->first, flange->second};
+        o.ends = ends;
+        o.bore_oversize = bore_oversize;
+        o.chord_tolerance = chord_tolerance;
+        libcoil::FormerBuild b;
+        std::vector<std::string> files;
+        {
+            py::gil_scoped_release release;
+            b = libcoil::build_former(spec, o);
+            if (out_dir) {
+                const libcoil::FileSet set = libcoil::former_files(b, *out_dir, stem, ascii);
+                libcoil::write_file_set(set);
+                for (const auto& [p, c] : set) files.push_back(p.string());
+            }
+        }
+        return record("FormerResult", libcoil::python::former_dict(b, files));
+    }, "spec"_a, "out_dir"_a = py::none(), "stem"_a = "former", "kind"_a = py::none(), "ribs"_a = py::none(),
+       "rib_width"_a = py::none(), "profile"_a = py::none(), "groove_depth"_a = py::none(), "clearance"_a = py::none(),
+       "flange"_a = py::none(), "ends"_a = py::none(), "bore_oversize"_a = py::none(), "chord_tolerance"_a = 0.01e-3, "ascii"_a = false,
+       "The printable former of a coil spec: a FormerResult with its dimensions (SI), the mesh as numpy arrays, vertices "
+       "(n, 3) in m and faces (m, 3) of vertex indices wound outward. With out_dir, also writes STEM.former.stl, .svg and "
+       ".yaml there, all three or none.");
+    m.def("couple", [](const libcoil::CoilSpec& a, const libcoil::CoilSpec& b, double distance, const std::string& arrangement,
+                       double axial_offset, const std::vector<double>& frequencies, double source_resistance, double load_resistance,
+                       const std::vector<double>& sweep_distances) {
+        const libcoil::Arrangement arr = libcoil::parse_choice<libcoil::Arrangement>(arrangement, "arrangement");
+        libcoil::CouplingStudy s;
+        {
+            py::gil_scoped_release release;
+            s = libcoil::study_coupling(a, b, arr, distance, axial_offset, frequencies, source_resistance, load_resistance, sweep_distances);
+        }
+        return record("CouplingResult", libcoil::python::coupling_dict(s));
+    }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "frequencies"_a = std::vector<double>{},
+       "source_resistance"_a = 50.0, "load_resistance"_a = 50.0, "sweep_distances"_a = std::vector<double>{},
+       "M, k and crosstalk between two coil specs as mounted: a CouplingResult (SI, arrays over frequency and distance).");
+    m.def("coil_mutual_inductance", [](const libcoil::Solenoid& a, const libcoil::Solenoid& b, double distance,
+                                       const std::string& arrangement, double axial_offset) {
+        return libcoil::coil_mutual_inductance(a, b, libcoil::parse_choice<libcoil::Arrangement>(arrangement, "arrangement"), distance,
+                                               axial_offset);
+    }, "a"_a, "b"_a, "distance"_a, "arrangement"_a = "coaxial", "axial_offset"_a = 0.0, "M in H between two solenoids.");
+    m.def("parallel_filament_mutual_inductance", py::vectorize(&libcoil::parallel_filament_mutual_inductance), "radius_a"_a,
+          "radius_b"_a, "distance"_a, "axial_offset"_a);
+    m.def("sheet_in_long_shield_change", py::vectorize(&libcoil::sheet_in_long_shield_change), "mean_radius"_a, "length"_a,
+          "turns"_a, "shield_radius"_a, "dL in H of a current sheet in an infinitely long perfectly conducting tube.");
+    m.def("text_report", &libcoil::text_report, "analysis"_a);
+
+    // The one option table the `coil` command is built from, and the choices behind its words.
+    m.def("option_table", [] {
+        py::list rows;
+        for (const auto& o : libcoil::frontend::option_table()) {
+            py::list choices;
+            if (o.choices) {
+                for (const auto& w : o.choices()) choices.append(w);
+            }
+            static const char* kinds[] = {"flag", "integer", "quantity", "choice", "text"};
+            rows.append(py::dict("verb"_a = o.verb, "key"_a = o.key, "flag"_a = o.flag, "kind"_a = kinds[static_cast<int>(o.kind)],
+                                 "choices"_a = choices, "default"_a = o.default_text, "python"_a = o.python, "help"_a = o.help));
+        }
+        return rows;
+    }, "Every option of every `coil` verb: its flag, the Python keyword (key) and, for a choice, its words.");
+    m.def("json_report", &libcoil::json_report, "analysis"_a);
+}
