@@ -26,7 +26,7 @@
 #include <vector>
 
 #include "libcoil/models/mesh.hpp"
-#include "libcoil/spec/spec.hpp"
+#include "libcoil/spec/records.hpp"
 
 namespace libcoil {
 

@@ -1,12 +1,14 @@
-// The input records: what a spec or a requirement says about the coil's surroundings and use, as plain SI
-// values. The YAML readers (spec.hpp, requirement.hpp) fill them; models and studies read them. Nothing
+// The input records: what a spec or a requirement says about the coil, its surroundings and its use, as
+// plain SI values. The YAML readers (spec.hpp, requirement.hpp) fill them; models and studies read them. Nothing
 // here computes.
 #pragma once
 
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "libcoil/models/materials.hpp"
+#include "libcoil/models/solenoid.hpp"
 #include "libcoil/spec/choices.hpp"
 
 namespace libcoil {
@@ -93,10 +95,36 @@ struct BandSpec {
 // Validates the band (InputError naming band.low, band.ceiling, band.srf_margin, ...).
 void validate_band(const BandSpec& band);
 
+// The build's tolerances for the tolerance spread (spread.hpp), standard deviations. The defaults are
+// typical printing and winding values, assumptions rather than measurements: a printed groove holds the form
+// diameter to about 0.1 mm and the pitch to about 0.02 mm, magnet wire is within about 0.5 % of its nominal
+// diameter, and a hand-wound lead-out moves the end by about a tenth of a turn.
+struct BuildTolerances {
+    double form_diameter = 0.1e-3;  // m
+    double pitch = 0.02e-3;         // m
+    double wire_diameter = 0.005;   // fraction of the bare diameter
+    double turns = 0.1;             // turns
+};
+
 // The SRF margin applied when a band names no criterion: common practice, no source.
 inline constexpr double default_srf_margin = 2.0;
 
 // The thermal limit of an enamel: IEC 60317 thermal class 155 (degC) unless the spec says otherwise.
 inline constexpr double default_enamel_class = 155 + 273.15;  // K
+
+// One coil as a spec describes it (spec.hpp reads it from YAML and writes it back).
+struct CoilSpec {
+    std::string name{};
+    std::string description{};
+    Solenoid solenoid;
+    Conductor conductor{};
+    Operating operating{};
+    std::optional<FormerSpec> former{};
+    Surroundings surroundings{};
+    std::optional<BandSpec> band{};
+    std::vector<std::string> notes{};  // assumptions the reader made (e.g. bare wire)
+    std::optional<ShieldSpec> shield{};
+    double enamel_class = default_enamel_class;  // K, limits.enamel_class: the winding's thermal limit
+};
 
 }  // namespace libcoil

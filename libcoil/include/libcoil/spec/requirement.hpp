@@ -40,11 +40,8 @@
 #include <string_view>
 #include <vector>
 
-#include "libcoil/studies/band_check.hpp"
 #include "libcoil/models/materials.hpp"
-#include "libcoil/models/self_resonance.hpp"
 #include "libcoil/spec/spec.hpp"
-#include "libcoil/studies/spread.hpp"
 #include "libcoil/models/wire.hpp"
 
 namespace libcoil {

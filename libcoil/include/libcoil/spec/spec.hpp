@@ -68,20 +68,6 @@
 
 namespace libcoil {
 
-struct CoilSpec {
-    std::string name{};
-    std::string description{};
-    Solenoid solenoid;
-    Conductor conductor{};
-    Operating operating{};
-    std::optional<FormerSpec> former{};
-    Surroundings surroundings{};
-    std::optional<BandSpec> band{};
-    std::vector<std::string> notes{};  // assumptions the reader made (e.g. bare wire)
-    std::optional<ShieldSpec> shield{};
-    double enamel_class = default_enamel_class;  // K, limits.enamel_class: the winding's thermal limit
-};
-
 // Parses a spec from YAML text; `source` names it in messages (a file name).
 CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source = "spec");
 // Reads and parses a spec file. A missing or unreadable file is an InputError naming the path.

@@ -20,20 +20,12 @@
 #include <vector>
 
 #include "libcoil/models/self_resonance.hpp"
+#include "libcoil/spec/records.hpp"
 #include "libcoil/models/solenoid.hpp"
 
 namespace libcoil {
 
-// Standard deviations. The defaults are typical printing and winding values, assumptions rather than
-// measurements: a printed groove holds the form diameter to about 0.1 mm and the pitch to about 0.02 mm,
-// magnet wire is within about 0.5 % of its nominal diameter, and a hand-wound lead-out moves the end by
-// about a tenth of a turn.
-struct BuildTolerances {
-    double form_diameter = 0.1e-3;  // m
-    double pitch = 0.02e-3;         // m
-    double wire_diameter = 0.005;   // fraction of the bare diameter
-    double turns = 0.1;             // turns
-};
+// The build tolerances (BuildTolerances) are an input record: spec/records.hpp.
 
 struct SpreadStatistics {
     double nominal = 0, mean = 0, standard_deviation = 0, low = 0, high = 0;  // low/high: 2.5 % and 97.5 %
