@@ -19,9 +19,11 @@ std::vector<std::string> safety_cautions(double supply_voltage, double rf_power,
                     "Never touch it energised; rate nearby parts and the former for the voltage.");
     }
     if (temperature > 0 && limit > 0 && temperature > limit - near_thermal_limit) {
-        c.push_back("The winding is estimated at " + format_quantity(temperature, Dimension::temperature) + ", within " +
-                    detail::fixed(near_thermal_limit, 0) + " K of its limit (" + format_quantity(limit, Dimension::temperature) +
-                    ") or above it. The estimate is for still air with no enclosure; measure the real part under load.");
+        const std::string where = temperature > limit ? "above its limit"
+                                                      : "within " + detail::fixed(near_thermal_limit, 0) + " K of its limit";
+        c.push_back("The winding is estimated at " + format_quantity(temperature, Dimension::temperature) + ", " + where + " (" +
+                    format_quantity(limit, Dimension::temperature) +
+                    "). The estimate is for still air with no enclosure; measure the real part under load.");
     }
     return c;
 }

@@ -21,7 +21,7 @@ WindingHeat winding_heat(const Solenoid& s, const Conductor& conductor, double c
     }
     WindingHeat h;
     h.per_resistivity = current * current * ac_ratio * resistance_per_resistivity(s.wire().bare_diameter, s.wire_length());
-    h.conductor = conductor;
+    h.conductor = &conductor;
     h.surface = ThermalSurface{s.outer_diameter(), s.overall_length(), 0.85, CoilAxis::horizontal};
     h.ambient = ambient;
     h.limit = limit;

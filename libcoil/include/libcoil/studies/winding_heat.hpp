@@ -19,16 +19,16 @@ namespace libcoil {
 // I^2 R(T) of one coil, with the factors that do not depend on T taken once.
 struct WindingHeat {
     double per_resistivity = 0;  // W per (ohm m): I^2 (R_ac / R_dc) R_dc(T) / rho(T)
-    Conductor conductor;
+    const Conductor* conductor = nullptr;  // the caller's (a search evaluates millions: no copy)
     ThermalSurface surface;
     double ambient = 0;  // K
     double limit = 0;    // K
 
-    double power(double temperature) const { return per_resistivity * conductor.resistivity_at(temperature); }
+    double power(double temperature) const { return per_resistivity * conductor->resistivity_at(temperature); }
 };
 
 // `current_frequency`: the current's frequency (nothing or 0: DC). `limit`: the lower of the enamel's
-// class and the former's service temperature, K.
+// class and the former's service temperature, K. `conductor` must outlive the result.
 WindingHeat winding_heat(const Solenoid& coil, const Conductor& conductor, double current,
                          std::optional<double> current_frequency, double ambient, double limit);
 
