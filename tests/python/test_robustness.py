@@ -97,3 +97,10 @@ def test_self_resonance_is_finite(D, N, spacing, d, eps, mounting):
     for m in ("helical_line", "kandoian_sichak", "medhurst"):
         if r[m]["available"]:
             assert math.isfinite(r[m]["frequency"]) and r[m]["frequency"] > 0
+
+
+def test_sheath_helix_at_the_edge_of_double_range():
+    # Found by hypothesis in a fresh clone: a 9e307 m helix made Boost's bracketing solver throw its own
+    # error; it is a DomainError now.
+    h = libcoil.SheathHelix(8.98846567431158e307, 0.5)
+    finite_or_error(h.wavenumber_for, 1.0)

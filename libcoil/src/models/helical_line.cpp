@@ -70,9 +70,13 @@ constexpr std::uintmax_t max_iterations = 200;
 template <class F>
 double root_between(F f, double lo, double hi, double f_lo, double f_hi) {
     std::uintmax_t it = max_iterations;
-    const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi,
-                                                     boost::math::tools::eps_tolerance<double>(44), it);
-    return 0.5 * (r.first + r.second);
+    try {
+        const auto r = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi,
+                                                         boost::math::tools::eps_tolerance<double>(44), it);
+        return 0.5 * (r.first + r.second);
+    } catch (const std::exception&) {  // Boost's: the dispersion went non-finite inside the bracket
+        throw DomainError("sheath helix: the dispersion cannot be evaluated at this scale (radius x wavenumber)");
+    }
 }
 
 }  // namespace

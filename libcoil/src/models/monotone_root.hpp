@@ -109,10 +109,17 @@ std::optional<double> bracketed_steps(const Eval& eval, bool increasing, double 
         f_above = eval(above).f;
         if (root_is_above(*f_above)) return none_unless_zero(*f_above, above);
     }
+    // A function that went non-finite, or that Boost's bracketing finds no sign change in, has no root
+    // here that this finder can vouch for: the caller decides (each has a fallback or a DomainError).
+    if (!std::isfinite(*f_below) || !std::isfinite(*f_above)) return std::nullopt;
     std::uintmax_t it = 100;
-    const auto r = boost::math::tools::toms748_solve([&](double x) { return eval(x).f; }, below, above, *f_below,
-                                                     *f_above, boost::math::tools::eps_tolerance<double>(bits), it);
-    return 0.5 * (r.first + r.second);
+    try {
+        const auto r = boost::math::tools::toms748_solve([&](double x) { return eval(x).f; }, below, above, *f_below,
+                                                         *f_above, boost::math::tools::eps_tolerance<double>(bits), it);
+        return 0.5 * (r.first + r.second);
+    } catch (const std::exception&) {
+        return std::nullopt;
+    }
 }
 
 // The root of f on [b.lo, b.hi], f monotone (rising if `increasing`), to a relative tolerance 2^(1 - bits),
