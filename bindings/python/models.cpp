@@ -253,6 +253,26 @@ void bind_models(py::module_& m) {
         return libcoil::line_impedance(w, r, l, v, len, libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting"));
     }, "angular_frequency"_a, "resistance"_a, "inductance"_a, "phase_velocity"_a, "length"_a, "mounting"_a = "floating");
 
+    // The turn network (PEEC).
+    m.def("ring_capacitance", py::vectorize(&libcoil::ring_capacitance), "ring_radius"_a, "wire_radius"_a,
+          "Capacitance of an isolated ring of round wire, F (the network's potential coefficient).");
+    py::class_<libcoil::TurnNetwork>(m, "TurnNetwork")
+        .def(py::init([](const libcoil::Solenoid& s, const std::string& mounting, double base_height, double permittivity) {
+                 return libcoil::TurnNetwork(s, libcoil::TurnNetworkOptions{libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting"),
+                                                                            base_height, permittivity});
+             }),
+             "solenoid"_a, "mounting"_a = "floating", "base_height"_a = -1.0, "relative_permittivity"_a = 1.0)
+        .def("resonances", &libcoil::TurnNetwork::resonances, "count"_a = 3, "The lowest natural frequencies, Hz.")
+        .def("impedance", [](const libcoil::TurnNetwork& n, py::array_t<double, py::array::c_style | py::array::forcecast> f,
+                             double r, double tan_d) {
+                 py::array_t<std::complex<double>> z(f.request().shape);
+                 for (py::ssize_t i = 0; i < f.size(); ++i) z.mutable_data()[i] = n.impedance(f.data()[i], r, tan_d);
+                 return z;
+             }, "frequency"_a, "series_resistance"_a = 0.0, "loss_tangent"_a = 0.0,
+             "Z between the terminals (ohm) over an array of frequencies.")
+        .def_property_readonly("inductance", &libcoil::TurnNetwork::inductance)
+        .def_property_readonly("elements", &libcoil::TurnNetwork::elements);
+
     // Thermal estimate.
     m.def("churchill_chu_horizontal", py::vectorize(&libcoil::churchill_chu_horizontal), "rayleigh"_a, "prandtl"_a);
     m.def("churchill_chu_vertical", py::vectorize(&libcoil::churchill_chu_vertical), "rayleigh"_a, "prandtl"_a);

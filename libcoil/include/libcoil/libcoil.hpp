@@ -37,6 +37,7 @@
 #include "libcoil/models/skin_effect.hpp"
 #include "libcoil/models/solenoid.hpp"
 #include "libcoil/models/thermal.hpp"
+#include "libcoil/models/turn_network.hpp"
 #include "libcoil/models/wheeler.hpp"
 #include "libcoil/models/wire.hpp"
 

@@ -1,0 +1,76 @@
+// The winding as a network of coupled turns (PEEC, partial-element equivalent circuit): its resonances and
+// its impedance between the terminals, from the turns' partial inductances and capacitances.
+//
+// Method:  one ring per turn (turn_filaments: a fractional N gives ceil(N) rings of N / ceil(N) turns each)
+//          on the mean radius a, wire radius r. Partial inductances: Maxwell's mutual inductance between
+//          rings (coaxial_mutual.hpp), each ring's self-inductance at high frequency mu0 a (ln(8a/r) - 2)
+//          (the thin ring with its current on the surface; Rosa & Grover, as ring_inductance.hpp, without
+//          the internal quarter). Potential coefficients: the potential of a uniformly charged ring,
+//          (1 / 4 pi eps0) (2 / pi) K(m) / sqrt((a + rho)^2 + z^2), m = 4 a rho / ((a + rho)^2 + z^2), at the
+//          other ring's centre line, and for a ring's own, averaged over its wire surface (16 points round
+//          the wire): the thin-wire potential coefficients. Each turn's charge is shared between the two
+//          nodes at its ends (a turn's potential is their mean), so the N + 1 nodes carry
+//          C_n = A^T P^-1 A, A the averaging matrix; the branches (turns) carry L. With one end on a ground
+//          plane (Mounting::grounded_end) the plane is an image of every ring, below the coil's bottom end
+//          by `base_height` (the coil's axis upright, as Medhurst's coils stood), and that end's node is
+//          ground. The resonances are the generalised eigenvalues of B^T L^-1 B V = w^2 C_n V (B the
+//          incidence matrix), solved as the symmetric-definite pencil (K', C_n + K'), K' = K / w0^2,
+//          whose eigenvalues mu = lambda / (1 + lambda) stay finite where C_n or K is singular (the free
+//          coil's common and alternating modes). Z(f) between the terminals by the nodal solve
+//          Y = B^T (R + j w L)^-1 B + j w C_n (1 - j tan d), with the series resistance R(f) spread over the
+//          turns and the former's loss tangent on the capacitances, Eigen's LU.
+// Source:  A. E. Ruehli, "Equivalent circuit models for three-dimensional multiconductor systems", IEEE
+//          Trans. MTT 22 (1974) 216 (PEEC); the ring's potential as in Smythe, "Static and Dynamic
+//          Electricity" (quoted from memory); the eigenproblem's reformulation is ours.
+// Domain:  quasi-static (no retardation): the turns' circumference well below a wavelength at the
+//          frequencies asked for; round wire, r < p / 2, p < 0.4 a (beyond it the rings misplace the helix's
+//          pitch); free space or one ground plane. Close-wound turns (p < 2 d) crowd their charge
+//          towards the neighbours, which the thin-wire rings do not hold (docs/models.md).
+// Accuracy: against NEC2 (nec2c, Richardson-extrapolated from 16 and 32 segments a turn): see
+//          docs/models.md and tests/python/test_turn_network.py.
+#pragma once
+
+#include <complex>
+#include <vector>
+
+#include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/choices.hpp"
+
+namespace libcoil {
+
+// The capacitance of one isolated ring of round wire (ring radius a, wire radius r) by the network's own
+// potential coefficient (the ring's potential averaged over its wire surface), F. The thin torus's
+// 4 pi^2 eps0 a / ln(8 a / r) is its limit for r << a.
+double ring_capacitance(double ring_radius, double wire_radius);
+
+struct TurnNetworkOptions {
+    Mounting mounting = Mounting::floating;
+    double base_height = -1;          // m, grounded end: the ground plane below the first turn's centre;
+                                      // < 0: half a pitch (the winding stands on the plane)
+    double relative_permittivity = 1; // a uniform medium around and inside the winding
+};
+
+class TurnNetwork {
+public:
+    explicit TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& options = {});
+
+    // The lowest `count` natural frequencies with the terminals open, Hz, rising (fewer if the network
+    // has fewer). The first is the self-resonance.
+    std::vector<double> resonances(int count = 3) const;
+    // Z between the terminals at f (Hz, > 0): `series_resistance` is the winding's R(f), spread over the
+    // turns in proportion to their length; `loss_tangent` the dielectric's.
+    std::complex<double> impedance(double frequency, double series_resistance = 0, double loss_tangent = 0) const;
+
+    // The sum of the partial inductances: the network's low-frequency L (external: high-frequency self
+    // terms, and with the ground plane's images).
+    double inductance() const;
+    int elements() const { return n_; }
+
+private:
+    int n_ = 0;                // turns (branches)
+    std::vector<double> l_;    // partial inductances, H, N x N row-major
+    std::vector<double> c_;    // node capacitances, F, row-major over the free nodes (N + 1, or N grounded)
+    Mounting mounting_ = Mounting::floating;
+};
+
+}  // namespace libcoil
