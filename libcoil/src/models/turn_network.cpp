@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include <Eigen/Dense>
+#include <boost/math/quadrature/gauss_kronrod.hpp>
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
@@ -38,6 +39,54 @@ double own_potential(double a, double r) {
     return sum / points;
 }
 
+// The azimuth-average of 1 / R between two points of a cylinder of radius a an axial distance z apart, with
+// the thin-wire reduced kernel (z^2 + r^2 for z^2): (2 / pi) K(m) / sqrt(4 a^2 + z^2), m = 4 a^2 / (4 a^2 + z^2).
+double mean_inverse_distance(double a, double z, double r) {
+    const double z2 = z * z + r * r, s2 = 4 * a * a + z2;
+    const double k = detail::elliptic_k_and_k_minus_e_over_m(std::sqrt(z2 / s2), 4 * a * a / s2).k;
+    return (2 / pi) * k / std::sqrt(s2);
+}
+
+// The partial mutual inductance of two axial current sheets on the cylinder (radius a), each `length` long
+// with uniform current, their centres `offset` apart: mu0 / 4 pi times the double integral of the
+// azimuth-averaged 1 / R, by Gauss-Legendre (16 points where they overlap or touch, else 8).
+double axial_mutual(double a, double length, double offset, double r) {
+    static constexpr double x8[] = {0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363};
+    static constexpr double w8[] = {0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
+    static constexpr double x16[] = {0.0950125098376374, 0.2816035507792589, 0.4580167776572274, 0.6178762444026438,
+                                     0.7554044083550030, 0.8656312023878318, 0.9445750230732326, 0.9894009349916499};
+    static constexpr double w16[] = {0.1894506104550685, 0.1826034150449236, 0.1691565193950025, 0.1495959888165767,
+                                     0.1246289712555339, 0.0951585116824928, 0.0622535239386479, 0.0271524594117541};
+    const bool near = std::fabs(offset) < 2.5 * length;
+    const double* x = near ? x16 : x8;
+    const double* w = near ? w16 : w8;
+    const int half = near ? 8 : 4;
+    double sum = 0;
+    for (int i = 0; i < 2 * half; ++i) {
+        const double xi = i < half ? -x[i] : x[i - half], wi = w[i < half ? i : i - half];
+        for (int j = 0; j < 2 * half; ++j) {
+            const double xj = j < half ? -x[j] : x[j - half], wj = w[j < half ? j : j - half];
+            sum += wi * wj * mean_inverse_distance(a, offset + (xj - xi) * length / 2, r);
+        }
+    }
+    return mu0 / (4 * pi) * sum * length * length / 4;
+}
+
+// The potential coefficient of the n-th harmonic of a ring's charge: the potential sin(n t) x H per unit
+// density sin(n phi) (C/m) on a ring of radius a, seen on a ring an axial distance z away:
+// H = (a / 4 pi eps0) integral_0^2pi cos(n psi) / R(psi) d psi, R^2 = 2 a^2 (1 - cos psi) + z^2 (+ r^2 on
+// its own ring, the reduced kernel). Gauss-Kronrod, adaptive, over [0, pi] twice (the integrand is even).
+double harmonic_potential(double a, double z, double r, int n) {
+    const double z2 = z * z + r * r;
+    const auto g = [&](double psi) { return std::cos(n * psi) / std::sqrt(2 * a * a * (1 - std::cos(psi)) + z2); };
+    const double integral = 2 * boost::math::quadrature::gauss_kronrod<double, 31>::integrate(g, 0.0, pi, 12, 1e-11);
+    return a / (4 * pi * eps0) * integral;
+}
+
+// How many harmonics of the charge along each turn the network holds beyond its mean (the turn's
+// potential runs linearly from one end node to the other; its sawtooth's harmonics fall as 1 / n).
+constexpr int charge_harmonics = 3;
+
 Matrix incidence(int n) {  // branch k runs from node k to node k + 1
     Matrix b = Matrix::Zero(n, n + 1);
     for (int k = 0; k < n; ++k) {
@@ -67,25 +116,65 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
     const double base = o.base_height < 0 ? coil.pitch() / 2 : o.base_height;
     if (grounded) require_positive("base_height", base);
     const double plane = f.z.front() - base;  // the ground plane's height
+    // The rings are evenly spaced, so every term depends on the offset i - j (free space) or on i + j (the
+    // images): each is computed once. A turn's current also advances along the axis by the pitch, an axial
+    // sheet segment of the winding's length over the rings; it couples only to other axial segments.
+    const double step = n_ > 1 ? f.z[1] - f.z[0] : coil.winding_length();
+    const auto z_of = [&](int i) { return f.z[static_cast<std::size_t>(i)]; };
+    std::vector<double> ring_l(static_cast<std::size_t>(n_)), axial_l(static_cast<std::size_t>(n_)), ring_p(static_cast<std::size_t>(n_));
+    for (int k = 0; k < n_; ++k) {
+        const double dz = k * step;
+        ring_l[static_cast<std::size_t>(k)] = k == 0 ? mu0 * a * (std::log(8 * a / r) - 2) : coaxial_mutual_inductance(a, a, dz);
+        ring_p[static_cast<std::size_t>(k)] = k == 0 ? own_potential(a, r) : ring_potential(a, a, dz);
+        axial_l[static_cast<std::size_t>(k)] = axial_mutual(a, step, dz, r);
+    }
+    std::vector<double> image_ring_l, image_axial_l, image_p;  // by i + j
+    if (grounded) {
+        for (int s2 = 0; s2 <= 2 * (n_ - 1); ++s2) {
+            const double di = 2 * z_of(0) + s2 * step - 2 * plane;  // z_i + z_j - 2 plane
+            // Horizontal (ring) currents image reversed, vertical (axial) ones in the same sense; charges reversed.
+            image_ring_l.push_back(-coaxial_mutual_inductance(a, a, di));
+            image_axial_l.push_back(axial_mutual(a, step, di, r));
+            image_p.push_back(-ring_potential(a, a, di));
+        }
+    }
     Matrix l(n_, n_), p(n_, n_);
-    const double self_l = mu0 * a * (std::log(8 * a / r) - 2), self_p = own_potential(a, r);
     for (int i = 0; i < n_; ++i) {
-        for (int j = 0; j <= i; ++j) {
-            const double dz = std::fabs(f.z[static_cast<std::size_t>(i)] - f.z[static_cast<std::size_t>(j)]);
-            double lij = i == j ? self_l : coaxial_mutual_inductance(a, a, dz);
-            double pij = i == j ? self_p : ring_potential(a, a, dz);
-            if (grounded) {  // the images: charge of opposite sign, horizontal current reversed
-                const double di = f.z[static_cast<std::size_t>(i)] + f.z[static_cast<std::size_t>(j)] - 2 * plane;
-                lij -= coaxial_mutual_inductance(a, a, di);
-                pij -= ring_potential(a, a, di);
+        for (int j = 0; j < n_; ++j) {
+            const auto k = static_cast<std::size_t>(std::abs(i - j));
+            double lij = w * w * ring_l[k] + axial_l[k], pij = ring_p[k];
+            if (grounded) {
+                const auto s2 = static_cast<std::size_t>(i + j);
+                lij += w * w * image_ring_l[s2] + image_axial_l[s2];
+                pij += image_p[s2];
             }
-            l(i, j) = l(j, i) = w * w * lij;
-            p(i, j) = p(j, i) = pij / o.relative_permittivity;
+            l(i, j) = lij;
+            p(i, j) = pij / o.relative_permittivity;
         }
     }
     Matrix avg = Matrix::Zero(n_, n_ + 1);  // a turn's potential: the mean of its end nodes'
     for (int k = 0; k < n_; ++k) avg(k, k) = avg(k, k + 1) = 0.5;
     Matrix cn = avg.transpose() * p.llt().solve(avg);
+    // The potential along a turn runs linearly between its end nodes: its sawtooth about the mean has the
+    // harmonics -(V_k+1 - V_k) sin(n phi) / (n pi), and each raises the charge sin(n phi) H_n^-1 on the
+    // turns. Their energy adds (a / (pi n^2)) B^T H_n^-1 B to the node capacitances.
+    const Matrix b = incidence(n_);
+    for (int h = 1; h <= charge_harmonics; ++h) {
+        std::vector<double> by_offset(static_cast<std::size_t>(n_)), by_sum;
+        for (int k = 0; k < n_; ++k) by_offset[static_cast<std::size_t>(k)] = harmonic_potential(a, k * step, k == 0 ? r : 0.0, h);
+        if (grounded) {
+            for (int s2 = 0; s2 <= 2 * (n_ - 1); ++s2) by_sum.push_back(-harmonic_potential(a, 2 * z_of(0) + s2 * step - 2 * plane, 0.0, h));
+        }
+        Matrix hm(n_, n_);
+        for (int i = 0; i < n_; ++i) {
+            for (int j = 0; j < n_; ++j) {
+                double v = by_offset[static_cast<std::size_t>(std::abs(i - j))];
+                if (grounded) v += by_sum[static_cast<std::size_t>(i + j)];
+                hm(i, j) = v / o.relative_permittivity;
+            }
+        }
+        cn += a / (pi * h * h) * b.transpose() * hm.llt().solve(b);
+    }
     if (grounded) cn = cn.bottomRightCorner(n_, n_).eval();  // node 0 is ground
     l_.assign(l.data(), l.data() + l.size());
     c_.assign(cn.data(), cn.data() + cn.size());
