@@ -192,16 +192,28 @@ std::vector<double> TurnNetwork::resonances(int count) const {
     const Eigen::Map<const Matrix> c(c_.data(), m, m);
     Matrix b = incidence(n_);
     if (mounting_ == Mounting::grounded_end) b = b.rightCols(n_).eval();
-    const Matrix k = b.transpose() * l.llt().solve(b);
-    // Scale K to C's size: w0 about the coil's own resonance, so that C + K' is well conditioned.
-    const double w0_squared = 1 / (l.sum() * c.trace());
+    Matrix k = b.transpose() * l.llt().solve(b);
+    Matrix cm = c;
+    if (mounting_ == Mounting::floating) {
+        // The free coil's common mode (every node at one potential: K 1 = 0, the charge against infinity) is
+        // no resonance: restrict the pencil to the vectors C-orthogonal to it, (C 1)^T v = 0, an orthonormal
+        // basis of which is the Householder reflection of C 1 without its first column.
+        const Eigen::VectorXd c1 = c * Eigen::VectorXd::Ones(m);
+        const Eigen::HouseholderQR<Matrix> qr(c1);
+        const Matrix q = qr.householderQ() * Matrix::Identity(m, m);
+        const Matrix basis = q.rightCols(m - 1);
+        k = (basis.transpose() * k * basis).eval();
+        cm = (basis.transpose() * c * basis).eval();
+    }
+    // Scale K to C's size (w0 near the coil's own resonance), so that C + K' is well conditioned.
+    const double w0_squared = k.trace() / cm.trace();
     const Matrix ks = k / w0_squared;
-    Eigen::GeneralizedSelfAdjointEigenSolver<Matrix> es(ks, c + ks, Eigen::EigenvaluesOnly);
+    Eigen::GeneralizedSelfAdjointEigenSolver<Matrix> es(ks, cm + ks, Eigen::EigenvaluesOnly);
     if (es.info() != Eigen::Success) throw DomainError("turn network: the eigenproblem did not converge");
     std::vector<double> f;
-    for (int i = 0; i < m && static_cast<int>(f.size()) < count; ++i) {
+    for (int i = 0; i < es.eigenvalues().size() && static_cast<int>(f.size()) < count; ++i) {
         const double mu = es.eigenvalues()(i);
-        if (!(mu > 1e-10 && mu < 1 - 1e-9)) continue;  // the common mode (0) and the alternating one (infinite)
+        if (!(mu > 0 && mu < 1 - 1e-9)) continue;  // the alternating mode (no capacitance) is at mu = 1
         f.push_back(std::sqrt(mu / (1 - mu) * w0_squared) / (2 * pi));
     }
     return f;
