@@ -42,7 +42,7 @@ py::object record(const char* kind, py::dict fields) { return py::module_::impor
 
 py::dict self_resonance_dict(const SelfResonance& r) {
     return py::dict("frequency"_a = r.frequency, "capacitance"_a = r.capacitance, "method"_a = r.method,
-                    "helical_line"_a = method_dict(r.helical_line), "kandoian_sichak"_a = method_dict(r.kandoian_sichak),
+                    "network"_a = method_dict(r.network), "helical_line"_a = method_dict(r.helical_line), "kandoian_sichak"_a = method_dict(r.kandoian_sichak),
                     "medhurst"_a = method_dict(r.medhurst), "low_frequency_capacitance"_a = r.low_frequency_capacitance,
                     "inductance"_a = r.inductance, "winding_length"_a = r.winding_length,
                     "resonance_wavenumber"_a = r.resonance_wavenumber, "phase_velocity"_a = r.phase_velocity,
@@ -159,7 +159,7 @@ py::dict design_dict(const Requirement& q, const DesignResult& r) {
                           "self_resonance"_a = stat(s.self_resonance), "within_tolerance"_a = s.within_tolerance, "sensitivities"_a = sens,
                           "first_order_inductance_sd"_a = s.first_order_inductance_deviation);
     }
-    return py::dict("candidates_evaluated"_a = r.candidates_evaluated, "feasible"_a = r.feasible, "pareto_size"_a = r.pareto.size(),
+    return py::dict("candidates_evaluated"_a = r.candidates_evaluated, "feasible"_a = r.feasible, "pareto_size"_a = r.front_size,
                     "rejected_by_reason"_a = rejected, "designs"_a = designs,
                     "chosen"_a = r.chosen ? py::object(py::int_(*r.chosen)) : py::object(py::none()), "why_chosen"_a = r.why_chosen,
                     "binding"_a = r.binding, "closest"_a = closest, "spread"_a = spread,

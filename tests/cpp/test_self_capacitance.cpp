@@ -169,7 +169,7 @@ TEST(SelfResonance, NearTheWireHalfWaveFrequency) {
                 const double ratio = s.winding_length() / D;
                 if (ratio > 12) continue;
                 const auto r = srf_of(s);
-                const double q = r.frequency / r.half_wave_wire_frequency;
+                const double q = r.helical_line.frequency / r.half_wave_wire_frequency;
                 EXPECT_GT(q, 0.95) << D << " " << N << " " << pd;
                 EXPECT_LT(q, 2.1) << D << " " << N << " " << pd;
             }
@@ -209,7 +209,7 @@ TEST(SelfResonance, GroundedEndAgainstMedhurst) {
         for (double pd : {1.5, 3.0}) {
             const double p = pd * 1e-3;
             const auto r = srf_of(coil(D, l / p, p), {}, Surroundings{1, Mounting::grounded_end});
-            const double share = r.low_frequency_capacitance / r.medhurst.capacitance;
+            const double share = pi * pi / 12 * r.helical_line.capacitance / r.medhurst.capacitance;
             EXPECT_GT(share, 0.38) << ratio;
             EXPECT_LT(share, 0.70) << ratio;
             if (first == 0) first = share;
@@ -223,13 +223,18 @@ TEST(SelfResonance, MountingAndEquivalentCapacitance) {
     const double L = inductance(s).recommended;
     const auto f = srf_of(s), g = srf_of(s, {}, Surroundings{1, Mounting::grounded_end});
     // A quarter-wave line resonates at about half the half-wave one (a little above: dispersion).
-    EXPECT_GT(g.frequency / f.frequency, 0.5);
-    EXPECT_LT(g.frequency / f.frequency, 0.7);
+    EXPECT_GT(g.helical_line.frequency / f.helical_line.frequency, 0.5);
+    EXPECT_LT(g.helical_line.frequency / f.helical_line.frequency, 0.7);
+    // The turn network, recommended, grounds one end against its images in the plane: NEC2 puts the
+    // grounded-end SRF at 0.58 .. 0.89 of the free one on its set (tests/reference/nec2/srf.json).
+    EXPECT_GT(g.frequency / f.frequency, 0.58);
+    EXPECT_LT(g.frequency / f.frequency, 0.89);
     // C = 1 / ((2 pi f)^2 L) by definition, and the low-frequency C is pi^2 / 12 of it.
     EXPECT_NEAR(f.capacitance * L * std::pow(2 * pi * f.frequency, 2), 1.0, 1e-12);
     EXPECT_NEAR(f.low_frequency_capacitance / f.capacitance, pi * pi / 12, 1e-12);
-    EXPECT_EQ(f.method, "helical_line");
-    EXPECT_EQ(f.frequency, f.helical_line.frequency);
+    EXPECT_EQ(f.method, "network");
+    EXPECT_EQ(f.frequency, f.network.frequency);
+    EXPECT_LT(f.network.frequency, f.helical_line.frequency);  // the helix reads high (docs/models.md)
 }
 
 TEST(SelfResonance, SearchToleranceAgreesWithTheFullSolve) {

@@ -54,15 +54,20 @@ def test_half_wave_rule_of_thumb():
     # wire is half a wavelength long, within a factor of about 2. Random coils with l/D from 0.2 to 10.
     rng = np.random.default_rng(7)
     wire = libcoil.Wire(diameter=0.8e-3, insulation=0.03e-3)
-    ratios = []
+    ratios, helix = [], []
     for _ in range(200):
         D = rng.uniform(0.008, 0.06)
         pitch = wire.insulated_diameter * rng.uniform(1.02, 4)
         N = max(3.0, rng.uniform(0.2, 10) * D / pitch)
         s = libcoil.Solenoid(mean_diameter=D, turns=N, pitch=pitch, wire=wire)
         r = libcoil.self_resonance(s, libcoil.inductance(s).recommended)
-        ratios.append(r["frequency"] / (C0 / (2 * s.helix_length)))
-    assert 0.95 < min(ratios) and max(ratios) < 2.1, (min(ratios), max(ratios))
+        half_wave = C0 / (2 * s.helix_length)
+        ratios.append(r["frequency"] / half_wave)
+        helix.append(r["helical_line"]["frequency"] / half_wave)
+    # The recommended SRF (the turn network): measured 0.61 .. 1.75 of the half-wave frequency, the lowest
+    # for close-wound short coils; the sheath helix 0.95 .. 2.1 (it reads high, docs/models.md).
+    assert 0.5 < min(ratios) and max(ratios) < 2.0, (min(ratios), max(ratios))
+    assert 0.95 < min(helix) and max(helix) < 2.1, (min(helix), max(helix))
 
 
 def test_analysis_json_has_the_self_resonance_and_band(run_coil, source_dir):
@@ -72,8 +77,9 @@ def test_analysis_json_has_the_self_resonance_and_band(run_coil, source_dir):
     for key in ("self_capacitance_F", "self_capacitance_by_method", "self_resonance_Hz", "self_resonance_by_method",
                 "band", "impedance"):
         assert key in j
-    assert set(j["self_resonance_by_method"]) == {"helical_line", "kandoian_sichak", "medhurst"}
-    assert j["self_resonance_Hz"] == j["self_resonance_by_method"]["helical_line"]
+    assert set(j["self_resonance_by_method"]) == {"network", "helical_line", "kandoian_sichak", "medhurst"}
+    assert j["self_resonance_method"] == "network"
+    assert j["self_resonance_Hz"] == j["self_resonance_by_method"]["network"]
     L = j["inductance_H"]
     assert j["self_capacitance_F"] == pytest.approx(1 / ((2 * math.pi * j["self_resonance_Hz"]) ** 2 * L), rel=1e-12)
     band = j["band"]

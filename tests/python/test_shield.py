@@ -113,4 +113,4 @@ def test_the_search_screens_the_shielded_self_resonance():
         a = libcoil.analyze(libcoil.parse_coil_spec(text, "design"))
         assert srf == pytest.approx(a.shield.self_resonance, rel=1e-6)  # measured 3e-8
         assert srf == pytest.approx(a.self_resonance_as_mounted, rel=1e-6)
-        assert srf < 0.9 * a.self_resonance.frequency  # the shield lowers it here by 17 .. 21 %
+        assert srf < 0.93 * a.self_resonance.frequency  # the shield lowers it here by 9 .. 14 %

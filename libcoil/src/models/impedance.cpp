@@ -92,7 +92,15 @@ double CoilImpedance::phase_velocity(double frequency) const {
 }
 
 double CoilImpedance::bare_phase_velocity(double frequency) const {
-    if (frequency <= sr_.frequency) return sr_.phase_velocity;
+    // The sheath helix's dispersion, scaled so that the line resonates at the recommended SRF (the turn
+    // network's, where it is computed).
+    const double s = sr_.frequency / sr_.helical_line.frequency;
+    if (s != 1) return s * helix_phase_velocity(frequency / s);
+    return helix_phase_velocity(frequency);
+}
+
+double CoilImpedance::helix_phase_velocity(double frequency) const {
+    if (frequency <= sr_.helical_line.frequency) return sr_.phase_velocity;
     const double k = 2 * pi * frequency / speed_of_light;
     const double beta = helix_.axial_wavenumber(k);
     if (beta <= sr_.resonance_wavenumber) return sr_.phase_velocity;

@@ -42,7 +42,7 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
     if (q.max_wire_length) o << ", wire " << fixed(*q.max_wire_length, 2) << " m";
     o << "\n";
 
-    o << "\nSearch: " << r.candidates_evaluated << " candidates, " << r.feasible << " feasible, " << r.pareto.size()
+    o << "\nSearch: " << r.candidates_evaluated << " candidates, " << r.feasible << " feasible, " << r.front_size
       << " on the Pareto front (loss, size, SRF margin)\n";
     for (const auto& [reason, n] : r.rejected_by_reason) o << "  rejected by " << pad(reason, 24) << n << "\n";
 
@@ -120,7 +120,7 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
     j["tolerance"] = q.tolerance;
     j["candidates_evaluated"] = r.candidates_evaluated;
     j["feasible"] = r.feasible;
-    j["pareto_size"] = r.pareto.size();
+    j["pareto_size"] = r.front_size;
     j["rejected_by_reason"] = r.rejected_by_reason;
     nlohmann::ordered_json designs = nlohmann::ordered_json::array();
     for (std::size_t i = 0; i < std::min(top, r.pareto.size()); ++i) {

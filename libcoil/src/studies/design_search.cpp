@@ -368,25 +368,25 @@ bool Evaluator::screen_thermal(const Candidate& c, const Solenoid& s, DesignFigu
 bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometry& g, DesignFigures& d, Tally& t,
                             std::optional<double>& field) const {
     SelfResonance sr;
+    const FormerDielectric fd = q_.former ? q_.former->dielectric(c.form_diameter) : FormerDielectric{};
     try {
-        const FormerDielectric fd = q_.former ? q_.former->dielectric(c.form_diameter) : FormerDielectric{};
         sr = self_resonance(s, g.bare_inductance, fd, q_.surroundings, false);
     } catch (const DomainError&) {
         t.reject(Reason::model_domain, 10, [&] { return what(c) + ": no self-resonance model holds"; });
         return false;
     }
-    d.self_resonance = sr.frequency;
+    // In the shield: its capacitance between the terminals joins the coil's own, with the shielded L (the
+    // lumped estimate coil analyze reports; shield.hpp).
+    const double c_t = q_.shield ? shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end) : 0;
+    const auto as_mounted = [&](double f) { return q_.shield ? shielded_self_resonance(f, g.bare_inductance, d.inductance, c_t) : f; };
+    d.self_resonance = as_mounted(sr.frequency);
     std::optional<ShieldLoad> shield;
-    if (q_.shield) {
-        const double c_t = shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end);
-        d.self_resonance = shielded_self_resonance(sr.frequency, g.bare_inductance, d.inductance, c_t);
-        shield = ShieldLoad{ShieldTable::perfect(g.shielded_change), c_t, d.self_resonance, d.inductance};
-    }
+    if (q_.shield) shield = ShieldLoad{ShieldTable::perfect(g.shielded_change), c_t, d.self_resonance, d.inductance};
     if (!q_.band) return true;
     const BandSpec& b = *q_.band;
     d.srf_margin = d.self_resonance / b.ceiling;
-    // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
     std::optional<BandMiss> miss = screen_srf_margin(b, d.self_resonance);
+    // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
     if (!miss && (b.max_deviation || b.min_impedance)) {
         const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield));
         field = z.mean_square_field();
@@ -403,6 +403,31 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
         return what(c) + ": |Z| " + format_quantity(miss->value, Dimension::resistance) + " at " + format_quantity(miss->frequency, Dimension::frequency);
     });
     return false;
+}
+
+// The search screens with the sheath helix (fast, and an upper bound: the turn network read 0.68 .. 0.86 of
+// it on the NEC2 set); a design it keeps is confirmed here with the turn network's SRF, the recommended one,
+// and the band screened again on the coil as mounted.
+std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
+    const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
+    const FormerDielectric fd = q_.former ? q_.former->dielectric(d.form_diameter) : FormerDielectric{};
+    SelfResonance sr = self_resonance(s, d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0),
+                                      fd, q_.surroundings, false);
+    const double bare_l = sr.inductance;
+    if (const auto f = network_resonance(s, fd, q_.surroundings, sr.helical_line.frequency)) {
+        sr.frequency = *f;
+        sr.method = "network";
+    }
+    std::optional<ShieldLoad> shield;
+    d.self_resonance = sr.frequency;
+    if (q_.shield) {
+        const double c_t = shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end);
+        d.self_resonance = shielded_self_resonance(sr.frequency, bare_l, d.inductance, c_t);
+        shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance};
+    }
+    if (!q_.band) return std::nullopt;
+    d.srf_margin = d.self_resonance / q_.band->ceiling;
+    return libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield)), screen_points);
 }
 
 // Loss and Q at the reference frequency.

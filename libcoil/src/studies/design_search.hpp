@@ -18,6 +18,7 @@
 #include "libcoil/models/rosa.hpp"
 #include "libcoil/models/solenoid.hpp"
 #include "libcoil/spec/requirement.hpp"
+#include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/design.hpp"
 #include "studies/pareto_archive.hpp"
 
@@ -115,6 +116,9 @@ public:
     // A model that still throws for a candidate (a DomainError from a result out of double range, say)
     // rejects that candidate under the models' domain; it never stops the search or its thread.
     void evaluate(const Candidate& c, Tally& t) const;
+    // A kept design with the turn network's SRF (recommended): its figures updated, and the band's first
+    // miss, if any, on the coil as mounted.
+    std::optional<BandMiss> confirm(DesignFigures& d) const;
 
 private:
     void check(const Candidate& c, Tally& t) const;

@@ -87,6 +87,7 @@ public:
 
 private:
     double bare_phase_velocity(double frequency) const;
+    double helix_phase_velocity(double frequency) const;
 
     Solenoid coil_;
     Conductor conductor_;

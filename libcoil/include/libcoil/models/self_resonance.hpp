@@ -22,6 +22,7 @@
 //          helical line's grounded-end low-frequency C is 0.39 .. 0.70 of Medhurst's table for l/D 0.4 .. 50.
 #pragma once
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -40,8 +41,8 @@ struct SelfResonanceMethod {
 struct SelfResonance {
     double frequency = 0;    // Hz, recommended
     double capacitance = 0;  // F, recommended
-    std::string method = "helical_line";
-    SelfResonanceMethod helical_line, kandoian_sichak, medhurst;
+    std::string method = "helical_line";  // "network", "helical_line" or "medhurst"
+    SelfResonanceMethod network, helical_line, kandoian_sichak, medhurst;
     double low_frequency_capacitance = 0;  // F, (pi^2 / 12) of the helical line's C (see above)
     double inductance = 0;                 // H, the low-frequency L used
     double winding_length = 0;             // m
@@ -67,6 +68,14 @@ struct HelicalLineResonance {
 // `tolerance`: relative, on the wavenumber and on the former's fixed point.
 HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDielectric& former = {},
                                             const Surroundings& surroundings = {}, double tolerance = 1e-12);
+
+// The turn network's first resonance (turn_network.hpp) for the coil in its surroundings: free space or
+// one end grounded, a uniform medium; a former's dielectric by the sheath helix's ratio, its SRF on the
+// former (`helical_line_frequency`, 0 if it has none) over its SRF without. Nothing over
+// max_network_turns turns, or for a dielectric former without the sheath helix's figure.
+inline constexpr int max_network_turns = 600;  // the network's O(N^3) solve: 0.6 s at 600 turns
+std::optional<double> network_resonance(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings,
+                                        double helical_line_frequency);
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
 // What the fast paths for searches solve to (relative): a search's figures are shown to four digits and

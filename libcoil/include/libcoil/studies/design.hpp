@@ -78,7 +78,9 @@ struct DesignResult {
     std::size_t candidates_evaluated = 0;
     std::size_t feasible = 0;
     std::map<std::string, std::size_t> rejected_by_reason;
-    std::vector<DesignFigures> pareto;  // the non-dominated feasible designs, ranked by score
+    std::size_t front_size = 0;         // the non-dominated feasible designs the search kept
+    std::vector<DesignFigures> pareto;  // the best `top` of them, ranked by score, confirmed with the turn
+                                        // network's SRF (DesignSearch::confirm)
     std::optional<std::size_t> chosen;  // index into pareto
     std::string why_chosen;
     std::optional<Rejection> closest;   // when nothing is feasible: the attempt that came closest
