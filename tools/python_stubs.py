@@ -56,6 +56,7 @@ RETURNS = {
 PROPERTY_TYPES = {
     "Analysis": {"spec": "CoilSpec", "inductance": "InductanceResult", "dc_resistance": "float", "loss_method": "str",
                  "at_frequency": "Record", "self_resonance": "Record", "self_resonance_as_mounted": "float",
+                 "self_resonance_low_as_mounted": "float", "self_resonance_high_as_mounted": "float",
                  "impedance": "Record", "band": "Record | None", "thermal": "Record | None", "shield": "Record | None",
                  "cautions": "list[str]", "warnings": "list[str]", "notes": "list[str]"},
     "CoilSpec": {"name": "str", "description": "str", "solenoid": "Solenoid", "conductor": "Conductor", "notes": "list[str]",

@@ -126,6 +126,8 @@ void bind_studies(py::module_& m) {
             return record("Record", libcoil::python::self_resonance_dict(a.self_resonance));
         })
         .def_readonly("self_resonance_as_mounted", &libcoil::Analysis::self_resonance_as_mounted)
+        .def_readonly("self_resonance_low_as_mounted", &libcoil::Analysis::self_resonance_low_as_mounted)
+        .def_readonly("self_resonance_high_as_mounted", &libcoil::Analysis::self_resonance_high_as_mounted)
         .def_property_readonly("impedance", [](const libcoil::Analysis& a) { return record("Record", libcoil::python::impedance_dict(a.impedance)); })
         .def_property_readonly("band", [](const libcoil::Analysis& a) {
             const py::object b = libcoil::python::band_dict(a.band, a.band_srf_by_medhurst);

@@ -108,7 +108,7 @@ def test_the_search_screens_the_shielded_self_resonance():
     # coil analyze reports for the chosen spec.
     shielded = libcoil.design(libcoil.parse_requirement(REQUIREMENT + SHIELD), threads=1, top=5)
     s = shielded.designs
-    assert len(s.spec) == 5
+    assert 3 <= len(s.spec) <= 5  # those of the five best the turn network's SRF band confirms
     for text, srf in zip(s.spec, s.self_resonance):
         a = libcoil.analyze(libcoil.parse_coil_spec(text, "design"))
         assert srf == pytest.approx(a.shield.self_resonance, rel=1e-6)  # measured 3e-8

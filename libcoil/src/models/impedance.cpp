@@ -1,5 +1,6 @@
 #include "libcoil/models/impedance.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "libcoil/core/constants.hpp"
@@ -79,6 +80,13 @@ CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, d
         require_positive("shield.inductance", shield_->inductance);
         require_non_negative("shield.terminal_capacitance", shield_->terminal_capacitance);
     }
+}
+
+double CoilImpedance::resonance_low() const {
+    const double relative = sr_.frequency_low > 0 ? sr_.frequency_low / sr_.frequency : 1;
+    if (!shield_) return sr_.frequency * relative;
+    const double shift = std::max(0.0, 1 - shield_->self_resonance / sr_.frequency);
+    return shield_->self_resonance * relative * (1 - 0.5 * shift);
 }
 
 double CoilImpedance::phase_velocity(double frequency) const {

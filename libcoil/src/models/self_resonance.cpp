@@ -118,6 +118,43 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
     return r;
 }
 
+SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, double former_ratio) {
+    require_positive("frequency", f);
+    const bool grounded = mounting == Mounting::grounded_end;
+    constexpr double nec_residual = 0.005;
+    double err_lo = 0, err_hi = 0;  // the model's error f / f_true - 1, measured
+    SrfBand b;
+    if (method == "network") {
+        err_lo = grounded ? -0.0123 : -0.0062;
+        err_hi = grounded ? -0.0036 : 0.0153;
+        b.reasons.push_back(std::string("the turn network's error against NEC2, ") + (grounded ? "-1.23 .. -0.36 %" : "-0.62 .. +1.53 %") +
+                            ", and 0.5 % for NEC's own convergence");
+    } else if (method == "helical_line") {
+        err_lo = grounded ? -0.12 : 0.16;
+        err_hi = grounded ? 0.18 : 0.47;
+        b.reasons.push_back(std::string("the sheath helix's error against NEC2, ") + (grounded ? "-12 .. +18 %" : "+16 .. +47 %"));
+    } else {
+        err_lo = -0.25;
+        err_hi = 0.25;
+        b.reasons.push_back("Medhurst's table, taken as good to 25 % outside his arrangement (an assumption)");
+    }
+    b.low = f / (1 + err_hi + nec_residual);
+    b.high = f / (1 + err_lo - nec_residual);
+    if (pitch_to_wire < 2) {
+        b.low *= 0.9;
+        b.reasons.push_back("close-wound turns (pitch " + detail::significant(pitch_to_wire, 3) +
+                            " wire diameters), not yet checked against an electrostatic reference: 10 % lower (an assumption)");
+    }
+    if (former_ratio < 1) {
+        const double half_shift = 0.5 * (1 - former_ratio);
+        b.low *= 1 - half_shift;
+        b.high *= 1 + half_shift;
+        b.reasons.push_back("the former's dielectric by the sheath helix's ratio (" + detail::significant(100 * (1 - former_ratio), 2) +
+                            " % lower), not yet checked: half that shift either side");
+    }
+    return b;
+}
+
 std::optional<double> network_resonance(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings,
                                         double helical_line_frequency) {
     if (static_cast<int>(std::ceil(s.turns() - 1e-9)) > max_network_turns) return std::nullopt;
@@ -172,6 +209,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     if (!cross_checks && r.helical_line.available) {
         r.frequency = r.helical_line.frequency;
         r.capacitance = r.helical_line.capacitance;
+        r.frequency_low = r.frequency_high = r.frequency;  // the search sets the band where it needs it
         return r;  // the fast path: no cross-check and no notes
     }
     if (ratio >= medhurst_min_ratio && ratio <= medhurst_max_ratio) {
@@ -221,6 +259,16 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
                              "impedance from the lumped model");
     } else {
         throw DomainError(line_failure + ", and l/D is outside Medhurst's table: no self-resonance model holds");
+    }
+    {
+        double former_ratio = 1;
+        if (r.method == "network" && former.wall > 0 && former.relative_permittivity != eps_out && r.helical_line.available) {
+            former_ratio = r.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency;
+        }
+        const SrfBand b = srf_band(r.frequency, r.method, surroundings.mounting, s.pitch_to_wire(), former_ratio);
+        r.frequency_low = b.low;
+        r.frequency_high = b.high;
+        r.band_reasons = b.reasons;
     }
     if (former.wall > 0 && former.relative_permittivity != eps_out) {
         r.notes.push_back("the former raises the inner permittivity the helical line sees to " +

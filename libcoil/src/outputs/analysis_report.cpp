@@ -93,6 +93,9 @@ void self_resonance_text(std::ostringstream& o, const Analysis& a) {
     o << "\nSelf-resonance (" << mounting_name(sr.mounting)
       << (sr.mounting == Mounting::floating ? ": both terminals free of ground" : ": one terminal on a ground plane")
       << ")\n";
+    o << "  SRF " << hz(a.self_resonance_as_mounted) << (a.shield ? " in the shield" : "") << ", expected between "
+      << hz(a.self_resonance_low_as_mounted) << " and " << hz(a.self_resonance_high_as_mounted) << "\n";
+    for (const auto& why : sr.band_reasons) o << "    - " << why << "\n";
     o << "  " << pad("model", 44) << pad("SRF", 13) << "self-capacitance\n";
     const auto line = [&](const std::string& name, const SelfResonanceMethod& m, const std::string& mark) {
         if (!m.available) return;
@@ -147,7 +150,7 @@ std::string criterion_label(const CriterionResult& c) {
 
 std::string criterion_detail(const CriterionResult& c) {
     if (c.name == "srf_margin") {
-        return "SRF " + hz(c.worst) + " = " + fixed(c.margin * c.required, 2) + " x ceiling" +
+        return "SRF at least " + hz(c.worst) + " = " + fixed(c.margin * c.required, 2) + " x ceiling" +
                (c.first_failure ? "; passes only up to a ceiling of " + hz(*c.first_failure) : "");
     }
     if (c.name == "max_deviation") {
@@ -410,6 +413,8 @@ std::string json_report(const Analysis& a) {
                         {"sets_wire_temperature", t.sets_wire_temperature}};
     }
     j["self_resonance_as_mounted_Hz"] = a.self_resonance_as_mounted;
+    j["self_resonance_band_as_mounted_Hz"] = {a.self_resonance_low_as_mounted, a.self_resonance_high_as_mounted};
+    j["self_resonance_band_reasons"] = a.self_resonance.band_reasons;
     j["cautions"] = a.cautions;
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;

@@ -154,6 +154,8 @@ void add_shield(Analysis& a) {
 void add_impedance_and_band(Analysis& a) {
     const CoilSpec& spec = a.spec;
     const CoilImpedance zc = coil_impedance(a);
+    a.self_resonance_low_as_mounted = zc.resonance_low();
+    a.self_resonance_high_as_mounted = a.self_resonance_as_mounted * a.self_resonance.frequency_high / a.self_resonance.frequency;
     for (const auto& p : a.at_frequency) {
         // With this analysis's R and L, which may come from the cross-section solver.
         a.impedance.push_back(zc.with_wire(p.frequency, p.resistance, p.inductance));
@@ -172,7 +174,7 @@ void add_impedance_and_band(Analysis& a) {
             medhurst = shielded_self_resonance(medhurst, a.inductance.recommended, a.shield->result.perfect_conductor,
                                                a.shield->terminal_capacitance);
         }
-        a.band_srf_by_medhurst = check_srf_margin(medhurst, a.band->ceiling, c.required);
+        a.band_srf_by_medhurst = check_srf_margin(medhurst, a.band->ceiling, c.required);  // Medhurst's figure as it stands
         if (a.band_srf_by_medhurst->pass != c.pass) {
             a.warnings.push_back(std::string("the SRF margin ") + (c.pass ? "passes" : "fails") + " by the helical line but " +
                                  (c.pass ? "fails" : "passes") + " by Medhurst's measured capacitance (SRF " + hz(medhurst) +

@@ -64,7 +64,7 @@ std::optional<BandMiss> screen_srf_margin(const BandSpec& b, double srf) {
 }
 
 std::optional<BandMiss> screen_band(const BandSpec& b, const CoilImpedance& zc, int points) {
-    if (auto miss = screen_srf_margin(b, zc.resonance())) return miss;
+    if (auto miss = screen_srf_margin(b, zc.resonance_low())) return miss;
     if (!b.max_deviation && !b.min_impedance) return std::nullopt;
     std::vector<double> f(static_cast<std::size_t>(points));
     for (int i = 0; i < points; ++i) f[static_cast<std::size_t>(i)] = b.low * std::pow(b.ceiling / b.low, i / (points - 1.0));
@@ -99,7 +99,7 @@ BandCheck check_band(const BandSpec& b, const CoilImpedance& zc) {
     out.low = b.low;
     out.ceiling = b.ceiling;
     if (const double k = required_srf_margin(b); k > 0) {
-        auto r = check_srf_margin(zc.resonance(), b.ceiling, k);
+        auto r = check_srf_margin(zc.resonance_low(), b.ceiling, k);
         r.defaulted = !b.srf_margin;
         out.criteria.push_back(r);
     }

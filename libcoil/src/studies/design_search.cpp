@@ -414,10 +414,17 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     SelfResonance sr = self_resonance(s, d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0),
                                       fd, q_.surroundings, false);
     const double bare_l = sr.inductance;
+    double former_ratio = 1;
     if (const auto f = network_resonance(s, fd, q_.surroundings, sr.helical_line.frequency)) {
         sr.frequency = *f;
         sr.method = "network";
+        if (fd.wall > 0 && fd.relative_permittivity != q_.surroundings.relative_permittivity) {
+            former_ratio = sr.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, q_.surroundings, search_tolerance).frequency;
+        }
     }
+    const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), former_ratio);
+    sr.frequency_low = band.low;
+    sr.frequency_high = band.high;
     std::optional<ShieldLoad> shield;
     d.self_resonance = sr.frequency;
     if (q_.shield) {

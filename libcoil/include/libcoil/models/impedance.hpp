@@ -81,6 +81,9 @@ public:
     double nominal_inductance() const { return shield_ ? shield_->inductance : dc_inductance_; }
     // The first self-resonance of the coil as mounted (in its shield, if any), Hz.
     double resonance() const { return shield_ ? shield_->self_resonance : sr_.frequency; }
+    // The lower edge of its band (self_resonance.hpp's srf_band): in a shield, scaled with the shielded SRF
+    // and lowered by half the shield's shift more (the lumped estimate, not yet checked against a reference).
+    double resonance_low() const;
     const std::optional<ShieldLoad>& shield() const { return shield_; }
     double mean_square_field() const { return field_; }  // (A/m / A)^2, proximity.hpp
     const SelfResonance& self_resonance() const { return sr_; }

@@ -40,6 +40,10 @@ struct SelfResonanceMethod {
 
 struct SelfResonance {
     double frequency = 0;    // Hz, recommended
+    // The interval the first resonance is expected in (srf_band below): the recommended model's measured
+    // error, widened for what is not yet validated. The band check judges the lower edge.
+    double frequency_low = 0, frequency_high = 0;  // Hz
+    std::vector<std::string> band_reasons;         // what widened it, in words
     double capacitance = 0;  // F, recommended
     std::string method = "helical_line";  // "network", "helical_line" or "medhurst"
     SelfResonanceMethod network, helical_line, kandoian_sichak, medhurst;
@@ -76,6 +80,22 @@ HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDi
 inline constexpr int max_network_turns = 600;  // the network's O(N^3) solve: 0.6 s at 600 turns
 std::optional<double> network_resonance(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings,
                                         double helical_line_frequency);
+
+// The interval around a recommended SRF `f` by `method` ("network", "helical_line", "medhurst") where the
+// first resonance is expected:
+//  - the model's measured error against NEC2 (tests/reference/nec2, docs/models.md), widened by 0.5 % for
+//    NEC's own residual: the network floating -0.62 .. +1.53 %, grounded end -1.23 .. -0.36 %; the sheath
+//    helix floating +16 .. +47 %, grounded end -12 .. +18 %; Medhurst's table +-25 % (an assumption: his
+//    arrangement, not ours);
+//  - close-wound turns (pitch under 2 bare diameters), not yet checked against an electrostatic reference:
+//    the low edge 10 % lower (an assumption: their charge crowds towards the neighbours);
+//  - a dielectric former, which the network takes by the sheath helix's ratio `former_ratio` (its SRF on
+//    the former over without; 1 with none), not yet checked: widened by half the shift on each side.
+struct SrfBand {
+    double low = 0, high = 0;  // Hz
+    std::vector<std::string> reasons;
+};
+SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, double former_ratio);
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
 // What the fast paths for searches solve to (relative): a search's figures are shown to four digits and

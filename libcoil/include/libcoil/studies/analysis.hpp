@@ -63,6 +63,9 @@ struct Analysis {
     std::optional<Shielded> shield{};
     // The first self-resonance of the coil as mounted: the shielded one in a shield, else the recommended.
     double self_resonance_as_mounted = 0;
+    // The band it is expected in, as mounted (self_resonance.hpp's srf_band, and a shield's widening): the
+    // band check judges the lower edge.
+    double self_resonance_low_as_mounted = 0, self_resonance_high_as_mounted = 0;
     // Z between the terminals at each operating frequency, of the coil as mounted (helical-line form, with
     // the R and L of at_frequency and the shield's change).
     std::vector<ImpedancePoint> impedance{};

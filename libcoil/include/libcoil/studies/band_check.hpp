@@ -1,7 +1,8 @@
 // The band check: does the coil stay a good inductor across the user's band?
 //
 // Criteria, each optional (with none given, srf_margin = 2 applies, a common-practice figure):
-//   srf_margin k      the self-resonance lies at or above k x ceiling;
+//   srf_margin k      the self-resonance lies at or above k x ceiling: the lower edge of its band
+//                     (self_resonance.hpp's srf_band), so that the verdict holds with the model's error;
 //   max_deviation x   | |Z| / (w L) - 1 | <= x from the low edge to the ceiling (L the low-frequency L);
 //   min_impedance Z   |Z| >= Z across the band (a fixture coil that must dominate a 50 ohm port).
 // The impedance is the recommended helical-line form of the coil as mounted (impedance.hpp): with a
