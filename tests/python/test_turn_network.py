@@ -74,3 +74,39 @@ def test_the_sheath_helix_is_far_off_where_the_network_is_not():
         sh = libcoil.self_resonance(s, s.inductance())["helical_line"]["frequency"]
         errors.append(sh / c["floating"]["f"] - 1)
     assert min(errors) > 0.15 and max(errors) < 0.5
+
+
+FREE = "coil: {mean_diameter: 20 mm, turns: 10, pitch: 6 mm, wire: {diameter: 1 mm}}\noperating: {frequencies: [1 MHz]}\n"
+
+
+def test_network_sweep_shows_every_odd_resonance(tmp_path, run_coil):
+    # Between the two free ends only the modes with opposite end voltages show: the first and the third
+    # natural frequencies of the network (the second is symmetric and stays hidden), each a |Z| peak.
+    spec = libcoil.parse_coil_spec(FREE)
+    a = libcoil.analyze(spec)
+    modes = libcoil.TurnNetwork(spec.solenoid).resonances(3)
+    assert a.self_resonance.frequency == pytest.approx(modes[0], rel=1e-12)
+    f = np.linspace(50e6, 1000e6, 19001)
+    z = np.abs(libcoil.sweep(a, f, model="network").impedance)
+    peaks = f[1:-1][(z[1:-1] > z[:-2]) & (z[1:-1] > z[2:])]
+    step = f[1] - f[0]
+    assert len(peaks) == 2
+    assert abs(peaks[0] - modes[0]) <= step and abs(peaks[1] - modes[2]) <= step
+    # The command writes the same into its Touchstone file.
+    p = tmp_path / "free.yaml"
+    p.write_text(FREE)
+    r = run_coil("sweep", p, "--model", "network", "--from", "50 MHz", "--to", "1000 MHz", "--points", "9501",
+                 "--spacing", "linear", "--out", tmp_path)
+    assert r.returncode == 0, r.stderr
+    rows = [line.split() for line in (tmp_path / "free.s1p").read_text().splitlines() if line and line[0] not in "!#"]
+    s11 = np.array([float(x[1]) + 1j * float(x[2]) for x in rows])
+    fz = np.array([float(x[0]) for x in rows])
+    zt = np.abs(50 * (1 + s11) / (1 - s11))
+    peaks = fz[1:-1][(zt[1:-1] > zt[:-2]) & (zt[1:-1] > zt[2:])]
+    assert abs(peaks[0] - modes[0]) <= fz[1] - fz[0] and abs(peaks[1] - modes[2]) <= fz[1] - fz[0]
+
+
+def test_network_sweep_refuses_a_shield(source_dir):
+    a = libcoil.analyze(libcoil.load_coil_spec(str(source_dir / "data/examples/bench-network-coil-in-can.yaml")))
+    with pytest.raises(libcoil.InputError, match="^model: network: a shield"):
+        libcoil.sweep(a, [1e6, 2e6], model="network")

@@ -134,6 +134,7 @@ std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& freq
 ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double inductance, ImpedanceModel model,
                                         double capacitance) const {
     require_non_negative("capacitance", capacitance);
+    if (model == ImpedanceModel::network) throw InputError("model", "network: the turn network's Z(f) comes from the sweep study");
     double c = capacitance > 0 ? capacitance : sr_.capacitance;
     if (shield_) {
         resistance += shield_->table.added_resistance(f);

@@ -20,9 +20,10 @@ constexpr std::array<Choice<GrooveProfile>, 2> groove_profiles{{
     {GrooveProfile::round, "round", "a round-bottomed groove that fits the wire"},
     {GrooveProfile::vee, "vee", "a vee groove"},
 }};
-constexpr std::array<Choice<ImpedanceModel>, 2> impedance_models{{
-    {ImpedanceModel::helical_line, "helical-line", "the winding as a distributed line (recommended)"},
+constexpr std::array<Choice<ImpedanceModel>, 3> impedance_models{{
+    {ImpedanceModel::helical_line, "helical-line", "the winding as a distributed line, resonating at the recommended SRF"},
     {ImpedanceModel::lumped, "lumped", "(R + jwL) in parallel with the self-capacitance"},
+    {ImpedanceModel::network, "network", "the turn network: Z(f) with every resonance of the coupled turns"},
 }};
 constexpr std::array<Choice<CapacitanceSource>, 2> capacitance_sources{{
     {CapacitanceSource::helical_line, "helical-line", "the helical line's self-capacitance"},

@@ -1,9 +1,12 @@
 #include "libcoil/studies/sweep.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
+#include "libcoil/models/losses.hpp"
+#include "libcoil/models/turn_network.hpp"
 
 namespace libcoil {
 
@@ -28,6 +31,41 @@ std::vector<double> frequency_grid(double from, double to, int points, Spacing s
     f.back() = to;
     return f;
 }
+
+namespace {
+
+// Z(f) by the turn network (turn_network.hpp): every resonance of the coupled turns, with the winding's
+// closed-form R(f) spread over the turns. A former's dielectric enters as the uniform permittivity that
+// moves the network's first resonance where the recommended SRF has it (the sheath helix's ratio), its loss
+// tangent weighted by the share of the capacitance that ratio gives it, 1 - ratio^2.
+void network_sweep(const Analysis& a, const std::vector<double>& f, Sweep& s) {
+    if (a.shield) throw InputError("model", "network: a shield is not yet part of the turn network; the helical-line model holds it");
+    const SelfResonance& sr = a.self_resonance;
+    if (!sr.network.available) throw InputError("model", "network: the turn network is not built for this coil (over 600 turns, or no model for its former)");
+    const Solenoid& coil = a.spec.solenoid;
+    const Mounting m = a.spec.surroundings.mounting;
+    double eps = a.spec.surroundings.relative_permittivity;
+    const double in_medium = TurnNetwork(coil, TurnNetworkOptions{m, -1, eps}).resonances(1).at(0);
+    const double ratio = std::min(1.0, sr.network.frequency / in_medium);
+    eps /= ratio * ratio;
+    const double tan_d = a.spec.former ? a.spec.former->material.loss_tangent * (1 - ratio * ratio) : 0;
+    const TurnNetwork net(coil, TurnNetworkOptions{m, -1, eps});
+    const auto wire = coil_at_frequencies(coil, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, f);
+    for (std::size_t i = 0; i < f.size(); ++i) {
+        ImpedancePoint p;
+        p.frequency = f[i];
+        p.wire_resistance = wire[i].resistance;
+        p.wire_inductance = wire[i].inductance;
+        p.impedance = f[i] > 0 ? net.impedance(f[i], wire[i].resistance, tan_d) : std::complex<double>(wire[i].resistance, 0);
+        p.apparent_inductance = f[i] > 0 ? p.impedance.imag() / (2 * 3.141592653589793 * f[i]) : wire[i].inductance;
+        p.q_factor = p.impedance.imag() / p.impedance.real();
+        s.points.push_back(p);
+    }
+    s.nominal_inductance = a.inductance.recommended;
+    s.self_resonance = sr.network.frequency;
+}
+
+}  // namespace
 
 Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
     const SelfResonance& sr = a.self_resonance;
@@ -57,11 +95,15 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
         if (!sr.medhurst.available) throw InputError("capacitance", "this coil is outside Medhurst's table");
         c = sr.medhurst.capacitance;
     }
-    const double lowest = f.front() > 0 ? f.front() : (f.size() > 1 ? f[1] : f.back());
-    const CoilImpedance zc = coil_impedance(a, lowest > 0 ? lowest : span.low, std::max(f.back(), span.low));
-    s.points = zc.sweep(f, q.model, c);
-    s.nominal_inductance = zc.nominal_inductance();
-    s.self_resonance = zc.resonance();
+    if (q.model == ImpedanceModel::network) {
+        network_sweep(a, f, s);
+    } else {
+        const double lowest = f.front() > 0 ? f.front() : (f.size() > 1 ? f[1] : f.back());
+        const CoilImpedance zc = coil_impedance(a, lowest > 0 ? lowest : span.low, std::max(f.back(), span.low));
+        s.points = zc.sweep(f, q.model, c);
+        s.nominal_inductance = zc.nominal_inductance();
+        s.self_resonance = zc.resonance();
+    }
     if (c > 0) {  // Medhurst's C with the shield's capacitance, and the nominal L
         const double c_total = c + (a.shield ? a.shield->terminal_capacitance : 0);
         s.self_resonance = 1 / (2 * 3.141592653589793 * std::sqrt(s.nominal_inductance * c_total));

@@ -24,8 +24,9 @@ enum class Mounting { floating, grounded_end };
 enum class FormerKind { grooved_tube, ribbed };
 // The groove's section.
 enum class GrooveProfile { round, vee };
-// Z(f) between the terminals: the distributed helical line, or (R + jwL) parallel C.
-enum class ImpedanceModel { helical_line, lumped };
+// Z(f) between the terminals: the distributed helical line, (R + jwL) parallel C, or the turn network
+// (every resonance of the coupled turns).
+enum class ImpedanceModel { helical_line, lumped, network };
 // Where the lumped model takes its self-capacitance from.
 enum class CapacitanceSource { helical_line, medhurst };
 // How the losses are computed: closed forms, or the numerical cross-section solver.
