@@ -148,9 +148,10 @@ std::string criterion_label(const CriterionResult& c) {
     return "|Z| >= " + format_quantity(c.required, Dimension::resistance);
 }
 
-std::string criterion_detail(const CriterionResult& c) {
+// `lower_edge`: the SRF judged is the lower edge of its band (the band check's own criterion).
+std::string criterion_detail(const CriterionResult& c, bool lower_edge = true) {
     if (c.name == "srf_margin") {
-        return "SRF at least " + hz(c.worst) + " = " + fixed(c.margin * c.required, 2) + " x ceiling" +
+        return std::string(lower_edge ? "SRF at least " : "SRF ") + hz(c.worst) + " = " + fixed(c.margin * c.required, 2) + " x ceiling" +
                (c.first_failure ? "; passes only up to a ceiling of " + hz(*c.first_failure) : "");
     }
     if (c.name == "max_deviation") {
@@ -174,7 +175,7 @@ void band_text(std::ostringstream& o, const Analysis& a) {
     }
     if (a.band_srf_by_medhurst) {
         const auto& m = *a.band_srf_by_medhurst;
-        o << "  " << pad(m.pass ? "pass" : "fail", 6) << pad("same SRF margin, Medhurst C", 30) << criterion_detail(m)
+        o << "  " << pad(m.pass ? "pass" : "fail", 6) << pad("same SRF margin, Medhurst C", 30) << criterion_detail(m, false)
           << "\n";
     }
 }
