@@ -20,7 +20,8 @@ py::array_t<double> column(const std::vector<T>& rows, F field) {
 }
 
 py::dict method_dict(const SelfResonanceMethod& m) {
-    return py::dict("available"_a = m.available, "frequency"_a = m.frequency, "capacitance"_a = m.capacitance);
+    return py::dict("available"_a = m.available, "frequency"_a = m.frequency, "capacitance"_a = m.capacitance,
+                    "error_low"_a = m.error_low, "error_high"_a = m.error_high);
 }
 
 py::dict criterion_dict(const CriterionResult& c) {

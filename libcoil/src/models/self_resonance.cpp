@@ -118,6 +118,26 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
     return r;
 }
 
+namespace {
+
+// Each model's error against NEC2 on its reference set (f / f_NEC2 - 1), floating and with one end
+// grounded: measured, and enforced by tests/python/test_turn_network.py.
+struct MeasuredError {
+    double floating_low, floating_high, grounded_low, grounded_high;
+};
+constexpr MeasuredError network_error{-0.0062, 0.0153, -0.0123, -0.0036};
+constexpr MeasuredError helical_line_error{0.160, 0.468, -0.117, 0.180};
+constexpr MeasuredError kandoian_sichak_error{0.004, 0.316, -0.152, 0.018};
+constexpr MeasuredError medhurst_error{-0.500, -0.291, -0.336, -0.067};
+
+void set_error(SelfResonanceMethod& m, const MeasuredError& e, Mounting mounting) {
+    const bool grounded = mounting == Mounting::grounded_end;
+    m.error_low = grounded ? e.grounded_low : e.floating_low;
+    m.error_high = grounded ? e.grounded_high : e.floating_high;
+}
+
+}  // namespace
+
 SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, double former_ratio) {
     require_positive("frequency", f);
     const bool grounded = mounting == Mounting::grounded_end;
@@ -125,13 +145,13 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
     double err_lo = 0, err_hi = 0;  // the model's error f / f_true - 1, measured
     SrfBand b;
     if (method == "network") {
-        err_lo = grounded ? -0.0123 : -0.0062;
-        err_hi = grounded ? -0.0036 : 0.0153;
+        err_lo = grounded ? network_error.grounded_low : network_error.floating_low;
+        err_hi = grounded ? network_error.grounded_high : network_error.floating_high;
         b.reasons.push_back(std::string("the turn network's error against NEC2, ") + (grounded ? "-1.23 .. -0.36 %" : "-0.62 .. +1.53 %") +
                             ", and 0.5 % for NEC's own convergence");
     } else if (method == "helical_line") {
-        err_lo = grounded ? -0.12 : 0.16;
-        err_hi = grounded ? 0.18 : 0.47;
+        err_lo = grounded ? helical_line_error.grounded_low : helical_line_error.floating_low;
+        err_hi = grounded ? helical_line_error.grounded_high : helical_line_error.floating_high;
         b.reasons.push_back(std::string("the sheath helix's error against NEC2, ") + (grounded ? "-12 .. +18 %" : "+16 .. +47 %"));
     } else {
         err_lo = -0.25;
@@ -260,6 +280,10 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     } else {
         throw DomainError(line_failure + ", and l/D is outside Medhurst's table: no self-resonance model holds");
     }
+    set_error(r.network, network_error, surroundings.mounting);
+    set_error(r.helical_line, helical_line_error, surroundings.mounting);
+    set_error(r.kandoian_sichak, kandoian_sichak_error, surroundings.mounting);
+    set_error(r.medhurst, medhurst_error, surroundings.mounting);
     {
         double former_ratio = 1;
         if (r.method == "network" && former.wall > 0 && former.relative_permittivity != eps_out && r.helical_line.available) {

@@ -96,26 +96,23 @@ void self_resonance_text(std::ostringstream& o, const Analysis& a) {
     o << "  SRF " << hz(a.self_resonance_as_mounted) << (a.shield ? " in the shield" : "") << ", expected between "
       << hz(a.self_resonance_low_as_mounted) << " and " << hz(a.self_resonance_high_as_mounted) << "\n";
     for (const auto& why : sr.band_reasons) o << "    - " << why << "\n";
-    o << "  " << pad("model", 44) << pad("SRF", 13) << "self-capacitance\n";
+    o << "\n  Model comparison, each with its error measured against NEC2 (free-standing coils, " << mounting_name(sr.mounting) << ")\n";
+    o << "  " << pad("model", 44) << pad("SRF", 13) << pad("self-C", 12) << "measured error\n";
     const auto line = [&](const std::string& name, const SelfResonanceMethod& m, const std::string& mark) {
         if (!m.available) return;
-        std::string s = "  " + pad(name, 44) + pad(hz(m.frequency), 13) + pad(farad(m.capacitance), 12) + mark;
+        const std::string err = (m.error_low >= 0 ? "+" : "") + fixed(100 * m.error_low, 1) + " .. " + (m.error_high >= 0 ? "+" : "") +
+                                fixed(100 * m.error_high, 1) + " %";
+        std::string s = "  " + pad(name, 44) + pad(hz(m.frequency), 13) + pad(farad(m.capacitance), 12) + pad(err, 18) + mark;
         while (s.back() == ' ') s.pop_back();
         o << s << "\n";
     };
     const bool by_line = sr.method == "helical_line", by_network = sr.method == "network";
     line("turn network (PEEC)", sr.network, "<- recommended");
-    line("helical line (sheath helix)", sr.helical_line, by_line ? "<- recommended" : "cross-check");
-    line("helical line, Kandoian & Sichak velocity", sr.kandoian_sichak, "cross-check");
-    line("lumped, Medhurst 1947 C (end grounded)", sr.medhurst, by_line || by_network ? "measured cross-check" : "<- recommended");
-    if (by_network) {
-        o << "  The turn network was measured within 2 % of a full-wave wire solver (NEC2) on free-standing coils,\n"
-             "  where the sheath helix read 16 to 47 % high; Medhurst's table is a measurement of coils with one\n"
-             "  end grounded on a plate.\n";
-    } else if (by_line) {
-        o << "  The helical line holds the pitch, the former and the mounting; Medhurst's table is a measurement\n"
-             "  of coils with one end grounded, shown as the cross-check.\n";
-    }
+    line("helical line (sheath helix)", sr.helical_line, by_line ? "<- recommended" : "");
+    line("helical line, Kandoian & Sichak velocity", sr.kandoian_sichak, "");
+    line("lumped, Medhurst 1947 C (end grounded)", sr.medhurst, by_line || by_network ? "" : "<- recommended");
+    o << "  Medhurst's table is a measurement of coils standing on a grounded plate, wound on polystyrene rods;\n"
+         "  the NEC2 set is free-standing coils in air (tests/reference/nec2).\n";
     if (sr.mounting == Mounting::floating) {
         row(o, "wire half-wave", hz(sr.half_wave_wire_frequency), "rule of thumb: SRF lies near it, within about 2x");
     } else {
@@ -323,11 +320,12 @@ std::string json_report(const Analysis& a) {
     j["self_capacitance_F"] = sr.capacitance;
     j["self_resonance_Hz"] = sr.frequency;
     j["self_resonance_method"] = sr.method;
-    nlohmann::ordered_json cap, srf;
+    nlohmann::ordered_json cap, srf, err;
     const auto method = [&](const char* name, const SelfResonanceMethod& m) {
         if (!m.available) return;
         cap[name] = m.capacitance;
         srf[name] = m.frequency;
+        err[name] = {m.error_low, m.error_high};
     };
     method("network", sr.network);
     method("helical_line", sr.helical_line);
@@ -335,6 +333,7 @@ std::string json_report(const Analysis& a) {
     method("medhurst", sr.medhurst);
     j["self_capacitance_by_method"] = cap;
     j["self_resonance_by_method"] = srf;
+    j["self_resonance_error_by_method"] = err;  // f / f_NEC2 - 1 measured on the NEC2 set, [low, high]
     j["self_resonance_detail"] = {{"mounting", mounting_name(sr.mounting)},
                                   {"low_frequency_capacitance_F", sr.low_frequency_capacitance},
                                   {"phase_velocity_m_per_s", sr.phase_velocity},
