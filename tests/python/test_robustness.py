@@ -104,3 +104,21 @@ def test_sheath_helix_at_the_edge_of_double_range():
     # error; it is a DomainError now.
     h = libcoil.SheathHelix(8.98846567431158e307, 0.5)
     finite_or_error(h.wavenumber_for, 1.0)
+
+
+@settings(max_examples=150, deadline=None)
+@given(st.floats(min_value=2e-3, max_value=0.2), st.floats(min_value=1, max_value=120), st.floats(min_value=1.0, max_value=8.0),
+       st.floats(min_value=0.05e-3, max_value=3e-3), st.sampled_from(["floating", "grounded-end"]))
+def test_turn_network(d, turns, pitch_ratio, wire, mounting):
+    # Any coil the geometry accepts: the network's first resonance and its impedance are finite and positive,
+    # or a library error says why not.
+    try:
+        s = libcoil.Solenoid(mean_diameter=d, turns=turns, pitch=pitch_ratio * wire, wire=libcoil.Wire(diameter=wire))
+        n = libcoil.TurnNetwork(s, mounting)
+        f = n.resonances(3)
+        z = n.impedance([0.5 * f[0]], 0.1, 1e-3) if f else []
+    except ERRORS:
+        return
+    assert all(math.isfinite(x) and x > 0 for x in f)
+    assert f == sorted(f)
+    assert all(math.isfinite(abs(v)) for v in z)

@@ -179,7 +179,7 @@ std::optional<double> network_resonance(const Solenoid& s, const FormerDielectri
                                         double helical_line_frequency) {
     if (static_cast<int>(std::ceil(s.turns() - 1e-9)) > max_network_turns) return std::nullopt;
     const double eps_out = surroundings.relative_permittivity;
-    double f = TurnNetwork(s, TurnNetworkOptions{surroundings.mounting, -1, eps_out}).resonances(1).at(0);
+    double f = TurnNetwork(s, TurnNetworkOptions{surroundings.mounting, -1, eps_out}).first_resonance();
     if (former.wall > 0 && former.relative_permittivity != eps_out) {
         if (!(helical_line_frequency > 0)) return std::nullopt;
         f *= helical_line_frequency / helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency;

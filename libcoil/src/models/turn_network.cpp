@@ -219,6 +219,12 @@ std::vector<double> TurnNetwork::resonances(int count) const {
     return f;
 }
 
+double TurnNetwork::first_resonance() const {
+    const auto f = resonances(1);
+    if (f.empty()) throw DomainError("turn network: no resonance between the terminals (a single turn, or no finite mode)");
+    return f.front();
+}
+
 std::complex<double> TurnNetwork::impedance(double frequency, double series_resistance, double loss_tangent) const {
     require_positive("frequency", frequency);
     require_non_negative("series_resistance", series_resistance);

@@ -45,7 +45,7 @@ void network_sweep(const Analysis& a, const std::vector<double>& f, Sweep& s) {
     const Solenoid& coil = a.spec.solenoid;
     const Mounting m = a.spec.surroundings.mounting;
     double eps = a.spec.surroundings.relative_permittivity;
-    const double in_medium = TurnNetwork(coil, TurnNetworkOptions{m, -1, eps}).resonances(1).at(0);
+    const double in_medium = TurnNetwork(coil, TurnNetworkOptions{m, -1, eps}).first_resonance();
     const double ratio = std::min(1.0, sr.network.frequency / in_medium);
     eps /= ratio * ratio;
     const double tan_d = a.spec.former ? a.spec.former->material.loss_tangent * (1 - ratio * ratio) : 0;

@@ -69,6 +69,8 @@ public:
     // The lowest `count` natural frequencies with the terminals open, Hz, rising (fewer if the network
     // has fewer). The first is the self-resonance.
     std::vector<double> resonances(int count = 3) const;
+    // The first of them; DomainError if the network has none (a single turn between free ends).
+    double first_resonance() const;
     // Z between the terminals at f (Hz, > 0): `series_resistance` is the winding's R(f), spread over the
     // turns in proportion to their length; `loss_tangent` the dielectric's.
     std::complex<double> impedance(double frequency, double series_resistance = 0, double loss_tangent = 0) const;
