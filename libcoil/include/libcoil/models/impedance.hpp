@@ -1,7 +1,8 @@
 // Impedance of the coil between its terminals, over frequency: the lumped and the helical-line forms.
 //
 // Method:  lumped: (R(f) + j w L(f)) in parallel with C, C the self-capacitance of a chosen model.
-//          helical line (recommended): the winding as a uniform line of length l = N p with series
+//          helical line (recommended; scaled in frequency, v(f) -> s v(f / s), so that it resonates at the
+//          recommended SRF, the turn network's): the winding as a uniform line of length l = N p with series
 //          impedance (R(f) + j w L(f)) / l and shunt admittance j w C' per metre, C' = 1 / (L' v^2), where
 //          v is the sheath-helix phase velocity of the wave at that frequency (helical_line.hpp). Below
 //          the first resonance the current pattern keeps the coil's own axial scale, so v is held at its

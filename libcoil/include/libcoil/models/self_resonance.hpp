@@ -1,25 +1,27 @@
 // Self-resonance and self-capacitance of a coil, by each model, with the recommended figure.
 //
-// Method:  helical_line (recommended): the sheath helix (helical_line.hpp) resonates first where the
-//          winding length holds half an axial wavelength (both ends free: beta l = pi) or a quarter (one
-//          end grounded: beta l = pi / 2). kandoian_sichak: the same resonance condition with Kandoian &
-//          Sichak's empirical velocity. medhurst: the lumped resonance of L with Medhurst's measured C.
+// Method:  network (recommended): the turn network (turn_network.hpp), the coupled turns' first natural
+//          frequency, floating or with one end grounded; a dielectric former by the sheath helix's ratio.
+//          helical_line: the sheath helix (helical_line.hpp) resonates first where the winding length
+//          holds half an axial wavelength (both ends free: beta l = pi) or a quarter (one end grounded:
+//          beta l = pi / 2). kandoian_sichak: the same resonance condition with Kandoian & Sichak's
+//          empirical velocity. medhurst: the lumped resonance of L with Medhurst's measured C.
 //          Each model's self-capacitance is the C that resonates with the low-frequency L at its SRF,
 //          C = 1 / ((2 pi f)^2 L). A measurement far below resonance extrapolates to the smaller
-//          low_frequency_capacitance = (pi^2 / 12) C of the line, since a line's apparent inductance rises
+//          low_frequency_capacitance = (pi^2 / 12) C of a line, since a line's apparent inductance rises
 //          as L (1 + theta^2 / 3) where a lumped one rises as L (1 + w^2 L C).
-// Why the helical line is recommended: it holds the pitch, the former, the surroundings and the mounting,
-//          and has the right physical limits; Medhurst's table is an empirical figure for one arrangement
-//          (one end on a grounded plate) with no pitch or dielectric. It is reported beside it as the
-//          measured cross-check, and the band check says when the two disagree on a verdict. Where the
-//          sheath helix has no slow wave (steep pitch over a dense core) Medhurst's value is recommended
-//          instead, with a warning; outside both, DomainError.
+// Why the network is recommended: against NEC2 it is within 2 % on free-standing coils where the sheath
+//          helix reads 16 .. 47 % high (docs/models.md; each model's measured error is in its record).
+//          Over max_network_turns the sheath helix, which long fine-pitch coils suit, gives the SRF;
+//          where the sheath helix has no slow wave either (steep pitch over a dense core) Medhurst's value,
+//          with a warning; outside all, DomainError. The SRF comes with its band (srf_band).
 // Source:  medhurst.hpp, helical_line.hpp. D. W. Knight, "The self-resonance and self-capacitance of
 //          solenoid coils" (2016, from memory) for the line view of self-capacitance.
 // Domain:  single-layer coils below and near the first resonance. Neither model holds the turn-to-turn
 //          capacitance of close-wound enamelled turns, which adds to C; leads and nearby metal add more.
-// Accuracy: see docs/models.md: Kandoian & Sichak 3 .. 15 % below the sheath helix on the test grid; the
-//          helical line's grounded-end low-frequency C is 0.39 .. 0.70 of Medhurst's table for l/D 0.4 .. 50.
+// Accuracy: see docs/models.md and each method's error_low / error_high (measured against NEC2); Kandoian
+//          & Sichak 3 .. 15 % below the sheath helix on the test grid; the helical line's grounded-end
+//          low-frequency C is 0.39 .. 0.70 of Medhurst's table for l/D 0.4 .. 50.
 #pragma once
 
 #include <optional>
