@@ -190,7 +190,7 @@ void bind_studies(py::module_& m) {
         if (layers) {
             o.auto_subdivision = false;
             o.subdivision.layers = *layers;
-            o.subdivision.sectors = sectors.value_or(2 * *layers);
+            o.subdivision.sectors = sectors.value_or(0);  // 0: the library's default
         } else if (sectors) {
             throw libcoil::InputError("sectors", "goes with layers");
         }

@@ -153,3 +153,14 @@ def test_cli_and_python_refuse_the_same_subdivision(run_coil, files, value):
     assert r.returncode == 2 and r.stderr.startswith("coil: --layers: "), r.stderr
     with pytest.raises(libcoil.InputError, match="^layers: "):
         libcoil.analyze(libcoil.load_coil_spec(str(spec)), solver="filaments", layers=value)
+
+
+def test_the_sectors_default_is_the_librarys(run_coil, files):
+    # Given layers and no sectors, both front ends leave the choice to the library: twice the layers.
+    import json
+    spec, _ = files
+    cli = json.loads(run_coil("analyze", spec, "--json", "--solver", "filaments", "--layers", "3").stdout)
+    py = libcoil.analyze(libcoil.load_coil_spec(str(spec)), solver="filaments", layers=3)
+    assert cli["subdivision"]["sectors"] == 6
+    assert py.to_dict()["loss_method"] == "filaments"
+    assert cli["at_frequency"][0]["resistance_ohm"] == py.at_frequency.resistance[0]

@@ -129,7 +129,7 @@ int run_analyze(const Given& g) {
         const long layers = g.whole("layers", -1000000, 1000000);
         opt.auto_subdivision = false;
         opt.subdivision.layers = static_cast<int>(layers);
-        opt.subdivision.sectors = static_cast<int>(g.whole("sectors", -1000000, 1000000, 2 * layers));
+        opt.subdivision.sectors = static_cast<int>(g.whole("sectors", -1000000, 1000000, 0));  // 0: the library's default
     } else if (g.has("sectors")) {
         throw libcoil::InputError("--sectors", "goes with --layers");
     }
@@ -266,7 +266,6 @@ int run_couple(const Given& g) {
         for (const auto& t : g.values.at("frequencies")) f.push_back(libcoil::parse_quantity(t, Dimension::frequency, "--frequency"));
     }
     const std::vector<double> sweep = g.has("sweep_distances") ? parse_distance_sweep(g.text("sweep_distances")) : std::vector<double>{};
-    if (!g.has("distance")) throw libcoil::InputError("--distance", "is required, e.g. --distance \"60 mm\"");
     const libcoil::CouplingStudy s = libcoil::study_coupling(
         libcoil::load_coil_spec(g.positional.at(0)), libcoil::load_coil_spec(g.positional.at(1)), *g.choice<libcoil::Arrangement>("arrangement"),
         g.quantity("distance"), g.quantity("axial_offset"), f, g.quantity("source_resistance"), g.quantity("load_resistance"), sweep);

@@ -189,6 +189,12 @@ ShieldLoad shield_load(const Analysis& a, ShieldTable table) {
 
 }  // namespace
 
+std::string shield_words(const ShieldSpec& x) {
+    return x.material.name + " shield, inner diameter " + format_quantity(x.inner_diameter, Dimension::length) + ", length " +
+           format_quantity(x.length, Dimension::length) + ", wall " + format_quantity(x.thickness, Dimension::length) +
+           (x.end_discs ? ", closed ends" : ", open ends");
+}
+
 FrequencySpan default_span(const Analysis& a) {
     const double srf = a.self_resonance_as_mounted;
     const auto& band = a.spec.band;
@@ -218,8 +224,10 @@ CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
 }
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
-    if (!options.auto_subdivision) {
-        const Subdivision& d = options.subdivision;
+    AnalysisOptions resolved = options;
+    if (!resolved.auto_subdivision && resolved.subdivision.sectors == 0) resolved.subdivision.sectors = 2 * resolved.subdivision.layers;
+    if (!resolved.auto_subdivision) {
+        const Subdivision& d = resolved.subdivision;
         if (d.layers < 1 || d.layers > 200) throw InputError("layers", std::to_string(d.layers) + "; expected 1 .. 200");
         if (d.sectors < 1 || d.sectors > 400) throw InputError("sectors", std::to_string(d.sectors) + "; expected 1 .. 400");
         require_positive("grading", d.grading);
@@ -232,7 +240,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     a.warnings = a.inductance.warnings;
     a.notes = spec.notes;
     add_thermal(a);
-    add_losses(a, options);
+    add_losses(a, resolved);
     add_self_resonance(a);
     add_shield(a);
     add_impedance_and_band(a);

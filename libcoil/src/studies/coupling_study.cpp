@@ -12,11 +12,6 @@ namespace libcoil {
 
 namespace {
 
-std::string shield_words(const std::optional<ShieldSpec>& s) {
-    if (!s) return "";
-    return s->material.name + " shield, inner diameter " + format_quantity(s->inner_diameter, Dimension::length) + ", wall " +
-           format_quantity(s->thickness, Dimension::length) + (s->end_discs ? ", closed ends" : ", open ends");
-}
 
 // The coil as mounted at the crosstalk frequencies: the analysis study with those frequencies, its losses
 // by the closed forms (a crosstalk figure needs R to a few per cent, not the solver's 0.5 %).
@@ -43,8 +38,8 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
     s.load_resistance = require_positive("load_resistance", rl);
     s.at = coupling(a.solenoid, b.solenoid, arr, distance, offset);
     s.dipole_mutual = dipole_mutual_inductance(a.solenoid, b.solenoid, arr, distance);
-    s.shield_a = shield_words(a.shield);
-    s.shield_b = shield_words(b.shield);
+    s.shield_a = a.shield ? shield_words(*a.shield) : "";
+    s.shield_b = b.shield ? shield_words(*b.shield) : "";
     if (frequencies.empty()) {
         frequencies = a.operating.frequencies;
         frequencies.insert(frequencies.end(), b.operating.frequencies.begin(), b.operating.frequencies.end());

@@ -112,12 +112,7 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
         s.band_low = a.spec.band->low;
         s.band_ceiling = a.spec.band->ceiling;
     }
-    if (a.spec.shield) {
-        const ShieldSpec& x = *a.spec.shield;
-        s.shield = x.material.name + " shield, inner diameter " + format_quantity(x.inner_diameter, Dimension::length) + ", length " +
-                   format_quantity(x.length, Dimension::length) + ", wall " + format_quantity(x.thickness, Dimension::length) +
-                   (x.end_discs ? ", closed ends" : ", open ends");
-    }
+    if (a.spec.shield) s.shield = shield_words(*a.spec.shield);
     return s;
 }
 

@@ -26,7 +26,8 @@ struct AnalysisOptions {
     // closed_form only: where the closed-form proximity model is outside its domain (proximity.hpp),
     // take those points from the solver if it has at most this many unknowns; else warn.
     std::size_t fallback_unknowns = 1200;
-    Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false
+    Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false; sectors 0:
+                                   // twice the layers
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
 };
 
@@ -91,5 +92,9 @@ struct FrequencySpan {
     double low = 0, high = 0;  // Hz
 };
 FrequencySpan default_span(const Analysis& a);
+
+// A shield in words, for the studies' records: "copper shield, inner diameter 60.00 mm, length 80.00 mm,
+// wall 300.0 µm, open ends".
+std::string shield_words(const ShieldSpec& shield);
 
 }  // namespace libcoil
