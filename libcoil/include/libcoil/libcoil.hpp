@@ -38,6 +38,7 @@
 #include "libcoil/models/solenoid.hpp"
 #include "libcoil/models/thermal.hpp"
 #include "libcoil/models/turn_network.hpp"
+#include "libcoil/models/axisymmetric_charge.hpp"
 #include "libcoil/models/wheeler.hpp"
 #include "libcoil/models/wire.hpp"
 

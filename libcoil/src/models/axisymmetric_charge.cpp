@@ -1,0 +1,372 @@
+#include "libcoil/models/axisymmetric_charge.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <string>
+
+#include <Eigen/Dense>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "models/elliptic.hpp"
+
+namespace libcoil {
+
+namespace {
+
+using Matrix = Eigen::MatrixXd;
+
+// The potential and field at (rho, z) of a unit charge spread round a ring of radius a at height zs, times
+// 4 pi eps0 (the header's formulas).
+struct RingField {
+    double phi, e_rho, e_z;
+};
+
+RingField ring_field(double a, double zs, double rho, double z) {
+    const double dz = z - zs;
+    const double s2 = (a + rho) * (a + rho) + dz * dz, d2 = (a - rho) * (a - rho) + dz * dz;
+    const double m = 4 * a * rho / s2;
+    const detail::EllipticPair p = detail::elliptic_k_and_k_minus_e_over_m(std::sqrt(d2 / s2), m);
+    const double k = p.k, e = p.k - m * p.k_minus_e_over_m, s = std::sqrt(s2);
+    RingField f;
+    f.phi = (2 / pi) * k / s;
+    f.e_z = d2 > 0 ? (2 / pi) * dz * e / (d2 * s) : 0;
+    // Near the axis K - E (a^2 - rho^2 + dz^2) / d^2 cancels to O(rho): there E_rho is rho times a finite
+    // slope, negligible below 1e-9 of the distance.
+    f.e_rho = rho > 1e-9 * (a + std::fabs(dz)) && d2 > 0 ? (k - (a * a - rho * rho + dz * dz) / d2 * e) / (pi * rho * s) : 0;
+    return f;
+}
+
+// A panel: a straight piece of an outline, or an arc of a circle (centre (cr, cz), radius R, angles t0 .. t1)
+// where the outline traces one: the charge lies on the true surface, so that a smooth face's curvature is
+// not lost between panels (with chords, the normal field converges only as the panel length).
+struct Panel {
+    double r0, z0, r1, z1;  // ends (straight)
+    bool arc = false;
+    double cr = 0, cz = 0, radius = 0, t0 = 0, t1 = 0;
+    double length, rc, zc, nr, nz;  // length; the middle and the outward normal there
+    bool dielectric;
+    double lambda;   // dielectric faces
+    int group;       // conductors
+    double charge_scale;  // conductors: free charge per total charge (the permittivity touching it)
+
+    // The point at u in [0, 1] along the panel.
+    std::array<double, 2> at(double u) const {
+        if (arc) {
+            const double t = t0 + u * (t1 - t0);
+            return {cr + radius * std::cos(t), cz + radius * std::sin(t)};
+        }
+        return {r0 + u * (r1 - r0), z0 + u * (z1 - z0)};
+    }
+};
+
+constexpr double gauss_x[] = {-0.9602898564975363, -0.7966664774136267, -0.5255324099163290, -0.1834346424956498,
+                              0.1834346424956498,  0.5255324099163290,  0.7966664774136267,  0.9602898564975363};
+constexpr double gauss_w[] = {0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.3626837833783620,
+                              0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
+
+struct Kernel {
+    double phi = 0, e_n = 0;
+};
+
+// The integral over the part u0 .. u1 of a panel (unit surface charge) of the potential and the field
+// along (nr, nz) at (rho, z), times 4 pi eps0; the ground plane's image included where `plane` is given.
+Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z, double nr, double nz,
+                      const std::optional<double>& plane) {
+    const double half = 0.5 * (u1 - u0) * p.length;
+    Kernel k;
+    for (int g = 0; g < 8; ++g) {
+        const auto [a, zs] = p.at(u0 + 0.5 * (1 + gauss_x[g]) * (u1 - u0));
+        const double weight = gauss_w[g] * half * 2 * pi * a;
+        RingField f = ring_field(a, zs, rho, z);
+        if (plane) {
+            const RingField i = ring_field(a, 2 * *plane - zs, rho, z);
+            f.phi -= i.phi;
+            f.e_rho -= i.e_rho;
+            f.e_z -= i.e_z;
+        }
+        k.phi += weight * f.phi;
+        k.e_n += weight * (f.e_rho * nr + f.e_z * nz);
+    }
+    return k;
+}
+
+// The same over a whole panel: split in four where the point is near, in halves about the middle on the
+// panel itself (the potential's logarithm taken out and integrated exactly there).
+Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane,
+                      bool own) {
+    if (own) {
+        Kernel k = piece_integral(p, 0, 0.5, rho, z, nr, nz, std::nullopt);
+        const Kernel k2 = piece_integral(p, 0.5, 1, rho, z, nr, nz, std::nullopt);
+        k.phi += k2.phi;
+        k.e_n += k2.e_n;
+        // 2 pi rho phi ~ -2 ln|t| near t = 0 (t the distance along the panel): add 2 ln|t| under the
+        // integral (at the same points), subtract its exact integral, 2 x 2 h (ln h - 1), h = L / 2.
+        const double h = 0.5 * p.length;
+        double log_sum = 0;
+        for (int g = 0; g < 8; ++g) log_sum += gauss_w[g] * std::log(h * 0.5 * (1 + gauss_x[g]));
+        k.phi += 2 * 2 * (0.5 * h) * log_sum - 2 * 2 * h * (std::log(h) - 1);
+        if (plane) {
+            Panel image = p;
+            image.z0 = 2 * *plane - p.z0;
+            image.z1 = 2 * *plane - p.z1;
+            image.cz = 2 * *plane - p.cz;
+            image.t0 = -p.t0;
+            image.t1 = -p.t1;
+            const Kernel i = piece_integral(image, 0, 1, rho, z, nr, nz, std::nullopt);
+            k.phi -= i.phi;
+            k.e_n -= i.e_n;
+        }
+        return k;
+    }
+    const double dist = std::hypot(rho - p.rc, z - p.zc);
+    if (dist > 1.5 * p.length) return piece_integral(p, 0, 1, rho, z, nr, nz, plane);
+    Kernel k;
+    for (int s = 0; s < 4; ++s) {
+        const Kernel ks = piece_integral(p, s / 4.0, (s + 1) / 4.0, rho, z, nr, nz, plane);
+        k.phi += ks.phi;
+        k.e_n += ks.e_n;
+    }
+    return k;
+}
+
+// The panel's area, 2 pi integral rho dl (exact for a straight panel, Gauss-Legendre on an arc).
+double piece_integral_area(const Panel& p) {
+    double sum = 0;
+    for (int g = 0; g < 8; ++g) sum += gauss_w[g] * p.at(0.5 * (1 + gauss_x[g]))[0];
+    return 2 * pi * 0.5 * p.length * sum;
+}
+
+double distance_to_rings(double rho, double z, const std::vector<ChargeRing>& rings) {
+    double d = std::numeric_limits<double>::infinity();
+    for (const ChargeRing& r : rings) d = std::min(d, std::max(0.0, std::hypot(rho - r.radius, z - r.z) - r.wire_radius));
+    return d;
+}
+
+void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<std::array<double, 3>>& circle, bool closed,
+                 bool dielectric, double lambda, int group, double charge_scale, const ChargeScene& scene,
+                 const std::vector<ChargeRing>& rings) {
+    const std::size_t pieces = closed ? o.size() : o.size() - 1;
+    for (std::size_t i = 0; i < pieces; ++i) {
+        const auto& a = o[i];
+        const auto& b = o[(i + 1) % o.size()];
+        if (a[0] <= 0 && b[0] <= 0) continue;  // along the axis: no surface
+        Panel whole;
+        if (circle) {
+            const auto [cr, cz, radius] = *circle;
+            whole.arc = true;
+            whole.cr = cr;
+            whole.cz = cz;
+            whole.radius = radius;
+            whole.t0 = std::atan2(a[1] - cz, a[0] - cr);
+            whole.t1 = std::atan2(b[1] - cz, b[0] - cr);
+            while (whole.t1 <= whole.t0) whole.t1 += 2 * pi;  // counter-clockwise
+            whole.length = radius * (whole.t1 - whole.t0);
+        } else {
+            whole.r0 = a[0];
+            whole.z0 = a[1];
+            whole.r1 = b[0];
+            whole.z1 = b[1];
+            whole.length = std::hypot(b[0] - a[0], b[1] - a[1]);
+        }
+        const double length = whole.length;
+        if (!(length > 0)) continue;
+        std::vector<double> cuts{0};
+        while (cuts.back() < length) {
+            const auto x = whole.at(cuts.back() / length);
+            const double h = std::clamp(0.5 * distance_to_rings(x[0], x[1], rings), scene.min_panel, scene.max_panel);
+            cuts.push_back(std::min(length, cuts.back() + h));
+        }
+        if (cuts.size() > 2 && cuts[cuts.size() - 1] - cuts[cuts.size() - 2] < 0.3 * (cuts[cuts.size() - 2] - cuts[cuts.size() - 3])) {
+            cuts.erase(cuts.end() - 2);  // no sliver at the end
+        }
+        for (std::size_t c = 0; c + 1 < cuts.size(); ++c) {
+            Panel p = whole;
+            const double u0 = cuts[c] / length, u1 = cuts[c + 1] / length;
+            const auto e0 = whole.at(u0), e1 = whole.at(u1), mid = whole.at(0.5 * (u0 + u1));
+            p.r0 = e0[0];
+            p.z0 = e0[1];
+            p.r1 = e1[0];
+            p.z1 = e1[1];
+            if (p.arc) {
+                p.t0 = whole.t0 + u0 * (whole.t1 - whole.t0);
+                p.t1 = whole.t0 + u1 * (whole.t1 - whole.t0);
+                p.length = p.radius * (p.t1 - p.t0);
+                const double t = 0.5 * (p.t0 + p.t1);
+                p.nr = std::cos(t);
+                p.nz = std::sin(t);
+            } else {
+                p.length = std::hypot(p.r1 - p.r0, p.z1 - p.z0);
+                p.nr = (p.z1 - p.z0) / p.length;
+                p.nz = -(p.r1 - p.r0) / p.length;
+            }
+            p.rc = mid[0];
+            p.zc = mid[1];
+            p.dielectric = dielectric;
+            p.lambda = lambda;
+            p.group = group;
+            p.charge_scale = charge_scale;
+            out.push_back(p);
+        }
+    }
+}
+
+std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeRing>& rings) {
+    require_positive("min_panel", scene.min_panel);
+    require_positive("max_panel", scene.max_panel);
+    require_at_least("background_permittivity", scene.background_permittivity, 1.0, "a relative permittivity");
+    const double eb = scene.background_permittivity;
+    std::vector<Panel> panels;
+    for (const DielectricBody& d : scene.dielectrics) {
+        require_at_least("relative_permittivity", d.relative_permittivity, 1.0, "a relative permittivity");
+        const double lambda = (d.relative_permittivity - eb) / (d.relative_permittivity + eb);
+        if (lambda != 0) add_outline(panels, d.outline, d.circle, true, true, lambda, -1, 1, scene, rings);
+    }
+    for (const ConductorBody& c : scene.conductors) {
+        const double embed = c.embedding_permittivity > 0 ? c.embedding_permittivity : eb;
+        add_outline(panels, c.outline, c.circle, c.closed, false, 0, c.group, embed, scene, rings);
+    }
+    if (panels.size() > 20000) throw InputError("panels", std::to_string(panels.size()) + "; the charge solver takes at most 20000");
+    return panels;
+}
+
+// The system's matrix: conductor rows give the potential (times 4 pi eps0), dielectric rows
+// sigma - (lambda / 2 pi) E_n (times 4 pi eps0).
+Matrix system_matrix(const std::vector<Panel>& panels, const std::optional<double>& plane) {
+    const auto m = static_cast<Eigen::Index>(panels.size());
+    Matrix a(m, m);
+    for (Eigen::Index i = 0; i < m; ++i) {
+        const Panel& t = panels[static_cast<std::size_t>(i)];
+        for (Eigen::Index j = 0; j < m; ++j) {
+            const Kernel k = panel_integral(panels[static_cast<std::size_t>(j)], t.rc, t.zc, t.nr, t.nz, plane, i == j);
+            a(i, j) = t.dielectric ? (i == j ? 1.0 : 0.0) - t.lambda / (2 * pi) * k.e_n : k.phi;
+        }
+    }
+    return a;
+}
+
+}  // namespace
+
+// Whether (rho, z) lies inside the closed outline (ray casting across the half-plane, the axis closing it).
+bool inside(const Outline& o, double rho, double z) {
+    bool in = false;
+    for (std::size_t i = 0, j = o.size() - 1; i < o.size(); j = i++) {
+        const auto& p = o[i];
+        const auto& q = o[j];
+        if ((p[1] > z) != (q[1] > z) && rho < (q[0] - p[0]) * (z - p[1]) / (q[1] - p[1]) + p[0]) in = !in;
+    }
+    return in;
+}
+
+std::vector<double> ring_potential_reaction(const std::vector<ChargeRing>& rings, const ChargeScene& scene, int* count) {
+    for (const DielectricBody& d : scene.dielectrics) {
+        for (const ChargeRing& r : rings) {
+            if (inside(d.outline, r.radius, r.z)) {
+                throw InputError("rings", "a ring at radius " + std::to_string(r.radius) + " m, height " + std::to_string(r.z) +
+                                              " m lies inside a dielectric; rings must lie in the background");
+            }
+        }
+    }
+    for (const ConductorBody& c : scene.conductors) {
+        if (c.group != -1) throw InputError("conductors.group", std::to_string(c.group) + "; around rings every conductor is grounded (-1)");
+    }
+    const std::vector<Panel> panels = panels_of(scene, rings);
+    if (count) *count = static_cast<int>(panels.size());
+    const auto n = static_cast<Eigen::Index>(rings.size());
+    std::vector<double> out(static_cast<std::size_t>(n * n), 0.0);
+    if (panels.empty()) return out;
+    const auto m = static_cast<Eigen::Index>(panels.size());
+    const std::optional<double>& plane = scene.ground_plane;
+    // Right-hand sides: each ring's potential (conductor rows, moved across) or normal field (dielectric
+    // rows) at the panels, and the panels' potential at each ring's centre.
+    Matrix rhs(m, n), back(n, m);
+    for (Eigen::Index i = 0; i < m; ++i) {
+        const Panel& t = panels[static_cast<std::size_t>(i)];
+        for (Eigen::Index k = 0; k < n; ++k) {
+            const ChargeRing& r = rings[static_cast<std::size_t>(k)];
+            RingField f = ring_field(r.radius, r.z, t.rc, t.zc);
+            if (plane) {
+                const RingField g = ring_field(r.radius, 2 * *plane - r.z, t.rc, t.zc);
+                f.phi -= g.phi;
+                f.e_rho -= g.e_rho;
+                f.e_z -= g.e_z;
+            }
+            rhs(i, k) = t.dielectric ? t.lambda / (2 * pi) * (f.e_rho * t.nr + f.e_z * t.nz) : -f.phi;
+            back(k, i) = panel_integral(t, r.radius, r.z, 0, 0, plane, false).phi;
+        }
+    }
+    const Matrix sigma = system_matrix(panels, plane).partialPivLu().solve(rhs);
+    Matrix reaction = back * sigma / (4 * pi * eps0 * scene.background_permittivity);
+    reaction = (0.5 * (reaction + reaction.transpose())).eval();  // reciprocal up to the discretisation
+    for (Eigen::Index i = 0; i < n; ++i) {
+        for (Eigen::Index j = 0; j < n; ++j) out[static_cast<std::size_t>(i * n + j)] = finite_result("ring potential reaction", reaction(i, j));
+    }
+    return out;
+}
+
+std::vector<double> group_capacitance(const ChargeScene& scene, int groups, int* count) {
+    if (groups < 1) throw InputError("groups", std::to_string(groups) + "; expected 1 or more");
+    const std::vector<Panel> panels = panels_of(scene, {});
+    if (count) *count = static_cast<int>(panels.size());
+    const auto m = static_cast<Eigen::Index>(panels.size());
+    Matrix rhs = Matrix::Zero(m, groups);
+    std::vector<bool> seen(static_cast<std::size_t>(groups), false);
+    for (Eigen::Index i = 0; i < m; ++i) {
+        const Panel& p = panels[static_cast<std::size_t>(i)];
+        if (p.dielectric || p.group < 0) continue;
+        if (p.group >= groups) throw InputError("conductors.group", std::to_string(p.group) + "; expected below " + std::to_string(groups));
+        rhs(i, p.group) = 4 * pi * eps0;  // 1 V
+        seen[static_cast<std::size_t>(p.group)] = true;
+    }
+    for (int g = 0; g < groups; ++g) {
+        if (!seen[static_cast<std::size_t>(g)]) throw InputError("conductors.group", std::to_string(g) + " has no conductor");
+    }
+    const Matrix sigma = system_matrix(panels, scene.ground_plane).partialPivLu().solve(rhs);
+    Matrix c = Matrix::Zero(groups, groups);
+    for (Eigen::Index i = 0; i < m; ++i) {
+        const Panel& p = panels[static_cast<std::size_t>(i)];
+        if (p.dielectric || p.group < 0) continue;
+        const double area = piece_integral_area(p);
+        c.row(p.group) += p.charge_scale * area * sigma.row(i);
+    }
+    c = (0.5 * (c + c.transpose())).eval();
+    std::vector<double> out(static_cast<std::size_t>(groups * groups));
+    for (int i = 0; i < groups; ++i) {
+        for (int j = 0; j < groups; ++j) out[static_cast<std::size_t>(i * groups + j)] = finite_result("group capacitance", c(i, j));
+    }
+    return out;
+}
+
+Outline tube_outline(double inner, double outer, double z0, double z1) {
+    require_non_negative("inner_radius", inner);
+    if (!(outer > inner)) throw InputError("outer_radius", "must exceed the inner radius");
+    if (!(z1 > z0)) throw InputError("z1", "must exceed z0");
+    // Counter-clockwise: up the outer wall, in along the top, down the inner wall (or the axis), out along
+    // the bottom.
+    return {{inner, z0}, {outer, z0}, {outer, z1}, {inner, z1}};
+}
+
+Outline circle_outline(double cr, double cz, double radius, int sides, const std::vector<std::array<double, 3>>& near) {
+    require_positive("radius", radius);
+    if (sides < 6) throw InputError("sides", std::to_string(sides) + "; expected 6 or more");
+    if (!(cr > radius)) throw InputError("centre_rho", "the circle must clear the axis");
+    const double coarse = 2 * pi / sides, fine = coarse / 64;
+    std::vector<double> angles{0};
+    while (angles.back() < 2 * pi) {
+        const double t = angles.back();
+        const double x = cr + radius * std::cos(t), y = cz + radius * std::sin(t);
+        double gap = std::numeric_limits<double>::infinity();
+        for (const auto& c : near) gap = std::min(gap, std::max(0.0, std::hypot(x - c[0], y - c[1]) - c[2]));
+        angles.push_back(t + std::clamp(0.5 * gap / radius, fine, coarse));
+    }
+    const double scale = 2 * pi / angles.back();
+    Outline o;
+    for (std::size_t i = 0; i + 1 < angles.size(); ++i) {
+        const double t = angles[i] * scale;
+        o.push_back({cr + radius * std::cos(t), cz + radius * std::sin(t)});
+    }
+    return o;
+}
+
+}  // namespace libcoil
