@@ -257,11 +257,25 @@ void bind_models(py::module_& m) {
     m.def("ring_capacitance", py::vectorize(&libcoil::ring_capacitance), "ring_radius"_a, "wire_radius"_a,
           "Capacitance of an isolated ring of round wire, F (the network's potential coefficient).");
     py::class_<libcoil::TurnNetwork>(m, "TurnNetwork")
-        .def(py::init([](const libcoil::Solenoid& s, const std::string& mounting, double base_height, double permittivity) {
-                 return libcoil::TurnNetwork(s, libcoil::TurnNetworkOptions{libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting"),
-                                                                            base_height, permittivity});
+        .def(py::init([](const libcoil::Solenoid& s, const std::string& mounting, double base_height, double permittivity,
+                         const std::string& capacitance, double former_permittivity, double former_wall, double former_fill,
+                         double former_ends, double enamel_permittivity, double terminal_capacitance) {
+                 libcoil::TurnNetworkOptions o;
+                 o.mounting = libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting");
+                 o.base_height = base_height;
+                 o.relative_permittivity = permittivity;
+                 o.capacitance = libcoil::parse_choice<libcoil::TurnCapacitance>(capacitance, "capacitance");
+                 o.former = libcoil::FormerDielectric{former_permittivity, former_wall, former_fill};
+                 o.former_ends = former_ends;
+                 o.enamel_permittivity = enamel_permittivity;
+                 o.terminal_capacitance = terminal_capacitance;
+                 return libcoil::TurnNetwork(s, o);
              }),
-             "solenoid"_a, "mounting"_a = "floating", "base_height"_a = -1.0, "relative_permittivity"_a = 1.0)
+             "solenoid"_a, "mounting"_a = "floating", "base_height"_a = -1.0, "relative_permittivity"_a = 1.0,
+             "capacitance"_a = "near-field-corrected", "former_permittivity"_a = 1.0, "former_wall"_a = 0.0,
+             "former_fill"_a = 1.0, "former_ends"_a = 5e-3, "enamel_permittivity"_a = 3.5, "terminal_capacitance"_a = 0.0,
+             "The winding as coupled turns (PEEC). A former is a tube of `former_wall` under the winding (a rod where it\n"
+             "reaches the axis); `terminal_capacitance` a capacitor across the terminals (far end to ground if grounded).")
         .def("resonances", &libcoil::TurnNetwork::resonances, "count"_a = 3, "The lowest natural frequencies, Hz.")
         .def("impedance", [](const libcoil::TurnNetwork& n, py::array_t<double, py::array::c_style | py::array::forcecast> f,
                              double r, double tan_d) {
@@ -271,7 +285,14 @@ void bind_models(py::module_& m) {
              }, "frequency"_a, "series_resistance"_a = 0.0, "loss_tangent"_a = 0.0,
              "Z between the terminals (ohm) over an array of frequencies.")
         .def_property_readonly("inductance", &libcoil::TurnNetwork::inductance)
-        .def_property_readonly("elements", &libcoil::TurnNetwork::elements);
+        .def_property_readonly("elements", &libcoil::TurnNetwork::elements)
+        .def_property_readonly("panels", &libcoil::TurnNetwork::panels)
+        .def_property_readonly("turn_capacitance", [](const libcoil::TurnNetwork& n) {
+            const auto& c = n.turn_capacitance();
+            py::array_t<double> out({n.elements(), n.elements()});
+            std::copy(c.begin(), c.end(), out.mutable_data());
+            return out;
+        }, "The turns' Maxwell capacitance matrix, F (N x N).");
 
     // Thermal estimate.
     m.def("churchill_chu_horizontal", py::vectorize(&libcoil::churchill_chu_horizontal), "rayleigh"_a, "prandtl"_a);

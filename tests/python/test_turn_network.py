@@ -22,8 +22,8 @@ def solenoid(c):
                             wire=libcoil.Wire(diameter=c["wire_diameter"]))
 
 
-def network_srf(c, mounting):
-    return libcoil.TurnNetwork(solenoid(c), mounting).resonances(1)[0]
+def network_srf(c, mounting, capacitance="near-field-corrected"):
+    return libcoil.TurnNetwork(solenoid(c), mounting, capacitance=capacitance).resonances(1)[0]
 
 
 def test_cache_is_current():
@@ -53,16 +53,28 @@ def spaced(c):
     return c["pitch"] / c["wire_diameter"] >= 3
 
 
-# Measured against the extrapolated NEC2 value (docs/models.md): floating -0.62 .. +1.53 %, grounded end
-# -1.23 .. -0.36 % over the whole set (p/d 2 .. 8, l/D 0.4 .. 15).
-@pytest.mark.parametrize("c", COILS, ids=[c["name"] for c in COILS])
+# Measured against the extrapolated NEC2 value (docs/models.md), on the coils of p/d >= 3: floating
+# -1.28 .. +1.34 %, grounded end -1.76 .. -0.45 %.
+@pytest.mark.parametrize("c", [c for c in COILS if spaced(c)], ids=[c["name"] for c in COILS if spaced(c)])
 @pytest.mark.parametrize("mounting", ["floating", "grounded-end"])
 def test_network_srf_within_2_percent_of_nec2(c, mounting):
     f = network_srf(c, mounting)
-    nec = c[mounting]
-    err = f / nec["f"] - 1
-    # The issue's bound for p/d >= 3; the close turns of p/d = 2 happen to meet it as well.
+    err = f / c[mounting]["f"] - 1
     assert abs(err) <= 0.02, (c["name"], mounting, err)
+
+
+@pytest.mark.parametrize("c", [c for c in COILS if not spaced(c)], ids=[c["name"] for c in COILS if not spaced(c)])
+@pytest.mark.parametrize("mounting", ["floating", "grounded-end"])
+def test_at_two_wire_diameters_nec2_is_a_thin_wire_reference(c, mounting):
+    # At p/d = 2, NEC2's thin wire (its charge on the wire's axis) misses the crowding of charge towards the
+    # neighbours. The network with the same thin-wire capacitances meets NEC2 within 2 % (measured -0.6 ..
+    # +1.2 %); the recommended near-field-corrected network sits lower, measured -2.07 .. -1.73 %, by the
+    # wire surface's correction, which tests/cpp/test_turn_network.cpp checks against the wire-surface
+    # reference (itself checked against two parallel cylinders).
+    thin = network_srf(c, mounting, "thin-wire") / c[mounting]["f"] - 1
+    corrected = network_srf(c, mounting) / c[mounting]["f"] - 1
+    assert abs(thin) <= 0.02, (c["name"], mounting, thin)
+    assert -0.025 <= corrected < thin, (c["name"], mounting, corrected, thin)
 
 
 def test_the_sheath_helix_is_far_off_where_the_network_is_not():
@@ -127,9 +139,10 @@ def test_each_models_stated_error_is_what_the_nec2_set_measures():
                     continue
                 measured.setdefault((model, mounting), []).append(m["frequency"] / c[mounting]["f"] - 1)
                 stated[(model, mounting)] = (m["error_low"], m["error_high"])
-            f = network_srf(c, mounting)
-            measured.setdefault(("network", mounting), []).append(f / c[mounting]["f"] - 1)
-            stated[("network", mounting)] = (r["network"]["error_low"], r["network"]["error_high"])
+            if spaced(c):  # the network's stated error is over the coils NEC2's thin wire holds for
+                f = network_srf(c, mounting)
+                measured.setdefault(("network", mounting), []).append(f / c[mounting]["f"] - 1)
+                stated[("network", mounting)] = (r["network"]["error_low"], r["network"]["error_high"])
     assert len(measured) == 8
     for key, values in measured.items():
         low, high = stated[key]

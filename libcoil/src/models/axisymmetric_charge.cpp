@@ -152,6 +152,8 @@ void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<
         const auto& a = o[i];
         const auto& b = o[(i + 1) % o.size()];
         if (a[0] <= 0 && b[0] <= 0) continue;  // along the axis: no surface
+        // On the ground plane a dielectric's face meets its own image: inside the pair, no face.
+        if (scene.ground_plane && a[1] == *scene.ground_plane && b[1] == *scene.ground_plane) continue;
         Panel whole;
         if (circle) {
             const auto [cr, cz, radius] = *circle;
@@ -175,7 +177,8 @@ void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<
         std::vector<double> cuts{0};
         while (cuts.back() < length) {
             const auto x = whole.at(cuts.back() / length);
-            const double h = std::clamp(0.5 * distance_to_rings(x[0], x[1], rings), scene.min_panel, scene.max_panel);
+            // A circle's own vertices set its panels (circle_outline refines them); other bodies are graded.
+            const double h = circle ? scene.max_panel : std::clamp(0.5 * distance_to_rings(x[0], x[1], rings), scene.min_panel, scene.max_panel);
             cuts.push_back(std::min(length, cuts.back() + h));
         }
         if (cuts.size() > 2 && cuts[cuts.size() - 1] - cuts[cuts.size() - 2] < 0.3 * (cuts[cuts.size() - 2] - cuts[cuts.size() - 3])) {
@@ -217,15 +220,20 @@ std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeR
     require_positive("max_panel", scene.max_panel);
     require_at_least("background_permittivity", scene.background_permittivity, 1.0, "a relative permittivity");
     const double eb = scene.background_permittivity;
+    // Grading: towards the thin rings, and towards the wires of circular section among the conductors.
+    std::vector<ChargeRing> near = rings;
+    for (const ConductorBody& c : scene.conductors) {
+        if (c.circle) near.push_back({(*c.circle)[0], (*c.circle)[1], (*c.circle)[2]});
+    }
     std::vector<Panel> panels;
     for (const DielectricBody& d : scene.dielectrics) {
         require_at_least("relative_permittivity", d.relative_permittivity, 1.0, "a relative permittivity");
         const double lambda = (d.relative_permittivity - eb) / (d.relative_permittivity + eb);
-        if (lambda != 0) add_outline(panels, d.outline, d.circle, true, true, lambda, -1, 1, scene, rings);
+        if (lambda != 0) add_outline(panels, d.outline, d.circle, true, true, lambda, -1, 1, scene, near);
     }
     for (const ConductorBody& c : scene.conductors) {
         const double embed = c.embedding_permittivity > 0 ? c.embedding_permittivity : eb;
-        add_outline(panels, c.outline, c.circle, c.closed, false, 0, c.group, embed, scene, rings);
+        add_outline(panels, c.outline, c.circle, c.closed, false, 0, c.group, embed, scene, near);
     }
     if (panels.size() > 20000) throw InputError("panels", std::to_string(panels.size()) + "; the charge solver takes at most 20000");
     return panels;

@@ -125,7 +125,11 @@ namespace {
 struct MeasuredError {
     double floating_low, floating_high, grounded_low, grounded_high;
 };
-constexpr MeasuredError network_error{-0.0062, 0.0153, -0.0123, -0.0036};
+constexpr MeasuredError network_error{-0.0128, 0.0134, -0.0176, -0.0045};  // coils of p/d >= 3
+// The near-field correction against the wire-surface reference (p/d 1.08 .. 3, 10 .. 40 turns, bare and
+// enamelled, floating and grounded; tests/cpp/test_turn_network.cpp), and the former's discretisation.
+constexpr double near_field_error_low = -0.027, near_field_error_high = 0.004;
+constexpr double former_discretisation = 0.003;
 constexpr MeasuredError helical_line_error{0.160, 0.468, -0.117, 0.180};
 constexpr MeasuredError kandoian_sichak_error{0.004, 0.316, -0.152, 0.018};
 constexpr MeasuredError medhurst_error{-0.500, -0.291, -0.336, -0.067};
@@ -138,17 +142,30 @@ void set_error(SelfResonanceMethod& m, const MeasuredError& e, Mounting mounting
 
 }  // namespace
 
-SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, double former_ratio) {
+SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, const FormerDielectric& former,
+                 double former_ratio) {
     require_positive("frequency", f);
     const bool grounded = mounting == Mounting::grounded_end;
     constexpr double nec_residual = 0.005;
     double err_lo = 0, err_hi = 0;  // the model's error f / f_true - 1, measured
     SrfBand b;
+    const bool solid_former = former.wall > 0 && former.relative_permittivity > 1 && !(former.fill > 0 && former.fill < 1);
     if (method == "network") {
         err_lo = grounded ? network_error.grounded_low : network_error.floating_low;
         err_hi = grounded ? network_error.grounded_high : network_error.floating_high;
-        b.reasons.push_back(std::string("the turn network's error against NEC2, ") + (grounded ? "-1.23 .. -0.36 %" : "-0.62 .. +1.53 %") +
+        b.reasons.push_back(std::string("the turn network's error against NEC2, ") + (grounded ? "-1.76 .. -0.45 %" : "-1.28 .. +1.34 %") +
                             ", and 0.5 % for NEC's own convergence");
+        if (pitch_to_wire < 3) {
+            err_lo += near_field_error_low;
+            err_hi += near_field_error_high;
+            b.reasons.push_back("turns " + detail::significant(pitch_to_wire, 3) +
+                                " wire diameters apart: the near-field correction against the wire-surface reference, -2.7 .. +0.4 %");
+        }
+        if (solid_former) {
+            err_lo -= former_discretisation;
+            err_hi += former_discretisation;
+            b.reasons.push_back("the former's polarisation charge, 0.3 % (its discretisation)");
+        }
     } else if (method == "helical_line") {
         err_lo = grounded ? helical_line_error.grounded_low : helical_line_error.floating_low;
         err_hi = grounded ? helical_line_error.grounded_high : helical_line_error.floating_high;
@@ -160,31 +177,31 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
     }
     b.low = f / (1 + err_hi + nec_residual);
     b.high = f / (1 + err_lo - nec_residual);
-    if (pitch_to_wire < 2) {
-        b.low *= 0.9;
-        b.reasons.push_back("close-wound turns (pitch " + detail::significant(pitch_to_wire, 3) +
-                            " wire diameters), not yet checked against an electrostatic reference: 10 % lower (an assumption)");
-    }
     if (former_ratio < 1) {
         const double half_shift = 0.5 * (1 - former_ratio);
         b.low *= 1 - half_shift;
         b.high *= 1 + half_shift;
-        b.reasons.push_back("the former's dielectric by the sheath helix's ratio (" + detail::significant(100 * (1 - former_ratio), 2) +
-                            " % lower), not yet checked: half that shift either side");
+        b.reasons.push_back(std::string(method == "network" ? "the ribs taken as a tube of their averaged permittivity"
+                                                            : "the former's dielectric by the sheath helix's share of the field") +
+                            " (" + detail::significant(100 * (1 - former_ratio), 2) + " % lower), not checked: half that shift either side");
     }
     return b;
 }
 
-std::optional<double> network_resonance(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings,
-                                        double helical_line_frequency) {
+std::optional<NetworkResonance> network_resonance(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings) {
     if (static_cast<int>(std::ceil(s.turns() - 1e-9)) > max_network_turns) return std::nullopt;
-    const double eps_out = surroundings.relative_permittivity;
-    double f = TurnNetwork(s, TurnNetworkOptions{surroundings.mounting, -1, eps_out}).first_resonance();
-    if (former.wall > 0 && former.relative_permittivity != eps_out) {
-        if (!(helical_line_frequency > 0)) return std::nullopt;
-        f *= helical_line_frequency / helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency;
+    TurnNetworkOptions o;
+    o.mounting = surroundings.mounting;
+    o.relative_permittivity = surroundings.relative_permittivity;
+    o.former = former;
+    NetworkResonance r;
+    r.frequency = finite_result("turn network", TurnNetwork(s, o).first_resonance());
+    const bool ribs = former.wall > 0 && former.fill > 0 && former.fill < 1 && former.relative_permittivity > surroundings.relative_permittivity;
+    if (ribs) {
+        o.former = FormerDielectric{};
+        r.former_ratio = std::min(1.0, r.frequency / TurnNetwork(s, o).first_resonance());
     }
-    return finite_result("turn network", f);
+    return r;
 }
 
 SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerDielectric& former,
@@ -242,20 +259,21 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     }
 
     // The turn network (turn_network.hpp), recommended where it is computed: within 2 % of NEC2 where the
-    // sheath helix reads 16 .. 47 % high. A former's dielectric it takes by the sheath helix's ratio, the
-    // line's SRF on the former over its SRF without it (an equivalent, not yet checked against a reference).
+    // sheath helix reads 16 .. 47 % high.
+    double former_ratio = 1;
     try {
-        if (const auto f = network_resonance(s, former, surroundings, r.helical_line.available ? r.helical_line.frequency : 0)) {
+        if (const auto n = network_resonance(s, former, surroundings)) {
             r.network.available = true;
-            r.network.frequency = *f;
-            r.network.capacitance = equivalent_capacitance(*f, inductance);
-            if (former.wall > 0 && former.relative_permittivity != eps_out) {
-                r.notes.push_back("the turn network takes the former's dielectric by the sheath helix's ratio (its SRF on the "
-                                  "former over its SRF without): an equivalent not yet checked against a reference");
+            r.network.frequency = n->frequency;
+            r.network.capacitance = equivalent_capacitance(n->frequency, inductance);
+            former_ratio = n->former_ratio;
+            if (former_ratio < 1) {
+                r.notes.push_back("the turn network takes the former's ribs as a tube of their averaged permittivity (an "
+                                  "equivalent, not checked against a reference)");
             }
         } else {
             r.notes.push_back("the turn network is not built for this coil (over " + std::to_string(max_network_turns) +
-                              " turns, or a dielectric former without the sheath helix); the next model gives the SRF");
+                              " turns); the next model gives the SRF");
         }
     } catch (const DomainError& e) {
         r.warnings.push_back(std::string("the turn network gave no resonance (") + e.what() + ")");
@@ -285,11 +303,10 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     set_error(r.kandoian_sichak, kandoian_sichak_error, surroundings.mounting);
     set_error(r.medhurst, medhurst_error, surroundings.mounting);
     {
-        double former_ratio = 1;
-        if (r.method == "network" && former.wall > 0 && former.relative_permittivity != eps_out && r.helical_line.available) {
+        if (r.method != "network" && former.wall > 0 && former.relative_permittivity != eps_out && r.helical_line.available) {
             former_ratio = r.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency;
         }
-        const SrfBand b = srf_band(r.frequency, r.method, surroundings.mounting, s.pitch_to_wire(), former_ratio);
+        const SrfBand b = srf_band(r.frequency, r.method, surroundings.mounting, s.pitch_to_wire(), former, former_ratio);
         r.frequency_low = b.low;
         r.frequency_high = b.high;
         r.band_reasons = b.reasons;
@@ -298,8 +315,8 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
         r.notes.push_back("the former raises the inner permittivity the helical line sees to " +
                           detail::significant(medium.inner, 3) + " (its share of the inner field energy)");
     }
-    if (s.pitch_to_wire() < 1.5) {
-        r.notes.push_back("close-wound turns: the turn-to-turn capacitance, which no model here holds, lowers the "
+    if (s.pitch_to_wire() < 1.5 && r.method != "network") {
+        r.notes.push_back("close-wound turns: the turn-to-turn capacitance, which only the turn network holds, lowers the "
                           "self-resonance further");
     }
     return r;

@@ -8,6 +8,7 @@
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
+#include "libcoil/models/axisymmetric_charge.hpp"
 #include "libcoil/models/coaxial_mutual.hpp"
 #include "models/elliptic.hpp"
 #include "models/turn_filaments.hpp"
@@ -87,6 +88,12 @@ double harmonic_potential(double a, double z, double r, int n) {
 // potential runs linearly from one end node to the other; its sawtooth's harmonics fall as 1 / n).
 constexpr int charge_harmonics = 3;
 
+// The wire-surface capacitance: sides of each wire's circle before refinement towards its neighbours, and
+// the most turns it takes (its dense solve grows as the cube of the panels, about 40 a turn).
+constexpr int wire_surface_sides = 16;
+constexpr int max_wire_surface_turns = 120;
+constexpr int section_turns = 7;  // the near-field correction's section
+
 Matrix incidence(int n) {  // branch k runs from node k to node k + 1
     Matrix b = Matrix::Zero(n, n + 1);
     for (int k = 0; k < n; ++k) {
@@ -94,6 +101,115 @@ Matrix incidence(int n) {  // branch k runs from node k to node k + 1
         b(k, k + 1) = -1;
     }
     return b;
+}
+
+// The former as a dielectric body: a tube from the form radius inwards (a rod where the wall reaches the
+// axis), `ends` beyond the winding; ribs as a tube of their averaged permittivity.
+std::optional<DielectricBody> former_body(const Solenoid& coil, const TurnNetworkOptions& o, double z_first, double z_last,
+                                         std::optional<double> plane) {
+    const FormerDielectric& fd = o.former;
+    if (!(fd.wall > 0)) return std::nullopt;
+    require_at_least("former.relative_permittivity", fd.relative_permittivity, 1.0, "a relative permittivity");
+    require_non_negative("former_ends", o.former_ends);
+    const double fill = fd.fill > 0 ? std::min(1.0, fd.fill) : 1.0;
+    const double eps = o.relative_permittivity + (fd.relative_permittivity - o.relative_permittivity) * fill;
+    if (!(eps > o.relative_permittivity)) return std::nullopt;
+    const double outer = coil.form_diameter() / 2, inner = std::max(0.0, outer - fd.wall);
+    if (!(outer > 0)) return std::nullopt;
+    const double half_pitch = 0.5 * coil.pitch();
+    // Standing on a ground plane, the former stands on it.
+    const double bottom = plane ? *plane : z_first - half_pitch - o.former_ends;
+    return DielectricBody{tube_outline(inner, outer, bottom, z_last + half_pitch + o.former_ends), eps, {}};
+}
+
+// The wire-surface scene of turns at heights `z` (ring radius a, wire radius r, enamel to `coat`): each
+// wire's circle a conductor of its own, its enamel a dielectric shell.
+void add_wire_surfaces(ChargeScene& scene, const std::vector<double>& z, double a, double r, double coat, double enamel,
+                       std::optional<double> plane) {
+    const int n = static_cast<int>(z.size());
+    for (int k = 0; k < n; ++k) {
+        const double zk = z[static_cast<std::size_t>(k)];
+        std::vector<std::array<double, 3>> near;
+        for (int j : {k - 1, k + 1}) {
+            if (j >= 0 && j < n) near.push_back({a, z[static_cast<std::size_t>(j)], coat});
+        }
+        if (plane) near.push_back({a, 2 * *plane - zk, coat});
+        const double embed = coat > r ? enamel : 0.0;
+        scene.conductors.push_back({circle_outline(a, zk, r, wire_surface_sides, near), true, k, embed, std::array<double, 3>{a, zk, r}});
+        if (coat > r) scene.dielectrics.push_back({circle_outline(a, zk, coat, wire_surface_sides, near), enamel, std::array<double, 3>{a, zk, coat}});
+    }
+    scene.min_panel = 0.02 * r;
+}
+
+// The near-field correction: on a section of `section_turns` turns in free space, the wire-surface Maxwell
+// matrix less the thin-wire one. The difference is local (the charge crowding towards the neighbours, the
+// enamel between them) and falls off within a few turns.
+Matrix near_field_correction(double a, double r, double coat, double pitch, const TurnNetworkOptions& o, int section_turns) {
+    std::vector<double> z;
+    for (int k = 0; k < section_turns; ++k) z.push_back(k * pitch);
+    ChargeScene scene;
+    scene.background_permittivity = o.relative_permittivity;
+    scene.max_panel = pitch;
+    add_wire_surfaces(scene, z, a, r, coat, o.enamel_permittivity, std::nullopt);
+    const std::vector<double> c = group_capacitance(scene, section_turns);
+    Matrix thin(section_turns, section_turns);
+    for (int i = 0; i < section_turns; ++i) {
+        for (int j = 0; j < section_turns; ++j) {
+            thin(i, j) = (i == j ? own_potential(a, r) : ring_potential(a, a, (i - j) * pitch)) / o.relative_permittivity;
+        }
+    }
+    return Eigen::Map<const Matrix>(c.data(), section_turns, section_turns) - thin.llt().solve(Matrix::Identity(section_turns, section_turns));
+}
+
+// The turns' Maxwell capacitance matrix: the thin-wire potential coefficients `p` (with the former's
+// reaction added) inverted, with or without the near-field correction; or the whole wire-surface solution.
+Matrix turn_capacitance_matrix(const Solenoid& coil, const TurnNetworkOptions& o, const detail::TurnFilaments& f, Matrix p,
+                               double plane, bool grounded, int* panels) {
+    const int n = static_cast<int>(f.z.size());
+    const double a = f.radius, r = coil.wire().radius(), pitch = n > 1 ? f.z[1] - f.z[0] : coil.pitch();
+    const double coat = coil.wire().insulated_diameter() / 2;
+    ChargeScene scene;
+    scene.background_permittivity = o.relative_permittivity;
+    if (grounded) scene.ground_plane = plane;
+    if (auto body = former_body(coil, o, f.z.front(), f.z.back(), scene.ground_plane)) scene.dielectrics.push_back(*body);
+    scene.max_panel = std::max(pitch, coil.mean_diameter() / 8);
+    if (o.capacitance != TurnCapacitance::wire_surface) {
+        if (!scene.dielectrics.empty()) {
+            std::vector<ChargeRing> rings;
+            for (double z : f.z) rings.push_back({a, z, coat});
+            scene.min_panel = r;  // measured: within 0.2 % of r / 10 on the SRF, at a twentieth of the cost
+            const std::vector<double> reaction = ring_potential_reaction(rings, scene, panels);
+            p += Eigen::Map<const Matrix>(reaction.data(), n, n);
+        }
+        Matrix c = p.llt().solve(Matrix::Identity(n, n));
+        if (o.capacitance == TurnCapacitance::near_field_corrected) {
+            // Each turn takes the section's row of the turn in the same place: the first and last turns
+            // the section's ends, the others its middle; offsets beyond the section's reach are left out.
+            // A coil of up to 7 turns is its own section.
+            const int m = std::min(n, section_turns), half = m / 2;
+            const Matrix d = near_field_correction(a, r, coat, pitch, o, m);
+            Matrix add = Matrix::Zero(n, n);
+            for (int i = 0; i < n; ++i) {
+                const int si = i < half ? i : (i >= n - half ? i - (n - m) : half);
+                for (int sj = 0; sj < m; ++sj) {
+                    const int j = i + (sj - si);
+                    if (j >= 0 && j < n) add(i, j) = d(si, sj);
+                }
+            }
+            c += 0.5 * (add + add.transpose());
+        }
+        return c;
+    }
+    if (!scene.dielectrics.empty()) {
+        throw InputError("capacitance", "wire-surface with a former: the wires' contact with the former is not resolved; "
+                                        "take near-field-corrected (the former on the thin wires)");
+    }
+    if (n > max_wire_surface_turns) {
+        throw InputError("turns", std::to_string(n) + "; the wire-surface capacitance takes at most " + std::to_string(max_wire_surface_turns));
+    }
+    add_wire_surfaces(scene, f.z, a, r, coat, o.enamel_permittivity, grounded ? std::optional<double>(plane) : std::nullopt);
+    const std::vector<double> c = group_capacitance(scene, n, panels);
+    return Eigen::Map<const Matrix>(c.data(), n, n);
 }
 
 }  // namespace
@@ -152,9 +268,11 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
             p(i, j) = pij / o.relative_permittivity;
         }
     }
+    const Matrix turn_c = turn_capacitance_matrix(coil, o, f, p, plane, grounded, &panels_);
+    turn_c_.assign(turn_c.data(), turn_c.data() + turn_c.size());
     Matrix avg = Matrix::Zero(n_, n_ + 1);  // a turn's potential: the mean of its end nodes'
     for (int k = 0; k < n_; ++k) avg(k, k) = avg(k, k + 1) = 0.5;
-    Matrix cn = avg.transpose() * p.llt().solve(avg);
+    Matrix cn = avg.transpose() * turn_c * avg;
     // The potential along a turn runs linearly between its end nodes: its sawtooth about the mean has the
     // harmonics -(V_k+1 - V_k) sin(n phi) / (n pi), and each raises the charge sin(n phi) H_n^-1 on the
     // turns. Their energy adds (a / (pi n^2)) B^T H_n^-1 B to the node capacitances.
@@ -176,6 +294,16 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
         cn += a / (pi * h * h) * b.transpose() * hm.llt().solve(b);
     }
     if (grounded) cn = cn.bottomRightCorner(n_, n_).eval();  // node 0 is ground
+    require_non_negative("terminal_capacitance", o.terminal_capacitance);
+    if (o.terminal_capacitance > 0) {
+        const Eigen::Index last = cn.rows() - 1;
+        cn(last, last) += o.terminal_capacitance;
+        if (!grounded) {
+            cn(0, 0) += o.terminal_capacitance;
+            cn(0, last) -= o.terminal_capacitance;
+            cn(last, 0) -= o.terminal_capacitance;
+        }
+    }
     l_.assign(l.data(), l.data() + l.size());
     c_.assign(cn.data(), cn.data() + cn.size());
 }

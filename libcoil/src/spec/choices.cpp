@@ -20,6 +20,12 @@ constexpr std::array<Choice<GrooveProfile>, 2> groove_profiles{{
     {GrooveProfile::round, "round", "a round-bottomed groove that fits the wire"},
     {GrooveProfile::vee, "vee", "a vee groove"},
 }};
+constexpr std::array<Choice<TurnCapacitance>, 3> turn_capacitances{{
+    {TurnCapacitance::thin_wire, "thin-wire", "a line charge on each turn's axis"},
+    {TurnCapacitance::wire_surface, "wire-surface", "the charge on each wire's surface and its enamel, solved whole"},
+    {TurnCapacitance::near_field_corrected, "near-field-corrected", "the thin wire, corrected by the wire surface on a section of turns"},
+}};
+
 constexpr std::array<Choice<ImpedanceModel>, 3> impedance_models{{
     {ImpedanceModel::helical_line, "helical-line", "the winding as a distributed line, resonating at the recommended SRF"},
     {ImpedanceModel::lumped, "lumped", "(R + jwL) in parallel with the self-capacitance"},
@@ -80,6 +86,7 @@ LIBCOIL_CHOICES(Mounting, mountings)
 LIBCOIL_CHOICES(FormerKind, former_kinds)
 LIBCOIL_CHOICES(GrooveProfile, groove_profiles)
 LIBCOIL_CHOICES(ImpedanceModel, impedance_models)
+LIBCOIL_CHOICES(TurnCapacitance, turn_capacitances)
 LIBCOIL_CHOICES(CapacitanceSource, capacitance_sources)
 LIBCOIL_CHOICES(LossSolver, loss_solvers)
 LIBCOIL_CHOICES(Arrangement, arrangements)

@@ -391,7 +391,7 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
     // below it by the network's error and the close-wound allowance (srf_band). A shield lowers the edge
     // further; bounding without that is safe.
     const double helix_bound = q_.surroundings.mounting == Mounting::grounded_end ? 1.15 : 0.95;
-    const double low_bound = srf_band(helix_bound * sr.frequency, "network", q_.surroundings.mounting, s.pitch_to_wire(), 1.0).low;
+    const double low_bound = srf_band(helix_bound * sr.frequency, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0).low;
     std::optional<BandMiss> miss = screen_srf_margin(b, as_mounted(low_bound));
     // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
     if (!miss && (b.max_deviation || b.min_impedance)) {
@@ -422,14 +422,14 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
                                       fd, q_.surroundings, false);
     const double bare_l = sr.inductance;
     double former_ratio = 1;
-    if (const auto f = network_resonance(s, fd, q_.surroundings, sr.helical_line.frequency)) {
-        sr.frequency = *f;
+    if (const auto n = network_resonance(s, fd, q_.surroundings)) {
+        sr.frequency = n->frequency;
         sr.method = "network";
-        if (fd.wall > 0 && fd.relative_permittivity != q_.surroundings.relative_permittivity) {
-            former_ratio = sr.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, q_.surroundings, search_tolerance).frequency;
-        }
+        former_ratio = n->former_ratio;
+    } else if (fd.wall > 0 && fd.relative_permittivity != q_.surroundings.relative_permittivity) {
+        former_ratio = sr.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, q_.surroundings, search_tolerance).frequency;
     }
-    const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), former_ratio);
+    const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), fd, former_ratio);
     sr.frequency_low = band.low;
     sr.frequency_high = band.high;
     std::optional<ShieldLoad> shield;

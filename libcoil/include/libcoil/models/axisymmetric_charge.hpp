@@ -70,7 +70,8 @@ struct ConductorBody {
 struct ChargeScene {
     std::vector<DielectricBody> dielectrics;
     std::vector<ConductorBody> conductors;
-    std::optional<double> ground_plane;  // m, the height of a grounded plane under everything
+    std::optional<double> ground_plane;  // m, the height of a grounded plane under everything; a body may
+                                         // stand on it (its face on the plane is then no face)
     double background_permittivity = 1;
     double min_panel = 0;  // m; > 0 required
     double max_panel = 0;  // m; > 0 required

@@ -79,28 +79,33 @@ HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDi
                                             const Surroundings& surroundings = {}, double tolerance = 1e-12);
 
 // The turn network's first resonance (turn_network.hpp) for the coil in its surroundings: free space or
-// one end grounded, a uniform medium; a former's dielectric by the sheath helix's ratio, its SRF on the
-// former (`helical_line_frequency`, 0 if it has none) over its SRF without. Nothing over
-// max_network_turns turns, or for a dielectric former without the sheath helix's figure.
+// one end grounded, a uniform medium, the former's polarisation charge (a tube, or a rod where its wall
+// reaches the axis; ribs as a tube of their averaged permittivity, an equivalent), the turns' capacitance
+// near-field corrected. Nothing over max_network_turns turns.
 inline constexpr int max_network_turns = 600;  // the network's O(N^3) solve: 0.6 s at 600 turns
-std::optional<double> network_resonance(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings,
-                                        double helical_line_frequency);
+struct NetworkResonance {
+    double frequency = 0;    // Hz
+    double former_ratio = 1; // ribs only: the SRF on the ribs over the SRF without them (the equivalent's shift)
+};
+std::optional<NetworkResonance> network_resonance(const Solenoid& coil, const FormerDielectric& former,
+                                                  const Surroundings& surroundings);
 
 // The interval around a recommended SRF `f` by `method` ("network", "helical_line", "medhurst") where the
 // first resonance is expected:
-//  - the model's measured error against NEC2 (tests/reference/nec2, docs/models.md), widened by 0.5 % for
-//    NEC's own residual: the network floating -0.62 .. +1.53 %, grounded end -1.23 .. -0.36 %; the sheath
-//    helix floating +16 .. +47 %, grounded end -12 .. +18 %; Medhurst's table +-25 % (an assumption: his
-//    arrangement, not ours);
-//  - close-wound turns (pitch under 2 bare diameters), not yet checked against an electrostatic reference:
-//    the low edge 10 % lower (an assumption: their charge crowds towards the neighbours);
-//  - a dielectric former, which the network takes by the sheath helix's ratio `former_ratio` (its SRF on
-//    the former over without; 1 with none), not yet checked: widened by half the shift on each side.
+//  - the model's measured error against NEC2 on its coils of pitch 3 wire diameters and more
+//    (tests/reference/nec2, docs/models.md), widened by 0.5 % for NEC's own residual: the network floating
+//    -1.28 .. +1.34 %, grounded end -1.76 .. -0.45 %; the sheath helix floating +16 .. +47 %, grounded end
+//    -12 .. +18 %; Medhurst's table +-25 % (an assumption: his arrangement, not ours);
+//  - turns closer than 3 wire diameters, where NEC2's thin wire no longer holds: the network's near-field
+//    correction against the wire-surface reference, -2.7 .. +0.4 % (measured, tests/cpp/test_turn_network.cpp);
+//  - a former: a tube's polarisation charge +-0.3 % (its discretisation, measured); ribs, taken as a tube of
+//    their averaged permittivity (`former_ratio` the shift it makes), half that shift on each side.
 struct SrfBand {
     double low = 0, high = 0;  // Hz
     std::vector<std::string> reasons;
 };
-SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, double former_ratio);
+SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, const FormerDielectric& former,
+                 double former_ratio);
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
 // What the fast paths for searches solve to (relative): a search's figures are shown to four digits and

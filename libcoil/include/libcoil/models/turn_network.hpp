@@ -47,6 +47,7 @@
 
 #include "libcoil/models/solenoid.hpp"
 #include "libcoil/spec/choices.hpp"
+#include "libcoil/spec/records.hpp"
 
 namespace libcoil {
 
@@ -60,6 +61,16 @@ struct TurnNetworkOptions {
     double base_height = -1;          // m, grounded end: the ground plane below the first turn's centre;
                                       // < 0: half a pitch (the winding stands on the plane)
     double relative_permittivity = 1; // a uniform medium around and inside the winding
+    // The former under the winding: a tube (or a solid rod where the wall reaches the axis) from the form
+    // diameter inwards, `former_ends` longer than the winding at each end; ribs as a tube of their
+    // circumference-averaged permittivity 1 + (eps - 1) x fill (an equivalent). Its polarisation charge by
+    // axisymmetric_charge.hpp.
+    FormerDielectric former;
+    double former_ends = 5e-3;        // m
+    TurnCapacitance capacitance = TurnCapacitance::near_field_corrected;
+    double enamel_permittivity = 3.5; // wire_surface only (polyurethane or polyester-imide enamel, from memory)
+    double terminal_capacitance = 0;  // F, a capacitor between the terminals (from the far end to ground
+                                      // where one end is grounded)
 };
 
 class TurnNetwork {
@@ -79,11 +90,17 @@ public:
     // terms, and with the ground plane's images).
     double inductance() const;
     int elements() const { return n_; }
+    // The capacitance between the turns and to infinity (or ground), each turn one conductor: the Maxwell
+    // matrix, row-major N x N, F (the charge harmonics along the turns not included).
+    const std::vector<double>& turn_capacitance() const { return turn_c_; }
+    int panels() const { return panels_; }  // the charge solver's panels (0: the bare thin-wire network)
 
 private:
     int n_ = 0;                // turns (branches)
     std::vector<double> l_;    // partial inductances, H, N x N row-major
     std::vector<double> c_;    // node capacitances, F, row-major over the free nodes (N + 1, or N grounded)
+    std::vector<double> turn_c_;
+    int panels_ = 0;
     Mounting mounting_ = Mounting::floating;
 };
 

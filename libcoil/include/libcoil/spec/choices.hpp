@@ -35,6 +35,16 @@ enum class LossSolver { closed_form, filaments };
 enum class Arrangement { coaxial, side_by_side };
 // A frequency grid's spacing.
 enum class Spacing { logarithmic, linear };
+// How the turn network takes the turns' capacitances (turn_network.hpp):
+//  thin_wire             a line charge on each turn's axis (as NEC2's thin-wire kernel);
+//  wire_surface          the charge on each wire's true surface and its enamel (axisymmetric_charge.hpp):
+//                        the reference, at (40 N)^3 cost; no former (the wires' contact with it is not
+//                        resolved: refused);
+//  near_field_corrected  the thin wire (with the former's polarisation) plus the wire surface's difference
+//                        solved on a section of 7 turns in free space (the crowding of charge towards the
+//                        neighbours and the enamel between them act within a few turns); a coil of up to
+//                        7 turns is its own section.
+enum class TurnCapacitance { thin_wire, wire_surface, near_field_corrected };
 
 template <class E>
 struct Choice {
@@ -67,6 +77,7 @@ LIBCOIL_DECLARE_CHOICES(Mounting)
 LIBCOIL_DECLARE_CHOICES(FormerKind)
 LIBCOIL_DECLARE_CHOICES(GrooveProfile)
 LIBCOIL_DECLARE_CHOICES(ImpedanceModel)
+LIBCOIL_DECLARE_CHOICES(TurnCapacitance)
 LIBCOIL_DECLARE_CHOICES(CapacitanceSource)
 LIBCOIL_DECLARE_CHOICES(LossSolver)
 LIBCOIL_DECLARE_CHOICES(Arrangement)
