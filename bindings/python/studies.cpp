@@ -157,10 +157,11 @@ void bind_studies(py::module_& m) {
                             "band"_a = lp::band_dict(a.band, a.band_srf_by_medhurst), "thermal"_a = lp::thermal_dict(a.thermal),
                             "shield"_a = lp::shield_dict(a), "cautions"_a = a.cautions, "warnings"_a = a.warnings, "notes"_a = a.notes);
         }, "The analysis as plain dicts and numpy arrays (SI).");
-    m.def("sweep", [](const libcoil::Analysis& a, std::vector<double> frequencies, const std::string& model, const std::string& capacitance) {
+    m.def("sweep", [](const libcoil::Analysis& a, std::vector<double> frequencies, const std::optional<std::string>& model,
+                      const std::string& capacitance) {
         libcoil::SweepRequest q;
         q.frequencies = std::move(frequencies);
-        q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
+        if (model) q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(*model, "model");
         q.capacitance = libcoil::parse_choice<libcoil::CapacitanceSource>(capacitance, "capacitance");
         libcoil::Sweep s;
         {
@@ -168,17 +169,18 @@ void bind_studies(py::module_& m) {
             s = libcoil::sweep_study(a, q);
         }
         return record("Sweep", libcoil::python::sweep_dict(s));
-    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "capacitance"_a = "helical-line",
-       "Z(f) of an analysed coil as mounted (its shield, its mounting): a Sweep of numpy arrays (frequency, impedance, ...).");
+    }, "analysis"_a, "frequencies"_a, "model"_a = py::none(), "capacitance"_a = "helical-line",
+       "Z(f) of an analysed coil as mounted (its shield, its mounting): a Sweep of numpy arrays (frequency, impedance, ...).\n"
+       "model None: the recommended SRF's model (the turn network up to 150 turns without a shield, else helical-line).");
     m.def("frequency_grid", [](double start, double stop, int points, bool logarithmic) {
         return libcoil::frequency_grid(start, stop, points, logarithmic ? libcoil::Spacing::logarithmic : libcoil::Spacing::linear);
     }, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);
-    m.def("touchstone_s1p", [](const libcoil::Analysis& a, std::vector<double> f, const std::string& model) {
+    m.def("touchstone_s1p", [](const libcoil::Analysis& a, std::vector<double> f, const std::optional<std::string>& model) {
         libcoil::SweepRequest q;
         q.frequencies = std::move(f);
-        q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(model, "model");
+        if (model) q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(*model, "model");
         return libcoil::touchstone_s1p(libcoil::sweep_study(a, q));
-    }, "analysis"_a, "frequencies"_a, "model"_a = "helical-line", "The Touchstone one-port text of the coil as mounted.");
+    }, "analysis"_a, "frequencies"_a, "model"_a = py::none(), "The Touchstone one-port text of the coil as mounted.");
     m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<int> layers, std::optional<int> sectors,
                         std::optional<libcoil::Subdivision> sub) {
         libcoil::AnalysisOptions o;

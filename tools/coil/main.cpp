@@ -158,7 +158,7 @@ int run_sweep(const Given& g) {
     q.to = g.optional_quantity("to");
     q.points = static_cast<int>(g.whole("points", 2, 1000000, 401));
     q.spacing = *g.choice<libcoil::Spacing>("spacing");
-    q.model = *g.choice<libcoil::ImpedanceModel>("model");
+    q.model = g.choice<libcoil::ImpedanceModel>("model");
     q.capacitance = *g.choice<libcoil::CapacitanceSource>("capacitance");
     libcoil::Sweep s = libcoil::sweep_study(a, q);
     if (s.title.empty()) s.title = stem_of(spec);

@@ -56,8 +56,10 @@ inline const std::vector<Option>& option_table() {
          nullptr, "", false},
         {"sweep", "points", "--points", Kind::integer, "Number of frequencies", D::dimensionless, nullptr, "401", false},
         {"sweep", "spacing", "--spacing", Kind::choice, "Frequency spacing", D::dimensionless, &choice_names<Spacing>, "log", false},
-        {"sweep", "model", "--model", Kind::choice, "Impedance model: helical-line (distributed) or lumped (R + jwL parallel C)",
-         D::dimensionless, &choice_names<ImpedanceModel>, "helical-line"},
+        {"sweep", "model", "--model", Kind::choice,
+         "Impedance model: network (coupled turns), helical-line (distributed) or lumped (R + jwL parallel C); default: "
+         "the recommended SRF's model (network up to 150 turns without a shield, else helical-line)",
+         D::dimensionless, &choice_names<ImpedanceModel>, ""},
         {"sweep", "capacitance", "--capacitance", Kind::choice, "Lumped model only: self-capacitance by helical-line or medhurst",
          D::dimensionless, &choice_names<CapacitanceSource>, "helical-line"},
         {"sweep", "out", "--out", Kind::text, "Write STEM.sweep.csv, STEM.s1p and STEM.sweep.svg here (else CSV to stdout)",

@@ -35,21 +35,24 @@ std::vector<double> frequency_grid(double from, double to, int points, Spacing s
 namespace {
 
 // Z(f) by the turn network (turn_network.hpp): every resonance of the coupled turns, with the winding's
-// closed-form R(f) spread over the turns. A former's dielectric enters as the uniform permittivity that
-// moves the network's first resonance where the recommended SRF has it (the sheath helix's ratio), its loss
-// tangent weighted by the share of the capacitance that ratio gives it, 1 - ratio^2.
+// closed-form R(f) spread over the turns. The former is in the network (its polarisation charge); its loss
+// tangent acts on the share of the capacitance it brings, 1 - (f_former / f_air)^2 by the network's SRFs.
 void network_sweep(const Analysis& a, const std::vector<double>& f, Sweep& s) {
     if (a.shield) throw InputError("model", "network: a shield is not yet part of the turn network; the helical-line model holds it");
     const SelfResonance& sr = a.self_resonance;
-    if (!sr.network.available) throw InputError("model", "network: the turn network is not built for this coil (over 600 turns, or no model for its former)");
+    if (!sr.network.available) throw InputError("model", "network: the turn network is not built for this coil (over 600 turns)");
     const Solenoid& coil = a.spec.solenoid;
-    const Mounting m = a.spec.surroundings.mounting;
-    double eps = a.spec.surroundings.relative_permittivity;
-    const double in_medium = TurnNetwork(coil, TurnNetworkOptions{m, -1, eps}).first_resonance();
-    const double ratio = std::min(1.0, sr.network.frequency / in_medium);
-    eps /= ratio * ratio;
-    const double tan_d = a.spec.former ? a.spec.former->material.loss_tangent * (1 - ratio * ratio) : 0;
-    const TurnNetwork net(coil, TurnNetworkOptions{m, -1, eps});
+    TurnNetworkOptions o;
+    o.mounting = a.spec.surroundings.mounting;
+    o.relative_permittivity = a.spec.surroundings.relative_permittivity;
+    double tan_d = 0;
+    if (a.spec.former) {
+        const double in_air = TurnNetwork(coil, o).first_resonance();
+        o.former = a.spec.former->dielectric(coil.form_diameter());
+        const double ratio = std::min(1.0, sr.network.frequency / in_air);
+        tan_d = a.spec.former->material.loss_tangent * (1 - ratio * ratio);
+    }
+    const TurnNetwork net(coil, o);
     const auto wire = coil_at_frequencies(coil, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, f);
     for (std::size_t i = 0; i < f.size(); ++i) {
         ImpedancePoint p;
@@ -72,7 +75,11 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
     const FrequencySpan span = default_span(a);
     Sweep s;
     s.title = a.spec.name;
-    s.model = q.model;
+    // By default the model of the recommended SRF: the network where it gives it (and holds the whole
+    // arrangement: no shield) for coils it sweeps in seconds, else the helical line.
+    const bool network_default = sr.method == "network" && !a.shield && a.spec.solenoid.turns() <= max_default_network_turns;
+    const ImpedanceModel model = q.model.value_or(network_default ? ImpedanceModel::network : ImpedanceModel::helical_line);
+    s.model = model;
     s.capacitance = q.capacitance;
     s.mounting = a.spec.surroundings.mounting;
     s.spacing = q.spacing;
@@ -91,16 +98,16 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
     s.to = f.back();
     double c = 0;  // the recommended C
     if (q.capacitance == CapacitanceSource::medhurst) {
-        if (q.model != ImpedanceModel::lumped) throw InputError("capacitance", "medhurst applies to the lumped model only");
+        if (model != ImpedanceModel::lumped) throw InputError("capacitance", "medhurst applies to the lumped model only");
         if (!sr.medhurst.available) throw InputError("capacitance", "this coil is outside Medhurst's table");
         c = sr.medhurst.capacitance;
     }
-    if (q.model == ImpedanceModel::network) {
+    if (model == ImpedanceModel::network) {
         network_sweep(a, f, s);
     } else {
         const double lowest = f.front() > 0 ? f.front() : (f.size() > 1 ? f[1] : f.back());
         const CoilImpedance zc = coil_impedance(a, lowest > 0 ? lowest : span.low, std::max(f.back(), span.low));
-        s.points = zc.sweep(f, q.model, c);
+        s.points = zc.sweep(f, model, c);
         s.nominal_inductance = zc.nominal_inductance();
         s.self_resonance = zc.resonance();
     }

@@ -16,9 +16,12 @@ struct SweepRequest {
     std::optional<double> from, to;  // Hz; by default the analysis's span (default_span)
     int points = 401;
     Spacing spacing = Spacing::logarithmic;
-    ImpedanceModel model = ImpedanceModel::helical_line;
+    // None: the recommended SRF's model, the turn network where it gives it, the coil has no shield and at
+    // most max_default_network_turns turns; else the helical line.
+    std::optional<ImpedanceModel> model;
     CapacitanceSource capacitance = CapacitanceSource::helical_line;  // the lumped model's C
 };
+inline constexpr double max_default_network_turns = 150;  // 401 points in about 2 s
 
 struct Sweep {
     std::string title;                 // the spec's name
