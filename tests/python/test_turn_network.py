@@ -148,3 +148,17 @@ def test_each_models_stated_error_is_what_the_nec2_set_measures():
         low, high = stated[key]
         assert min(values) == pytest.approx(low, abs=5e-4), key
         assert max(values) == pytest.approx(high, abs=5e-4), key
+
+
+@pytest.mark.parametrize("c", COILS, ids=[c["name"] for c in COILS])
+@pytest.mark.parametrize("mounting", ["floating", "grounded-end"])
+def test_the_srf_band_holds_the_nec2_value(c, mounting):
+    # The recommended SRF's band (self_resonance.hpp's srf_band: the measured errors, NEC's residual, the
+    # near-field correction's error below p/d 3) holds NEC2's extrapolated value for every coil of the set,
+    # p/d 2 included; and it is not a blanket: no wider than 8 % in all (measured at most 7.0 %, at p/d 2).
+    s = solenoid(c)
+    r = libcoil.self_resonance(s, s.inductance(), mounting=mounting)
+    assert r["method"] == "network"
+    nec = c[mounting]["f"]
+    assert r["frequency_low"] <= nec <= r["frequency_high"], (c["name"], mounting, r["frequency_low"], nec, r["frequency_high"])
+    assert r["frequency_high"] / r["frequency_low"] < 1.08

@@ -9,10 +9,13 @@
 //          sheet segment of one pitch on the cylinder per turn, coupled to the others by mu0 / 4 pi times
 //          the double integral of the azimuth-averaged 1 / R (Gauss-Legendre). The axial part matters for
 //          long coils of coarse pitch (without it the SRF reads up to 7.7 % high against NEC2).
-//          Capacitance: the potential of a uniformly charged ring, (1 / 4 pi eps0) (2 / pi) K(m) /
-//          sqrt((a + rho)^2 + z^2), m = 4 a rho / ((a + rho)^2 + z^2), at the other rings, and on a ring's
-//          own wire averaged round it (thin-wire potential coefficients); each turn's mean potential is
-//          the mean of its end nodes' (C_n = A^T P^-1 A). Along a turn the potential runs linearly from
+//          Capacitance: the turns' Maxwell matrix (TurnCapacitance, spec/choices.hpp): thin-wire
+//          potential coefficients of uniformly charged rings, (1 / 4 pi eps0) (2 / pi) K(m) / sqrt((a +
+//          rho)^2 + z^2), on the other rings and averaged round a ring's own wire; the former's polarisation
+//          charge added to them (axisymmetric_charge.hpp); and by default the near-field correction, the
+//          wire-surface solution less the thin-wire one on a section of 7 turns (the charge crowding towards
+//          the neighbours, the enamel between them). Each turn's mean potential is the mean of its end
+//          nodes' (C_n = A^T C A). Along a turn the potential runs linearly from
 //          one node to the next; the sawtooth about the mean has the harmonics -(dV) sin(n phi) / (n pi),
 //          which hold charges sin(n phi) on the rings through their own potential coefficients
 //          H_n = (a / 4 pi eps0) integral cos(n psi) / R d psi, adding (a / (pi n^2)) B^T H_n^-1 B to C_n
@@ -31,15 +34,19 @@
 //          Electricity" (quoted from memory); the axial sheet, the charge harmonics and the eigenproblem's
 //          reformulation are ours.
 // Domain:  quasi-static (no retardation: against NEC2 it costs nothing on the set below, and adding its
-//          real part moved the SRF the wrong way by up to 1 %); round wire, p >= d; free space or one ground
-//          plane; a uniform medium. Close-wound turns (p < 2 d) crowd their charge towards the neighbours,
-//          which the thin-wire rings do not hold.
-// Accuracy: against NEC2 (nec2c, Richardson-extrapolated from 16 and 32 segments a turn) on 12 coils,
-//          l/D 0.4 .. 15, p/d 2 .. 8: floating -0.62 .. +1.53 %, one end grounded -1.23 .. -0.36 %
-//          (tests/python/test_turn_network.py, enforced 2 %). Limits (tests/cpp/test_turn_network.cpp): a
-//          single ring's capacitance tends to the thin torus's; a uniform dielectric lowers every
-//          resonance by exactly 1 / sqrt(eps); far below resonance Im Z / w is the network's L; long coils
-//          of fine pitch come towards the sheath helix (9.5 % apart at l/D 40).
+//          real part moved the SRF the wrong way by up to 1 %); round wire, p >= insulated d; free space or
+//          one ground plane; a uniform medium and a coaxial former. No shield and no leads yet.
+// Accuracy: against NEC2 (nec2c, Richardson-extrapolated from 16 and 32 segments a turn) on its coils of
+//          p/d >= 3, l/D 0.4 .. 15: floating -1.28 .. +1.34 %, one end grounded -1.76 .. -0.45 %
+//          (tests/python/test_turn_network.py, enforced 2 %); at p/d 2, -2.07 .. -1.73 % where NEC2's thin wire
+//          misses the charge crowding. Close-wound turns (p/d 1.08 .. 3, bare and enamelled) against the
+//          wire-surface reference: -2.64 .. +0.32 % (tests/cpp/test_turn_network.cpp; the thin wire alone
+//          reads up to +39 % high). The former's polarisation: within 0.2 % of finer panels. Limits: a single
+//          ring's capacitance tends to the thin torus's; a uniform dielectric lowers every resonance by
+//          exactly 1 / sqrt(eps); far below resonance Im Z / w is the network's L; long coils of fine pitch
+//          come towards the sheath helix. Medhurst's table in his arrangement: 0.76 .. 1.02 of his C in air,
+//          0.78 .. 1.20 on a polystyrene rod (tests/python/test_medhurst_arrangement.py; docs/models.md says
+//          why that misses the 10 % aimed at).
 #pragma once
 
 #include <complex>
