@@ -104,6 +104,7 @@ py::object shield_dict(const Analysis& a) {
                     "high_frequency_inductance"_a = r.perfect_conductor, "closed_form"_a = r.closed_form,
                     "long_coil_limit"_a = r.long_coil_limit, "capacitance_to_shield"_a = r.capacitance_to_shield,
                     "terminal_capacitance"_a = a.shield->terminal_capacitance, "self_resonance"_a = a.shield->self_resonance,
+                    "by_network"_a = a.shield->by_network,
                     "rings"_a = r.rings);
 }
 

@@ -27,7 +27,9 @@ def test_the_shield_moves_the_srf_far_enough_to_matter(can):
     # The premise of the tests below: the shielded SRF differs from the bare one by far more than a sweep step.
     assert can.shield is not None
     assert can.self_resonance_as_mounted == can.shield.self_resonance
-    assert can.self_resonance_as_mounted < 0.97 * can.self_resonance.frequency  # measured 0.950
+    # (the 40 mm can around the floating coil raises it: L falls by 34 %, the capacitance rises by less;
+    # measured +3.8 %, 50 sweep steps below)
+    assert abs(can.self_resonance_as_mounted / can.self_resonance.frequency - 1) > 0.03
 
 
 def test_text_report_shows_the_shielded_impedance_and_verdict(run_coil, source_dir, can):
@@ -144,8 +146,9 @@ def test_grounded_end_in_a_shield_everywhere(run_coil, source_dir, tmp_path):
 
 
 @pytest.mark.parametrize("wall, frequencies, measured_l, measured_r", [
-    # the 0.3 mm can, thick against the skin depth over the band: measured 1.0e-6 (L) and 3.0e-5 (R)
-    ("0.3 mm", "[230 kHz, 2.7 MHz, 17 MHz]", 1.0e-6, 3.0e-5),
+    # the 0.3 mm can, thick against the skin depth over the band: measured 1.0e-6 (L) and 1.1e-5 (R; 3.0e-5
+    # with the shielded SRF's lumped estimate, which the line's shape near resonance follows)
+    ("0.3 mm", "[230 kHz, 2.7 MHz, 17 MHz]", 1.0e-6, 1.1e-5),
     # 35 um foil, through the wall's transition (skin depth = wall near 3.5 MHz): measured 3.9e-4 and 1.4e-3
     ("0.035 mm", "[12 kHz, 23 kHz, 47 kHz, 83 kHz, 170 kHz, 330 kHz, 2.7 MHz]", 3.9e-4, 1.4e-3),
 ])
@@ -154,9 +157,9 @@ def test_shield_table_follows_the_ring_model_between_its_points(source_dir, wall
     # the sweep agrees with the analysis's own ring-model figures at the operating frequencies. The bounds
     # are the shield.hpp claim (0.2 %); the measured figures are beside each case.
     spec_text = (source_dir / IN_CAN).read_text().replace("frequencies: [150 kHz, 1 MHz, 10 MHz, 30 MHz]", "frequencies: " + frequencies)
-    spec_text = spec_text.replace("thickness: 0.3 mm", "thickness: " + wall)
+    spec_text = spec_text.replace("thickness: 0.3 mm", "thickness: " + wall).replace("inner_diameter: 40 mm", "inner_diameter: 60 mm")
     a = libcoil.analyze(libcoil.parse_coil_spec(spec_text))
-    s = libcoil.sweep(a, a.at_frequency.frequency)
+    s = libcoil.sweep(a, a.at_frequency.frequency, model="helical-line")  # the line's path, where these were measured
     ring_l = a.at_frequency.inductance + (a.shield.inductance - a.inductance.recommended)
     ring_r = a.at_frequency.resistance + a.shield.added_resistance
     assert np.max(np.abs(s.wire_inductance / ring_l - 1)) < 2e-3

@@ -118,10 +118,17 @@ def test_network_sweep_shows_every_odd_resonance(tmp_path, run_coil):
     assert abs(peaks[0] - modes[0]) <= fz[1] - fz[0] and abs(peaks[1] - modes[2]) <= fz[1] - fz[0]
 
 
-def test_network_sweep_refuses_a_shield(source_dir):
+def test_network_sweep_holds_the_shield(source_dir):
+    # In a shield the network holds the wall (a grounded conductor, its currents' change to L): its Z(f) peaks
+    # at the analysis's shielded SRF, and far below resonance its apparent L is the shielded coil's.
     a = libcoil.analyze(libcoil.load_coil_spec(str(source_dir / "data/examples/bench-network-coil-in-can.yaml")))
-    with pytest.raises(libcoil.InputError, match="^model: network: a shield"):
-        libcoil.sweep(a, [1e6, 2e6], model="network")
+    assert a.shield.by_network
+    f = np.linspace(0.8 * a.shield.self_resonance, 1.2 * a.shield.self_resonance, 4001)
+    s = libcoil.sweep(a, f, model="network")
+    peak = f[np.argmax(np.abs(s.impedance))]
+    assert abs(peak - a.shield.self_resonance) <= f[1] - f[0]
+    low = libcoil.sweep(a, [1e6], model="network")
+    assert low.apparent_inductance[0] == pytest.approx(a.shield.inductance, rel=0.03)
 
 
 def test_each_models_stated_error_is_what_the_nec2_set_measures():

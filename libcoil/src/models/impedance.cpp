@@ -85,7 +85,9 @@ CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, d
 double CoilImpedance::resonance_low() const {
     const double relative = sr_.frequency_low > 0 ? sr_.frequency_low / sr_.frequency : 1;
     if (!shield_) return sr_.frequency * relative;
-    const double shift = std::max(0.0, 1 - shield_->self_resonance / sr_.frequency);
+    // The shield's shift, not yet checked against an outside reference: half of it more below.
+    const double shift = shield_->by_network ? std::fabs(1 - shield_->self_resonance / sr_.frequency)
+                                             : std::max(0.0, 1 - shield_->self_resonance / sr_.frequency);
     return shield_->self_resonance * relative * (1 - 0.5 * shift);
 }
 

@@ -188,12 +188,14 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
     return b;
 }
 
-std::optional<NetworkResonance> network_resonance(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings) {
+std::optional<NetworkResonance> network_resonance(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings,
+                                                  const ShieldSpec* shield) {
     if (static_cast<int>(std::ceil(s.turns() - 1e-9)) > max_network_turns) return std::nullopt;
     TurnNetworkOptions o;
     o.mounting = surroundings.mounting;
     o.relative_permittivity = surroundings.relative_permittivity;
     o.former = former;
+    if (shield) o.shield = *shield;
     NetworkResonance r;
     r.frequency = finite_result("turn network", TurnNetwork(s, o).first_resonance());
     const bool ribs = former.wall > 0 && former.fill > 0 && former.fill < 1 && former.relative_permittivity > surroundings.relative_permittivity;

@@ -211,6 +211,29 @@ double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
     return finite_result("shield", sys.mc.dot(x));
 }
 
+std::vector<double> shield_turn_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
+    require_around(coil, s);
+    ShieldSpec sheet = s;
+    sheet.thickness = std::min(s.thickness, 1e-3 * s.inner_diameter / 2);
+    const std::vector<Ring> rings = shield_rings(sheet, coil.mean_radius(), INFINITY);
+    const System sys = assemble(rings, coil, 1.0);
+    const detail::TurnFilaments turns = detail::turn_filaments(coil);
+    const auto n = static_cast<Eigen::Index>(turns.z.size()), m = static_cast<Eigen::Index>(rings.size());
+    Eigen::MatrixXd mst(m, n);  // wall ring k against turn i
+    for (Eigen::Index k = 0; k < m; ++k) {
+        for (Eigen::Index i = 0; i < n; ++i) {
+            mst(k, i) = turns.weight * coaxial_mutual_inductance(rings[static_cast<std::size_t>(k)].r, turns.radius,
+                                                                 rings[static_cast<std::size_t>(k)].z - turns.z[static_cast<std::size_t>(i)]);
+        }
+    }
+    const Eigen::MatrixXd change = -mst.transpose() * sys.m.ldlt().solve(mst);
+    std::vector<double> out(static_cast<std::size_t>(n * n));
+    for (Eigen::Index i = 0; i < n; ++i) {
+        for (Eigen::Index j = 0; j < n; ++j) out[static_cast<std::size_t>(i * n + j)] = finite_result("shield", 0.5 * (change(i, j) + change(j, i)));
+    }
+    return out;
+}
+
 double open_end_leakage_db(const ShieldSpec& s, double winding_length) {
     require_positive("winding_length", winding_length);
     if (s.end_discs) return INFINITY;

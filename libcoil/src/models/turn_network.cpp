@@ -10,6 +10,7 @@
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/axisymmetric_charge.hpp"
 #include "libcoil/models/coaxial_mutual.hpp"
+#include "libcoil/models/shield.hpp"
 #include "models/elliptic.hpp"
 #include "models/turn_filaments.hpp"
 
@@ -161,6 +162,20 @@ Matrix near_field_correction(double a, double r, double coat, double pitch, cons
     return Eigen::Map<const Matrix>(c.data(), section_turns, section_turns) - thin.llt().solve(Matrix::Identity(section_turns, section_turns));
 }
 
+// A shield as a grounded conductor: its wall an open sheet at the inner radius (its two faces' charge
+// together), with the end discs where it has them; centred on the winding less its axial offset.
+ConductorBody shield_body(const ShieldSpec& s, const Solenoid& coil) {
+    if (!(s.inner_diameter > coil.outer_diameter())) {
+        throw InputError("shield.inner_diameter", "does not clear the winding");
+    }
+    require_positive("shield.length", s.length);
+    const double b = s.inner_diameter / 2, lo = s.axial_offset - s.length / 2, hi = s.axial_offset + s.length / 2;
+    ConductorBody c;
+    c.closed = false;
+    c.outline = s.end_discs ? Outline{{0, lo}, {b, lo}, {b, hi}, {0, hi}} : Outline{{b, lo}, {b, hi}};
+    return c;
+}
+
 // The turns' Maxwell capacitance matrix: the thin-wire potential coefficients `p` (with the former's
 // reaction added) inverted, with or without the near-field correction; or the whole wire-surface solution.
 Matrix turn_capacitance_matrix(const Solenoid& coil, const TurnNetworkOptions& o, const detail::TurnFilaments& f, Matrix p,
@@ -172,9 +187,10 @@ Matrix turn_capacitance_matrix(const Solenoid& coil, const TurnNetworkOptions& o
     scene.background_permittivity = o.relative_permittivity;
     if (grounded) scene.ground_plane = plane;
     if (auto body = former_body(coil, o, f.z.front(), f.z.back(), scene.ground_plane)) scene.dielectrics.push_back(*body);
+    if (o.shield) scene.conductors.push_back(shield_body(*o.shield, coil));
     scene.max_panel = std::max(pitch, coil.mean_diameter() / 8);
     if (o.capacitance != TurnCapacitance::wire_surface) {
-        if (!scene.dielectrics.empty()) {
+        if (!scene.dielectrics.empty() || !scene.conductors.empty()) {
             std::vector<ChargeRing> rings;
             for (double z : f.z) rings.push_back({a, z, coat});
             scene.min_panel = r;  // measured: within 0.2 % of r / 10 on the SRF, at a twentieth of the cost
@@ -200,8 +216,8 @@ Matrix turn_capacitance_matrix(const Solenoid& coil, const TurnNetworkOptions& o
         }
         return c;
     }
-    if (!scene.dielectrics.empty()) {
-        throw InputError("capacitance", "wire-surface with a former: the wires' contact with the former is not resolved; "
+    if (!scene.dielectrics.empty() || !scene.conductors.empty()) {
+        throw InputError("capacitance", "wire-surface with a former or a shield: the wires' contact with the former is not resolved; "
                                         "take near-field-corrected (the former on the thin wires)");
     }
     if (n > max_wire_surface_turns) {
@@ -229,8 +245,9 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
     n_ = static_cast<int>(f.z.size());
     if (n_ > 2000) throw InputError("turns", std::to_string(n_) + " turns; the turn network takes at most 2000");
     const bool grounded = o.mounting == Mounting::grounded_end;
+    const bool plane_images = grounded && !o.shield;  // in a shield, the grounded end is on the shield
     const double base = o.base_height < 0 ? coil.pitch() / 2 : o.base_height;
-    if (grounded) require_positive("base_height", base);
+    if (plane_images) require_positive("base_height", base);
     const double plane = f.z.front() - base;  // the ground plane's height
     // The rings are evenly spaced, so every term depends on the offset i - j (free space) or on i + j (the
     // images): each is computed once. A turn's current also advances along the axis by the pitch, an axial
@@ -245,7 +262,7 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
         axial_l[static_cast<std::size_t>(k)] = axial_mutual(a, step, dz, r);
     }
     std::vector<double> image_ring_l, image_axial_l, image_p;  // by i + j
-    if (grounded) {
+    if (plane_images) {
         for (int s2 = 0; s2 <= 2 * (n_ - 1); ++s2) {
             const double di = 2 * z_of(0) + s2 * step - 2 * plane;  // z_i + z_j - 2 plane
             // Horizontal (ring) currents image reversed, vertical (axial) ones in the same sense; charges reversed.
@@ -259,7 +276,7 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
         for (int j = 0; j < n_; ++j) {
             const auto k = static_cast<std::size_t>(std::abs(i - j));
             double lij = w * w * ring_l[k] + axial_l[k], pij = ring_p[k];
-            if (grounded) {
+            if (plane_images) {
                 const auto s2 = static_cast<std::size_t>(i + j);
                 lij += w * w * image_ring_l[s2] + image_axial_l[s2];
                 pij += image_p[s2];
@@ -268,7 +285,11 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
             p(i, j) = pij / o.relative_permittivity;
         }
     }
-    const Matrix turn_c = turn_capacitance_matrix(coil, o, f, p, plane, grounded, &panels_);
+    if (o.shield) {  // the wall's surface currents, as a perfect conductor
+        const std::vector<double> dl = shield_turn_inductance_change(coil, *o.shield);
+        l += Eigen::Map<const Matrix>(dl.data(), n_, n_);
+    }
+    const Matrix turn_c = turn_capacitance_matrix(coil, o, f, p, plane, plane_images, &panels_);
     turn_c_.assign(turn_c.data(), turn_c.data() + turn_c.size());
     Matrix avg = Matrix::Zero(n_, n_ + 1);  // a turn's potential: the mean of its end nodes'
     for (int k = 0; k < n_; ++k) avg(k, k) = avg(k, k + 1) = 0.5;
@@ -280,14 +301,14 @@ TurnNetwork::TurnNetwork(const Solenoid& coil, const TurnNetworkOptions& o) : mo
     for (int h = 1; h <= charge_harmonics; ++h) {
         std::vector<double> by_offset(static_cast<std::size_t>(n_)), by_sum;
         for (int k = 0; k < n_; ++k) by_offset[static_cast<std::size_t>(k)] = harmonic_potential(a, k * step, k == 0 ? r : 0.0, h);
-        if (grounded) {
+        if (plane_images) {
             for (int s2 = 0; s2 <= 2 * (n_ - 1); ++s2) by_sum.push_back(-harmonic_potential(a, 2 * z_of(0) + s2 * step - 2 * plane, 0.0, h));
         }
         Matrix hm(n_, n_);
         for (int i = 0; i < n_; ++i) {
             for (int j = 0; j < n_; ++j) {
                 double v = by_offset[static_cast<std::size_t>(std::abs(i - j))];
-                if (grounded) v += by_sum[static_cast<std::size_t>(i + j)];
+                if (plane_images) v += by_sum[static_cast<std::size_t>(i + j)];
                 hm(i, j) = v / o.relative_permittivity;
             }
         }
@@ -353,7 +374,8 @@ double TurnNetwork::first_resonance() const {
     return f.front();
 }
 
-std::complex<double> TurnNetwork::impedance(double frequency, double series_resistance, double loss_tangent) const {
+std::complex<double> TurnNetwork::impedance(double frequency, double series_resistance, double loss_tangent,
+                                            double series_inductance) const {
     require_positive("frequency", frequency);
     require_non_negative("series_resistance", series_resistance);
     require_non_negative("loss_tangent", loss_tangent);
@@ -364,7 +386,8 @@ std::complex<double> TurnNetwork::impedance(double frequency, double series_resi
     const int m = grounded ? n_ : n_ + 1;
     const Eigen::Map<const Matrix> c(c_.data(), m, m);
     ComplexMatrix zb = C(0, w) * l.cast<C>();
-    zb.diagonal().array() += series_resistance / n_;
+    require_finite("series_inductance", series_inductance);
+    zb.diagonal().array() += C(series_resistance / n_, w * series_inductance / n_);
     Matrix b = incidence(n_);
     if (grounded) b = b.rightCols(n_).eval();
     const ComplexMatrix bc = b.cast<C>();

@@ -63,7 +63,7 @@ void shield_text(std::ostringstream& o, const Analysis& a) {
     }
     o << "  " << pad("L, high-frequency limit", 26) << pad(format_quantity(r.unshielded_inductance, Dimension::inductance), 14)
       << pad(format_quantity(r.perfect_conductor, Dimension::inductance), 14) << shift(r.perfect_conductor, r.unshielded_inductance) << "\n";
-    o << "  " << pad("SRF (lumped estimate)", 26) << pad(hz(a.self_resonance.frequency), 14) << pad(hz(a.shield->self_resonance), 14)
+    o << "  " << pad(a.shield->by_network ? "SRF (turn network)" : "SRF (lumped estimate)", 26) << pad(hz(a.self_resonance.frequency), 14) << pad(hz(a.shield->self_resonance), 14)
       << shift(a.shield->self_resonance, a.self_resonance.frequency) << "\n";
     row(o, "capacitance to shield", farad(r.capacitance_to_shield),
         farad(a.shield->terminal_capacitance) + " between the terminals (" + mounting_name(a.spec.surroundings.mounting) + ")");
@@ -361,7 +361,8 @@ std::string json_report(const Analysis& a) {
                        {"thickness_m", s.thickness}, {"end_discs", s.end_discs}, {"axial_offset_m", s.axial_offset},
                        {"inductance_high_frequency_H", r.perfect_conductor}, {"closed_form_H", r.closed_form}, {"long_coil_form_H", r.long_coil_limit},
                        {"capacitance_to_shield_F", r.capacitance_to_shield}, {"terminal_capacitance_F", a.shield->terminal_capacitance},
-                       {"self_resonance_Hz", a.shield->self_resonance}, {"at_frequency", pts}, {"rings", r.rings}};
+                       {"self_resonance_Hz", a.shield->self_resonance},
+                       {"self_resonance_model", a.shield->by_network ? "turn network" : "lumped estimate"}, {"at_frequency", pts}, {"rings", r.rings}};
     }
     nlohmann::ordered_json zs = nlohmann::ordered_json::array();
     for (const auto& p : a.impedance) {

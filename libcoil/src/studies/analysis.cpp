@@ -136,6 +136,18 @@ void add_shield(Analysis& a) {
     sh.result = shielded_coil(spec.solenoid, l0, *spec.shield, f);
     sh.terminal_capacitance = shield_terminal_capacitance(sh.result.capacitance_to_shield, spec.surroundings.mounting == Mounting::grounded_end);
     sh.self_resonance = shielded_self_resonance(a.self_resonance.frequency, l0, sh.result.perfect_conductor, sh.terminal_capacitance);
+    if (a.self_resonance.method == "network") {
+        // The network holds the shield itself: its wall a grounded conductor, its currents' change to L.
+        try {
+            const FormerDielectric former = spec.former ? spec.former->dielectric(spec.solenoid.form_diameter()) : FormerDielectric{};
+            if (const auto n = network_resonance(spec.solenoid, former, spec.surroundings, &*spec.shield)) {
+                sh.self_resonance = n->frequency;
+                sh.by_network = true;
+            }
+        } catch (const DomainError& e) {
+            a.warnings.push_back(std::string("the turn network gave no resonance in the shield (") + e.what() + "); the lumped estimate stands");
+        }
+    }
     a.self_resonance_as_mounted = sh.self_resonance;
     a.shield = sh;
     const FrequencySpan span = default_span(a);
@@ -146,9 +158,13 @@ void add_shield(Analysis& a) {
         a.warnings.push_back("the shield reaches only " + format_quantity(std::max(0.0, reach), Dimension::length) +
                              " past the winding's end: the closed form (a long tube) does not hold there; the ring model's figures do");
     }
-    a.notes.push_back("in the shield: its L(f) and wall loss come from the ring model, and the SRF is a lumped estimate from the "
-                      "high-frequency L and the self-capacitance plus the capacitance to the shield; the impedance and the "
-                      "band check are of the shielded coil");
+    a.notes.push_back(std::string("in the shield: its L(f) and wall loss come from the ring model, and the SRF ") +
+                      (a.shield->by_network ? "from the turn network in the shield (its wall a grounded conductor, its currents' "
+                                              "change to the partial inductances)"
+                                            : "is a lumped estimate from the high-frequency L and the self-capacitance plus "
+                                              "the capacitance to the shield") +
+                      "; the impedance and the band check are of the shielded coil" +
+                      (spec.surroundings.mounting == Mounting::grounded_end ? "; the grounded end is taken as joined to the shield" : ""));
 }
 
 void add_impedance_and_band(Analysis& a) {
@@ -156,6 +172,14 @@ void add_impedance_and_band(Analysis& a) {
     const CoilImpedance zc = coil_impedance(a);
     a.self_resonance_low_as_mounted = zc.resonance_low();
     a.self_resonance_high_as_mounted = a.self_resonance_as_mounted * a.self_resonance.frequency_high / a.self_resonance.frequency;
+    if (a.shield) {
+        const double shift = std::fabs(1 - a.shield->self_resonance / a.self_resonance.frequency);
+        if (a.shield->by_network) a.self_resonance_high_as_mounted *= 1 + 0.5 * shift;
+        a.self_resonance.band_reasons.push_back(
+            std::string("in the shield, ") + (a.shield->by_network ? "the turn network's" : "the lumped estimate's") + " shift (" +
+            detail::significant(100 * (a.shield->self_resonance / a.self_resonance.frequency - 1), 2) +
+            " %), not yet checked against an outside reference: half of it " + (a.shield->by_network ? "either side" : "more below"));
+    }
     for (const auto& p : a.at_frequency) {
         // With this analysis's R and L, which may come from the cross-section solver.
         a.impedance.push_back(zc.with_wire(p.frequency, p.resistance, p.inductance));
@@ -184,7 +208,8 @@ void add_impedance_and_band(Analysis& a) {
 }
 
 ShieldLoad shield_load(const Analysis& a, ShieldTable table) {
-    return ShieldLoad{std::move(table), a.shield->terminal_capacitance, a.shield->self_resonance, a.shield->result.perfect_conductor};
+    return ShieldLoad{std::move(table), a.shield->terminal_capacitance, a.shield->self_resonance, a.shield->result.perfect_conductor,
+                      a.shield->by_network};
 }
 
 }  // namespace

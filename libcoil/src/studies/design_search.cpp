@@ -413,8 +413,8 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
 }
 
 // The search screens with the sheath helix (fast, and an upper bound: the turn network read 0.68 .. 0.86 of
-// it on the NEC2 set); a design it keeps is confirmed here with the turn network's SRF, the recommended one,
-// and the band screened again on the coil as mounted.
+// it on the NEC2 set); a design it keeps is confirmed here with the turn network's SRF, the recommended one
+// (in its shield where it has one), and the band screened again on the coil as mounted.
 std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
     const FormerDielectric fd = q_.former ? q_.former->dielectric(d.form_diameter) : FormerDielectric{};
@@ -436,8 +436,15 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     d.self_resonance = sr.frequency;
     if (q_.shield) {
         const double c_t = shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end);
-        d.self_resonance = shielded_self_resonance(sr.frequency, bare_l, d.inductance, c_t);
-        shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance};
+        bool by_network = false;
+        if (sr.method == "network") {
+            if (const auto n = network_resonance(s, fd, q_.surroundings, &*q_.shield)) {
+                d.self_resonance = n->frequency;
+                by_network = true;
+            }
+        }
+        if (!by_network) d.self_resonance = shielded_self_resonance(sr.frequency, bare_l, d.inductance, c_t);
+        shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance, by_network};
     }
     if (!q_.band) return std::nullopt;
     d.srf_margin = d.self_resonance / q_.band->ceiling;

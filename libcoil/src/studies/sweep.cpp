@@ -35,10 +35,10 @@ std::vector<double> frequency_grid(double from, double to, int points, Spacing s
 namespace {
 
 // Z(f) by the turn network (turn_network.hpp): every resonance of the coupled turns, with the winding's
-// closed-form R(f) spread over the turns. The former is in the network (its polarisation charge); its loss
-// tangent acts on the share of the capacitance it brings, 1 - (f_former / f_air)^2 by the network's SRFs.
+// closed-form R(f) spread over the turns (and in a shield, the ring model's wall loss with it). The former is
+// in the network (its polarisation charge); its loss tangent acts on the share of the capacitance it
+// brings, 1 - (f_former / f_air)^2 by the network's SRFs. A shield is in the network too (turn_network.hpp).
 void network_sweep(const Analysis& a, const std::vector<double>& f, Sweep& s) {
-    if (a.shield) throw InputError("model", "network: a shield is not yet part of the turn network; the helical-line model holds it");
     const SelfResonance& sr = a.self_resonance;
     if (!sr.network.available) throw InputError("model", "network: the turn network is not built for this coil (over 600 turns)");
     const Solenoid& coil = a.spec.solenoid;
@@ -52,20 +52,28 @@ void network_sweep(const Analysis& a, const std::vector<double>& f, Sweep& s) {
         const double ratio = std::min(1.0, sr.network.frequency / in_air);
         tan_d = a.spec.former->material.loss_tangent * (1 - ratio * ratio);
     }
+    if (a.spec.shield) o.shield = *a.spec.shield;
     const TurnNetwork net(coil, o);
     const auto wire = coil_at_frequencies(coil, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, f);
     for (std::size_t i = 0; i < f.size(); ++i) {
         ImpedancePoint p;
         p.frequency = f[i];
-        p.wire_resistance = wire[i].resistance;
-        p.wire_inductance = wire[i].inductance;
-        p.impedance = f[i] > 0 ? net.impedance(f[i], wire[i].resistance, tan_d) : std::complex<double>(wire[i].resistance, 0);
+        // In a shield the network holds the perfect conductor's change to L; below the frequencies where the
+        // wall is that, the ring model's own change differs, and its wall loss adds to the wire's.
+        double r = wire[i].resistance, extra_l = 0;
+        if (a.shield && f[i] > 0) {
+            r += a.shield->table.added_resistance(f[i]);
+            extra_l = a.shield->table.inductance_change(f[i]) - (a.shield->result.perfect_conductor - a.inductance.recommended);
+        }
+        p.wire_resistance = r;
+        p.wire_inductance = wire[i].inductance + (a.shield && f[i] > 0 ? a.shield->table.inductance_change(f[i]) : 0.0);
+        p.impedance = f[i] > 0 ? net.impedance(f[i], r, tan_d, extra_l) : std::complex<double>(wire[i].resistance, 0);
         p.apparent_inductance = f[i] > 0 ? p.impedance.imag() / (2 * 3.141592653589793 * f[i]) : wire[i].inductance;
         p.q_factor = p.impedance.imag() / p.impedance.real();
         s.points.push_back(p);
     }
-    s.nominal_inductance = a.inductance.recommended;
-    s.self_resonance = sr.network.frequency;
+    s.nominal_inductance = a.shield ? a.shield->result.perfect_conductor : a.inductance.recommended;
+    s.self_resonance = a.shield ? a.shield->self_resonance : sr.network.frequency;
 }
 
 }  // namespace
@@ -75,9 +83,10 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
     const FrequencySpan span = default_span(a);
     Sweep s;
     s.title = a.spec.name;
-    // By default the model of the recommended SRF: the network where it gives it (and holds the whole
-    // arrangement: no shield) for coils it sweeps in seconds, else the helical line.
-    const bool network_default = sr.method == "network" && !a.shield && a.spec.solenoid.turns() <= max_default_network_turns;
+    // By default the model of the recommended SRF: the network where it gives it (in the shield too) for
+    // coils it sweeps in seconds, else the helical line.
+    const bool network_default = sr.method == "network" && (!a.shield || a.shield->by_network) &&
+                                 a.spec.solenoid.turns() <= max_default_network_turns;
     const ImpedanceModel model = q.model.value_or(network_default ? ImpedanceModel::network : ImpedanceModel::helical_line);
     s.model = model;
     s.capacitance = q.capacitance;

@@ -57,6 +57,7 @@ struct ShieldLoad {
     double terminal_capacitance = 0;  // F, the capacitance to the shield between the terminals
     double self_resonance = 0;        // Hz, the shielded SRF
     double inductance = 0;            // H, the shielded L at high frequency: the coil's nominal L in its shield
+    bool by_network = false;          // the SRF from the turn network in its shield (else the lumped estimate)
 };
 
 class CoilImpedance {
@@ -83,7 +84,8 @@ public:
     // The first self-resonance of the coil as mounted (in its shield, if any), Hz.
     double resonance() const { return shield_ ? shield_->self_resonance : sr_.frequency; }
     // The lower edge of its band (self_resonance.hpp's srf_band): in a shield, scaled with the shielded SRF
-    // and lowered by half the shield's shift more (the lumped estimate, not yet checked against a reference).
+    // and lowered by half the shield's shift more (the turn network's shift either way, the lumped
+    // estimate's downward; neither yet checked against an outside reference of a coil in a shield).
     double resonance_low() const;
     const std::optional<ShieldLoad>& shield() const { return shield_; }
     double mean_square_field() const { return field_; }  // (A/m / A)^2, proximity.hpp

@@ -81,14 +81,15 @@ HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDi
 // The turn network's first resonance (turn_network.hpp) for the coil in its surroundings: free space or
 // one end grounded, a uniform medium, the former's polarisation charge (a tube, or a rod where its wall
 // reaches the axis; ribs as a tube of their averaged permittivity, an equivalent), the turns' capacitance
-// near-field corrected. Nothing over max_network_turns turns.
+// near-field corrected; in a shield where one is given (one end grounded is then one end to the shield).
+// Nothing over max_network_turns turns.
 inline constexpr int max_network_turns = 600;  // the network's O(N^3) solve: 0.6 s at 600 turns
 struct NetworkResonance {
     double frequency = 0;    // Hz
     double former_ratio = 1; // ribs only: the SRF on the ribs over the SRF without them (the equivalent's shift)
 };
 std::optional<NetworkResonance> network_resonance(const Solenoid& coil, const FormerDielectric& former,
-                                                  const Surroundings& surroundings);
+                                                  const Surroundings& surroundings, const ShieldSpec* shield = nullptr);
 
 // The interval around a recommended SRF `f` by `method` ("network", "helical_line", "medhurst") where the
 // first resonance is expected:

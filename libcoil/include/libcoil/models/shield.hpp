@@ -62,6 +62,12 @@ double sheet_in_long_shield_change(double mean_radius, double length, double tur
 // design search calls it per candidate.
 double shield_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
 
+// The same change turn by turn, for the turn network: entry (i, j) of the N x N row-major matrix is the
+// shield's change to the partial mutual inductance of the turns i and j (turn_filaments' rings, each of its
+// weight), -M_ts M_ss^-1 M_st (the perfect conductor's surface currents cancel the flux through every wall
+// ring), H. Its entries sum to shield_inductance_change.
+std::vector<double> shield_turn_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
+
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);

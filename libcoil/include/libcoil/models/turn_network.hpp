@@ -33,9 +33,12 @@
 //          Trans. MTT 22 (1974) 216 (PEEC); the ring's potential as in Smythe, "Static and Dynamic
 //          Electricity" (quoted from memory); the axial sheet, the charge harmonics and the eigenproblem's
 //          reformulation are ours.
+//          A shield: its wall and end discs a grounded conductor of the charge solver, and its perfect-
+//          conductor currents' change to the partial inductances (shield_turn_inductance_change); one end
+//          grounded is then one end to the shield.
 // Domain:  quasi-static (no retardation: against NEC2 it costs nothing on the set below, and adding its
-//          real part moved the SRF the wrong way by up to 1 %); round wire, p >= insulated d; free space or
-//          one ground plane; a uniform medium and a coaxial former. No shield and no leads yet.
+//          real part moved the SRF the wrong way by up to 1 %); round wire, p >= insulated d; free space,
+//          one ground plane or a coaxial shield; a uniform medium and a coaxial former. No leads yet.
 // Accuracy: against NEC2 (nec2c, Richardson-extrapolated from 16 and 32 segments a turn) on its coils of
 //          p/d >= 3, l/D 0.4 .. 15: floating -1.28 .. +1.34 %, one end grounded -1.76 .. -0.45 %
 //          (tests/python/test_turn_network.py, enforced 2 %); at p/d 2, -2.07 .. -1.73 % where NEC2's thin wire
@@ -50,6 +53,7 @@
 #pragma once
 
 #include <complex>
+#include <optional>
 #include <vector>
 
 #include "libcoil/models/solenoid.hpp"
@@ -78,6 +82,10 @@ struct TurnNetworkOptions {
     double enamel_permittivity = 3.5; // wire_surface only (polyurethane or polyester-imide enamel, from memory)
     double terminal_capacitance = 0;  // F, a capacitor between the terminals (from the far end to ground
                                       // where one end is grounded)
+    // A coaxial shield: its wall (and end discs) a grounded conductor for the capacitances, and the
+    // perfect conductor's change to the partial inductances (shield.hpp). With a shield, one end grounded
+    // means one end to the shield: the shield is the ground, no plane.
+    std::optional<ShieldSpec> shield;
 };
 
 class TurnNetwork {
@@ -91,7 +99,9 @@ public:
     double first_resonance() const;
     // Z between the terminals at f (Hz, > 0): `series_resistance` is the winding's R(f), spread over the
     // turns in proportion to their length; `loss_tangent` the dielectric's.
-    std::complex<double> impedance(double frequency, double series_resistance = 0, double loss_tangent = 0) const;
+    // `series_inductance` (H, may be negative) adds to the turns' self terms in the same proportion.
+    std::complex<double> impedance(double frequency, double series_resistance = 0, double loss_tangent = 0,
+                                   double series_inductance = 0) const;
 
     // The sum of the partial inductances: the network's low-frequency L (external: high-frequency self
     // terms, and with the ground plane's images).

@@ -58,7 +58,9 @@ struct Analysis {
     struct Shielded {
         ShieldResult result;              // L(f) and the added R at the operating frequencies, the limits
         double terminal_capacitance = 0;  // F, the capacitance to the shield as seen between the terminals
-        double self_resonance = 0;        // Hz, lumped estimate: L at the high-frequency limit, C + the above
+        double self_resonance = 0;        // Hz: the turn network in the shield where the network gives the SRF,
+                                          // else the lumped estimate (L at the high-frequency limit, C + the above)
+        bool by_network = false;
         ShieldTable table{};                // the shield over the analysis's frequency span, for the impedance
     };
     std::optional<Shielded> shield{};

@@ -16,8 +16,8 @@ struct SweepRequest {
     std::optional<double> from, to;  // Hz; by default the analysis's span (default_span)
     int points = 401;
     Spacing spacing = Spacing::logarithmic;
-    // None: the recommended SRF's model, the turn network where it gives it, the coil has no shield and at
-    // most max_default_network_turns turns; else the helical line.
+    // None: the recommended SRF's model, the turn network where it gives it (in the shield too) and the coil
+    // has at most max_default_network_turns turns; else the helical line.
     std::optional<ImpedanceModel> model;
     CapacitanceSource capacitance = CapacitanceSource::helical_line;  // the lumped model's C
 };
