@@ -251,3 +251,25 @@ TEST(TurnNetwork, InAShieldTheWallIsAGroundedConductorAndItsCurrentsLowerL) {
     wire_surface.capacitance = TurnCapacitance::wire_surface;
     EXPECT_THROW(TurnNetwork(s, wire_surface), InputError);  // the wire-surface reference takes no shield
 }
+
+TEST(TurnNetwork, BuildSpreadAddsEachTolerancesShiftInQuadrature) {
+    // srf_build_spread: each tolerance moved by one standard deviation, the network solved again, the
+    // relative shifts added in quadrature. Here by hand from the same network, and zero without tolerances.
+    const Solenoid s = coil(20e-3, 10, 2.5e-3, 1e-3);
+    const double f0 = TurnNetwork(s).first_resonance();
+    BuildTolerances t{0, 0.05e-3, 0, 0};  // the pitch alone
+    const Solenoid moved(Solenoid::Params{s.mean_diameter(), 10, 2.55e-3, s.wire(), 0});
+    const double shift = TurnNetwork(moved).first_resonance() / f0 - 1;
+    EXPECT_GT(shift, 0);  // spacing the turns raises the SRF
+    EXPECT_NEAR(srf_build_spread(s, {}, {}, t), shift, 1e-12);
+    BuildTolerances none{0, 0, 0, 0};
+    EXPECT_EQ(srf_build_spread(s, {}, {}, none), 0.0);
+    BuildTolerances typical;
+    std::string largest;
+    const double spread = srf_build_spread(s, {}, {}, typical, nullptr, &largest);
+    EXPECT_GT(spread, std::fabs(shift) * 0.02 / 0.05 * 0.99);  // at least the typical pitch's share
+    EXPECT_LT(spread, 0.05);
+    EXPECT_FALSE(largest.empty());
+    typical.pitch = -1;
+    EXPECT_THROW(srf_build_spread(s, {}, {}, typical), InputError);
+}

@@ -169,3 +169,23 @@ def test_the_srf_band_holds_the_nec2_value(c, mounting):
     nec = c[mounting]["f"]
     assert r["frequency_low"] <= nec <= r["frequency_high"], (c["name"], mounting, r["frequency_low"], nec, r["frequency_high"])
     assert r["frequency_high"] / r["frequency_low"] < 1.08
+
+
+def test_the_specs_tolerances_widen_the_band(run_coil, tmp_path):
+    # tolerances: in a coil spec (one standard deviation each) widen the SRF's band by two standard deviations
+    # of the SRF either side (srf_build_spread); the report says so; a bad key is refused by name.
+    base = "coil: {form_diameter: 20 mm, turns: 10, pitch: 2.5 mm, wire: {diameter: 1 mm}}\n"
+    tight = libcoil.analyze(libcoil.parse_coil_spec(base + "tolerances: {form_diameter: 0 mm, pitch: 0 mm, wire_diameter: 0 %, turns: 0}\n"))
+    loose = libcoil.analyze(libcoil.parse_coil_spec(base + "tolerances: {pitch: 0.1 mm, turns: 0.3}\n"))
+    typical = libcoil.analyze(libcoil.parse_coil_spec(base))
+    for a in (tight, loose, typical):
+        assert a.self_resonance.frequency == pytest.approx(tight.self_resonance.frequency, rel=1e-12)
+    width = lambda a: a.self_resonance.frequency_high / a.self_resonance.frequency_low
+    assert width(tight) < width(typical) < width(loose)
+    assert not any("tolerances" in r for r in tight.self_resonance.band_reasons)
+    assert any(r.startswith("the build's tolerances (the spec's") for r in loose.self_resonance.band_reasons)
+    assert any(r.startswith("the build's tolerances (typical") for r in typical.self_resonance.band_reasons)
+    bad = tmp_path / "bad.yaml"
+    bad.write_text(base + "tolerances: {pitch: 0.1 mm, spin: 2}\n")
+    r = run_coil("analyze", bad)
+    assert r.returncode == 2 and r.stderr.startswith("coil: tolerances.spin: unknown key") and r.stdout == ""

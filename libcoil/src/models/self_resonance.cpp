@@ -206,6 +206,50 @@ std::optional<NetworkResonance> network_resonance(const Solenoid& s, const Forme
     return r;
 }
 
+double srf_build_spread(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings,
+                        const BuildTolerances& t, const ShieldSpec* shield, std::string* largest) {
+    require_non_negative("tolerances.form_diameter", t.form_diameter);
+    require_non_negative("tolerances.pitch", t.pitch);
+    require_non_negative("tolerances.wire_diameter", t.wire_diameter);
+    require_non_negative("tolerances.turns", t.turns);
+    const auto srf = [&](const Solenoid& c) {
+        if (const auto n = network_resonance(c, former, surroundings, shield)) return n->frequency;
+        return helical_line_resonance(c, former, surroundings, search_tolerance).frequency;
+    };
+    const double f0 = srf(s);
+    const Wire w0 = s.wire();
+    struct Step {
+        const char* name;
+        double form, pitch, wire, turns;  // the moves
+    };
+    const Step steps[] = {{"form diameter", t.form_diameter, 0, 0, 0},
+                          {"pitch", 0, t.pitch, 0, 0},
+                          {"wire diameter", 0, 0, t.wire_diameter * w0.bare_diameter, 0},
+                          {"turns", 0, 0, 0, t.turns}};
+    double sum = 0, worst = 0;
+    for (const Step& st : steps) {
+        if (st.form == 0 && st.pitch == 0 && st.wire == 0 && st.turns == 0) continue;
+        double shift = 0;
+        for (const double sign : {1.0, -1.0}) {  // up, or down where up is no coil (turns that would touch)
+            try {
+                Wire w = w0;
+                w.bare_diameter += sign * st.wire;
+                const Solenoid c(Solenoid::Params{s.form_diameter() + sign * st.form + w.insulated_diameter(), s.turns() + sign * st.turns,
+                                                  s.pitch() + sign * st.pitch, w, s.lead_length()});
+                shift = srf(c) / f0 - 1;
+                break;
+            } catch (const InputError&) {
+            }
+        }
+        sum += shift * shift;
+        if (std::fabs(shift) > worst) {
+            worst = std::fabs(shift);
+            if (largest) *largest = st.name;
+        }
+    }
+    return finite_result("SRF build spread", std::sqrt(sum));
+}
+
 SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerDielectric& former,
                              const Surroundings& surroundings, bool cross_checks) {
     require_positive("inductance", inductance);

@@ -154,18 +154,7 @@ Requirement read_requirement(const YAML::Node& root) {
     if (top.has("shield")) q.shield = detail::read_shield(top.map("shield"));
     q.conductor = conductor(top.optional_text("conductor").value_or("copper"), "conductor");
     if (top.has("tolerances")) {
-        const detail::YamlMap tol = top.map("tolerances");
-        tol.allow_only({"form_diameter", "pitch", "wire_diameter", "turns"});
-        if (tol.has("form_diameter")) q.tolerances.form_diameter = tol.non_negative_quantity("form_diameter", Dimension::length);
-        if (tol.has("pitch")) q.tolerances.pitch = tol.non_negative_quantity("pitch", Dimension::length);
-        if (tol.has("wire_diameter")) {
-            if (tol.text("wire_diameter").find('%') == std::string::npos) {
-                throw InputError(tol.path_of("wire_diameter"), "\"" + tol.text("wire_diameter") +
-                                                                   "\"; expected a percentage such as \"0.5 %\"");
-            }
-            q.tolerances.wire_diameter = tol.non_negative_quantity("wire_diameter", Dimension::dimensionless);
-        }
-        if (tol.has("turns")) q.tolerances.turns = tol.non_negative_quantity("turns", Dimension::dimensionless);
+        q.tolerances = detail::read_tolerances(top.map("tolerances"));
         q.tolerances_given = true;
     }
     return q;

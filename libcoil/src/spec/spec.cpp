@@ -81,7 +81,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
     }
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield", "limits"});
+    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield", "limits", "tolerances"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
     std::string description = top.optional_text("description").value_or("");
@@ -120,6 +120,10 @@ CoilSpec read_spec(const YAML::Node& root) {
         if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
         if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));
+        if (top.has("tolerances")) {
+            spec.tolerances = detail::read_tolerances(top.map("tolerances"));
+            spec.tolerances_given = true;
+        }
         if (top.has("limits")) {
             const detail::YamlMap lim = top.map("limits");
             lim.allow_only({"enamel_class"});
@@ -138,7 +142,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         return spec;
     } catch (const InputError& e) {
         if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 || e.field().rfind("shield", 0) == 0 ||
-            e.field().rfind("surroundings", 0) == 0 || e.field().rfind("limits", 0) == 0) {
+            e.field().rfind("surroundings", 0) == 0 || e.field().rfind("limits", 0) == 0 || e.field().rfind("tolerances", 0) == 0) {
             throw;
         }
         throw relabel(e, diameter_key, pitch_key);
@@ -148,6 +152,21 @@ CoilSpec read_spec(const YAML::Node& root) {
 }  // namespace
 
 namespace detail {
+
+BuildTolerances read_tolerances(const YamlMap& tol) {
+    BuildTolerances t;
+    tol.allow_only({"form_diameter", "pitch", "wire_diameter", "turns"});
+    if (tol.has("form_diameter")) t.form_diameter = tol.non_negative_quantity("form_diameter", Dimension::length);
+    if (tol.has("pitch")) t.pitch = tol.non_negative_quantity("pitch", Dimension::length);
+    if (tol.has("wire_diameter")) {
+        if (tol.text("wire_diameter").find('%') == std::string::npos) {
+            throw InputError(tol.path_of("wire_diameter"), "\"" + tol.text("wire_diameter") + "\"; expected a percentage such as \"0.5 %\"");
+        }
+        t.wire_diameter = tol.non_negative_quantity("wire_diameter", Dimension::dimensionless);
+    }
+    if (tol.has("turns")) t.turns = tol.non_negative_quantity("turns", Dimension::dimensionless);
+    return t;
+}
 
 ShieldSpec read_shield(const YamlMap& sh) {
     sh.allow_only({"inner_diameter", "length", "thickness", "material", "end_discs", "axial_offset"});

@@ -18,6 +18,8 @@ FormerSpec read_former(const YamlMap& m, double form_diameter, std::vector<std::
 Surroundings read_surroundings(const YamlMap& m);
 ShieldSpec read_shield(const YamlMap& m);
 BandSpec read_band(const YamlMap& m);
+// tolerances: one standard deviation each (form_diameter, pitch, wire_diameter as a percentage, turns).
+BuildTolerances read_tolerances(const YamlMap& m);
 // limits.enamel_class: an IEC 60317 thermal class in degC, returned in K.
 double read_enamel_class(const YamlMap& m);
 

@@ -93,6 +93,11 @@ std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {
     if (s.enamel_class != default_enamel_class) {
         o << "limits:\n  enamel_class: " << detail::significant(s.enamel_class - zero_celsius, 10) << "\n";
     }
+    if (s.tolerances_given) {
+        const BuildTolerances& t = s.tolerances;
+        o << "tolerances:\n  form_diameter: " << q(t.form_diameter, "mm", 1e3) << "\n  pitch: " << q(t.pitch, "mm", 1e3)
+          << "\n  wire_diameter: " << detail::significant(t.wire_diameter * 100, 10) << " %\n  turns: " << detail::significant(t.turns, 10) << "\n";
+    }
     if (s.band) {
         const BandSpec& b = *s.band;
         o << "band:\n  low: " << hz(b.low) << "\n  ceiling: " << hz(b.ceiling) << "\n";

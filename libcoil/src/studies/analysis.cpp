@@ -116,6 +116,20 @@ void add_self_resonance(Analysis& a) {
     const Solenoid& s = spec.solenoid;
     const FormerDielectric former = spec.former ? spec.former->dielectric(s.form_diameter()) : FormerDielectric{};
     a.self_resonance = self_resonance(s, a.inductance.recommended, former, spec.surroundings);
+    // The build's spread joins the band: two standard deviations either side (first order, the same model).
+    std::string largest;
+    const double spread = srf_build_spread(s, former, spec.surroundings, spec.tolerances, nullptr, &largest);
+    if (spread > 0) {
+        SelfResonance& sr = a.self_resonance;
+        sr.frequency_low *= 1 - 2 * spread;
+        sr.frequency_high *= 1 + 2 * spread;
+        const BuildTolerances& t = spec.tolerances;
+        sr.band_reasons.push_back("the build's tolerances (" + std::string(spec.tolerances_given ? "the spec's" : "typical") + ": form " +
+                                  format_quantity(t.form_diameter, Dimension::length) + ", pitch " +
+                                  format_quantity(t.pitch, Dimension::length) + ", wire " + detail::significant(100 * t.wire_diameter, 2) +
+                                  " %, " + detail::significant(t.turns, 2) + " turn, one standard deviation each): ±2σ = ±" +
+                                  detail::significant(200 * spread, 2) + " %, most from the " + largest);
+    }
     for (const auto& w : a.self_resonance.warnings) a.warnings.push_back(w);
     for (const auto& n : a.self_resonance.notes) a.notes.push_back(n);
     a.self_resonance_as_mounted = a.self_resonance.frequency;

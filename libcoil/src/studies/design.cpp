@@ -177,6 +177,8 @@ CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
     s.band = q.band;
     s.shield = q.shield;
     s.enamel_class = q.enamel_class;
+    s.tolerances = q.tolerances;
+    s.tolerances_given = q.tolerances_given;
     Operating op;
     if (q.band) op.frequencies = {q.band->low, q.band->ceiling};
     if (q.current_frequency && *q.current_frequency > 0) op.frequencies.push_back(*q.current_frequency);

@@ -108,6 +108,13 @@ struct SrfBand {
 SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, const FormerDielectric& former,
                  double former_ratio);
 
+// The SRF's spread from the build (one standard deviation, relative): first order, each tolerance in turn
+// moved by one standard deviation (form diameter, pitch, bare wire diameter at a fixed form, turns) and the
+// turn network (the sheath helix over 600 turns) solved again, the shifts added in quadrature. A shield
+// where given. `names` receives the largest contributor.
+double srf_build_spread(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings,
+                        const BuildTolerances& tolerances, const ShieldSpec* shield = nullptr, std::string* largest = nullptr);
+
 // `inductance` is the low-frequency inductance (inductance().recommended).
 // What the fast paths for searches solve to (relative): a search's figures are shown to four digits and
 // its decisions do not move at this level; its winners are re-analysed in full, to 1e-12.

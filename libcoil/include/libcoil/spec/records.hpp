@@ -125,6 +125,9 @@ struct CoilSpec {
     std::vector<std::string> notes{};  // assumptions the reader made (e.g. bare wire)
     std::optional<ShieldSpec> shield{};
     double enamel_class = default_enamel_class;  // K, limits.enamel_class: the winding's thermal limit
+    // The build's tolerances (one standard deviation each): the typical ones unless `tolerances:` gives them.
+    BuildTolerances tolerances{};
+    bool tolerances_given = false;
 };
 
 }  // namespace libcoil

@@ -20,6 +20,11 @@
 //     rf_power: 50 W             # optional, for the safety cautions
 //   limits:                      # optional
 //     enamel_class: 155          # IEC 60317 thermal class in degC (155 if not given)
+//   tolerances:                  # optional: the build's, one standard deviation each (these if not given);
+//     form_diameter: 0.1 mm      # they widen the SRF's band by two standard deviations either side
+//     pitch: 0.02 mm
+//     wire_diameter: 0.5 %
+//     turns: 0.1
 //   former:                      # optional: what the wire is wound on (none: self-supporting in air)
 //     material: PETG             # data/former_materials.yaml
 //     kind: grooved-tube         # or ribbed
