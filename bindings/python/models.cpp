@@ -284,6 +284,14 @@ void bind_models(py::module_& m) {
                  return z;
              }, "frequency"_a, "series_resistance"_a = 0.0, "loss_tangent"_a = 0.0,
              "Z between the terminals (ohm) over an array of frequencies.")
+        .def("turn_currents", [](const libcoil::TurnNetwork& n, double f, double r, double tan_d, double l) {
+                 const auto i = n.turn_currents(f, r, tan_d, l);
+                 py::array_t<std::complex<double>> out(static_cast<py::ssize_t>(i.size()));
+                 std::copy(i.begin(), i.end(), out.mutable_data());
+                 return out;
+             }, "frequency"_a, "series_resistance"_a = 0.0,
+             "loss_tangent"_a = 0.0, "series_inductance"_a = 0.0,
+             "The current in each turn (A, complex, first to last) with 1 A driven into the terminals at `frequency`.")
         .def_property_readonly("inductance", &libcoil::TurnNetwork::inductance)
         .def_property_readonly("elements", &libcoil::TurnNetwork::elements)
         .def_property_readonly("panels", &libcoil::TurnNetwork::panels)

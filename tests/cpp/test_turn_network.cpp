@@ -273,3 +273,28 @@ TEST(TurnNetwork, BuildSpreadAddsEachTolerancesShiftInQuadrature) {
     typical.pitch = -1;
     EXPECT_THROW(srf_build_spread(s, {}, {}, typical), InputError);
 }
+
+TEST(TurnNetwork, CurrentAlongTheWindingFollowsTheMode) {
+    // 1 A into the terminals. Far below resonance every turn carries it; near the first resonance the
+    // standing wave shows: floating (half wave between free ends) the middle turns carry the most and the
+    // current is symmetric about the middle; one end grounded (quarter wave) the grounded end carries the most.
+    const Solenoid s = coil(20e-3, 16, 3e-3, 1e-3);
+    for (const Mounting m : {Mounting::floating, Mounting::grounded_end}) {
+        TurnNetworkOptions o;
+        o.mounting = m;
+        const TurnNetwork net(s, o);
+        const double f0 = net.first_resonance();
+        for (const auto& i : net.turn_currents(1e-3 * f0)) EXPECT_NEAR(std::abs(i - 1.0), 0.0, 1e-5);
+        const auto near = net.turn_currents(0.9 * f0);
+        const std::size_t n = near.size();
+        if (m == Mounting::floating) {
+            EXPECT_GT(std::abs(near[n / 2]), 1.5 * std::abs(near[0]));
+            for (std::size_t k = 0; k < n; ++k) EXPECT_NEAR(std::abs(near[k]), std::abs(near[n - 1 - k]), 1e-6 * std::abs(near[n / 2]));
+        } else {
+            EXPECT_GT(std::abs(near[0]), 1.5 * std::abs(near[n - 1]));
+        }
+        // The terminal current is 1 A: the last turn's current plus what its far node's capacitance takes.
+        EXPECT_LT(std::abs(near[n - 1]), 2.0);
+    }
+    EXPECT_THROW(TurnNetwork(s).turn_currents(0), InputError);
+}

@@ -376,9 +376,48 @@ double TurnNetwork::first_resonance() const {
 
 std::complex<double> TurnNetwork::impedance(double frequency, double series_resistance, double loss_tangent,
                                             double series_inductance) const {
+    const auto v = node_voltages(frequency, series_resistance, loss_tangent, series_inductance);
+    const bool grounded = mounting_ == Mounting::grounded_end;
+    const std::complex<double> z = grounded ? v.back() : v.back() - v.front();
+    if (!std::isfinite(z.real()) || !std::isfinite(z.imag())) throw DomainError("turn network: Z is not finite (an exact resonance)");
+    return z;
+}
+
+std::vector<std::complex<double>> TurnNetwork::turn_currents(double frequency, double series_resistance, double loss_tangent,
+                                                            double series_inductance) const {
+    using C = std::complex<double>;
+    const auto v = node_voltages(frequency, series_resistance, loss_tangent, series_inductance);
+    const bool grounded = mounting_ == Mounting::grounded_end;
+    Eigen::VectorXcd all(n_ + 1);  // every node, ground included
+    if (grounded) {
+        all(0) = 0;
+        for (int k = 0; k < n_; ++k) all(k + 1) = v[static_cast<std::size_t>(k)];
+    } else {
+        for (int k = 0; k <= n_; ++k) all(k) = v[static_cast<std::size_t>(k)];
+    }
+    const double w = 2 * pi * frequency;
+    const Eigen::Map<const Matrix> l(l_.data(), n_, n_);
+    ComplexMatrix zb = C(0, w) * l.cast<C>();
+    zb.diagonal().array() += C(series_resistance / n_, w * series_inductance / n_);
+    // Branch k runs from node k to node k + 1, so its voltage drop is V_k - V_(k+1); 1 A flows into the far
+    // terminal and out of the near one, so the turns' current runs from the last node to the first: report
+    // it in that sense (positive at low frequency).
+    const Eigen::VectorXcd drop = all.head(n_) - all.tail(n_);
+    const Eigen::VectorXcd i = zb.partialPivLu().solve(drop);
+    std::vector<C> out(static_cast<std::size_t>(n_));
+    for (int k = 0; k < n_; ++k) {
+        out[static_cast<std::size_t>(k)] = -i(k);
+        if (!std::isfinite(i(k).real()) || !std::isfinite(i(k).imag())) throw DomainError("turn network: the currents are not finite (an exact resonance)");
+    }
+    return out;
+}
+
+std::vector<std::complex<double>> TurnNetwork::node_voltages(double frequency, double series_resistance, double loss_tangent,
+                                                            double series_inductance) const {
     require_positive("frequency", frequency);
     require_non_negative("series_resistance", series_resistance);
     require_non_negative("loss_tangent", loss_tangent);
+    require_finite("series_inductance", series_inductance);
     using C = std::complex<double>;
     const double w = 2 * pi * frequency;
     const Eigen::Map<const Matrix> l(l_.data(), n_, n_);
@@ -386,7 +425,6 @@ std::complex<double> TurnNetwork::impedance(double frequency, double series_resi
     const int m = grounded ? n_ : n_ + 1;
     const Eigen::Map<const Matrix> c(c_.data(), m, m);
     ComplexMatrix zb = C(0, w) * l.cast<C>();
-    require_finite("series_inductance", series_inductance);
     zb.diagonal().array() += C(series_resistance / n_, w * series_inductance / n_);
     Matrix b = incidence(n_);
     if (grounded) b = b.rightCols(n_).eval();
@@ -397,9 +435,7 @@ std::complex<double> TurnNetwork::impedance(double frequency, double series_resi
     inject(m - 1) = 1;  // into the far terminal; out of the near one, or of ground
     if (!grounded) inject(0) = -1;
     const Eigen::VectorXcd v = y.partialPivLu().solve(inject);
-    const C z = grounded ? v(m - 1) : v(m - 1) - v(0);
-    if (!std::isfinite(z.real()) || !std::isfinite(z.imag())) throw DomainError("turn network: Z is not finite (an exact resonance)");
-    return z;
+    return std::vector<C>(v.data(), v.data() + v.size());
 }
 
 }  // namespace libcoil

@@ -103,6 +103,12 @@ public:
     std::complex<double> impedance(double frequency, double series_resistance = 0, double loss_tangent = 0,
                                    double series_inductance = 0) const;
 
+    // The current in each turn (first to last, A, complex) with 1 A driven into the terminals at f (Hz, > 0),
+    // the rest going through the capacitances: uniform far below resonance, bunched towards the middle
+    // (floating) or the grounded end near it. The same terms as impedance().
+    std::vector<std::complex<double>> turn_currents(double frequency, double series_resistance = 0, double loss_tangent = 0,
+                                                    double series_inductance = 0) const;
+
     // The sum of the partial inductances: the network's low-frequency L (external: high-frequency self
     // terms, and with the ground plane's images).
     double inductance() const;
@@ -113,6 +119,9 @@ public:
     int panels() const { return panels_; }  // the charge solver's panels (0: the bare thin-wire network)
 
 private:
+    // The free nodes' voltages with 1 A into the far terminal (out of the near one, or of ground).
+    std::vector<std::complex<double>> node_voltages(double frequency, double series_resistance, double loss_tangent,
+                                                    double series_inductance) const;
     int n_ = 0;                // turns (branches)
     std::vector<double> l_;    // partial inductances, H, N x N row-major
     std::vector<double> c_;    // node capacitances, F, row-major over the free nodes (N + 1, or N grounded)
