@@ -43,6 +43,7 @@ py::object record(const char* kind, py::dict fields) { return py::module_::impor
 
 py::dict self_resonance_dict(const SelfResonance& r) {
     return py::dict("frequency"_a = r.frequency, "frequency_low"_a = r.frequency_low, "frequency_high"_a = r.frequency_high,
+                    "network_modes"_a = r.network_modes,
                     "band_reasons"_a = r.band_reasons, "capacitance"_a = r.capacitance, "method"_a = r.method,
                     "network"_a = method_dict(r.network), "helical_line"_a = method_dict(r.helical_line), "kandoian_sichak"_a = method_dict(r.kandoian_sichak),
                     "medhurst"_a = method_dict(r.medhurst), "low_frequency_capacitance"_a = r.low_frequency_capacitance,

@@ -98,6 +98,7 @@ def test_network_sweep_shows_every_odd_resonance(tmp_path, run_coil):
     a = libcoil.analyze(spec)
     modes = libcoil.TurnNetwork(spec.solenoid).resonances(3)
     assert a.self_resonance.frequency == pytest.approx(modes[0], rel=1e-12)
+    assert np.allclose(a.self_resonance.network_modes, modes, rtol=1e-12)  # what the report and JSON list
     f = np.linspace(50e6, 1000e6, 19001)
     z = np.abs(libcoil.sweep(a, f, model="network").impedance)
     peaks = f[1:-1][(z[1:-1] > z[:-2]) & (z[1:-1] > z[2:])]

@@ -197,7 +197,9 @@ std::optional<NetworkResonance> network_resonance(const Solenoid& s, const Forme
     o.former = former;
     if (shield) o.shield = *shield;
     NetworkResonance r;
-    r.frequency = finite_result("turn network", TurnNetwork(s, o).first_resonance());
+    r.modes = TurnNetwork(s, o).resonances(3);
+    if (r.modes.empty()) throw DomainError("turn network: no resonance between the terminals (a single turn, or no finite mode)");
+    r.frequency = finite_result("turn network", r.modes.front());
     const bool ribs = former.wall > 0 && former.fill > 0 && former.fill < 1 && former.relative_permittivity > surroundings.relative_permittivity;
     if (ribs) {
         o.former = FormerDielectric{};
@@ -312,6 +314,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
             r.network.available = true;
             r.network.frequency = n->frequency;
             r.network.capacitance = equivalent_capacitance(n->frequency, inductance);
+            r.network_modes = n->modes;
             former_ratio = n->former_ratio;
             if (former_ratio < 1) {
                 r.notes.push_back("the turn network takes the former's ribs as a tube of their averaged permittivity (an "

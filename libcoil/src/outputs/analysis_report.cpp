@@ -96,6 +96,11 @@ void self_resonance_text(std::ostringstream& o, const Analysis& a) {
     o << "  SRF " << hz(a.self_resonance_as_mounted) << (a.shield ? " in the shield" : "") << ", expected between "
       << hz(a.self_resonance_low_as_mounted) << " and " << hz(a.self_resonance_high_as_mounted) << "\n";
     for (const auto& why : sr.band_reasons) o << "    - " << why << "\n";
+    if (sr.network_modes.size() > 1) {
+        o << "  the turns' next natural frequencies" << (a.shield ? " (without the shield)" : "") << ":";
+        for (std::size_t k = 1; k < sr.network_modes.size(); ++k) o << (k > 1 ? "," : "") << " " << hz(sr.network_modes[k]);
+        o << (sr.mounting == Mounting::floating ? " (between free ends only the odd ones show at the terminals)" : "") << "\n";
+    }
     o << "\n  Model comparison, each with its error measured against NEC2 (free-standing coils, " << mounting_name(sr.mounting) << ")\n";
     o << "  " << pad("model", 44) << pad("SRF", 13) << pad("self-C", 12) << "measured error\n";
     const auto line = [&](const std::string& name, const SelfResonanceMethod& m, const std::string& mark) {
@@ -416,6 +421,7 @@ std::string json_report(const Analysis& a) {
     j["self_resonance_as_mounted_Hz"] = a.self_resonance_as_mounted;
     j["self_resonance_band_as_mounted_Hz"] = {a.self_resonance_low_as_mounted, a.self_resonance_high_as_mounted};
     j["self_resonance_band_reasons"] = a.self_resonance.band_reasons;
+    j["self_resonance_modes_Hz"] = a.self_resonance.network_modes;  // the turn network's first three, bare coil
     j["cautions"] = a.cautions;
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;

@@ -49,6 +49,9 @@ struct SelfResonance {
     // error, widened for what is not yet validated. The band check judges the lower edge.
     double frequency_low = 0, frequency_high = 0;  // Hz
     std::vector<std::string> band_reasons;         // what widened it, in words
+    // The turn network's first natural frequencies with the terminals open (up to three, Hz, the bare coil);
+    // between free ends the even ones (symmetric) do not show at the terminals.
+    std::vector<double> network_modes;
     double capacitance = 0;  // F, recommended
     std::string method = "helical_line";  // "network", "helical_line" or "medhurst"
     SelfResonanceMethod network, helical_line, kandoian_sichak, medhurst;
@@ -87,6 +90,7 @@ inline constexpr int max_network_turns = 600;  // the network's O(N^3) solve: 0.
 struct NetworkResonance {
     double frequency = 0;    // Hz
     double former_ratio = 1; // ribs only: the SRF on the ribs over the SRF without them (the equivalent's shift)
+    std::vector<double> modes;  // the first three natural frequencies, Hz (modes[0] = frequency)
 };
 std::optional<NetworkResonance> network_resonance(const Solenoid& coil, const FormerDielectric& former,
                                                   const Surroundings& surroundings, const ShieldSpec* shield = nullptr);
