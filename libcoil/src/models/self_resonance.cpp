@@ -161,7 +161,7 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
             b.reasons.push_back("turns " + detail::significant(pitch_to_wire, 3) +
                                 " wire diameters apart: the near-field correction against the wire-surface reference, -2.7 .. +0.4 %");
         }
-        if (solid_former) {
+        if (solid_former && former_ratio == 1) {
             err_lo -= former_discretisation;
             err_hi += former_discretisation;
             b.reasons.push_back("the former's polarisation charge, 0.3 % (its discretisation)");
@@ -181,8 +181,9 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
         const double half_shift = 0.5 * (1 - former_ratio);
         b.low *= 1 - half_shift;
         b.high *= 1 + half_shift;
-        b.reasons.push_back(std::string(method == "network" ? "the ribs taken as a tube of their averaged permittivity"
-                                                            : "the former's dielectric by the sheath helix's share of the field") +
+        const bool ribs = former.fill > 0 && former.fill < 1;
+        b.reasons.push_back(std::string(method == "network" && ribs ? "the ribs taken as a tube of their averaged permittivity"
+                                                                    : "the former's dielectric by the sheath helix's share of the field") +
                             " (" + detail::significant(100 * (1 - former_ratio), 2) + " % lower), not checked: half that shift either side");
     }
     return b;
@@ -194,9 +195,23 @@ std::optional<NetworkResonance> network_resonance(const Solenoid& s, const Forme
     TurnNetworkOptions o;
     o.mounting = surroundings.mounting;
     o.relative_permittivity = surroundings.relative_permittivity;
-    o.former = former;
     if (shield) o.shield = *shield;
     NetworkResonance r;
+    const bool dielectric = former.wall > 0 && former.relative_permittivity > surroundings.relative_permittivity;
+    if (dielectric && s.turns() > max_former_charge_turns) {
+        // Long coils: the former's charge solve grows as the cube of its panels (600 turns: 4 s); take the
+        // former by the sheath helix's ratio instead (its SRF on the former over without, which long coils
+        // suit; within 0.1 .. 1.2 % of the charge solve on shorter coils), and widen the band by half of it.
+        r.modes = TurnNetwork(s, o).resonances(3);
+        if (r.modes.empty()) throw DomainError("turn network: no resonance between the terminals");
+        const double ratio = std::min(1.0, helical_line_resonance(s, former, surroundings, search_tolerance).frequency /
+                                               helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency);
+        for (double& m : r.modes) m *= ratio;
+        r.frequency = finite_result("turn network", r.modes.front());
+        r.former_ratio = ratio;
+        return r;
+    }
+    o.former = former;
     r.modes = TurnNetwork(s, o).resonances(3);
     if (r.modes.empty()) throw DomainError("turn network: no resonance between the terminals (a single turn, or no finite mode)");
     r.frequency = finite_result("turn network", r.modes.front());
@@ -214,8 +229,12 @@ double srf_build_spread(const Solenoid& s, const FormerDielectric& former, const
     require_non_negative("tolerances.pitch", t.pitch);
     require_non_negative("tolerances.wire_diameter", t.wire_diameter);
     require_non_negative("tolerances.turns", t.turns);
+    // The network up to max_spread_network_turns (a few tenths of a second each), the sheath helix above.
+    const bool by_network = s.turns() <= max_spread_network_turns;
     const auto srf = [&](const Solenoid& c) {
-        if (const auto n = network_resonance(c, former, surroundings, shield)) return n->frequency;
+        if (by_network) {
+            if (const auto n = network_resonance(c, former, surroundings, shield)) return n->frequency;
+        }
         return helical_line_resonance(c, former, surroundings, search_tolerance).frequency;
     };
     const double f0 = srf(s);

@@ -85,11 +85,14 @@ HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDi
 // one end grounded, a uniform medium, the former's polarisation charge (a tube, or a rod where its wall
 // reaches the axis; ribs as a tube of their averaged permittivity, an equivalent), the turns' capacitance
 // near-field corrected; in a shield where one is given (one end grounded is then one end to the shield).
-// Nothing over max_network_turns turns.
+// Nothing over max_network_turns turns. Over max_former_charge_turns the former enters by the sheath
+// helix's ratio instead of its charge (former_ratio says by how much, and the band widens by half of it).
 inline constexpr int max_network_turns = 600;  // the network's O(N^3) solve: 0.6 s at 600 turns
+inline constexpr double max_former_charge_turns = 200;  // the former's charge solve: 0.12 s at 100 turns, 0.9 s at 300
 struct NetworkResonance {
     double frequency = 0;    // Hz
-    double former_ratio = 1; // ribs only: the SRF on the ribs over the SRF without them (the equivalent's shift)
+    double former_ratio = 1; // the shift of an equivalent (ribs as a tube; a long coil's former by the sheath
+                             // helix's ratio): the SRF with the former over without; 1 where solved as charge
     std::vector<double> modes;  // the first three natural frequencies, Hz (modes[0] = frequency)
 };
 std::optional<NetworkResonance> network_resonance(const Solenoid& coil, const FormerDielectric& former,
@@ -114,8 +117,9 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
 
 // The SRF's spread from the build (one standard deviation, relative): first order, each tolerance in turn
 // moved by one standard deviation (form diameter, pitch, bare wire diameter at a fixed form, turns) and the
-// turn network (the sheath helix over 600 turns) solved again, the shifts added in quadrature. A shield
-// where given. `names` receives the largest contributor.
+// turn network (the sheath helix over max_spread_network_turns) solved again, the shifts added in
+// quadrature. A shield where given. `largest` receives the largest contributor's name.
+inline constexpr double max_spread_network_turns = 150;
 double srf_build_spread(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings,
                         const BuildTolerances& tolerances, const ShieldSpec* shield = nullptr, std::string* largest = nullptr);
 
