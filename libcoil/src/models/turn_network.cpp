@@ -126,7 +126,7 @@ std::optional<DielectricBody> former_body(const Solenoid& coil, const TurnNetwor
 // The wire-surface scene of turns at heights `z` (ring radius a, wire radius r, enamel to `coat`): each
 // wire's circle a conductor of its own, its enamel a dielectric shell.
 void add_wire_surfaces(ChargeScene& scene, const std::vector<double>& z, double a, double r, double coat, double enamel,
-                       std::optional<double> plane) {
+                       std::optional<double> plane, int sides) {
     const int n = static_cast<int>(z.size());
     for (int k = 0; k < n; ++k) {
         const double zk = z[static_cast<std::size_t>(k)];
@@ -136,8 +136,8 @@ void add_wire_surfaces(ChargeScene& scene, const std::vector<double>& z, double 
         }
         if (plane) near.push_back({a, 2 * *plane - zk, coat});
         const double embed = coat > r ? enamel : 0.0;
-        scene.conductors.push_back({circle_outline(a, zk, r, wire_surface_sides, near), true, k, embed, std::array<double, 3>{a, zk, r}});
-        if (coat > r) scene.dielectrics.push_back({circle_outline(a, zk, coat, wire_surface_sides, near), enamel, std::array<double, 3>{a, zk, coat}});
+        scene.conductors.push_back({circle_outline(a, zk, r, sides, near), true, k, embed, std::array<double, 3>{a, zk, r}});
+        if (coat > r) scene.dielectrics.push_back({circle_outline(a, zk, coat, sides, near), enamel, std::array<double, 3>{a, zk, coat}});
     }
     scene.min_panel = 0.02 * r;
 }
@@ -151,7 +151,9 @@ Matrix near_field_correction(double a, double r, double coat, double pitch, cons
     ChargeScene scene;
     scene.background_permittivity = o.relative_permittivity;
     scene.max_panel = pitch;
-    add_wire_surfaces(scene, z, a, r, coat, o.enamel_permittivity, std::nullopt);
+    // 16 sides as the reference: 12 or 8 save a quarter of the time and widen the error against the
+    // reference to +0.6 or +1.2 % (measured).
+    add_wire_surfaces(scene, z, a, r, coat, o.enamel_permittivity, std::nullopt, wire_surface_sides);
     const std::vector<double> c = group_capacitance(scene, section_turns);
     Matrix thin(section_turns, section_turns);
     for (int i = 0; i < section_turns; ++i) {
@@ -226,7 +228,8 @@ Matrix turn_capacitance_matrix(const Solenoid& coil, const TurnNetworkOptions& o
     if (n > max_wire_surface_turns) {
         throw InputError("turns", std::to_string(n) + "; the wire-surface capacitance takes at most " + std::to_string(max_wire_surface_turns));
     }
-    add_wire_surfaces(scene, f.z, a, r, coat, o.enamel_permittivity, grounded ? std::optional<double>(plane) : std::nullopt);
+    add_wire_surfaces(scene, f.z, a, r, coat, o.enamel_permittivity, grounded ? std::optional<double>(plane) : std::nullopt,
+                      wire_surface_sides);
     const std::vector<double> c = group_capacitance(scene, n, panels);
     return Eigen::Map<const Matrix>(c.data(), n, n);
 }
