@@ -145,7 +145,7 @@ void add_wire_surfaces(ChargeScene& scene, const std::vector<double>& z, double 
 // The near-field correction: on a section of `section_turns` turns in free space, the wire-surface Maxwell
 // matrix less the thin-wire one. The difference is local (the charge crowding towards the neighbours, the
 // enamel between them) and falls off within a few turns.
-Matrix near_field_correction(double a, double r, double coat, double pitch, const TurnNetworkOptions& o, int section_turns) {
+Matrix solve_near_field_correction(double a, double r, double coat, double pitch, const TurnNetworkOptions& o, int section_turns) {
     std::vector<double> z;
     for (int k = 0; k < section_turns; ++k) z.push_back(k * pitch);
     ChargeScene scene;
@@ -162,6 +162,21 @@ Matrix near_field_correction(double a, double r, double coat, double pitch, cons
         }
     }
     return Eigen::Map<const Matrix>(c.data(), section_turns, section_turns) - thin.llt().solve(Matrix::Identity(section_turns, section_turns));
+}
+
+// The same, remembered: one analysis asks for the same section several times (the coil bare, in its
+// shield, swept), and so does a search's confirmation. A few recent sections per thread, exact keys.
+Matrix near_field_correction(double a, double r, double coat, double pitch, const TurnNetworkOptions& o, int section_turns) {
+    using Key = std::array<double, 7>;
+    const Key key{a, r, coat, pitch, o.relative_permittivity, o.enamel_permittivity, static_cast<double>(section_turns)};
+    thread_local std::vector<std::pair<Key, Matrix>> recent;
+    for (const auto& [k, m] : recent) {
+        if (k == key) return m;
+    }
+    Matrix m = solve_near_field_correction(a, r, coat, pitch, o, section_turns);
+    if (recent.size() >= 8) recent.erase(recent.begin());
+    recent.emplace_back(key, m);
+    return m;
 }
 
 // A shield as a grounded conductor: its wall an open sheet at the inner radius (its two faces' charge
