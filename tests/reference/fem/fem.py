@@ -1,0 +1,57 @@
+#!/usr/bin/env python3
+"""The finite-element reference for a coil's R and L (issue 17's outside check): N coaxial rings of round
+wire in series, solved axisymmetrically by Debian's gmsh and getdp (general solvers, used here as the
+outside reference). `impedance(...)` meshes rings.geo, runs rings.pro and returns the coil's Z = R + jwL at
+one frequency (ohm), the rings' voltages summed for 1 A. The formulation's template comes from the getdp
+package itself (/usr/share/doc/getdp/examples/templates), copied beside the model in a temporary folder.
+
+Run:  /usr/bin/python3 tests/reference/fem/fem.py A R N P F    (mean radius, wire radius, rings, pitch, Hz)
+"""
+import math
+import os
+import shutil
+import subprocess
+import sys
+import tempfile
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+TEMPLATE = "/usr/share/doc/getdp/examples/templates/Lib_Magnetodynamics2D_av_Cir.pro"
+COPPER = 5.8e7  # S/m, the test's conductivity (IEC 60028's annealed copper at 20 degC is 5.8e7 S/m)
+
+
+def skin_depth(frequency, sigma=COPPER):
+    return math.sqrt(2 / (2 * math.pi * frequency * 4e-7 * math.pi * sigma))
+
+
+def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_over_a=0.1):
+    """Z (ohm) of n rings in series at `frequency`; the mesh is hw = skin depth / `wall` at the wires (at
+    most r / 4), the air to `domain` x the coil's size, hmax = `hmax_over_a` x a."""
+    for tool in ("gmsh", "getdp"):
+        if shutil.which(tool) is None:
+            raise RuntimeError(f"{tool} is missing: tools/setup --references installs it")
+    if not os.path.exists(TEMPLATE):
+        raise RuntimeError(f"{TEMPLATE} is missing: the getdp package installs it")
+    size = max(a + r, n * pitch / 2)
+    rint, rext = domain * size, 2 * domain * size
+    hw = min(skin_depth(frequency, sigma) / wall, r / 4)
+    with tempfile.TemporaryDirectory() as tmp:
+        for f in ("rings.geo", "rings.pro"):
+            shutil.copy(os.path.join(HERE, f), tmp)
+        shutil.copy(TEMPLATE, tmp)
+        numbers = {"a": a, "r": r, "Rings": n, "p": pitch, "Rint": rint, "Rext": rext, "hw": hw, "hmax": hmax_over_a * a}
+        args = [x for k, v in numbers.items() for x in ("-setnumber", k, repr(float(v)))]
+        subprocess.run(["gmsh", "-2", "-format", "msh22", "rings.geo", "-o", "rings.msh"] + args, cwd=tmp, check=True,
+                       capture_output=True, timeout=600)
+        pro = ["-setnumber", "Rings", str(n), "-setnumber", "Freq", repr(float(frequency)), "-setnumber", "sig", repr(float(sigma)),
+               "-setnumber", "Rint", repr(rint), "-setnumber", "Rext", repr(rext)]
+        subprocess.run(["getdp", "rings.pro", "-msh", "rings.msh", "-solve", "Magnetodynamics2D_av", "-pos", "voltages"] + pro,
+                       cwd=tmp, check=True, capture_output=True, timeout=1800)
+        rows = [line.split() for line in open(os.path.join(tmp, "U.txt")) if line.strip()]
+    # GetDP's U is the voltage the field drives, -Z I for the imposed 1 A.
+    return -sum(complex(float(x[1]), float(x[2])) for x in rows)
+
+
+if __name__ == "__main__":
+    a, r, n, p, f = (float(x) for x in sys.argv[1:6])
+    z = impedance(a, r, int(n), p, f)
+    print(f"R = {z.real:.9e} ohm, L = {z.imag / (2 * math.pi * f):.9e} H")
