@@ -4,12 +4,15 @@ of round wire, whose impedance is 2 pi a Z_i + j w mu0 a (ln(8a/r) - 2) (the rou
 impedance by Bessel functions, Z_i = k J0(kr) / (2 pi sigma r J1(kr)), k = (1 - j) / delta, e.g. Ramo,
 Whinnery & Van Duzer, quoted from memory; the thin ring's external inductance, Rosa & Grover, with the
 curvature's (r/a)^2 terms at 2.5e-5 here)."""
+import json
 import math
 import pathlib
 import sys
 
 import pytest
 from scipy import special
+
+import libcoil
 
 sys.path.insert(0, str(pathlib.Path(__file__).resolve().parents[1] / "reference" / "fem"))
 import fem  # noqa: E402
@@ -31,3 +34,51 @@ def test_isolated_ring_matches_the_bessel_solution():
     zb = bessel_ring(a, r, f)
     assert z.real == pytest.approx(zb.real, rel=1e-3)
     assert z.imag == pytest.approx(zb.imag, rel=1e-3)
+
+
+CACHE = json.loads((pathlib.Path(fem.HERE) / "fem.json").read_text())
+POINTS = CACHE["points"]
+
+
+def test_cache_is_current():
+    # gmsh and getdp are deterministic on one machine: the first coil at its lowest frequency, run again,
+    # gives the cached figures (to 1e-6: the mesher's floating point may differ in the last digits).
+    import subprocess
+    out = subprocess.run([sys.executable, str(pathlib.Path(fem.HERE) / "generate.py"), "--one", "0"], capture_output=True,
+                         text=True, check=True, timeout=900, cwd=fem.HERE).stdout
+    again = json.loads(out)
+    cached = next(p for p in POINTS if p["name"] == again["name"] and p["frequency"] == again["frequency"])
+    assert again["resistance"] == pytest.approx(cached["resistance"], rel=1e-6)
+    assert again["inductance"] == pytest.approx(cached["inductance"], rel=1e-6)
+
+
+def solenoid(p):
+    return libcoil.Solenoid(mean_diameter=2 * p["mean_radius"], turns=p["turns"], pitch=p["pitch"],
+                            wire=libcoil.Wire(diameter=2 * p["wire_radius"]))
+
+
+SOLVABLE = [p for p in POINTS if p["turns"] <= 10 and p["frequency"] <= 1e6]  # a second or less each
+
+
+@pytest.mark.parametrize("p", SOLVABLE, ids=[f"{p['name']}-{p['frequency']:.0e}" for p in SOLVABLE])
+def test_cross_section_solver_against_the_fem(p):
+    # The cross-section filament solver (cross_section.hpp) against the FEM, close-wound and spaced, up to
+    # 1 MHz: measured R -0.57 .. +0.17 %, L -0.08 .. -0.01 % (issue 17 asks 0.5 % for R at every point up to
+    # d / delta = 100; the solver's subdivision there is that issue's work).
+    s = solenoid(p)
+    r = libcoil.CrossSectionSolver(s, libcoil.conductor("copper").resistivity_at(293.15)).solve(p["frequency"])
+    assert r["resistance"] == pytest.approx(p["resistance"], rel=0.01)
+    assert r["inductance"] == pytest.approx(p["inductance"], rel=0.002)
+
+
+SPACED = [p for p in POINTS if p["pitch"] / (2 * p["wire_radius"]) >= 2.5]
+
+
+@pytest.mark.parametrize("p", SPACED, ids=[f"{p['name']}-{p['frequency']:.0e}" for p in SPACED])
+def test_closed_form_resistance_of_spaced_turns_against_the_fem(p):
+    # The closed form (skin effect exact, Butterworth's proximity) holds for spaced turns: measured -0.33 ..
+    # +0.79 % at p/d 2.5 and 4, 100 kHz .. 10 MHz. For close-wound turns it reads R 1 .. 26 % low and L up to
+    # 5.9 % high against the same FEM (docs/models.md): issue 17's fast model is to fix that.
+    s = solenoid(p)
+    c = libcoil.coil_at_frequencies(s, libcoil.conductor("copper"), 293.15, [p["frequency"]])
+    assert c["resistance"][0] == pytest.approx(p["resistance"], rel=0.01)

@@ -46,9 +46,12 @@ def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_ov
                "-setnumber", "Rint", repr(rint), "-setnumber", "Rext", repr(rext)]
         subprocess.run(["getdp", "rings.pro", "-msh", "rings.msh", "-solve", "Magnetodynamics2D_av", "-pos", "voltages"] + pro,
                        cwd=tmp, check=True, capture_output=True, timeout=1800)
-        rows = [line.split() for line in open(os.path.join(tmp, "U.txt")) if line.strip()]
-    # GetDP's U is the voltage the field drives, -Z I for the imposed 1 A.
-    return -sum(complex(float(x[1]), float(x[2])) for x in rows)
+        values = [float(x) for line in open(os.path.join(tmp, "U.txt")) for x in line.split()[1:]]
+    # One row: the time (0), then each ring's voltage as (real, imaginary). GetDP's U is the voltage the
+    # field drives, -Z I for the imposed 1 A; the rings are in series.
+    if len(values) != 2 * n:
+        raise RuntimeError(f"getdp printed {len(values)} numbers for {n} rings")
+    return -sum(complex(values[2 * k], values[2 * k + 1]) for k in range(n))
 
 
 if __name__ == "__main__":
