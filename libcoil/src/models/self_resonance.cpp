@@ -189,6 +189,11 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
     return b;
 }
 
+double sheath_helix_former_ratio(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings) {
+    return std::min(1.0, helical_line_resonance(s, former, surroundings, search_tolerance).frequency /
+                             helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency);
+}
+
 std::optional<NetworkResonance> network_resonance(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings,
                                                   const ShieldSpec* shield) {
     if (static_cast<int>(std::ceil(s.turns() - 1e-9)) > max_network_turns) return std::nullopt;
@@ -204,8 +209,7 @@ std::optional<NetworkResonance> network_resonance(const Solenoid& s, const Forme
         // suit; within 0.1 .. 1.2 % of the charge solve on shorter coils), and widen the band by half of it.
         r.modes = TurnNetwork(s, o).resonances(3);
         if (r.modes.empty()) throw DomainError("turn network: no resonance between the terminals");
-        const double ratio = std::min(1.0, helical_line_resonance(s, former, surroundings, search_tolerance).frequency /
-                                               helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency);
+        const double ratio = sheath_helix_former_ratio(s, former, surroundings);
         for (double& m : r.modes) m *= ratio;
         r.frequency = finite_result("turn network", r.modes.front());
         r.former_ratio = ratio;
@@ -372,7 +376,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     set_error(r.medhurst, medhurst_error, surroundings.mounting);
     {
         if (r.method != "network" && former.wall > 0 && former.relative_permittivity != eps_out && r.helical_line.available) {
-            former_ratio = r.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency;
+            former_ratio = sheath_helix_former_ratio(s, former, surroundings);
         }
         const SrfBand b = srf_band(r.frequency, r.method, surroundings.mounting, s.pitch_to_wire(), former, former_ratio);
         r.frequency_low = b.low;

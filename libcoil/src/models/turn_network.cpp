@@ -95,6 +95,15 @@ constexpr int wire_surface_sides = 16;
 constexpr int max_wire_surface_turns = 120;
 constexpr int section_turns = 7;  // the near-field correction's section
 
+// The branches' impedance matrix at w: j w L, with the series R and L spread evenly over the turns.
+ComplexMatrix branch_impedance(const Eigen::Map<const Matrix>& l, double w, double series_resistance, double series_inductance) {
+    using C = std::complex<double>;
+    const auto n = static_cast<double>(l.rows());
+    ComplexMatrix zb = C(0, w) * l.cast<C>();
+    zb.diagonal().array() += C(series_resistance / n, w * series_inductance / n);
+    return zb;
+}
+
 Matrix incidence(int n) {  // branch k runs from node k to node k + 1
     Matrix b = Matrix::Zero(n, n + 1);
     for (int k = 0; k < n; ++k) {
@@ -418,8 +427,7 @@ std::vector<std::complex<double>> TurnNetwork::turn_currents(double frequency, d
     }
     const double w = 2 * pi * frequency;
     const Eigen::Map<const Matrix> l(l_.data(), n_, n_);
-    ComplexMatrix zb = C(0, w) * l.cast<C>();
-    zb.diagonal().array() += C(series_resistance / n_, w * series_inductance / n_);
+    const ComplexMatrix zb = branch_impedance(l, w, series_resistance, series_inductance);
     // Branch k runs from node k to node k + 1, so its voltage drop is V_k - V_(k+1); 1 A flows into the far
     // terminal and out of the near one, so the turns' current runs from the last node to the first: report
     // it in that sense (positive at low frequency).
@@ -445,8 +453,7 @@ std::vector<std::complex<double>> TurnNetwork::node_voltages(double frequency, d
     const bool grounded = mounting_ == Mounting::grounded_end;
     const int m = grounded ? n_ : n_ + 1;
     const Eigen::Map<const Matrix> c(c_.data(), m, m);
-    ComplexMatrix zb = C(0, w) * l.cast<C>();
-    zb.diagonal().array() += C(series_resistance / n_, w * series_inductance / n_);
+    const ComplexMatrix zb = branch_impedance(l, w, series_resistance, series_inductance);
     Matrix b = incidence(n_);
     if (grounded) b = b.rightCols(n_).eval();
     const ComplexMatrix bc = b.cast<C>();

@@ -427,7 +427,7 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
         sr.method = "network";
         former_ratio = n->former_ratio;
     } else if (fd.wall > 0 && fd.relative_permittivity != q_.surroundings.relative_permittivity) {
-        former_ratio = sr.helical_line.frequency / helical_line_resonance(s, FormerDielectric{}, q_.surroundings, search_tolerance).frequency;
+        former_ratio = sheath_helix_former_ratio(s, fd, q_.surroundings);
     }
     const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), fd, former_ratio);
     sr.frequency_low = band.low;

@@ -98,6 +98,10 @@ struct NetworkResonance {
 std::optional<NetworkResonance> network_resonance(const Solenoid& coil, const FormerDielectric& former,
                                                   const Surroundings& surroundings, const ShieldSpec* shield = nullptr);
 
+// The sheath helix's shift of the SRF by a former: its SRF on the former over its SRF without (at most 1),
+// the equivalent that long coils and the fallback models take the former by.
+double sheath_helix_former_ratio(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings);
+
 // The interval around a recommended SRF `f` by `method` ("network", "helical_line", "medhurst") where the
 // first resonance is expected:
 //  - the model's measured error against NEC2 on its coils of pitch 3 wire diameters and more
