@@ -45,8 +45,9 @@ inline const std::vector<Option>& option_table() {
         {"analyze", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"analyze", "out", "--out", Kind::text, "Also write the report and the JSON into this directory", D::dimensionless, nullptr, "", false},
         {"analyze", "solver", "--solver", Kind::choice,
-         "Losses by 'closed-form' (Bessel skin + Butterworth proximity) or 'filaments' (numerical cross-section solver)",
-         D::dimensionless, &choice_names<LossSolver>, "closed-form"},
+         "Losses by 'harmonics' (Bessel harmonics of each wire's current, the default), 'closed-form' (Bessel skin + "
+         "Butterworth proximity) or 'filaments' (numerical cross-section solver)",
+         D::dimensionless, &choice_names<LossSolver>, "harmonics"},
         {"analyze", "layers", "--layers", Kind::integer, "Solver: radial layers across the wire (default: enough to resolve the skin depth)"},
         {"analyze", "sectors", "--sectors", Kind::integer, "Solver: angular cells per layer (default: twice the layers)"},
         // coil sweep SPEC

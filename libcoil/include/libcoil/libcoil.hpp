@@ -16,6 +16,7 @@
 #include "libcoil/models/coaxial_mutual.hpp"
 #include "libcoil/models/coupling.hpp"
 #include "libcoil/models/cross_section.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
 #include "libcoil/models/dc_resistance.hpp"
 #include "libcoil/models/filament.hpp"
 #include "libcoil/models/former.hpp"

@@ -66,7 +66,7 @@ cplx line_impedance(double w, double resistance, double inductance, double phase
 }
 
 CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
-                             const SelfResonance& sr, std::optional<ShieldLoad> shield)
+                             const SelfResonance& sr, std::optional<ShieldLoad> shield, WireLossTable wire)
     : coil_(coil),
       conductor_(conductor),
       temperature_(temperature),
@@ -74,7 +74,8 @@ CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, d
       field_(mean_square_field_per_ampere(coil)),
       sr_(sr),
       helix_(sr.radius, sr.pitch_angle, sr.medium),
-      shield_(std::move(shield)) {
+      shield_(std::move(shield)),
+      wire_(std::move(wire)) {
     if (shield_) {
         require_positive("shield.self_resonance", shield_->self_resonance);
         require_positive("shield.inductance", shield_->inductance);
@@ -124,7 +125,8 @@ ImpedancePoint CoilImpedance::at(double frequency, ImpedanceModel model, double 
 std::vector<ImpedancePoint> CoilImpedance::sweep(const std::vector<double>& frequencies, ImpedanceModel model,
                                                  double capacitance) const {
     require_non_negative("capacitance", capacitance);
-    const auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies, field_);
+    auto wire = coil_at_frequencies(coil_, conductor_, temperature_, dc_inductance_, frequencies, field_);
+    wire_.correct(wire);
     std::vector<ImpedancePoint> out;
     out.reserve(frequencies.size());
     for (std::size_t i = 0; i < frequencies.size(); ++i) {

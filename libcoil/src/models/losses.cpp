@@ -8,6 +8,7 @@
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/proximity.hpp"
 #include "libcoil/models/skin_effect.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
 
 namespace libcoil {
 
@@ -108,6 +109,88 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, co
         if (progress) progress(i + 1, fs.size());
     }
     return out;
+}
+
+std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& c, const Conductor& cond, double temperature,
+                                                          double l_dc, const std::vector<double>& fs, const ShieldSpec* shield) {
+    check_frequencies(fs);
+    require_positive("dc_inductance", l_dc);
+    if (cond.relative_permeability != 1) throw DomainError("the wire-harmonic solver takes non-magnetic wire only");
+    const double rho = cond.resistivity_at(temperature);
+    const WireHarmonicSolver solver(c, rho, 0, shield ? std::optional<ShieldSpec>(*shield) : std::nullopt);
+    const RingImpedance dc = solver.solve(0);
+    // The rings' R relative to their DC value, applied to the helix's DC resistance (so that f = 0 gives the
+    // DC resistance exactly; the torus's own curvature changes its DC R by (r / R)^2 / 8, 3e-4 at R / r = 20).
+    const double per_m = dc_resistance_per_length(cond, c.wire().bare_diameter, temperature);
+    const double helix_dc = per_m * c.helix_length();
+    std::vector<CoilAtFrequency> out;
+    for (double f : fs) {
+        const RingImpedance z = f > 0 ? solver.solve(f) : dc;
+        const double skin = f > 0 ? wire_skin_ratios(c.wire().radius(), rho, f, cond.relative_permeability).resistance : 1.0;
+        CoilAtFrequency p;
+        p.frequency = f;
+        p.numerical = true;
+        p.resistance = f > 0 ? helix_dc * (z.resistance - z.wall_resistance) / dc.resistance + per_m * c.lead_length() * skin
+                             : helix_dc + per_m * c.lead_length();
+        p.skin_ratio = skin;
+        p.proximity_ratio = (z.resistance - z.wall_resistance) / dc.resistance - skin;
+        p.inductance = f > 0 ? l_dc + (z.inductance - z.wall_inductance - dc.inductance) : l_dc;
+        p.q_factor = q_of(f, p.inductance, p.resistance);
+        out.push_back(p);
+    }
+    return out;
+}
+
+WireLossTable::WireLossTable(const Solenoid& c, const Conductor& cond, double temperature, double l_dc, double low, double high,
+                             const ShieldSpec* shield, int per_decade) {
+    require_positive("low", low);
+    require_positive("high", high);
+    if (per_decade < 1 || per_decade > 50) throw InputError("per_decade", std::to_string(per_decade) + " is outside 1 .. 50");
+    // Where d / delta = 0.7 (x = 0.5): below it skin and proximity change R by under 1e-4.
+    const double rho = cond.resistivity_at(temperature);
+    const double d = c.wire().bare_diameter;
+    const double onset = rho / (pi * mu0 * cond.relative_permeability * std::pow(d / 0.7, 2));
+    low = std::max(low, onset);
+    if (high <= low) return;
+    const int n = std::max(2, static_cast<int>(std::ceil(std::log10(high / low) * per_decade)) + 1);
+    for (int i = 0; i < n; ++i) f_.push_back(low * std::pow(high / low, static_cast<double>(i) / (n - 1)));
+    const auto h = coil_at_frequencies_harmonic(c, cond, temperature, l_dc, f_, shield);
+    const auto closed = coil_at_frequencies(c, cond, temperature, l_dc, f_);
+    for (int i = 0; i < n; ++i) {
+        ratio_.push_back(h[static_cast<std::size_t>(i)].resistance / closed[static_cast<std::size_t>(i)].resistance);
+        offset_.push_back(h[static_cast<std::size_t>(i)].inductance - closed[static_cast<std::size_t>(i)].inductance);
+    }
+}
+
+namespace {
+
+double interpolate_log(const std::vector<double>& f, const std::vector<double>& v, double x, double empty) {
+    if (f.empty()) return empty;
+    if (x <= f.front()) return v.front();
+    if (x >= f.back()) return v.back();
+    const auto it = std::upper_bound(f.begin(), f.end(), x);
+    const std::size_t k = static_cast<std::size_t>(it - f.begin());
+    const double t = std::log(x / f[k - 1]) / std::log(f[k] / f[k - 1]);
+    return v[k - 1] + t * (v[k] - v[k - 1]);
+}
+
+}  // namespace
+
+double WireLossTable::resistance_ratio(double f) const {
+    // Below the grid the two agree at DC; the first point's ratio holds down to it.
+    return interpolate_log(f_, ratio_, f, 1.0);
+}
+
+double WireLossTable::inductance_offset(double f) const { return interpolate_log(f_, offset_, f, 0.0); }
+
+void WireLossTable::correct(std::vector<CoilAtFrequency>& points) const {
+    if (empty()) return;
+    for (auto& p : points) {
+        if (p.frequency <= 0) continue;
+        p.resistance *= resistance_ratio(p.frequency);
+        p.inductance += inductance_offset(p.frequency);
+        p.q_factor = q_of(p.frequency, p.inductance, p.resistance);
+    }
 }
 
 }  // namespace libcoil

@@ -8,6 +8,7 @@
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/units.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
 #include "libcoil/version.hpp"
 #include "core/text_format.hpp"
 
@@ -235,6 +236,10 @@ std::string text_report(const Analysis& a) {
         if (a.loss_method == LossSolver::filaments) {
             o << "  losses by the cross-section filament solver (" << a.subdivision.layers << " layers, grading "
               << fixed(a.subdivision.grading, 2) << ", " << a.subdivision.sectors << " sectors)\n";
+        } else if (a.loss_method == LossSolver::harmonics) {
+            o << "  losses by the wire-harmonic solver (Bessel harmonics of each wire's current: skin and proximity together)\n"
+              << "  measured against a finite-element reference: " << wire_harmonics_measured_error << "\n";
+            if (a.shield) o << "  the wires' own R and L in the shield's field; the wall's loss joins them in the impedance below\n";
         } else {
             o << "  losses by closed forms: Bessel skin effect + Butterworth proximity\n";
         }
@@ -245,12 +250,12 @@ std::string text_report(const Analysis& a) {
                             pad(format_quantity(p.resistance, Dimension::resistance), 13) + pad(fixed(p.skin_ratio, 3), 9) +
                             pad(fixed(p.proximity_ratio, 3), 11) + pad(henry(p.inductance), 12) +
                             (p.frequency > 0 ? fixed(p.q_factor, 1) : "-") +
-                            (p.numerical && a.loss_method != LossSolver::filaments ? "  *" : "");
+                            (p.numerical && a.loss_method == LossSolver::closed_form ? "  *" : "");
             o << s << "\n";
         }
         o << "  R = R_dc x (skin + proximity); L includes the internal inductance left by the skin effect\n";
         bool starred = false;
-        for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method != LossSolver::filaments);
+        for (const auto& p : a.at_frequency) starred = starred || (p.numerical && a.loss_method == LossSolver::closed_form);
         if (starred) {
             o << "  * from the cross-section filament solver (" << a.subdivision.layers << " layers, "
               << a.subdivision.sectors << " sectors): the closed form is outside its domain there\n";
@@ -317,7 +322,7 @@ std::string json_report(const Analysis& a) {
                           {"proximity_ratio", p.proximity_ratio},
                           {"inductance_H", p.inductance},
                           {"q_factor", p.q_factor},
-                          {"method", p.numerical ? "filaments" : "closed-form"}});
+                          {"method", !p.numerical ? "closed-form" : a.loss_method == LossSolver::harmonics ? "harmonics" : "filaments"}});
     }
     j["at_frequency"] = points;
 

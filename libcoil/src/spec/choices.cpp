@@ -35,7 +35,8 @@ constexpr std::array<Choice<CapacitanceSource>, 2> capacitance_sources{{
     {CapacitanceSource::helical_line, "helical-line", "the helical line's self-capacitance"},
     {CapacitanceSource::medhurst, "medhurst", "Medhurst's measured self-capacitance (lumped model only)"},
 }};
-constexpr std::array<Choice<LossSolver>, 2> loss_solvers{{
+constexpr std::array<Choice<LossSolver>, 3> loss_solvers{{
+    {LossSolver::harmonics, "harmonics", "Bessel harmonics of every wire's current: skin and proximity effect together (the default)"},
     {LossSolver::closed_form, "closed-form", "Bessel skin effect and Butterworth proximity effect"},
     {LossSolver::filaments, "filaments", "the numerical cross-section solver"},
 }};

@@ -59,6 +59,19 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
     if (op.frequencies.empty()) return;
 
     const double rho = spec.conductor.resistivity_at(op.temperature);
+    const long whole_turns = std::lround(s.turns());
+    if (options.solver == LossSolver::harmonics && whole_turns <= options.max_harmonic_turns && spec.conductor.relative_permeability == 1) {
+        a.loss_method = LossSolver::harmonics;
+        a.at_frequency = coil_at_frequencies_harmonic(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies,
+                                                      spec.shield ? &*spec.shield : nullptr);
+        return;
+    }
+    if (options.solver == LossSolver::harmonics) {
+        a.warnings.push_back(whole_turns > options.max_harmonic_turns
+                                 ? "R and L(f) from the closed forms: the wire-harmonic solver takes at most " +
+                                       std::to_string(options.max_harmonic_turns) + " turns"
+                                 : std::string("R and L(f) from the closed forms: the wire-harmonic solver takes non-magnetic wire only"));
+    }
     if (options.solver == LossSolver::filaments) {
         a.loss_method = LossSolver::filaments;
         a.subdivision = options.subdivision;
@@ -73,6 +86,7 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
         }
         return;
     }
+    a.loss_method = LossSolver::closed_form;
     a.at_frequency = coil_at_frequencies(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies);
     // Where the closed-form proximity model is outside its domain, the solver takes over when it is small enough.
     double worst_x = 0;
@@ -251,7 +265,7 @@ CoilImpedance coil_impedance(const Analysis& a) {
     std::optional<ShieldLoad> load;
     if (a.shield) load = shield_load(a, a.shield->table);
     return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
-                         std::move(load));
+                         std::move(load), a.wire_table);
 }
 
 CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
@@ -259,7 +273,7 @@ CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
     const ShieldTable wider(a.spec.solenoid, a.inductance.recommended, *a.spec.shield, std::min(low, a.shield->table.low()),
                             std::max(high, a.shield->table.high()));
     return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
-                         shield_load(a, wider));
+                         shield_load(a, wider), a.wire_table);
 }
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
@@ -282,6 +296,11 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     add_losses(a, resolved);
     add_self_resonance(a);
     add_shield(a);
+    if (a.loss_method == LossSolver::harmonics) {
+        const FrequencySpan span = default_span(a);
+        a.wire_table = WireLossTable(spec.solenoid, spec.conductor, a.spec.operating.temperature, a.inductance.recommended, span.low,
+                                     span.high, spec.shield ? &*spec.shield : nullptr);
+    }
     add_impedance_and_band(a);
     const Operating& op = a.spec.operating;
     double hottest = 0;  // a winding that runs away is past any limit

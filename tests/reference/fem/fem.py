@@ -23,15 +23,19 @@ def skin_depth(frequency, sigma=COPPER):
     return math.sqrt(2 / (2 * math.pi * frequency * 4e-7 * math.pi * sigma))
 
 
-def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_over_a=0.1):
+def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_over_a=0.1, tube=None):
     """Z (ohm) of n rings in series at `frequency`; the mesh is hw = skin depth / `wall` at the wires (at
-    most r / 4), the air to `domain` x the coil's size, hmax = `hmax_over_a` x a."""
+    most r / 4), the air to `domain` x the coil's size, hmax = `hmax_over_a` x a. `tube` = (bore radius,
+    wall thickness, length[, conductivity]) adds a coaxial conducting tube centred on the coil (an open
+    shield), meshed at its skin depth / `wall` (at most a quarter of its wall)."""
     for tool in ("gmsh", "getdp"):
         if shutil.which(tool) is None:
             raise RuntimeError(f"{tool} is missing: tools/setup --references installs it")
     if not os.path.exists(TEMPLATE):
         raise RuntimeError(f"{TEMPLATE} is missing: the getdp package installs it")
     size = max(a + r, n * pitch / 2)
+    if tube is not None:
+        size = max(size, tube[0] + tube[1], tube[2] / 2)
     rint, rext = domain * size, 2 * domain * size
     hw = min(skin_depth(frequency, sigma) / wall, r / 4)
     with tempfile.TemporaryDirectory() as tmp:
@@ -39,11 +43,17 @@ def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_ov
             shutil.copy(os.path.join(HERE, f), tmp)
         shutil.copy(TEMPLATE, tmp)
         numbers = {"a": a, "r": r, "Rings": n, "p": pitch, "Rint": rint, "Rext": rext, "hw": hw, "hmax": hmax_over_a * a}
+        sigt = sigma
+        if tube is not None:
+            sigt = tube[3] if len(tube) > 3 else sigma
+            numbers.update({"Tube": 1, "Tb": tube[0], "Tt": tube[1], "Tl": tube[2],
+                            "ht": min(skin_depth(frequency, sigt) / wall, tube[1] / 4)})
         args = [x for k, v in numbers.items() for x in ("-setnumber", k, repr(float(v)))]
         subprocess.run(["gmsh", "-2", "-format", "msh22", "rings.geo", "-o", "rings.msh"] + args, cwd=tmp, check=True,
                        capture_output=True, timeout=600)
         pro = ["-setnumber", "Rings", str(n), "-setnumber", "Freq", repr(float(frequency)), "-setnumber", "sig", repr(float(sigma)),
-               "-setnumber", "Rint", repr(rint), "-setnumber", "Rext", repr(rext)]
+               "-setnumber", "Rint", repr(rint), "-setnumber", "Rext", repr(rext),
+               "-setnumber", "Tube", "1" if tube is not None else "0", "-setnumber", "sigt", repr(float(sigt))]
         subprocess.run(["getdp", "rings.pro", "-msh", "rings.msh", "-solve", "Magnetodynamics2D_av", "-pos", "voltages"] + pro,
                        cwd=tmp, check=True, capture_output=True, timeout=1800)
         values = [float(x) for line in open(os.path.join(tmp, "U.txt")) for x in line.split()[1:]]

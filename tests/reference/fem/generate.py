@@ -1,43 +1,65 @@
 #!/usr/bin/env python3
 """The cached finite-element set (tests/reference/fem/fem.json): coils of round bare copper wire, close-wound
-and spaced, each at 100 kHz, 1 MHz and 10 MHz, by fem.py (gmsh and getdp). Each entry holds the geometry, the
-frequency and the FEM's R and L, and the mesh's refinement check where one was run.
+and spaced, bare and inside a coaxial copper tube (an open shield), each at 100 kHz, 1, 10 and 30 MHz, by
+fem.py (gmsh and getdp). Each entry holds the geometry, the shield (or null), the frequency and the FEM's R
+and L (the rings in series, closed; a shield's eddy loss is part of R).
 
-Run:  /usr/bin/python3 tests/reference/fem/generate.py > tests/reference/fem/fem.json   (some minutes)
+Run:  /usr/bin/python3 tests/reference/fem/generate.py > tests/reference/fem/fem.json   (about an hour on 2 cores)
+      /usr/bin/python3 tests/reference/fem/generate.py --keep tests/reference/fem/fem.json > new.json
+          (reuses the points already in a cache; the others are computed)
       /usr/bin/python3 tests/reference/fem/generate.py --one 0   (one coil at its lowest frequency, for the test)
 """
 import json
 import math
+import multiprocessing
 import sys
 
 import fem
 
-# (name, mean radius, wire radius, turns, pitch), SI.
+# (name, mean radius, wire radius, turns, pitch, shield), SI; shield = (bore radius, wall, length) of copper.
 COILS = [
-    ("close-5", 10e-3, 0.5e-3, 5, 1.1e-3),
-    ("close-12-fine", 5e-3, 0.25e-3, 12, 0.6e-3),
-    ("close-10", 8e-3, 0.4e-3, 10, 0.88e-3),
-    ("demo-like-18", 13.15e-3, 0.645e-3, 18, 1.9e-3),
-    ("spaced-8", 10e-3, 0.5e-3, 8, 2.5e-3),
-    ("spaced-6", 15e-3, 0.5e-3, 6, 4e-3),
+    ("close-5", 10e-3, 0.5e-3, 5, 1.1e-3, None),
+    ("close-12-fine", 5e-3, 0.25e-3, 12, 0.6e-3, None),
+    ("close-10", 8e-3, 0.4e-3, 10, 0.88e-3, None),
+    ("demo-like-18", 13.15e-3, 0.645e-3, 18, 1.9e-3, None),
+    ("spaced-8", 10e-3, 0.5e-3, 8, 2.5e-3, None),
+    ("spaced-6", 15e-3, 0.5e-3, 6, 4e-3, None),
+    ("close-5-in-tube", 10e-3, 0.5e-3, 5, 1.1e-3, (16e-3, 0.2e-3, 40e-3)),
+    ("close-10-in-tube", 8e-3, 0.4e-3, 10, 0.88e-3, (16e-3, 0.5e-3, 36e-3)),
+    ("demo-like-18-in-foil", 13.15e-3, 0.645e-3, 18, 1.9e-3, (20e-3, 0.035e-3, 60e-3)),
 ]
-FREQUENCIES = (1e5, 1e6, 1e7)
+FREQUENCIES = (1e5, 1e6, 1e7, 3e7)
 
 
-def entry(coil, f):
-    name, a, r, n, p = coil
-    z = fem.impedance(a, r, n, p, f)
-    return {"name": name, "mean_radius": a, "wire_radius": r, "turns": n, "pitch": p, "frequency": f,
+def entry(job):
+    coil, f = job
+    name, a, r, n, p, tube = coil
+    z = fem.impedance(a, r, n, p, f, tube=tube)
+    shield = None if tube is None else {"bore_radius": tube[0], "wall": tube[1], "length": tube[2], "conductivity_S_per_m": fem.COPPER}
+    return {"name": name, "mean_radius": a, "wire_radius": r, "turns": n, "pitch": p, "shield": shield, "frequency": f,
             "resistance": z.real, "inductance": z.imag / (2 * math.pi * f)}
 
 
 def main():
     if len(sys.argv) == 3 and sys.argv[1] == "--one":
-        print(json.dumps(entry(COILS[int(sys.argv[2])], FREQUENCIES[0]), indent=1))
+        print(json.dumps(entry((COILS[int(sys.argv[2])], FREQUENCIES[0])), indent=1))
         return
-    rows = [entry(c, f) for c in COILS for f in FREQUENCIES]
+    kept = {}
+    if len(sys.argv) == 3 and sys.argv[1] == "--keep":
+        for p in json.load(open(sys.argv[2]))["points"]:
+            kept[(p["name"], p["frequency"])] = p
+    jobs = [(c, f) for c in COILS for f in FREQUENCIES]
+    todo = [j for j in jobs if (j[0][0], j[1]) not in kept]
+    with multiprocessing.Pool(2) as pool:
+        done = dict(zip([(c[0], f) for c, f in todo], pool.map(entry, todo, chunksize=1)))
+    rows = []
+    for c, f in jobs:
+        row = kept.get((c[0], f)) or done[(c[0], f)]
+        row.setdefault("shield", None)
+        rows.append({k: row[k] for k in ("name", "mean_radius", "wire_radius", "turns", "pitch", "shield", "frequency",
+                                         "resistance", "inductance")})
     print(json.dumps({"generator": "tests/reference/fem/generate.py", "solver": "gmsh + getdp (Debian), axisymmetric a-v, "
-                      "second-order hierarchical elements, skin depth / 3 at the wires, shell to infinity",
+                      "second-order hierarchical elements, skin depth / 3 at the conductors, shell to infinity",
                       "conductivity_S_per_m": fem.COPPER, "points": rows}, indent=1))
 
 

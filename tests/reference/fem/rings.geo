@@ -3,8 +3,11 @@
 // half-plane x = rho >= 0, y = z. Air to the radius Rint, then a shell to Rext that the formulation maps to
 // infinity; the axis and the outer arc carry a = 0. The mesh is graded from hw at the wires' surfaces (a
 // fraction of the skin depth) to hmax. Physical surfaces 1 .. Rings: the rings; Rings + 1: air; Rings + 2: the shell.
-// Physical curves Rings + 3: the outer arc; Rings + 4: the axis. Written for Debian's gmsh 4.8 (built-in kernel).
-DefineConstant[ a = 20e-3, r = 1e-3, Rings = 1, p = 3e-3, Rint = 0.1, Rext = 0.2, hw = 0.05e-3, hmax = 0.01 ];
+// Physical curves Rings + 3: the outer arc; Rings + 4: the axis. With Tube = 1 a coaxial conducting tube (an
+// open shield) of bore radius Tb, wall Tt and length Tl, centred on z = 0, meshed at ht: physical surface Rings + 5.
+// Written for Debian's gmsh 4.8 (built-in kernel).
+DefineConstant[ a = 20e-3, r = 1e-3, Rings = 1, p = 3e-3, Rint = 0.1, Rext = 0.2, hw = 0.05e-3, hmax = 0.01,
+                Tube = 0, Tb = 30e-3, Tt = 0.5e-3, Tl = 60e-3, ht = 0.05e-3 ];
 loops[] = {};
 wires[] = {};
 For k In {0 : Rings - 1}
@@ -24,6 +27,22 @@ For k In {0 : Rings - 1}
   wires[] += {c1, c2, c3, c4};
   Physical Surface(k + 1) = {s};
 EndFor
+tubecurves[] = {};
+If (Tube)
+  t1 = newp; Point(t1) = {Tb, -Tl / 2, 0, ht};
+  t2 = newp; Point(t2) = {Tb + Tt, -Tl / 2, 0, ht};
+  t3 = newp; Point(t3) = {Tb + Tt, Tl / 2, 0, ht};
+  t4 = newp; Point(t4) = {Tb, Tl / 2, 0, ht};
+  l1 = newc; Line(l1) = {t1, t2};
+  l2 = newc; Line(l2) = {t2, t3};
+  l3 = newc; Line(l3) = {t3, t4};
+  l4 = newc; Line(l4) = {t4, t1};
+  tl = newll; Curve Loop(tl) = {l1, l2, l3, l4};
+  ts = news; Plane Surface(ts) = {tl};
+  loops[] += {tl};
+  tubecurves[] = {l1, l2, l3, l4};
+  Physical Surface(Rings + 5) = {ts};
+EndIf
 o = newp; Point(o) = {0, 0, 0, hmax};
 q1 = newp; Point(q1) = {0, -Rint, 0, hmax};
 q2 = newp; Point(q2) = {Rint, 0, 0, hmax};
@@ -52,5 +71,11 @@ Field[2].DistMin = 0; Field[2].DistMax = 30 * r;
 Field[3] = Threshold; Field[3].InField = 1; Field[3].SizeMin = r / 4; Field[3].SizeMax = hmax;
 Field[3].DistMin = r; Field[3].DistMax = 3 * r;
 Field[4] = Min; Field[4].FieldsList = {2, 3};
+If (Tube)
+  Field[5] = Distance; Field[5].CurvesList = {tubecurves[]}; Field[5].NumPointsPerCurve = 400;
+  Field[6] = Threshold; Field[6].InField = 5; Field[6].SizeMin = ht; Field[6].SizeMax = hmax;
+  Field[6].DistMin = 0; Field[6].DistMax = 20 * Tt + 10 * ht;
+  Field[4].FieldsList = {2, 3, 6};
+EndIf
 Background Field = 4;
 Mesh.MeshSizeExtendFromBoundary = 0; Mesh.MeshSizeFromPoints = 0; Mesh.MeshSizeFromCurvature = 0;

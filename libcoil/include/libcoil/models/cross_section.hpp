@@ -44,6 +44,10 @@ struct RingImpedance {
     double resistance = 0;   // ohm
     double inductance = 0;   // H, including the internal inductance
     bool resolved = true;    // the outer layer is no thicker than a third of the skin depth (the 1 % criterion)
+    // The wire-harmonic solver in a shield: the part of R and L the wall's currents add at the terminals
+    // (its eddy loss, its change of L); resistance and inductance above include them.
+    double wall_resistance = 0;   // ohm
+    double wall_inductance = 0;   // H (negative)
 };
 
 class CrossSectionSolver {

@@ -25,6 +25,7 @@
 #include <optional>
 #include <vector>
 
+#include "libcoil/models/losses.hpp"
 #include "libcoil/models/materials.hpp"
 #include "libcoil/models/self_resonance.hpp"
 #include "libcoil/models/shield.hpp"
@@ -62,8 +63,10 @@ struct ShieldLoad {
 
 class CoilImpedance {
 public:
+    // `wire`: the wire-harmonic solver's correction to the closed forms (losses.hpp); empty, the closed
+    // forms as they stand.
     CoilImpedance(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
-                  const SelfResonance& self_resonance, std::optional<ShieldLoad> shield = std::nullopt);
+                  const SelfResonance& self_resonance, std::optional<ShieldLoad> shield = std::nullopt, WireLossTable wire = {});
 
     // Z at f (Hz, >= 0). For the lumped form `capacitance` (F) picks the self-capacitance; 0 takes the
     // recommended one.
@@ -102,6 +105,7 @@ private:
     SelfResonance sr_;
     SheathHelix helix_;
     std::optional<ShieldLoad> shield_;
+    WireLossTable wire_;
 };
 
 }  // namespace libcoil

@@ -23,6 +23,8 @@
 //          1e-9; the wall loss at 100 MHz +0.54 % from the surface-resistance form; at 1 Hz L changes 1e-6.
 #pragma once
 
+#include <complex>
+#include <utility>
 #include <vector>
 
 #include "libcoil/models/materials.hpp"
@@ -67,6 +69,16 @@ double shield_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
 // weight), -M_ts M_ss^-1 M_st (the perfect conductor's surface currents cancel the flux through every wall
 // ring), H. Its entries sum to shield_inductance_change.
 std::vector<double> shield_turn_inductance_change(const Solenoid& coil, const ShieldSpec& shield);
+
+// The wall's own currents (the ring model's rings at `frequency`, the same discretisation as shielded_coil)
+// when every one of `turns` (ring radius, axial position) carries 1 A: what the wire-harmonic solver adds to
+// the field at the wires, so that a shielded coil's R is the wall's loss plus the wires' changed loss.
+struct WallRingCurrent {
+    double radius = 0, z = 0;            // m
+    std::complex<double> current;        // A per ampere of coil current
+};
+std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<double, double>>& turns, const ShieldSpec& shield,
+                                                  double frequency);
 
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.

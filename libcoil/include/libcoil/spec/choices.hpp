@@ -30,7 +30,7 @@ enum class ImpedanceModel { helical_line, lumped, network };
 // Where the lumped model takes its self-capacitance from.
 enum class CapacitanceSource { helical_line, medhurst };
 // How the losses are computed: closed forms, or the numerical cross-section solver.
-enum class LossSolver { closed_form, filaments };
+enum class LossSolver { harmonics, closed_form, filaments };
 // Two coils: on one axis, or side by side with parallel axes.
 enum class Arrangement { coaxial, side_by_side };
 // A frequency grid's spacing.

@@ -21,11 +21,13 @@
 namespace libcoil {
 
 struct AnalysisOptions {
-    LossSolver solver = LossSolver::closed_form;
+    LossSolver solver = LossSolver::harmonics;
     bool auto_subdivision = true;  // choose it from the highest frequency (subdivision_for)
     // closed_form only: where the closed-form proximity model is outside its domain (proximity.hpp),
     // take those points from the solver if it has at most this many unknowns; else warn.
     std::size_t fallback_unknowns = 1200;
+    // harmonics: coils of more turns take the closed forms, with a warning (the solve grows as turns^3).
+    int max_harmonic_turns = 400;
     Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false; sectors 0:
                                    // twice the layers
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
@@ -49,8 +51,11 @@ struct Analysis {
     CoilSpec spec;  // as given, with operating.temperature set to the thermal estimate where that applies
     InductanceResult inductance{};
     double dc_resistance = 0;                 // ohm, whole wire at the operating temperature
-    std::vector<CoilAtFrequency> at_frequency{};  // the winding alone (no shield)
-    LossSolver loss_method = LossSolver::closed_form;
+    // The winding's own R and L: with a shield and the harmonics solver, the wires' in the shield's field
+    // (the wall's loss and change of L are added where the impedance is formed).
+    std::vector<CoilAtFrequency> at_frequency{};
+    LossSolver loss_method = LossSolver::harmonics;
+    WireLossTable wire_table{};               // harmonics: the closed forms' correction over the span (sweeps)
     Subdivision subdivision{};                // what the solver used
     SelfResonance self_resonance{};             // every model, for the bare coil
     std::optional<ThermalEstimate> thermal{};
