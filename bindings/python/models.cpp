@@ -145,6 +145,32 @@ void bind_models(py::module_& m) {
         }, "frequency"_a, "R and L (H) of the coil at one frequency, skin and proximity effect together.")
         .def_property_readonly("filaments", &libcoil::CrossSectionSolver::filaments)
         .def_property_readonly("unknowns", &libcoil::CrossSectionSolver::unknowns);
+    m.def("harmonics_for", &libcoil::harmonics_for, "pitch_to_wire"_a, "d_over_delta"_a);
+    // A shield as a dict: inner_diameter, length, thickness (m), material (a conductor name, default copper).
+    const auto shield_of = [](const std::optional<py::dict>& d) -> std::optional<libcoil::ShieldSpec> {
+        if (!d) return std::nullopt;
+        libcoil::ShieldSpec s;
+        s.inner_diameter = (*d)["inner_diameter"].cast<double>();
+        s.length = (*d)["length"].cast<double>();
+        s.thickness = (*d)["thickness"].cast<double>();
+        s.material = libcoil::conductor(d->contains("material") ? (*d)["material"].cast<std::string>() : std::string("copper"));
+        return s;
+    };
+    py::class_<libcoil::WireHarmonicSolver>(m, "WireHarmonicSolver")
+        .def(py::init([shield_of](const libcoil::Solenoid& c, double rho, int harmonics, std::optional<py::dict> shield) {
+                 return libcoil::WireHarmonicSolver(c, rho, harmonics, shield_of(shield));
+             }), "solenoid"_a, "resistivity"_a, "harmonics"_a = 0, "shield"_a = py::none())
+        .def(py::init([shield_of](std::vector<std::pair<double, double>> rings, double r, double rho, int harmonics,
+                                  std::optional<py::dict> shield) {
+                 return libcoil::WireHarmonicSolver(std::move(rings), r, rho, harmonics, shield_of(shield));
+             }), "rings"_a, "wire_radius"_a, "resistivity"_a, "harmonics"_a = 0, "shield"_a = py::none())
+        .def("solve", [](const libcoil::WireHarmonicSolver& s, double f) {
+            const auto r = s.solve(f);
+            return py::dict("frequency"_a = r.frequency, "resistance"_a = r.resistance, "inductance"_a = r.inductance,
+                            "wall_resistance"_a = r.wall_resistance, "wall_inductance"_a = r.wall_inductance);
+        }, "frequency"_a, "R and L (H) of the rings in series at one frequency by Bessel harmonics of each wire's current; "
+                          "in a shield, the wall's share too.")
+        .def_property_readonly("turns", &libcoil::WireHarmonicSolver::turns);
 
     // Materials.
     py::class_<libcoil::Conductor>(m, "Conductor")

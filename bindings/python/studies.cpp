@@ -54,7 +54,7 @@ void bind_studies(py::module_& m) {
             r = libcoil::design(q, o);
         }
         const std::size_t n = std::min(top, r.pareto.size());
-        std::vector<double> form(n), turns(n), pitch(n), ind(n), srf(n), res(n), temp(n), vol(n), score(n);
+        std::vector<double> form(n), turns(n), pitch(n), ind(n), ft(n), ind_ft(n), srf(n), res(n), temp(n), vol(n), score(n);
         std::vector<long> wire(n);
         for (std::size_t i = 0; i < n; ++i) {
             const auto& d = r.pareto[i];
@@ -63,6 +63,8 @@ void bind_studies(py::module_& m) {
             turns[i] = d.turns;
             pitch[i] = d.pitch;
             ind[i] = d.inductance;
+            ft[i] = d.target_frequency;
+            ind_ft[i] = d.inductance_at_target;
             srf[i] = d.self_resonance;
             res[i] = d.resistance;
             temp[i] = d.temperature;
@@ -72,9 +74,10 @@ void bind_studies(py::module_& m) {
         const auto np = py::module_::import("numpy");
         const auto arr = [&](const auto& v) { return np.attr("array")(py::cast(v)); };
         return np.attr("rec").attr("fromarrays")(
-            py::make_tuple(arr(wire), arr(form), arr(turns), arr(pitch), arr(ind), arr(srf), arr(res), arr(temp), arr(vol),
-                           arr(score)),
-            "names"_a = "wire_index,form_diameter,turns,pitch,inductance,self_resonance,resistance,temperature,volume,score");
+            py::make_tuple(arr(wire), arr(form), arr(turns), arr(pitch), arr(ind), arr(ft), arr(ind_ft), arr(srf), arr(res), arr(temp),
+                           arr(vol), arr(score)),
+            "names"_a = "wire_index,form_diameter,turns,pitch,inductance,target_frequency,inductance_at_target,self_resonance,"
+                        "resistance,temperature,volume,score");
     }, "requirement"_a, "threads"_a = 0, "top"_a = 100,
        "The ranked designs as a numpy record array (SI), best first; wire_index refers to search.wires.");
     m.def("tolerance_spread", [](const libcoil::Solenoid& s, double target, double tolerance, double form_sd,
@@ -181,6 +184,9 @@ void bind_studies(py::module_& m) {
         if (model) q.model = libcoil::parse_choice<libcoil::ImpedanceModel>(*model, "model");
         return libcoil::touchstone_s1p(libcoil::sweep_study(a, q));
     }, "analysis"_a, "frequencies"_a, "model"_a = py::none(), "The Touchstone one-port text of the coil as mounted.");
+    m.def("inductance_at_target", &libcoil::inductance_at_target, "analysis"_a, "frequency"_a,
+          "The analysed coil's L at a frequency (0: its nominal one), in its shield if it has one: what a design meets its target with.");
+    m.def("target_frequency", &libcoil::target_frequency, "requirement"_a);
     m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<int> layers, std::optional<int> sectors,
                         std::optional<libcoil::Subdivision> sub) {
         libcoil::AnalysisOptions o;
@@ -198,7 +204,7 @@ void bind_studies(py::module_& m) {
         }
         py::gil_scoped_release release;
         return libcoil::analyze(spec, o);
-    }, "spec"_a, "solver"_a = "closed-form", "layers"_a = py::none(), "sectors"_a = py::none(), "subdivision"_a = py::none(),
+    }, "spec"_a, "solver"_a = "harmonics", "layers"_a = py::none(), "sectors"_a = py::none(), "subdivision"_a = py::none(),
        "The analysis study of a coil spec. The filaments solver's subdivision follows the highest frequency unless layers "
        "(and sectors, default twice the layers) or a Subdivision are given.");
     m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,

@@ -25,7 +25,13 @@ def test_demo_requirement_designs_a_coil_that_analyze_accepts(run_coil, source_d
     a = run_coil("analyze", chosen, "--json")
     assert a.returncode == 0, a.stderr
     j = json.loads(a.stdout)
-    assert abs(j["inductance_H"] / 5e-6 - 1) < 0.02
+    # Issue 17: the target holds at the band's geometric centre by the wire-harmonic solver (the analysis's
+    # default), where the design spec asks for R and L; the low-frequency L is above it (L falls with f).
+    centre = (150e3 * 30e6) ** 0.5
+    at = next(p for p in j["at_frequency"] if p["frequency_Hz"] == pytest.approx(centre, rel=1e-9))
+    assert at["method"] == "harmonics"
+    assert abs(at["inductance_H"] / 5e-6 - 1) < 0.02
+    assert j["inductance_H"] > at["inductance_H"]
     assert j["band"]["pass"]
     s = run_coil("sweep", chosen, "--out", tmp_path)
     assert s.returncode == 0, s.stderr
@@ -130,11 +136,13 @@ def test_designs_as_a_numpy_record_array(source_dir):
     q = libcoil.load_requirement(str(source_dir / DEMO))
     a = libcoil.design_array(q, top=20)
     d = libcoil.design(q, top=20)
-    # Up to 20: the returned designs are those confirmed with the turn network's SRF band (19 here).
-    assert 15 <= len(a) == len(d.designs.score) <= 20
+    # Up to 20: the returned designs are those confirmed with the turn network's SRF band (7 here since the
+    # target holds at 2.1 MHz, where L has fallen 3 .. 4 %: every design winds more and resonates lower).
+    assert 5 <= len(a) == len(d.designs.score) <= 20
     assert list(a.score) == list(d.designs.score)
     assert (a.turns % 0.25 == 0).all()
-    assert abs(a.inductance / 5e-6 - 1).max() < 1e-9
+    assert abs(a.inductance_at_target / 5e-6 - 1).max() <= 0.02
+    assert (a.target_frequency == libcoil.target_frequency(q)).all() and (a.inductance > a.inductance_at_target).all()
 
 
 WINNERS = """\
@@ -171,7 +179,11 @@ def test_every_winner_reanalyses_to_the_search_figures(extra, ceiling):
         a = libcoil.analyze(libcoil.parse_coil_spec(text_i, "design"))
         nominal = a.shield.high_frequency_inductance if shielded else a.inductance.recommended
         assert nominal == pytest.approx(d.inductance[i], rel=1e-9)
-        assert abs(nominal / 5e-6 - 1) <= 0.02 * (1 + 1e-9)
+        # The target at the target frequency, by the wire-harmonic solver (issue 17), as the analysis finds it
+        # (to the written digits and the temperature the figures were taken at).
+        at = libcoil.inductance_at_target(a, d.target_frequency[i])
+        assert at == pytest.approx(d.inductance_at_target[i], rel=1e-4)
+        assert abs(at / 5e-6 - 1) <= 0.02 * (1 + 1e-9)
         assert a.self_resonance_as_mounted == pytest.approx(d.self_resonance[i], rel=1e-6)
         assert a.thermal.sets_wire_temperature and a.thermal.current_frequency == 100e3
         assert a.thermal.temperature == pytest.approx(d.temperature[i], rel=1e-6)

@@ -72,12 +72,20 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
             o << "  why: " << r.why_chosen << "\n";
             o << "  the search solved " << fixed(d.turns_solved, 3) << " turns at " << fixed(d.pitch_before_trim * 1e3, 4)
               << " mm pitch, snapped them to " << fixed(d.turns, 2) << " and trimmed the pitch to " << fixed(d.pitch * 1e3, 4)
-              << " mm so that L = " << format_quantity(d.inductance, Dimension::inductance) << " exactly\n";
+              << " mm so that L = " << format_quantity(d.inductance_at_target, Dimension::inductance)
+              << (d.target_frequency > 0 ? " at " + format_quantity(d.target_frequency, Dimension::frequency) + " by the wire-harmonic solver (" +
+                                               format_quantity(d.inductance, Dimension::inductance) + " at low frequency)"
+                                         : std::string(" exactly"))
+              << "\n";
             o << "  winding estimated at " << format_quantity(d.temperature, Dimension::temperature) << " (rise "
               << fixed(d.rise, 1) << " K, limit " << format_quantity(d.temperature_limit, Dimension::temperature)
               << ") in still air; an estimate, not a rating\n";
             if (r.chosen_analysis && r.chosen_analysis->band) {
                 o << "  full re-analysis: L " << format_quantity(r.chosen_analysis->inductance.recommended, Dimension::inductance);
+                if (d.target_frequency > 0) {
+                    o << " at low frequency, " << format_quantity(inductance_at_target(*r.chosen_analysis, d.target_frequency), Dimension::inductance)
+                      << " at " << format_quantity(d.target_frequency, Dimension::frequency);
+                }
                 if (r.chosen_analysis->shield) {
                     o << " unshielded, " << format_quantity(r.chosen_analysis->shield->result.perfect_conductor, Dimension::inductance)
                       << " in the shield (its high-frequency limit)";
@@ -139,6 +147,8 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
                            {"length_with_ends_m", d.length_with_ends},
                            {"wire_length_m", d.wire_length},
                            {"inductance_H", d.inductance},
+                           {"target_frequency_Hz", d.target_frequency},
+                           {"inductance_at_target_H", d.inductance_at_target},
                            {"self_resonance_Hz", d.self_resonance},
                            {"srf_margin", d.srf_margin},
                            {"dc_resistance_ohm", d.dc_resistance},

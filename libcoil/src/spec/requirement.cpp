@@ -76,8 +76,9 @@ Requirement read_requirement(const YAML::Node& root) {
     q.description = top.optional_text("description").value_or("");
 
     const detail::YamlMap t = top.map("target");
-    t.allow_only({"inductance", "tolerance"});
+    t.allow_only({"inductance", "tolerance", "frequency"});
     q.inductance = t.positive_quantity("inductance", Dimension::inductance);
+    if (t.has("frequency")) q.inductance_frequency = t.positive_quantity("frequency", Dimension::frequency);
     q.tolerance = t.positive_quantity("tolerance", Dimension::dimensionless);
     if (q.tolerance >= 0.5) throw InputError(t.path_of("tolerance"), "\"" + t.text("tolerance") + "\"; expected below 50 %");
 
@@ -168,6 +169,12 @@ Requirement parse_requirement(std::string_view yaml_text, std::string_view sourc
 
 Requirement load_requirement(const std::filesystem::path& path) {
     return parse_requirement(detail::read_text_file(path, "requirement file"), path.string());
+}
+
+double target_frequency(const Requirement& q) {
+    if (q.inductance_frequency) return *q.inductance_frequency;
+    if (q.band) return std::sqrt(q.band->low * q.band->ceiling);
+    return q.current_frequency.value_or(0.0);
 }
 
 }  // namespace libcoil

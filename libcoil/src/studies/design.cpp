@@ -90,7 +90,16 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         if (out.pareto.size() == wanted) break;
         std::optional<BandMiss> miss;
         try {
+            // The search met the target with a quick estimate of L's fall at the target frequency: a design
+            // the turn network confirms is trimmed to meet it by the wire-harmonic solver and confirmed again.
             miss = ev.confirm(d);
+            if (!miss) {
+                if (!ev.retarget(d)) {
+                    miss = BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
+                } else {
+                    miss = ev.confirm(d);
+                }
+            }
         } catch (const std::exception&) {
             miss = BandMiss{"model_domain", 10, 0, 0};
         }
@@ -127,7 +136,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
                                    "); the next one is taken");
             continue;
         }
-        const double l_full = coil_impedance(*a).nominal_inductance();
+        const double l_full = inductance_at_target(*a, target_frequency(q));
         const bool l_ok = std::fabs(l_full / q.inductance - 1) <= q.tolerance;
         const bool band_ok = !a->band || a->band->pass;
         if (l_ok && band_ok) {
@@ -164,6 +173,15 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     return out;
 }
 
+double inductance_at_target(const Analysis& a, double frequency) {
+    if (frequency <= 0) return coil_impedance(a).nominal_inductance();
+    for (const auto& p : a.at_frequency) {
+        // (a spec written with ten digits gives the frequency back to 1e-10)
+        if (std::fabs(p.frequency / frequency - 1) <= 1e-9) return p.inductance + (a.shield ? a.shield->table.inductance_change(p.frequency) : 0.0);
+    }
+    return coil_impedance(a).at(frequency).wire_inductance;
+}
+
 CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
     const Wire& w = q.wires[d.wire_index].wire;
     CoilSpec s{.name = q.name.empty() ? "design" : q.name,
@@ -182,6 +200,7 @@ CoilSpec design_spec(const Requirement& q, const DesignFigures& d) {
     Operating op;
     if (q.band) op.frequencies = {q.band->low, q.band->ceiling};
     if (q.current_frequency && *q.current_frequency > 0) op.frequencies.push_back(*q.current_frequency);
+    if (const double ft = target_frequency(q); ft > 0) op.frequencies.push_back(ft);
     std::sort(op.frequencies.begin(), op.frequencies.end());
     op.frequencies.erase(std::unique(op.frequencies.begin(), op.frequencies.end()), op.frequencies.end());
     // With a current the analysis finds the winding's temperature itself, as the search did; without one

@@ -10,6 +10,8 @@
 #include "libcoil/models/dc_resistance.hpp"
 #include "libcoil/models/impedance.hpp"
 #include "libcoil/models/inductance.hpp"
+#include "libcoil/models/losses.hpp"
+#include "libcoil/models/skin_effect.hpp"
 #include "libcoil/models/proximity.hpp"
 #include "libcoil/models/shield.hpp"
 #include "libcoil/studies/band_check.hpp"
@@ -79,6 +81,19 @@ Evaluator::Evaluator(const Requirement& q) : q_(q) {
     reference_ = q.band ? q.band->ceiling : q.current_frequency.value_or(0);
     fewest_turns_ = std::ceil(1 / q.turns_step - 1e-9) * q.turns_step;  // one turn or more, on the step
     limit_ = q.enamel_class;
+    target_frequency_ = target_frequency(q);
+    // The screen's estimate of L's fall at the target frequency, per metre of wire: the closed form's (the
+    // internal inductance the skin effect removes), -mu0 / 8 pi (1 - L_int(f) / L_int(0)). The solver's
+    // fall, two to three times this for close-wound turns, is met when a kept design is retargeted.
+    for (const WireOption& wo : q.wires) {
+        double fall = 0;
+        if (target_frequency_ > 0) {
+            const double rho = q.conductor.resistivity_at(293.15);
+            const double x = std::sqrt(2.0) * wo.wire.radius() / skin_depth(rho, target_frequency_, q.conductor.relative_permeability);
+            fall = -mu0 * q.conductor.relative_permeability / (8 * pi) * (1 - skin_ratios(x).internal_inductance);
+        }
+        screen_fall_per_length_.push_back(fall);
+    }
     if (q.former) limit_ = std::min(limit_, q.former->material.max_service_temperature);
 }
 
@@ -106,10 +121,14 @@ void Evaluator::check(const Candidate& c, Tally& t) const {
     if (!fit(c, g, t) || !solve(c, g, t)) return;
     const Solenoid s(Solenoid::Params{g.mean, g.n, g.p, unlabelled_[c.wire], q_.lead_length});
     DesignFigures d = figures(c, g, s);
-    if (q_.shield) {  // the shielded L must meet the target
-        const double miss = d.inductance / q_.inductance - 1;
+    if (q_.shield || target_frequency_ > 0) {  // the (shielded) L at the target frequency must meet the target
+        const double fall = fixed_offset_ ? *fixed_offset_ : screen_fall_per_length_[c.wire] * g.n * pi * g.mean;
+        d.inductance_at_target = d.inductance + fall;
+        const double miss = d.inductance_at_target / q_.inductance - 1;
         if (std::fabs(miss) > q_.tolerance) {
-            t.reject(Reason::shield, 1 + std::fabs(miss), [&] { return what(c) + ": the shielded inductance misses the target by " + fixed(100 * miss, 2) + " %"; });
+            t.reject(q_.shield ? Reason::shield : Reason::inductance_out_of_reach, 1 + std::fabs(miss), [&] {
+                return what(c) + ": the " + (q_.shield ? "shielded " : "") + "inductance misses the target by " + fixed(100 * miss, 2) + " %";
+            });
             return;
         }
     }
@@ -183,8 +202,12 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
     const auto at = [&](double n, double p) { return last.n == n && last.p == p ? last.l.inductance : L(n, p); };
     // With a shield the unshielded models aim at the target less the shield's change of L (its
     // high-frequency limit, shield.hpp), taken at the geometry of the moment and settled after the trim.
-    double target = q_.inductance;
     const auto shield_change = [&](double turns, double pitch) { return this->shield_change(mean, c.wire, turns, pitch); };
+    // L's fall at the target frequency (negative): the solver's for a design being retargeted, else the
+    // screen's estimate per metre of wire.
+    const auto fall = [&](double turns) { return fixed_offset_ ? *fixed_offset_ : screen_fall_per_length_[c.wire] * turns * pi * mean; };
+    const auto aim = [&](double turns, double pitch) { return q_.inductance - shield_change(turns, pitch) - fall(turns); };
+    double target = q_.inductance - fall(1.0);
     double n = 0, p = c.ratio * d_ins, n_solved = 0;
     const double p_grid = p;
     // A grooved or ribbed former needs the groove's clearance between turns: no pitch below it.
@@ -196,7 +219,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
     try {
         if (q_.turns) {
             n = n_solved = *q_.turns;
-            target = q_.inductance - shield_change(n, p);
+            target = aim(n, p);
             L(n, p);
             if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, false), target, p, last)) {
                 const double l_touch = L(n, p_min);
@@ -238,7 +261,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
                 t.sheet_rho = rho_room;
                 t.sheet = nagaoka_coefficient_and_slope(rho_room);
             }
-            target = q_.inductance - shield_change(n_max, p);
+            target = aim(n_max, p);
             const double l_max = L(n_max, p, &t.sheet);
             if (l_max < target) {
                 t.short_of_target = {c.wire, c.form_diameter, rosa};
@@ -268,7 +291,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
             }
             n_solved = *solved;
             if (q_.shield) {  // the shield's change at the solved length, and the turns again for it
-                target = q_.inductance - shield_change(n_solved, p);
+                target = aim(n_solved, p);
                 first = true;
                 if (const auto again = detail::bracketed_steps(turns_step, true, n_solved, {1, n_max, std::nullopt, std::nullopt}, 21, 2)) {
                     n_solved = *again;
@@ -293,11 +316,12 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
                 return false;
             }
         }
-        if (q_.shield) {
-            // The shield's change moves with the trimmed pitch: trim again until it settles (twice or
-            // three times; the check after the figures rejects what still misses).
+        if (q_.shield || fall(n) != 0) {
+            // The shield's change and L's fall move with the trimmed pitch and the snapped turns: trim
+            // again until they settle (twice or three times; the check after the figures rejects what
+            // still misses).
             for (int k = 0; k < 4; ++k) {
-                const double next = q_.inductance - shield_change(n, p);
+                const double next = aim(n, p);
                 if (std::fabs(next - target) <= 1e-9 * q_.inductance) break;
                 target = next;
                 if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, true), target, p, last)) break;
@@ -335,6 +359,8 @@ DesignFigures Evaluator::figures(const Candidate& c, const Geometry& g, const So
     d.length_with_ends = d.overall_length + 2 * q_.former_ends;
     d.wire_length = s.wire_length();
     d.inductance = g.bare_inductance + g.shielded_change;  // in the shield: its high-frequency L
+    d.target_frequency = target_frequency_;
+    d.inductance_at_target = d.inductance;
     d.volume = pi / 4 * g.outer * g.outer * d.length_with_ends;
     return d;
 }
@@ -449,6 +475,45 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     if (!q_.band) return std::nullopt;
     d.srf_margin = d.self_resonance / q_.band->ceiling;
     return libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield)), screen_points);
+}
+
+// L at the target frequency as the analysis computes it: the wires' own L(f) by the wire-harmonic solver
+// (in the shield's field, if any; the closed forms beyond 400 turns), plus the shield ring model's change
+// of L at that frequency.
+double Evaluator::inductance_at_target(const DesignFigures& d) const {
+    const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
+    const double bare = d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0.0);
+    const double temperature = d.temperature > 0 ? d.temperature : q_.ambient;
+    const ShieldSpec* shield = q_.shield ? &*q_.shield : nullptr;
+    double l = std::lround(s.turns()) <= 400 && q_.conductor.relative_permeability == 1
+                   ? coil_at_frequencies_harmonic(s, q_.conductor, temperature, bare, {target_frequency_}, shield).front().inductance
+                   : coil_at_frequencies(s, q_.conductor, temperature, bare, {target_frequency_}).front().inductance;
+    if (shield) l += shielded_coil(s, bare, *shield, {target_frequency_}).points.front().inductance - bare;
+    return l;
+}
+
+bool Evaluator::retarget(DesignFigures& d) const {
+    if (target_frequency_ <= 0) return true;
+    Evaluator e = *this;
+    const double d_ins = q_.wires[d.wire_index].wire.insulated_diameter();
+    const Candidate c{d.wire_index, d.form_diameter, d.pitch_before_trim / d_ins};
+    DesignFigures cur = d;
+    for (int k = 0; k < 8; ++k) {
+        const double fall = inductance_at_target(cur) - cur.inductance;  // against the (shielded) nominal L
+        if (e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance) break;  // settled
+        e.fixed_offset_ = fall;
+        Tally t;
+        e.check(c, t);
+        if (t.front.designs().size() != 1) return false;
+        cur = t.front.designs().front();
+    }
+    // The figure at the coil returned (the trim may end between two snapped turn counts): the solver's.
+    cur.inductance_at_target = inductance_at_target(cur);
+    if (std::fabs(cur.inductance_at_target / q_.inductance - 1) > q_.tolerance) return false;
+    cur.score = d.score;
+    cur.wire_label = d.wire_label;
+    d = cur;
+    return true;
 }
 
 // Loss and Q at the reference frequency.

@@ -119,6 +119,10 @@ public:
     // A kept design with the turn network's SRF (recommended): its figures updated, and the band's first
     // miss, if any, on the coil as mounted.
     std::optional<BandMiss> confirm(DesignFigures& d) const;
+    // A kept design trimmed (its pitch, the turns kept) so that the wire-harmonic solver's L at the target
+    // frequency meets the target; its figures recomputed. False if no pitch of its candidate does.
+    bool retarget(DesignFigures& d) const;
+    double inductance_at_target(const DesignFigures& d) const;
 
 private:
     void check(const Candidate& c, Tally& t) const;
@@ -138,6 +142,11 @@ private:
     const Requirement& q_;
     std::vector<Wire> unlabelled_;
     double ceiling_ = 0, reference_ = 0, limit_ = 0, fewest_turns_ = 1;
+    double target_frequency_ = 0;
+    // H: L(target frequency) - L(DC) that the low-frequency models' target makes up. Screening takes the
+    // closed form's estimate per wire (the internal inductance's change); retarget() the solver's.
+    std::vector<double> screen_fall_per_length_;  // H/m of wire, per wire option
+    std::optional<double> fixed_offset_;          // H, set for one design by retarget()
 };
 
 }  // namespace libcoil::detail

@@ -62,10 +62,19 @@ struct Objective {
     double srf = 0.5;   // weight of ceiling / SRF (or 1 / SRF without a band)
 };
 
+struct Requirement;
+// The frequency at which the target inductance is met: target.frequency if given, else the band's
+// geometric centre (the tolerance then spent evenly over the band, L falling across it), else the
+// current's frequency, else 0 (the low-frequency inductance).
+double target_frequency(const Requirement& q);
+
 struct Requirement {
     std::string name, description;
     double inductance = 0;   // H
     double tolerance = 0;    // fraction
+    // Where the target must hold (target.frequency): L falls with frequency as the skin and proximity
+    // effects push the current to the wires' surfaces. Not given: see target_frequency().
+    std::optional<double> inductance_frequency;  // Hz
     std::optional<BandSpec> band;
     double current = 0;      // A, DC or RMS
     std::optional<double> current_frequency;  // Hz

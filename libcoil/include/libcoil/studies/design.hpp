@@ -44,7 +44,9 @@ struct DesignFigures {
     double turns_solved = 0;      // before snapping
     double pitch_before_trim = 0; // the grid's pitch
     double winding_length = 0, overall_length = 0, length_with_ends = 0, wire_length = 0;  // m
-    double inductance = 0;        // H, recommended model
+    double inductance = 0;        // H, recommended model (low frequency; in a shield its high-frequency L)
+    double target_frequency = 0;  // Hz, where the target holds (target_frequency(requirement))
+    double inductance_at_target = 0;  // H, there, by the wire-harmonic solver (the shield's change included)
     double self_resonance = 0;    // Hz
     double srf_margin = 0;        // SRF / ceiling (0 without a band)
     double dc_resistance = 0;     // ohm at the winding temperature
@@ -97,6 +99,9 @@ DesignResult design(const Requirement& requirement, const DesignOptions& options
 
 // The coil spec of a design, which `coil analyze`, `coil sweep` and the former generator accept.
 CoilSpec design_spec(const Requirement& requirement, const DesignFigures& figures);
+// The analysed coil's inductance at `frequency` (0: its nominal one), in its shield if it has one: what
+// the design must meet the target with.
+double inductance_at_target(const Analysis& analysis, double frequency);
 
 
 }  // namespace libcoil
