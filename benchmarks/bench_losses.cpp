@@ -1,11 +1,15 @@
 // The loss chain: the closed form per coil (what a design search evaluates per candidate) and one
-// cross-section solve at the subdivision that holds 1 % for x <= 10.
+// cross-section solve at the subdivision that holds 1 % for x <= 10; the wire-harmonic solver, and a whole
+// default analysis of a close-wound coil (issue 17: well under a second at four frequencies).
 #include <benchmark/benchmark.h>
 
 #include "libcoil/models/cross_section.hpp"
 #include "libcoil/models/losses.hpp"
 #include "libcoil/models/materials.hpp"
 #include "libcoil/models/proximity.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
+#include "libcoil/spec/spec.hpp"
+#include "libcoil/studies/analysis.hpp"
 
 namespace {
 
@@ -31,5 +35,28 @@ void BM_CrossSectionSolve(benchmark::State& s) {
     s.counters["filaments"] = static_cast<double>(libcoil::CrossSectionSolver(c, 1.7241e-8).filaments());
 }
 BENCHMARK(BM_CrossSectionSolve)->Arg(4)->Arg(10)->Unit(benchmark::kMillisecond);
+
+// The wire-harmonic solver on a close-wound coil (p/d 1.1) at d / delta = 30 (1 mm wire at 7.8 MHz).
+void BM_WireHarmonicSolve(benchmark::State& s) {
+    const libcoil::Solenoid c(libcoil::Solenoid::Params{20e-3, static_cast<double>(s.range(0)), 1.1e-3,
+                                                        libcoil::Wire{1e-3, 0, "1 mm"}, 0});
+    for (auto _ : s) {
+        const libcoil::WireHarmonicSolver solver(c, 1.7241e-8);
+        benchmark::DoNotOptimize(solver.solve(7.8e6));
+    }
+}
+BENCHMARK(BM_WireHarmonicSolve)->Arg(15)->Arg(64)->Arg(200)->Unit(benchmark::kMillisecond);
+
+// `coil analyze` with its defaults on a close-wound 15-turn coil at four frequencies: every section
+// (inductance, the wire-harmonic losses and their table over the span, the turn network's SRF, the
+// impedance rows).
+void BM_AnalyzeCloseWound15Turns(benchmark::State& s) {
+    const libcoil::CoilSpec spec = libcoil::parse_coil_spec(
+        "coil: {form_diameter: 20 mm, turns: 15, pitch: 1.15 mm, wire: {diameter: 1 mm}}\n"
+        "operating: {frequencies: [150 kHz, 1 MHz, 10 MHz, 30 MHz]}\n",
+        "bench.yaml");
+    for (auto _ : s) benchmark::DoNotOptimize(libcoil::analyze(spec));
+}
+BENCHMARK(BM_AnalyzeCloseWound15Turns)->Unit(benchmark::kMillisecond);
 
 }  // namespace

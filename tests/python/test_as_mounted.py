@@ -146,15 +146,16 @@ def test_grounded_end_in_a_shield_everywhere(run_coil, source_dir, tmp_path):
 
 
 @pytest.mark.parametrize("wall, frequencies, measured_l, measured_r", [
-    # the 0.3 mm can, thick against the skin depth over the band: measured 1.0e-6 (L) and 1.1e-5 (R; 3.0e-5
-    # with the shielded SRF's lumped estimate, which the line's shape near resonance follows)
-    ("0.3 mm", "[230 kHz, 2.7 MHz, 17 MHz]", 1.0e-6, 1.1e-5),
-    # 35 um foil, through the wall's transition (skin depth = wall near 3.5 MHz): measured 3.9e-4 and 1.4e-3
-    ("0.035 mm", "[12 kHz, 23 kHz, 47 kHz, 83 kHz, 170 kHz, 330 kHz, 2.7 MHz]", 3.9e-4, 1.4e-3),
+    # the 0.3 mm can, thick against the skin depth over the band: measured 4.8e-5 (L) and 7.5e-5 (R), mostly
+    # the wire-harmonic table's interpolation (issue 17; the shield's alone was 1.0e-6 and 1.1e-5)
+    ("0.3 mm", "[230 kHz, 2.7 MHz, 17 MHz]", 4.8e-5, 7.5e-5),
+    # 35 um foil, through the wall's transition (skin depth = wall near 3.5 MHz): measured 2.9e-4 and 1.4e-3
+    ("0.035 mm", "[12 kHz, 23 kHz, 47 kHz, 83 kHz, 170 kHz, 330 kHz, 2.7 MHz]", 2.9e-4, 1.4e-3),
 ])
 def test_shield_table_follows_the_ring_model_between_its_points(source_dir, wall, frequencies, measured_l, measured_r):
-    # The sweep interpolates the shield's ring model on 6 points a decade; at frequencies between the points
-    # the sweep agrees with the analysis's own ring-model figures at the operating frequencies. The bounds
+    # The sweep interpolates the shield's ring model on 6 points a decade, and the wire-harmonic solver's
+    # correction on 5; at frequencies between the points the sweep agrees with the analysis's own figures
+    # at the operating frequencies. The bounds
     # are the shield.hpp claim (0.2 %); the measured figures are beside each case.
     spec_text = (source_dir / IN_CAN).read_text().replace("frequencies: [150 kHz, 1 MHz, 10 MHz, 30 MHz]", "frequencies: " + frequencies)
     spec_text = spec_text.replace("thickness: 0.3 mm", "thickness: " + wall).replace("inner_diameter: 40 mm", "inner_diameter: 60 mm")

@@ -77,9 +77,11 @@ def test_a_shielded_requirement_gets_more_turns_and_meets_the_target_in_the_shie
     compared = 0
     s = shielded.designs
     for text, form, grid, turns in zip(s.spec, s.form_diameter, s.pitch_before_trim, s.turns):
-        # Fed back to the analysis, the shielded coil meets the target in its high-frequency limit.
+        # Fed back to the analysis, the shielded coil meets the target in its shield at the target frequency
+        # (the band's centre, 2.1 MHz: the wire-harmonic solver's L(f) with the ring model's change there).
         a = libcoil.analyze(libcoil.parse_coil_spec(text, "design"))
-        assert a.shield.high_frequency_inductance == pytest.approx(5e-6, rel=0.02)
+        assert libcoil.inductance_at_target(a, (150e3 * 30e6) ** 0.5) == pytest.approx(5e-6, rel=0.02)
+        assert a.shield.high_frequency_inductance > 5e-6  # (the wires' DC L with the wall's limit: above the target)
         assert a.inductance.recommended > 5e-6 * 1.02  # unshielded it is well above: the search compensated
         twin = by_grid.get((form, grid))
         if twin:

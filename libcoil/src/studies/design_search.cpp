@@ -477,45 +477,6 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     return libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield)), screen_points);
 }
 
-// L at the target frequency as the analysis computes it: the wires' own L(f) by the wire-harmonic solver
-// (in the shield's field, if any; the closed forms beyond 400 turns), plus the shield ring model's change
-// of L at that frequency.
-double Evaluator::inductance_at_target(const DesignFigures& d) const {
-    const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
-    const double bare = d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0.0);
-    const double temperature = d.temperature > 0 ? d.temperature : q_.ambient;
-    const ShieldSpec* shield = q_.shield ? &*q_.shield : nullptr;
-    double l = std::lround(s.turns()) <= 400 && q_.conductor.relative_permeability == 1
-                   ? coil_at_frequencies_harmonic(s, q_.conductor, temperature, bare, {target_frequency_}, shield).front().inductance
-                   : coil_at_frequencies(s, q_.conductor, temperature, bare, {target_frequency_}).front().inductance;
-    if (shield) l += shielded_coil(s, bare, *shield, {target_frequency_}).points.front().inductance - bare;
-    return l;
-}
-
-bool Evaluator::retarget(DesignFigures& d) const {
-    if (target_frequency_ <= 0) return true;
-    Evaluator e = *this;
-    const double d_ins = q_.wires[d.wire_index].wire.insulated_diameter();
-    const Candidate c{d.wire_index, d.form_diameter, d.pitch_before_trim / d_ins};
-    DesignFigures cur = d;
-    for (int k = 0; k < 8; ++k) {
-        const double fall = inductance_at_target(cur) - cur.inductance;  // against the (shielded) nominal L
-        if (e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance) break;  // settled
-        e.fixed_offset_ = fall;
-        Tally t;
-        e.check(c, t);
-        if (t.front.designs().size() != 1) return false;
-        cur = t.front.designs().front();
-    }
-    // The figure at the coil returned (the trim may end between two snapped turn counts): the solver's.
-    cur.inductance_at_target = inductance_at_target(cur);
-    if (std::fabs(cur.inductance_at_target / q_.inductance - 1) > q_.tolerance) return false;
-    cur.score = d.score;
-    cur.wire_label = d.wire_label;
-    d = cur;
-    return true;
-}
-
 // Loss and Q at the reference frequency.
 void Evaluator::loss_at_reference(const Solenoid& s, DesignFigures& d, const std::optional<double>& field) const {
     d.reference_frequency = reference_;
