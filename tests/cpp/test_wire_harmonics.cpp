@@ -126,9 +126,10 @@ TEST(WireHarmonics, ProximityRaisesResistanceAndFallsWithPitch) {
 
 TEST(WireHarmonics, ShieldAddsTheRingModelsWallAndLowersTheWiresOwnLoss) {
     // In a copper tube: the wall's share is the shield ring model's (shield_wall_currents drives the same
-    // rings), the wires' own loss falls (the tube squeezes the return field at the winding, as the
-    // finite-element reference finds), and the total change of L is the ring model's within 4 % (measured
-    // 3.0 %: the wires' own currents shift in the tube's field too).
+    // rings with the turns' net currents), the wires' own loss falls (the tube squeezes the return field at
+    // the winding, as the finite-element reference finds), and the total change of L is 0.954 of the ring
+    // model's, the turns' dipoles driving the wall too: the finite-element reference (tests/reference/fem,
+    // this coil at 1 MHz, computed once by fem.py) finds 0.951.
     const double r = 0.5e-3;
     const auto set = rings(10e-3, 5, 1.1e-3);
     ShieldSpec sh;
@@ -147,7 +148,9 @@ TEST(WireHarmonics, ShieldAddsTheRingModelsWallAndLowersTheWiresOwnLoss) {
     }
     EXPECT_NEAR(in.wall_resistance / dz.real(), 1.0, 1e-12);
     EXPECT_LT(in.resistance - in.wall_resistance, 0.97 * bare.resistance);
-    EXPECT_NEAR((in.inductance - bare.inductance) / (dz.imag() / (2 * M_PI * f)), 1.0, 0.04);
+    EXPECT_NEAR((in.inductance - bare.inductance) / (dz.imag() / (2 * M_PI * f)), 0.951, 0.01);
+    // The coil's R rises by the FEM's 1.233 mOhm within 10 % (measured 1.180).
+    EXPECT_NEAR((in.resistance - bare.resistance) / 1.233e-3, 1.0, 0.1);
     EXPECT_EQ(bare.wall_resistance, 0.0);
 }
 

@@ -203,12 +203,18 @@ double sheet_in_long_shield_change(double a, double l, double n, double b) {
 
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<double, double>>& turns, const ShieldSpec& s,
                                                   double f) {
+    std::vector<WallRingCurrent> sources;
+    for (const auto& t : turns) sources.push_back({t.first, t.second, 1.0});
+    return shield_wall_currents(sources, s, f);
+}
+
+std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& turns, const ShieldSpec& s, double f) {
     require_positive("frequency", f);
     require_positive("shield.inner_diameter", s.inner_diameter);
     require_positive("shield.length", s.length);
     require_positive("shield.thickness", s.thickness);
     double outer = 0;
-    for (const auto& t : turns) outer = std::max(outer, t.first);
+    for (const auto& t : turns) outer = std::max(outer, t.radius);
     if (!(s.inner_diameter / 2 > outer)) throw InputError("shield.inner_diameter", "does not clear the turns");
     const double rho = s.material.resistivity_at(s.temperature);
     const auto rings = shield_rings(s, outer, skin_depth(rho, f, s.material.relative_permeability));
@@ -221,9 +227,9 @@ std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<do
         const Ring& r = rings[static_cast<std::size_t>(i)];
         a(i, i) = C(rho * 2 * pi * r.r / (r.dr * r.dz), w * ring_self_inductance(r.r, rectangle_gmd(r.dr, r.dz) * std::exp(0.25)));
         for (Eigen::Index j = 0; j < i; ++j) a(i, j) = a(j, i) = C(0, w * ring_mutual(r, rings[static_cast<std::size_t>(j)]));
-        double sum = 0;
-        for (const auto& t : turns) sum += coaxial_mutual_inductance(r.r, t.first, r.z - t.second);
-        rhs(i) = C(0, -w * sum);
+        C sum = 0;
+        for (const auto& t : turns) sum += t.current * coaxial_mutual_inductance(r.r, t.radius, r.z - t.z);
+        rhs(i) = C(0, -w) * sum;
     }
     const Eigen::VectorXcd x = a.partialPivLu().solve(rhs);
     std::vector<WallRingCurrent> out;

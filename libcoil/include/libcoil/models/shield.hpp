@@ -79,6 +79,9 @@ struct WallRingCurrent {
 };
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<double, double>>& turns, const ShieldSpec& shield,
                                                   double frequency);
+// The same driven by ring currents of any complex amplitude (a turn's dipole as two close rings, say).
+std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& sources, const ShieldSpec& shield,
+                                                  double frequency);
 
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.
