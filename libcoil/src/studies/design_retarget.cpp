@@ -2,8 +2,11 @@
 // wire-harmonic solver (design_search.hpp's Evaluator::retarget).
 #include <cmath>
 
+#include "libcoil/core/constants.hpp"
+
 #include "libcoil/models/losses.hpp"
 #include "libcoil/models/shield.hpp"
+#include "libcoil/studies/winding_heat.hpp"
 #include "studies/design_search.hpp"
 
 namespace libcoil::detail {
@@ -29,17 +32,45 @@ bool Evaluator::retarget(DesignFigures& d) const {
     const double d_ins = q_.wires[d.wire_index].wire.insulated_diameter();
     const Candidate c{d.wire_index, d.form_diameter, d.pitch_before_trim / d_ins};
     DesignFigures cur = d;
+    const bool heated = q_.current > 0 && q_.current_frequency && *q_.current_frequency > 0;
     for (int k = 0; k < 8; ++k) {
         const double fall = inductance_at_target(cur) - cur.inductance;  // against the (shielded) nominal L
-        if (e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance) break;  // settled
+        // The winding heats with the solver's R_ac / R_dc too, as the analysis heats it.
+        std::optional<double> ratio;
+        if (heated) {
+            ratio = harmonic_ac_ratio(Solenoid(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index],
+                                                                q_.lead_length}),
+                                      q_.conductor, q_.ambient, *q_.current_frequency);
+        }
+        const bool settled = e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance &&
+                             (!heated || std::fabs(*e.fixed_ac_ratio_ / *ratio - 1) <= 1e-10);
+        if (settled) break;
         e.fixed_offset_ = fall;
+        e.fixed_ac_ratio_ = ratio;
         Tally t;
         e.check(c, t);
         if (t.front.designs().size() != 1) return false;
         cur = t.front.designs().front();
     }
-    // The figure at the coil returned (the trim may end between two snapped turn counts): the solver's.
+    // The figures at the coil returned (the trim may end between two snapped turn counts): the solver's
+    // L there, and the winding heated with the solver's R_ac / R_dc of this coil.
     cur.inductance_at_target = inductance_at_target(cur);
+    if (heated) {
+        const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
+        e.fixed_ac_ratio_ = harmonic_ac_ratio(s, q_.conductor, q_.ambient, *q_.current_frequency);
+        Tally t;
+        if (!e.screen_thermal(c, s, cur, t)) return false;
+        e.loss_at_reference(s, cur, std::nullopt);
+    }
+    // R and Q at the reference frequency by the solver too (the screen ranked with the closed forms').
+    if (reference_ > 0 && q_.conductor.relative_permeability == 1) {
+        const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
+        if (std::lround(s.turns()) <= 400) {
+            const double bare = cur.inductance - (q_.shield ? shield_change(cur.mean_diameter, cur.wire_index, cur.turns, cur.pitch) : 0.0);
+            cur.resistance = coil_at_frequencies_harmonic(s, q_.conductor, cur.temperature, bare, {reference_}).front().resistance;
+            cur.q_factor = 2 * pi * reference_ * cur.inductance / cur.resistance;
+        }
+    }
     if (std::fabs(cur.inductance_at_target / q_.inductance - 1) > q_.tolerance) return false;
     cur.score = d.score;
     cur.wire_label = d.wire_label;

@@ -368,7 +368,7 @@ DesignFigures Evaluator::figures(const Candidate& c, const Geometry& g, const So
 // The winding under the current: as `coil analyze` computes it (winding_heat.hpp), solved to the search's
 // tolerance.
 bool Evaluator::screen_thermal(const Candidate& c, const Solenoid& s, DesignFigures& d, Tally& t) const {
-    const WindingHeat heat = winding_heat(s, q_.conductor, q_.current, q_.current_frequency, q_.ambient, limit_);
+    const WindingHeat heat = winding_heat(s, q_.conductor, q_.current, q_.current_frequency, q_.ambient, limit_, fixed_ac_ratio_);
     d.temperature_limit = limit_;
     const WindingTemperature w = settle_winding(heat, search_tolerance, false);
     if (w.over_limit) {

@@ -147,6 +147,7 @@ private:
     // closed form's estimate per wire (the internal inductance's change); retarget() the solver's.
     std::vector<double> screen_fall_per_length_;  // H/m of wire, per wire option
     std::optional<double> fixed_offset_;          // H, set for one design by retarget()
+    std::optional<double> fixed_ac_ratio_;        // the winding's R_ac / R_dc, set for one design by retarget()
 };
 
 }  // namespace libcoil::detail

@@ -11,11 +11,22 @@
 
 namespace libcoil {
 
+double harmonic_ac_ratio(const Solenoid& s, const Conductor& conductor, double temperature, double frequency) {
+    if (!(frequency > 0)) return 1.0;
+    const double l = 1e-6;  // the inductance does not enter R
+    const auto p = std::lround(s.turns()) <= 400 && conductor.relative_permeability == 1
+                       ? coil_at_frequencies_harmonic(s, conductor, temperature, l, {0.0, frequency})
+                       : coil_at_frequencies(s, conductor, temperature, l, {0.0, frequency});
+    return p[1].resistance / p[0].resistance;
+}
+
 WindingHeat winding_heat(const Solenoid& s, const Conductor& conductor, double current, std::optional<double> current_frequency,
-                         double ambient, double limit) {
+                         double ambient, double limit, std::optional<double> given_ratio) {
     require_non_negative("current", current);
     double ac_ratio = 1;
-    if (current_frequency && *current_frequency > 0) {
+    if (given_ratio) {
+        ac_ratio = *given_ratio;
+    } else if (current_frequency && *current_frequency > 0) {
         const auto r = ac_resistance(s, conductor, ambient, *current_frequency);
         ac_ratio = r.resistance / r.dc;
     }

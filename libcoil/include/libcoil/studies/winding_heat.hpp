@@ -28,9 +28,15 @@ struct WindingHeat {
 };
 
 // `current_frequency`: the current's frequency (nothing or 0: DC). `limit`: the lower of the enamel's
-// class and the former's service temperature, K. `conductor` must outlive the result.
+// class and the former's service temperature, K. `conductor` must outlive the result. `ac_ratio`: the
+// winding's R_ac / R_dc at that frequency from elsewhere (the wire-harmonic solver's); not given, the
+// closed forms' at the ambient temperature.
 WindingHeat winding_heat(const Solenoid& coil, const Conductor& conductor, double current,
-                         std::optional<double> current_frequency, double ambient, double limit);
+                         std::optional<double> current_frequency, double ambient, double limit,
+                         std::optional<double> ac_ratio = std::nullopt);
+// R_ac / R_dc of the winding at `frequency` and `temperature` by the wire-harmonic solver (the closed forms
+// beyond 400 turns or for magnetic wire), what the analysis and the search's last step heat it with.
+double harmonic_ac_ratio(const Solenoid& coil, const Conductor& conductor, double temperature, double frequency);
 
 struct WindingTemperature {
     bool over_limit = false;  // the winding would settle above its limit (or run away)
