@@ -54,6 +54,22 @@ int harmonics_for(double pitch_to_wire, double d_over_delta) {
     return static_cast<int>(std::clamp(std::ceil(m), 4.0, 64.0));
 }
 
+std::size_t wire_harmonic_unknowns(const Solenoid& coil, double resistivity, double frequency) {
+    require_positive("resistivity", resistivity);
+    require_non_negative("frequency", frequency);
+    const double d = coil.wire().bare_diameter;
+    const double dd = frequency > 0 ? d / skin_depth(resistivity, frequency) : 0.0;
+    const long n = std::max(1L, std::lround(coil.turns()));
+    const int m = harmonics_for(n > 1 ? coil.pitch_to_wire() : 1e3, dd);
+    return static_cast<std::size_t>((n + 1) / 2) * static_cast<std::size_t>(2 * m + 2);
+}
+
+bool wire_harmonics_apply(const Solenoid& coil, const Conductor& conductor, double temperature, double highest_frequency,
+                          std::size_t max_unknowns) {
+    return conductor.relative_permeability == 1 &&
+           wire_harmonic_unknowns(coil, conductor.resistivity_at(temperature), highest_frequency) <= max_unknowns;
+}
+
 WireHarmonicSolver::WireHarmonicSolver(const Solenoid& coil, double resistivity, int harmonics, std::optional<ShieldSpec> shield)
     : WireHarmonicSolver(coil_rings(coil), coil.wire().radius(), resistivity, harmonics, std::move(shield)) {}
 

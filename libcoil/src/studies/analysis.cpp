@@ -65,18 +65,11 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
     if (op.frequencies.empty()) return;
 
     const double rho = spec.conductor.resistivity_at(op.temperature);
-    const long whole_turns = std::lround(s.turns());
-    if (options.solver == LossSolver::harmonics && whole_turns <= options.max_harmonic_turns && spec.conductor.relative_permeability == 1) {
+    if (options.solver == LossSolver::harmonics) {
         a.loss_method = LossSolver::harmonics;
         a.at_frequency = coil_at_frequencies_harmonic(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies,
                                                       spec.shield ? &*spec.shield : nullptr);
         return;
-    }
-    if (options.solver == LossSolver::harmonics) {
-        a.warnings.push_back(whole_turns > options.max_harmonic_turns
-                                 ? "R and L(f) from the closed forms: the wire-harmonic solver takes at most " +
-                                       std::to_string(options.max_harmonic_turns) + " turns"
-                                 : std::string("R and L(f) from the closed forms: the wire-harmonic solver takes non-magnetic wire only"));
     }
     if (options.solver == LossSolver::filaments) {
         a.loss_method = LossSolver::filaments;
@@ -297,6 +290,21 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     Analysis a{.spec = spec};
     a.inductance = inductance(spec.solenoid);
     a.warnings = a.inductance.warnings;
+    if (resolved.solver == LossSolver::harmonics) {
+        // The wire-harmonic solver where it is affordable, at the highest frequency the analysis asks for.
+        double top = spec.operating.current_frequency.value_or(0.0);
+        for (double f : spec.operating.frequencies) top = std::max(top, f);
+        const double rho = spec.conductor.resistivity_at(spec.operating.temperature);
+        if (!wire_harmonics_apply(spec.solenoid, spec.conductor, spec.operating.temperature, top, resolved.max_harmonic_unknowns)) {
+            resolved.solver = LossSolver::closed_form;
+            a.warnings.push_back(spec.conductor.relative_permeability != 1
+                                     ? std::string("R and L(f) from the closed forms: the wire-harmonic solver takes non-magnetic wire only")
+                                     : "R and L(f) from the closed forms: the wire-harmonic solver would take " +
+                                           std::to_string(wire_harmonic_unknowns(spec.solenoid, rho, top)) + " unknowns for this coil, more than the " +
+                                           std::to_string(resolved.max_harmonic_unknowns) +
+                                           " it is allowed by default (the closed forms read close-wound turns up to 26 % low)");
+        }
+    }
     a.notes = spec.notes;
     add_thermal(a, resolved);
     add_losses(a, resolved);

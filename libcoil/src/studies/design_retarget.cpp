@@ -6,24 +6,32 @@
 
 #include "libcoil/models/losses.hpp"
 #include "libcoil/models/shield.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
 #include "libcoil/studies/winding_heat.hpp"
 #include "studies/design_search.hpp"
 
 namespace libcoil::detail {
 
 // L at the target frequency as the analysis computes it: the wires' own L(f) by the wire-harmonic solver
-// (in the shield's field, if any; the closed forms beyond 400 turns), plus the shield ring model's change
+// (in the shield's field, if any; the closed forms where the analysis takes them), plus the shield ring model's change
 // of L at that frequency.
 double Evaluator::inductance_at_target(const DesignFigures& d) const {
     const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
     const double bare = d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0.0);
     const double temperature = d.temperature > 0 ? d.temperature : q_.ambient;
     const ShieldSpec* shield = q_.shield ? &*q_.shield : nullptr;
-    double l = std::lround(s.turns()) <= 400 && q_.conductor.relative_permeability == 1
+    double l = harmonics_apply(s)
                    ? coil_at_frequencies_harmonic(s, q_.conductor, temperature, bare, {target_frequency_}, shield).front().inductance
                    : coil_at_frequencies(s, q_.conductor, temperature, bare, {target_frequency_}).front().inductance;
     if (shield) l += shielded_coil(s, bare, *shield, {target_frequency_}).points.front().inductance - bare;
     return l;
+}
+
+// As the analysis of the design's spec decides (its frequencies: the band's edges, the target's, the current's).
+bool Evaluator::harmonics_apply(const Solenoid& s) const {
+    double top = std::max(target_frequency_, q_.current_frequency.value_or(0.0));
+    if (q_.band) top = std::max(top, q_.band->ceiling);
+    return wire_harmonics_apply(s, q_.conductor, q_.ambient, top);
 }
 
 bool Evaluator::retarget(DesignFigures& d) const {
@@ -32,7 +40,8 @@ bool Evaluator::retarget(DesignFigures& d) const {
     const double d_ins = q_.wires[d.wire_index].wire.insulated_diameter();
     const Candidate c{d.wire_index, d.form_diameter, d.pitch_before_trim / d_ins};
     DesignFigures cur = d;
-    const bool heated = q_.current > 0 && q_.current_frequency && *q_.current_frequency > 0;
+    const bool heated = q_.current > 0 && q_.current_frequency && *q_.current_frequency > 0 &&
+                        harmonics_apply(Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length}));
     for (int k = 0; k < 8; ++k) {
         const double fall = inductance_at_target(cur) - cur.inductance;  // against the (shielded) nominal L
         // The winding heats with the solver's R_ac / R_dc too, as the analysis heats it.
@@ -63,9 +72,9 @@ bool Evaluator::retarget(DesignFigures& d) const {
         e.loss_at_reference(s, cur, std::nullopt);
     }
     // R and Q at the reference frequency by the solver too (the screen ranked with the closed forms').
-    if (reference_ > 0 && q_.conductor.relative_permeability == 1) {
+    if (reference_ > 0) {
         const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
-        if (std::lround(s.turns()) <= 400) {
+        if (harmonics_apply(s)) {
             const double bare = cur.inductance - (q_.shield ? shield_change(cur.mean_diameter, cur.wire_index, cur.turns, cur.pitch) : 0.0);
             cur.resistance = coil_at_frequencies_harmonic(s, q_.conductor, cur.temperature, bare, {reference_}).front().resistance;
             cur.q_factor = 2 * pi * reference_ * cur.inductance / cur.resistance;

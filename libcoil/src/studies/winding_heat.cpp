@@ -14,9 +14,7 @@ namespace libcoil {
 double harmonic_ac_ratio(const Solenoid& s, const Conductor& conductor, double temperature, double frequency) {
     if (!(frequency > 0)) return 1.0;
     const double l = 1e-6;  // the inductance does not enter R
-    const auto p = std::lround(s.turns()) <= 400 && conductor.relative_permeability == 1
-                       ? coil_at_frequencies_harmonic(s, conductor, temperature, l, {0.0, frequency})
-                       : coil_at_frequencies(s, conductor, temperature, l, {0.0, frequency});
+    const auto p = coil_at_frequencies_harmonic(s, conductor, temperature, l, {0.0, frequency});
     return p[1].resistance / p[0].resistance;
 }
 

@@ -15,6 +15,7 @@
 #include "libcoil/models/impedance.hpp"
 #include "libcoil/models/inductance.hpp"
 #include "libcoil/models/losses.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
 #include "libcoil/spec/spec.hpp"
 #include "libcoil/studies/band_check.hpp"
 
@@ -26,8 +27,9 @@ struct AnalysisOptions {
     // closed_form only: where the closed-form proximity model is outside its domain (proximity.hpp),
     // take those points from the solver if it has at most this many unknowns; else warn.
     std::size_t fallback_unknowns = 1200;
-    // harmonics: coils of more turns take the closed forms, with a warning (the solve grows as turns^3).
-    int max_harmonic_turns = 400;
+    // harmonics: coils whose solve at the highest frequency takes more unknowns take the closed forms, with
+    // a warning (the solve grows as their cube: 1500 take about 1.5 s a frequency).
+    std::size_t max_harmonic_unknowns = default_max_harmonic_unknowns;
     Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false; sectors 0:
                                    // twice the layers
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only

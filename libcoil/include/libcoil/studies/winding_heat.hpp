@@ -34,8 +34,8 @@ struct WindingHeat {
 WindingHeat winding_heat(const Solenoid& coil, const Conductor& conductor, double current,
                          std::optional<double> current_frequency, double ambient, double limit,
                          std::optional<double> ac_ratio = std::nullopt);
-// R_ac / R_dc of the winding at `frequency` and `temperature` by the wire-harmonic solver (the closed forms
-// beyond 400 turns or for magnetic wire), what the analysis and the search's last step heat it with.
+// R_ac / R_dc of the winding at `frequency` and `temperature` by the wire-harmonic solver, what the analysis
+// and the search's last step heat it with where the solver applies (wire_harmonics_apply).
 double harmonic_ac_ratio(const Solenoid& coil, const Conductor& conductor, double temperature, double frequency);
 
 struct WindingTemperature {
