@@ -149,4 +149,4 @@ def test_harmonics_hand_very_long_coils_to_the_closed_forms(run_coil, tmp_path):
                  "operating: {frequencies: [1 MHz]}\n")
     j = json.loads(run_coil("analyze", p, "--json").stdout)
     assert j["loss_method"] == "closed-form" and j["at_frequency"][0]["method"] != "harmonics"
-    assert any("more than the 1500 it is allowed" in w for w in j["warnings"])
+    assert any("more than the 1000 it is allowed" in w for w in j["warnings"])

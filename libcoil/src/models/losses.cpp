@@ -152,11 +152,19 @@ WireLossTable::WireLossTable(const Solenoid& c, const Conductor& cond, double te
     const double onset = rho / (pi * mu0 * cond.relative_permeability * std::pow(d / 0.7, 2));
     low = std::max(low, onset);
     if (high <= low) return;
+    // Only where the solve is affordable (wire_harmonics_apply); above, the last point's correction holds.
+    // Big systems take 3 points a decade.
+    if (wire_harmonic_unknowns(c, rho, high) > default_max_harmonic_unknowns / 2) per_decade = std::min(per_decade, 3);
     const int n = std::max(2, static_cast<int>(std::ceil(std::log10(high / low) * per_decade)) + 1);
-    for (int i = 0; i < n; ++i) f_.push_back(low * std::pow(high / low, static_cast<double>(i) / (n - 1)));
+    for (int i = 0; i < n; ++i) {
+        const double f = low * std::pow(high / low, static_cast<double>(i) / (n - 1));
+        if (wire_harmonic_unknowns(c, rho, f) <= default_max_harmonic_unknowns) f_.push_back(f);
+    }
+    if (f_.empty()) return;
+    const int m = static_cast<int>(f_.size());
     const auto h = coil_at_frequencies_harmonic(c, cond, temperature, l_dc, f_, shield);
     const auto closed = coil_at_frequencies(c, cond, temperature, l_dc, f_);
-    for (int i = 0; i < n; ++i) {
+    for (int i = 0; i < m; ++i) {
         ratio_.push_back(h[static_cast<std::size_t>(i)].resistance / closed[static_cast<std::size_t>(i)].resistance);
         offset_.push_back(h[static_cast<std::size_t>(i)].inductance - closed[static_cast<std::size_t>(i)].inductance);
     }

@@ -44,7 +44,8 @@ std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& coil, 
 // The wire-harmonic solver's correction to the closed forms for any frequency, for sweeps of many points:
 // the ratio R_h / R_closed and the difference L_h - L_closed solved on a log grid of `per_decade` points a
 // decade over [low, high] (from where wire diameter / skin depth passes 0.7, below which both are the DC
-// values to 1e-4) and interpolated linearly in log f; beyond the grid the end values hold. With 5 points a
+// values to 1e-4; 3 a decade for big systems; only where wire_harmonics_apply allows the solve) and
+// interpolated linearly in log f; beyond the grid the end values hold. With 5 points a
 // decade the interpolated R is within 0.2 % of a direct solve between the points (tests/cpp/test_wire_harmonics.cpp).
 class WireLossTable {
 public:

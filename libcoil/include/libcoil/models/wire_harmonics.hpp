@@ -48,13 +48,13 @@ inline constexpr const char* wire_harmonics_measured_error =
 // depth `d_over_delta`.
 int harmonics_for(double pitch_to_wire, double d_over_delta);
 
-// The unknowns the solver takes for `coil` at `frequency` (its cost grows as their cube: 1000 take about
-// 0.4 s a frequency on one core, 1800 take 2.7 s).
+// The unknowns the solver takes for `coil` at `frequency` (its cost grows as their cube: 576 take 0.15 s a
+// frequency on one core, 1800 take 2.7 s).
 std::size_t wire_harmonic_unknowns(const Solenoid& coil, double resistivity, double frequency);
 
 // Where libcoil takes the solver by default: non-magnetic wire, and at most `max_unknowns` at the highest
 // frequency asked for (beyond, the closed forms, with a warning where a report is made).
-inline constexpr std::size_t default_max_harmonic_unknowns = 1500;
+inline constexpr std::size_t default_max_harmonic_unknowns = 1000;
 bool wire_harmonics_apply(const Solenoid& coil, const Conductor& conductor, double temperature, double highest_frequency,
                           std::size_t max_unknowns = default_max_harmonic_unknowns);
 

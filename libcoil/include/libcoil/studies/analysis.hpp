@@ -28,7 +28,7 @@ struct AnalysisOptions {
     // take those points from the solver if it has at most this many unknowns; else warn.
     std::size_t fallback_unknowns = 1200;
     // harmonics: coils whose solve at the highest frequency takes more unknowns take the closed forms, with
-    // a warning (the solve grows as their cube: 1500 take about 1.5 s a frequency).
+    // a warning (the solve grows as their cube: 1000 take about 0.5 s a frequency).
     std::size_t max_harmonic_unknowns = default_max_harmonic_unknowns;
     Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false; sectors 0:
                                    // twice the layers
