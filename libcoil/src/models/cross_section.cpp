@@ -28,14 +28,14 @@ constexpr double gl8_w[8] = {0.0506142681451881, 0.1111905172266872, 0.156853322
                              0.1813418916891810, 0.1568533229389436, 0.1111905172266872, 0.0506142681451881};
 constexpr int samples_per_cell = 32;
 
-std::vector<std::pair<double, double>> coil_rings(const Solenoid& c) {
+}  // namespace
+
+std::vector<std::pair<double, double>> coil_ring_centres(const Solenoid& c) {
     const int n = std::max(1, static_cast<int>(std::lround(c.turns())));
     std::vector<std::pair<double, double>> rings;
     for (int t = 0; t < n; ++t) rings.emplace_back(c.mean_radius(), (t - (n - 1) / 2.0) * c.pitch());
     return rings;
 }
-
-}  // namespace
 
 Subdivision subdivision_for(double wire_radius, double skin_depth) {
     require_positive("wire_radius", wire_radius);
@@ -47,7 +47,7 @@ Subdivision subdivision_for(double wire_radius, double skin_depth) {
 }
 
 CrossSectionSolver::CrossSectionSolver(const Solenoid& coil, double resistivity, Subdivision sub)
-    : CrossSectionSolver(coil_rings(coil), coil.wire().radius(), resistivity, sub) {}
+    : CrossSectionSolver(coil_ring_centres(coil), coil.wire().radius(), resistivity, sub) {}
 
 CrossSectionSolver::CrossSectionSolver(std::vector<std::pair<double, double>> ring_centres, double wire_radius,
                                        double resistivity, Subdivision sub)

@@ -19,13 +19,6 @@ namespace {
 
 using cd = std::complex<double>;
 
-std::vector<std::pair<double, double>> coil_rings(const Solenoid& c) {
-    const int n = std::max(1, static_cast<int>(std::lround(c.turns())));
-    std::vector<std::pair<double, double>> rings;
-    for (int t = 0; t < n; ++t) rings.emplace_back(c.mean_radius(), (t - (n - 1) / 2.0) * c.pitch());
-    return rings;
-}
-
 // s_m = J_{m+1}(z) / (z J_m(z)) for m = 0 .. M, by the backward recurrence s_{m-1} = 1 / (2m - z^2 s_m),
 // which follows the minimal (regular) solution; s_m -> 1 / (2 (m + 1)) as z -> 0.
 std::vector<cd> bessel_ratios(cd z, int M) {
@@ -71,7 +64,7 @@ bool wire_harmonics_apply(const Solenoid& coil, const Conductor& conductor, doub
 }
 
 WireHarmonicSolver::WireHarmonicSolver(const Solenoid& coil, double resistivity, int harmonics, std::optional<ShieldSpec> shield)
-    : WireHarmonicSolver(coil_rings(coil), coil.wire().radius(), resistivity, harmonics, std::move(shield)) {}
+    : WireHarmonicSolver(coil_ring_centres(coil), coil.wire().radius(), resistivity, harmonics, std::move(shield)) {}
 
 WireHarmonicSolver::WireHarmonicSolver(std::vector<std::pair<double, double>> rings, double wire_radius, double resistivity,
                                        int harmonics, std::optional<ShieldSpec> shield)
@@ -230,7 +223,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
                 F(q, 2) += dip * dr;
                 F(q, 3) += dip * dz;
             }
-            if (reduced[static_cast<std::size_t>(j)] >= 0 && reps[static_cast<std::size_t>(reduced[static_cast<std::size_t>(j)])] != j) {
+            if (reps[static_cast<std::size_t>(reduced[static_cast<std::size_t>(j)])] != j) {
                 for (int m = 1; m <= M; ++m) F.col(2 * m + 1) *= -1.0;  // a mirror partner: its sin harmonics are the negatives
             }
             A.block(row, static_cast<Eigen::Index>(reduced[static_cast<std::size_t>(j)]) * U, B, U) += jw * (Pc * F);

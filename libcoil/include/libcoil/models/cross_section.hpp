@@ -39,6 +39,10 @@ struct Subdivision {
 // 4.8 % low, 0.29 delta 1.2 % and 0.15 delta 0.8 %.
 Subdivision subdivision_for(double wire_radius, double skin_depth);
 
+// The coil's whole turns as rings (mean radius, axial position): turns() rounded to the nearest whole
+// number, at least 1, centred on z = 0. Both ring solvers (this one and wire_harmonics.hpp) take them.
+std::vector<std::pair<double, double>> coil_ring_centres(const Solenoid& coil);
+
 struct RingImpedance {
     double frequency = 0;    // Hz
     double resistance = 0;   // ohm
