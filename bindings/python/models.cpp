@@ -133,19 +133,6 @@ void bind_models(py::module_& m) {
         .def_readwrite("grading", &libcoil::Subdivision::grading)
         .def_readwrite("sectors", &libcoil::Subdivision::sectors);
     m.def("subdivision_for", &libcoil::subdivision_for, "wire_radius"_a, "skin_depth"_a);
-    py::class_<libcoil::CrossSectionSolver>(m, "CrossSectionSolver")
-        .def(py::init<const libcoil::Solenoid&, double, libcoil::Subdivision>(), "solenoid"_a, "resistivity"_a,
-             "subdivision"_a = libcoil::Subdivision{})
-        .def(py::init<std::vector<std::pair<double, double>>, double, double, libcoil::Subdivision>(), "rings"_a,
-             "wire_radius"_a, "resistivity"_a, "subdivision"_a = libcoil::Subdivision{})
-        .def("solve", [](const libcoil::CrossSectionSolver& s, double f) {
-            const auto r = s.solve(f);
-            return py::dict("frequency"_a = r.frequency, "resistance"_a = r.resistance, "inductance"_a = r.inductance,
-                            "resolved"_a = r.resolved);
-        }, "frequency"_a, "R and L (H) of the coil at one frequency, skin and proximity effect together.")
-        .def_property_readonly("filaments", &libcoil::CrossSectionSolver::filaments)
-        .def_property_readonly("unknowns", &libcoil::CrossSectionSolver::unknowns);
-    m.def("harmonics_for", &libcoil::harmonics_for, "pitch_to_wire"_a, "d_over_delta"_a);
     // A shield as a dict: inner_diameter, length, thickness (m), material (a conductor name, default copper).
     const auto shield_of = [](const std::optional<py::dict>& d) -> std::optional<libcoil::ShieldSpec> {
         if (!d) return std::nullopt;
@@ -156,6 +143,24 @@ void bind_models(py::module_& m) {
         s.material = libcoil::conductor(d->contains("material") ? (*d)["material"].cast<std::string>() : std::string("copper"));
         return s;
     };
+    py::class_<libcoil::CrossSectionSolver>(m, "CrossSectionSolver")
+        .def(py::init([shield_of](const libcoil::Solenoid& c, double rho, libcoil::Subdivision sub, std::optional<py::dict> shield) {
+                 return libcoil::CrossSectionSolver(c, rho, sub, shield_of(shield));
+             }), "solenoid"_a, "resistivity"_a, "subdivision"_a = libcoil::Subdivision{}, "shield"_a = py::none())
+        .def(py::init([shield_of](std::vector<std::pair<double, double>> rings, double r, double rho, libcoil::Subdivision sub,
+                                  std::optional<py::dict> shield) {
+                 return libcoil::CrossSectionSolver(std::move(rings), r, rho, sub, shield_of(shield));
+             }), "rings"_a, "wire_radius"_a, "resistivity"_a, "subdivision"_a = libcoil::Subdivision{}, "shield"_a = py::none())
+        .def("solve", [](const libcoil::CrossSectionSolver& s, double f) {
+            const auto r = s.solve(f);
+            return py::dict("frequency"_a = r.frequency, "resistance"_a = r.resistance, "inductance"_a = r.inductance,
+                            "resolved"_a = r.resolved, "wall_resistance"_a = r.wall_resistance,
+                            "wall_inductance"_a = r.wall_inductance);
+        }, "frequency"_a, "R and L (H) of the coil at one frequency, skin and proximity effect together; in a shield, "
+                          "the wall's share too.")
+        .def_property_readonly("filaments", &libcoil::CrossSectionSolver::filaments)
+        .def_property_readonly("unknowns", &libcoil::CrossSectionSolver::unknowns);
+    m.def("harmonics_for", &libcoil::harmonics_for, "pitch_to_wire"_a, "d_over_delta"_a);
     py::class_<libcoil::WireHarmonicSolver>(m, "WireHarmonicSolver")
         .def(py::init([shield_of](const libcoil::Solenoid& c, double rho, int harmonics, std::optional<py::dict> shield) {
                  return libcoil::WireHarmonicSolver(c, rho, harmonics, shield_of(shield));

@@ -75,6 +75,40 @@ TEST(Gmd, Rectangle) {
     EXPECT_THROW(rectangle_gmd(0.0, 1.0), InputError);
 }
 
+namespace {
+
+// ln GMD of two rectangles by the midpoint rule on n x n points in each (the check value: plain numerical
+// quadrature, common practice; it converges as 1/n^2 for rectangles that do not overlap).
+double midpoint_log_gmd(double x0, double x1, double z0, double z1, double u0, double u1, double w0, double w1, int n) {
+    double sum = 0;
+    for (int i = 0; i < n; ++i) {
+        for (int j = 0; j < n; ++j) {
+            const double x = x0 + (x1 - x0) * (i + 0.5) / n, z = z0 + (z1 - z0) * (j + 0.5) / n;
+            for (int k = 0; k < n; ++k) {
+                for (int l = 0; l < n; ++l) {
+                    const double u = u0 + (u1 - u0) * (k + 0.5) / n, w = w0 + (w1 - w0) * (l + 0.5) / n;
+                    sum += 0.5 * std::log((x - u) * (x - u) + (z - w) * (z - w));
+                }
+            }
+        }
+    }
+    return sum / std::pow(n, 4);
+}
+
+}  // namespace
+
+TEST(Gmd, RectanglePairs) {
+    // The same rectangle twice is Rosa's self-GMD; far apart, the centroids' distance; in between, plain
+    // quadrature (measured: adjacent squares 1.0065498 by both, to 1e-8).
+    EXPECT_NEAR(rectangles_gmd(0, 1, 0, 1, 0, 1, 0, 1) / rectangle_gmd(1, 1), 1.0, 1e-12);
+    EXPECT_NEAR(rectangles_gmd(0, 65, 0, 1e-3, 0, 65, 0, 1e-3) / rectangle_gmd(65, 1e-3), 1.0, 1e-9);  // thin: no lost digits
+    EXPECT_NEAR(rectangles_gmd(0, 1, 0, 1, 100, 101, 0, 1) / 100, 1.0, 1e-5);
+    EXPECT_NEAR(std::log(rectangles_gmd(0, 1, 0, 1, 1, 2, 0, 1)), midpoint_log_gmd(0, 1, 0, 1, 1, 2, 0, 1, 40), 1e-6);
+    EXPECT_NEAR(std::log(rectangles_gmd(0, 3, 0, 0.5, 1, 2.5, 1, 1.2)), midpoint_log_gmd(0, 3, 0, 0.5, 1, 2.5, 1, 1.2, 40), 1e-4);
+    EXPECT_DOUBLE_EQ(rectangles_gmd(0, 2, 0, 1, 3, 4, 5, 7), rectangles_gmd(3, 4, 5, 7, 0, 2, 0, 1));  // symmetric
+    EXPECT_THROW(rectangles_gmd(0, 0, 0, 1, 0, 1, 0, 1), InputError);
+}
+
 TEST(Ring, MatchesMaxwellAtTheGeometricMeanDistance) {
     // Maxwell's method of geometric mean distances: a ring of round wire with uniform current has, to first
     // order in r/a, the mutual inductance of two filaments at the GMD r e^(-1/4) of its cross-section

@@ -82,11 +82,12 @@ std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conduc
 std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, const Conductor& cond, double temperature,
                                                            double l_dc, const std::vector<double>& fs,
                                                            const Subdivision& sub,
-                                                           const std::function<void(std::size_t, std::size_t)>& progress) {
+                                                           const std::function<void(std::size_t, std::size_t)>& progress,
+                                                           const ShieldSpec* shield) {
     check_frequencies(fs);
     require_positive("dc_inductance", l_dc);
     const double rho = cond.resistivity_at(temperature);
-    const CrossSectionSolver solver(c, rho, sub);
+    const CrossSectionSolver solver(c, rho, sub, shield ? std::optional<ShieldSpec>(*shield) : std::nullopt);
     const RingImpedance dc = solver.solve(0);
     const double rings = std::max(1.0, std::round(c.turns())) * 2 * pi * c.mean_radius();
     const double scale = c.helix_length() / rings;  // ring circumferences -> helix
@@ -100,10 +101,10 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, co
         p.frequency = f;
         p.resolved = z.resolved;
         p.numerical = true;
-        p.resistance = z.resistance * scale + per_m * c.lead_length() * skin;
+        p.resistance = (z.resistance - z.wall_resistance) * scale + per_m * c.lead_length() * skin;
         p.skin_ratio = skin;
-        p.proximity_ratio = z.resistance / dc.resistance - skin;
-        p.inductance = l_dc + (z.inductance - dc.inductance);
+        p.proximity_ratio = (z.resistance - z.wall_resistance) / dc.resistance - skin;
+        p.inductance = l_dc + (z.inductance - z.wall_inductance - dc.inductance);
         p.q_factor = q_of(f, p.inductance, p.resistance);
         out.push_back(p);
         if (progress) progress(i + 1, fs.size());

@@ -208,32 +208,49 @@ std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<do
     return shield_wall_currents(sources, s, f);
 }
 
-std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& turns, const ShieldSpec& s, double f) {
+struct ShieldWall::Factor {
+    Eigen::PartialPivLU<Eigen::MatrixXcd> lu;
+};
+
+ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : omega_(2 * pi * f) {
     require_positive("frequency", f);
     require_positive("shield.inner_diameter", s.inner_diameter);
     require_positive("shield.length", s.length);
     require_positive("shield.thickness", s.thickness);
-    double outer = 0;
-    for (const auto& t : turns) outer = std::max(outer, t.radius);
-    if (!(s.inner_diameter / 2 > outer)) throw InputError("shield.inner_diameter", "does not clear the turns");
+    if (!(s.inner_diameter / 2 > source_radius)) throw InputError("shield.inner_diameter", "does not clear the turns");
     const double rho = s.material.resistivity_at(s.temperature);
-    const auto rings = shield_rings(s, outer, skin_depth(rho, f, s.material.relative_permeability));
+    const auto rings = shield_rings(s, source_radius, skin_depth(rho, f, s.material.relative_permeability));
     const auto n = static_cast<Eigen::Index>(rings.size());
     using C = std::complex<double>;
-    const double w = 2 * pi * f;
     Eigen::MatrixXcd a(n, n);
-    Eigen::VectorXcd rhs(n);
     for (Eigen::Index i = 0; i < n; ++i) {
         const Ring& r = rings[static_cast<std::size_t>(i)];
-        a(i, i) = C(rho * 2 * pi * r.r / (r.dr * r.dz), w * ring_self_inductance(r.r, rectangle_gmd(r.dr, r.dz) * std::exp(0.25)));
-        for (Eigen::Index j = 0; j < i; ++j) a(i, j) = a(j, i) = C(0, w * ring_mutual(r, rings[static_cast<std::size_t>(j)]));
-        C sum = 0;
-        for (const auto& t : turns) sum += t.current * coaxial_mutual_inductance(r.r, t.radius, r.z - t.z);
-        rhs(i) = C(0, -w) * sum;
+        a(i, i) = C(rho * 2 * pi * r.r / (r.dr * r.dz), omega_ * ring_self_inductance(r.r, rectangle_gmd(r.dr, r.dz) * std::exp(0.25)));
+        for (Eigen::Index j = 0; j < i; ++j) a(i, j) = a(j, i) = C(0, omega_ * ring_mutual(r, rings[static_cast<std::size_t>(j)]));
+        rings_.emplace_back(r.r, r.z);
     }
-    const Eigen::VectorXcd x = a.partialPivLu().solve(rhs);
+    factor_ = std::make_shared<const Factor>(Factor{a.partialPivLu()});
+}
+
+void ShieldWall::currents(std::complex<double>* flux, std::size_t columns) const {
+    const auto n = static_cast<Eigen::Index>(rings_.size());
+    Eigen::Map<Eigen::MatrixXcd> b(flux, n, static_cast<Eigen::Index>(columns));
+    b = factor_->lu.solve(std::complex<double>(0, -omega_) * b);
+}
+
+std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& turns, const ShieldSpec& s, double f) {
+    double outer = 0;
+    for (const auto& t : turns) outer = std::max(outer, t.radius);
+    const ShieldWall wall(s, outer, f);
+    std::vector<std::complex<double>> x;
+    for (const auto& [r, z] : wall.rings()) {
+        std::complex<double> sum = 0;
+        for (const auto& t : turns) sum += t.current * coaxial_mutual_inductance(r, t.radius, z - t.z);
+        x.push_back(sum);
+    }
+    wall.currents(x.data(), 1);
     std::vector<WallRingCurrent> out;
-    for (Eigen::Index i = 0; i < n; ++i) out.push_back({rings[static_cast<std::size_t>(i)].r, rings[static_cast<std::size_t>(i)].z, x(i)});
+    for (std::size_t i = 0; i < x.size(); ++i) out.push_back({wall.rings()[i].first, wall.rings()[i].second, x[i]});
     return out;
 }
 

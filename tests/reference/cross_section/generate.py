@@ -5,12 +5,12 @@ an independent method (piecewise-constant cells in the wire's cross-section, no 
 slow, so its figures are cached here with this generator beside them and a test that re-runs one coil.
 
 The grid: 220 coils drawn once (seeded) over pitch / wire diameter 1.02 .. 2.5 (log-uniform in the gap),
-wire diameter / skin depth 0.1 .. 20 (log-uniform; the solver's subdivision_for resolves the skin depth
-to 1 % there), mean diameter / wire diameter 5 .. 60 and 3 .. 14 turns, and 20 long coils of 20 .. 36
-turns (l/D up to 11) at d / delta up to 10. Each coil at one frequency; copper at 20 degC.
+wire diameter / skin depth 0.1 .. 100 (log-uniform; the solver's subdivision_for holds R within 0.5 % of
+the finite-element reference there), mean diameter / wire diameter 5 .. 60 and 3 .. 14 turns, and 20 long
+coils of 20 .. 36 turns (l/D up to 11) at d / delta up to 30. Each coil at one frequency; copper at 20 degC.
 
 Run:  PYTHONPATH=build/python /usr/bin/python3 tests/reference/cross_section/generate.py > tests/reference/cross_section/grid.json
-      (about half an hour on 2 cores)
+      (about an hour on 2 cores)
       ... generate.py --one K   (coil K only, for the test)
 """
 import json
@@ -31,7 +31,7 @@ def coils():
     for k in range(240):
         long = k >= 220
         gap = math.exp(rng.uniform(math.log(0.02), math.log(1.5)))
-        dd = math.exp(rng.uniform(math.log(0.1), math.log(10.0 if long else 20.0)))
+        dd = math.exp(rng.uniform(math.log(0.1), math.log(30.0 if long else 100.0)))
         d = 1e-3
         big = rng.uniform(3.0, 6.0) if long else math.exp(rng.uniform(math.log(5), math.log(60)))
         n = rng.randint(20, 36) if long else rng.randint(3, 14)

@@ -6,24 +6,32 @@
 //          rho 2 pi r_k / A_k and self-inductance from the ring formula (ring_inductance.hpp) at the
 //          radius whose geometric mean distance matches its cell (exact GMD of a rectangle); mutuals come
 //          from Maxwell's formula (coaxial_mutual.hpp), between centroids for distant cells and at the
-//          numerically averaged geometric mean distance for near ones, since graded cells are thin. Every sub-filament of a turn sees the turn's voltage, and every turn
-//          carries the same current (series connection):
+//          geometric mean distance for near ones: two sectors of one wire by the exact GMD of rectangles
+//          (ring_inductance.hpp's rectangles_gmd, after an area-preserving map of the sectors) with a
+//          sampled correction for the map, other pairs by averaging ln(distance) over Gauss samples.
+//          Every sub-filament of a turn sees the turn's voltage, and every turn carries the same current
+//          (series connection):
 //              Z i = E V,  E^T i = I 1,  Z_coil = 1^T V / I.
 //          The dense complex system is solved with Eigen's LU, halved by the coil's mirror symmetry about
 //          its mid-plane. At f = 0 the currents follow the conductances and L is the energy integral.
+//          In a shield, the wall's rings (shield.hpp's ShieldWall) are coupled to every cell.
 // Source:  A. E. Ruehli, "Equivalent circuit models for three-dimensional multiconductor systems",
 //          IEEE Trans. MTT 22 (1974) 216 (partial elements); Maxwell (1873) for the mutuals.
 // Domain:  whole turns as parallel rings (no pitch angle), non-magnetic conductor, frequencies where the
-//          outer layer is no thicker than a third of the skin depth (`resolved` says so).
-// Accuracy: see docs/models.md, measured by tests/cpp/test_cross_section.cpp: convergence with the
-//          subdivision, the isolated ring against the Bessel solution, DC against the filament model.
+//          outer layer is no thicker than a sixth of the skin depth (`resolved` says so).
+// Accuracy: see docs/models.md, measured by tests/cpp/test_cross_section.cpp (convergence with the
+//          subdivision, the isolated ring against the Bessel solution, DC against the filament model) and
+//          tests/python/test_fem_reference.py (R and L against the finite-element set, bare and in tubes).
 #pragma once
 
+#include <complex>
 #include <cstddef>
+#include <optional>
 #include <utility>
 #include <vector>
 
 #include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/records.hpp"
 
 namespace libcoil {
 
@@ -34,9 +42,12 @@ struct Subdivision {
 };
 
 // The coarsest subdivision (at least 8 layers, grading 1.3, two sectors per layer) whose outer layer is no
-// thicker than a third of `skin_depth`, at most 24 layers. That is the 1 % criterion the tests measured:
-// (8, 1.3, 16) meets it to x = 10 and is within 0.5 % there; at x = 30 an outer layer of 0.9 delta was
-// 4.8 % low, 0.29 delta 1.2 % and 0.15 delta 0.8 %.
+// thicker than a sixth of `skin_depth`, at most 30 layers. Measured against the isolated ring's Bessel
+// solution (a = 200 mm, r = 1 mm): at d / delta 30 .. 166 an outer layer of delta / 2.6 reads R 0.7 % low,
+// delta / 4.5 0.1 % low, and finer ones converge to +0.19 % (the grading's own error; 1.2 gives +0.1 %).
+// Against the finite-element set (tests/reference/fem) R is within 0.5 % at every point to d / delta 83.
+// Cost: 1 + (layers - 1) x sectors cells a turn, halved by the mirror symmetry: at d / delta 100, 18
+// layers and 36 sectors, 613 cells a turn; 18 turns take about 30 s and 0.5 GB (dense LU).
 Subdivision subdivision_for(double wire_radius, double skin_depth);
 
 // The coil's whole turns as rings (mean radius, axial position): turns() rounded to the nearest whole
@@ -47,9 +58,10 @@ struct RingImpedance {
     double frequency = 0;    // Hz
     double resistance = 0;   // ohm
     double inductance = 0;   // H, including the internal inductance
-    bool resolved = true;    // the outer layer is no thicker than a third of the skin depth (the 1 % criterion)
-    // The wire-harmonic solver in a shield: the part of R and L the wall's currents add at the terminals
-    // (its eddy loss, its change of L); resistance and inductance above include them.
+    bool resolved = true;    // the outer layer is no thicker than a sixth of the skin depth (the 0.5 % criterion)
+    // In a shield: the part of R and L the wall's currents add at the terminals as the shield ring model
+    // gives it (the wall driven by the turns as filaments: its eddy loss, its change of L); resistance and
+    // inductance above include them, and the rest is the wires' own loss and L in the shield.
     double wall_resistance = 0;   // ohm
     double wall_inductance = 0;   // H (negative)
 };
@@ -57,11 +69,13 @@ struct RingImpedance {
 class CrossSectionSolver {
 public:
     // The coil's whole turns (turns() rounded to the nearest whole number, at least 1), centred on z = 0.
-    CrossSectionSolver(const Solenoid& coil, double resistivity, Subdivision sub = {});
+    // In a shield, every cell is coupled to the wall's rings (shield.hpp's ShieldWall): the wall's currents
+    // change the field at the wires, so that R is the wall's loss plus the wires' changed loss.
+    CrossSectionSolver(const Solenoid& coil, double resistivity, Subdivision sub = {}, std::optional<ShieldSpec> shield = {});
     // Explicit rings (radius, axial position) of one wire radius; for tests and references. The mirror
-    // symmetry is used only if the set of rings is symmetric about z = 0.
+    // symmetry is used only if the set of rings (and the shield) is symmetric about z = 0.
     CrossSectionSolver(std::vector<std::pair<double, double>> ring_centres, double wire_radius, double resistivity,
-                       Subdivision sub = {});
+                       Subdivision sub = {}, std::optional<ShieldSpec> shield = {});
 
     RingImpedance solve(double frequency) const;
 
@@ -76,9 +90,12 @@ private:
         int shape;         // index into the cross-section template
     };
     void build(const Subdivision& sub);
+    // The shield's wall coupled to every cell: adds to the orbits x orbits impedance matrix `z` (column-major).
+    void add_wall(std::complex<double>* z, double frequency, RingImpedance& out) const;
 
     std::vector<std::pair<double, double>> rings_;
     double wire_radius_, resistivity_, outer_layer_ = 0;
+    std::optional<ShieldSpec> shield_;
     std::vector<Cell> cells_;
     std::vector<double> self_;                 // self-inductance of each cell's ring
     std::vector<std::vector<int>> orbits_;     // cells identified by the mirror symmetry

@@ -81,10 +81,12 @@ std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& coil, const Con
                                                  double dc_inductance, const std::vector<double>& frequencies,
                                                  double mean_square_field);
 
-// The cross-section solver at each frequency. `progress(done, total)` is called after each solve.
+// The cross-section solver at each frequency. `progress(done, total)` is called after each solve. With
+// `shield`, as coil_at_frequencies_harmonic: the wires' own R and L in the wall's field, the wall's share
+// left out.
 std::vector<CoilAtFrequency> coil_at_frequencies_numerical(
     const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
     const std::vector<double>& frequencies, const Subdivision& subdivision = {},
-    const std::function<void(std::size_t, std::size_t)>& progress = {});
+    const std::function<void(std::size_t, std::size_t)>& progress = {}, const ShieldSpec* shield = nullptr);
 
 }  // namespace libcoil

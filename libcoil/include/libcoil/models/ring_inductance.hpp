@@ -18,4 +18,12 @@ double ring_self_inductance(double ring_radius, double wire_radius);
 // A square gives 0.44705 a, a thin strip a e^(-3/2). Used for the cells of the cross-section solver.
 double rectangle_gmd(double a, double b);
 
+// Geometric mean distance between two axis-aligned rectangles [x0, x1] x [z0, z1] and [u0, u1] x [w0, w1]
+// (they may touch or overlap): ln g = (1 / A1 A2) * integral of ln|p - q| over both, in closed form as the
+// 16-term difference of the fourth primitive of ln(x^2 + z^2) / 2,
+//   F(x, z) = x^3 z atan(z/x) / 6 + x z^3 atan(x/z) / 6 - 25 x^2 z^2 / 48 - (x^4 - 6 x^2 z^2 + z^4) ln(x^2 + z^2) / 48,
+// (terms of the form f(x) + g(x) z + h(z) + k(z) x cancel in the difference, which keeps thin rectangles
+// accurate). Derived for this project; the same rectangle twice gives rectangle_gmd.
+double rectangles_gmd(double x0, double x1, double z0, double z1, double u0, double u1, double w0, double w1);
+
 }  // namespace libcoil

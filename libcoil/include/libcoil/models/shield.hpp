@@ -24,6 +24,8 @@
 #pragma once
 
 #include <complex>
+#include <cstddef>
+#include <memory>
 #include <utility>
 #include <vector>
 
@@ -82,6 +84,26 @@ std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<do
 // The same driven by ring currents of any complex amplitude (a turn's dipole as two close rings, say).
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& sources, const ShieldSpec& shield,
                                                   double frequency);
+
+// The wall at one frequency as a linear system, for solvers that couple many sources to it (the cross-
+// section solver's cells): the ring model's rings (the same discretisation as shielded_coil) and their
+// impedance matrix Z_w, factorised once. `source_radius`: the outermost source ring, which the bore must clear.
+class ShieldWall {
+public:
+    ShieldWall(const ShieldSpec& shield, double source_radius, double frequency);
+    // The rings (radius, axial position), m.
+    const std::vector<std::pair<double, double>>& rings() const { return rings_; }
+    // The wall's currents when the sources link `flux[k]` (Wb) with ring k: Z_w I = -j w flux. `flux` holds
+    // `columns` such vectors one after another (column-major, rings() x columns) and is overwritten by the
+    // currents (A).
+    void currents(std::complex<double>* flux, std::size_t columns) const;
+
+private:
+    struct Factor;
+    std::vector<std::pair<double, double>> rings_;
+    double omega_ = 0;
+    std::shared_ptr<const Factor> factor_;
+};
 
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.
