@@ -168,6 +168,7 @@ def main():
            "mu0: float",
            "eps0: float",
            "speed_of_light: float",
+           "min_harmonic_diameter_ratio: float",
            "",
            "class InputError(ValueError): ...",
            "class DomainError(ValueError): ...",
@@ -192,7 +193,7 @@ def main():
             out.append("    def plot(self, ax: Any = ...) -> Any: ...")
         out.append("")
     for name in sorted(dir(_core)):
-        if name.startswith("_") or name in ("InputError", "DomainError", "mu0", "eps0", "speed_of_light"):
+        if name.startswith("_") or name in ("InputError", "DomainError", "mu0", "eps0", "speed_of_light", "min_harmonic_diameter_ratio"):
             continue
         obj = getattr(_core, name)
         if inspect.isclass(obj):

@@ -4,10 +4,13 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <optional>
+#include <vector>
 
 #include "libcoil/models/cross_section.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/filament.hpp"
+#include "libcoil/models/materials.hpp"
 #include "libcoil/models/ring_inductance.hpp"
 #include "libcoil/models/skin_effect.hpp"
 
@@ -60,8 +63,37 @@ TEST(CrossSection, DcInductanceMatchesTheFilamentModel) {
     // One ring: the ring formula itself.
     const CrossSectionSolver one({{10e-3, 0.0}}, 0.5e-3, rho, Subdivision{8, 1.3, 16});
     EXPECT_NEAR(one.solve(0).inductance / ring_self_inductance(10e-3, 0.5e-3), 1.0, 1e-3);
-    // The mirror symmetry halves the unknowns.
-    EXPECT_LT(s.unknowns(), s.filaments() / 2 + 20);
+    // Equal rings at a uniform pitch take the block form: every cell and each turn's voltage.
+    EXPECT_EQ(s.unknowns(), s.filaments() + 10);
+    // Other symmetric sets: the mirror symmetry halves the unknowns of the dense system.
+    const CrossSectionSolver uneven({{10e-3, -3e-3}, {10e-3, -1e-3}, {10e-3, 1e-3}, {10e-3, 3.5e-3}, {10e-3, 3e-3}, {10e-3, -3.5e-3}},
+                                    0.5e-3, rho, Subdivision{8, 1.3, 16});
+    EXPECT_EQ(uneven.unknowns(), uneven.filaments() / 2);
+}
+
+TEST(CrossSection, BlockFormAgreesWithTheDenseSystem) {
+    // The same coil as equal rings at a uniform pitch (block Toeplitz, GMRES to 1e-12) and with its rings
+    // listed in reverse (not uniform as given: the dense LU), bare and in a copper foil tube: one answer.
+    std::vector<std::pair<double, double>> rings;
+    for (int k = 0; k < 5; ++k) rings.emplace_back(13e-3, (k - 2) * 1.9e-3);
+    const std::vector<std::pair<double, double>> reversed(rings.rbegin(), rings.rend());
+    ShieldSpec foil;
+    foil.inner_diameter = 40e-3;
+    foil.thickness = 35e-6;
+    foil.length = 30e-3;
+    foil.material = conductor("copper");
+    for (const std::optional<ShieldSpec>& shield : {std::optional<ShieldSpec>{}, std::optional<ShieldSpec>{foil}}) {
+        const Subdivision sub{8, 1.3, 16};
+        const CrossSectionSolver blocks(rings, 0.645e-3, rho, sub, shield), dense(reversed, 0.645e-3, rho, sub, shield);
+        for (double f : {0.0, 1e5, 3e6}) {
+            EXPECT_GT(blocks.unknowns(), blocks.filaments());
+            EXPECT_LT(dense.unknowns(), dense.filaments() + 1);
+            const auto a = blocks.solve(f), b = dense.solve(f);
+            EXPECT_NEAR(a.resistance / b.resistance, 1.0, 1e-9) << f;
+            EXPECT_NEAR(a.inductance / b.inductance, 1.0, 1e-9) << f;
+            EXPECT_NEAR(a.wall_resistance, b.wall_resistance, 1e-12);
+        }
+    }
 }
 
 TEST(CrossSection, ProximityRaisesResistanceAndFallsWithPitch) {

@@ -59,26 +59,55 @@ def errors():
 
 
 ERRORS = errors()
+COIL_OF = {c["index"]: c for c in COILS}
+
+
+# The solver's domain (wire_harmonics.hpp's min_harmonic_diameter_ratio): mean diameter >= 6 wire diameters.
+INSIDE = [e for e in ERRORS if COIL_OF[e["index"]]["mean_diameter"] >= libcoil.min_harmonic_diameter_ratio * COIL_OF[e["index"]]["wire_diameter"]]
+OUTSIDE = [e for e in ERRORS if e not in INSIDE]
 
 
 def test_resistance_within_two_percent_of_the_filament_solver():
-    # Measured: R -0.84 .. +1.69 % (worst: coil 10, p/d 1.67, d/delta 13, D/d 5.2, 8 turns).
-    r = [e["r"] for e in ERRORS]
+    # In the domain (205 coils, d/delta 0.1 .. 92): measured R -0.27 .. +1.41 % (the worst: coil 80, p/d 1.48,
+    # d/delta 28, D/d 6.2, 6 turns).
+    assert len(INSIDE) >= 200
+    r = [e["r"] for e in INSIDE]
     assert max(abs(x) for x in r) < 0.02
-    assert min(r) == pytest.approx(-0.0084, abs=0.001) and max(r) == pytest.approx(0.0169, abs=0.001)
-    # As the analysis takes it (the ratio to each solver's own DC R): -0.14 .. +2.12 %, the worst a fat-wire
-    # coil (D/d 4.2, 23 turns at p/d 1.13, d/delta 9.7), where the torus's own DC R differs from rho l / A by
-    # 1.4 % and the two solvers' DC R by 0.4 %.
-    rr = [e["r_ratio"] for e in ERRORS]
-    assert max(abs(x) for x in rr) < 0.025
-    assert max(rr) == pytest.approx(0.0212, abs=0.001)
+    assert min(r) == pytest.approx(-0.0027, abs=0.001) and max(r) == pytest.approx(0.0141, abs=0.001)
+    # As the analysis takes it (the ratio to each solver's own DC R): -0.18 .. +1.66 %.
+    rr = [e["r_ratio"] for e in INSIDE]
+    assert max(abs(x) for x in rr) < 0.02
+    assert max(rr) == pytest.approx(0.0166, abs=0.001)
+    # Outside (fat wire, D/d 3.4 .. 5.8) the first-order curvature reads R up to 2.4 % high (the ratio
+    # 3.0 %): the reason for the limit, so the analysis takes the cross-section solver there.
+    assert max(e["r"] for e in OUTSIDE) > 0.02
 
 
 def test_inductance_change_within_half_a_percent_of_the_filament_solver():
-    # L(f) as the analysis forms it (the low-frequency L plus the solver's change with frequency):
-    # measured -0.31 .. 0.00 %. The solvers' L directly differ by up to -0.95 % for coils of D/d 3.4 .. 5
-    # (the curvature's second-order terms in the DC L, which the analysis takes from Rosa's model instead).
-    l = [e["l_change"] for e in ERRORS]
+    # L(f) as the analysis forms it (the low-frequency L plus the solver's change with frequency), in the
+    # domain: measured -0.16 .. 0.00 %. The solvers' L directly differ by up to -0.43 % there (the
+    # curvature's second-order terms in the DC L, which the analysis takes from Rosa's model instead).
+    l = [e["l_change"] for e in INSIDE]
     assert max(abs(x) for x in l) < 0.005
-    assert min(l) == pytest.approx(-0.0031, abs=0.0005)
-    assert min(e["l"] for e in ERRORS) > -0.0105
+    assert min(l) == pytest.approx(-0.0016, abs=0.0005)
+    assert min(e["l"] for e in INSIDE) > -0.005
+
+
+def test_fat_wire_takes_the_cross_section_solver():
+    # Under 6 wire diameters of mean diameter the analysis (and its winding heat, and the search's last
+    # step: losses.hpp's default_loss_solver) takes the cross-section solver, whose rings keep the curvature
+    # exactly; its R is then the solver's, scaled to the helix. 2 mm wire on a 9 mm mean diameter.
+    text = ("coil: {mean_diameter: 9 mm, turns: 6, pitch: 2.2 mm, wire: {diameter: 2 mm}, lead_length: 0 m}\n"
+            "operating: {frequencies: [1 MHz], temperature: 20 degC}\n")
+    a = libcoil.analyze(libcoil.parse_coil_spec(text, "fat"))
+    assert a.loss_method == "filaments"
+    assert any("fat" in w for w in a.warnings)
+    s = libcoil.Solenoid(mean_diameter=9e-3, turns=6, pitch=2.2e-3, wire=libcoil.Wire(diameter=2e-3))
+    rho = libcoil.conductor("copper").resistivity_at(293.15)
+    sub = libcoil.subdivision_for(1e-3, math.sqrt(rho / (math.pi * 4e-7 * math.pi * 1e6)))
+    solver = libcoil.CrossSectionSolver(s, rho, sub)
+    ratio = solver.solve(1e6)["resistance"] / solver.solve(0)["resistance"]
+    assert a.at_frequency.resistance[0] / a.dc_resistance == pytest.approx(ratio, rel=1e-6)
+    # The wire-harmonic solver on the same coil reads R higher: the reason for the rule.
+    h = libcoil.WireHarmonicSolver(s, rho)
+    assert h.solve(1e6)["resistance"] / h.solve(0)["resistance"] > ratio * 1.005

@@ -9,6 +9,7 @@ __version__: str
 mu0: float
 eps0: float
 speed_of_light: float
+min_harmonic_diameter_ratio: float
 
 class InputError(ValueError): ...
 class DomainError(ValueError): ...

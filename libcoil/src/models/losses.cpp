@@ -89,9 +89,10 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, co
     const double rho = cond.resistivity_at(temperature);
     const CrossSectionSolver solver(c, rho, sub, shield ? std::optional<ShieldSpec>(*shield) : std::nullopt);
     const RingImpedance dc = solver.solve(0);
-    const double rings = std::max(1.0, std::round(c.turns())) * 2 * pi * c.mean_radius();
-    const double scale = c.helix_length() / rings;  // ring circumferences -> helix
+    // As coil_at_frequencies_harmonic: the rings' R(f) / R(0) on the helix's DC resistance, so that f = 0
+    // gives the DC resistance exactly (a fat wire's torus has its own DC R: 1.4 % off rho l / A at D/d 4.2).
     const double per_m = dc_resistance_per_length(cond, c.wire().bare_diameter, temperature);
+    const double helix_dc = per_m * c.helix_length();
     std::vector<CoilAtFrequency> out;
     for (std::size_t i = 0; i < fs.size(); ++i) {
         const double f = fs[i];
@@ -101,7 +102,7 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, co
         p.frequency = f;
         p.resolved = z.resolved;
         p.numerical = true;
-        p.resistance = (z.resistance - z.wall_resistance) * scale + per_m * c.lead_length() * skin;
+        p.resistance = helix_dc * (z.resistance - z.wall_resistance) / dc.resistance + per_m * c.lead_length() * skin;
         p.skin_ratio = skin;
         p.proximity_ratio = (z.resistance - z.wall_resistance) / dc.resistance - skin;
         p.inductance = l_dc + (z.inductance - z.wall_inductance - dc.inductance);
@@ -152,7 +153,7 @@ WireLossTable::WireLossTable(const Solenoid& c, const Conductor& cond, double te
     const double d = c.wire().bare_diameter;
     const double onset = rho / (pi * mu0 * cond.relative_permeability * std::pow(d / 0.7, 2));
     low = std::max(low, onset);
-    if (high <= low) return;
+    if (high <= low || c.mean_radius() < min_harmonic_diameter_ratio * c.wire().radius() || cond.relative_permeability != 1) return;
     // Only where the solve is affordable (wire_harmonics_apply); above, the last point's correction holds.
     // Big systems take 3 points a decade.
     if (wire_harmonic_unknowns(c, rho, high) > default_max_harmonic_unknowns / 2) per_decade = std::min(per_decade, 3);
@@ -200,6 +201,36 @@ void WireLossTable::correct(std::vector<CoilAtFrequency>& points) const {
         p.inductance += inductance_offset(p.frequency);
         p.q_factor = q_of(p.frequency, p.inductance, p.resistance);
     }
+}
+
+double cross_section_cells(const Solenoid& c, double rho, double f) {
+    const Subdivision sub = subdivision_for(c.wire().radius(), skin_depth(rho, std::max(f, 1.0)));
+    return std::max(1.0, std::round(c.turns())) * (1 + (sub.layers - 1) * sub.sectors);
+}
+
+LossSolver default_loss_solver(const Solenoid& c, const Conductor& cond, double temperature, double highest,
+                               std::size_t max_harmonic_unknowns) {
+    if (wire_harmonics_apply(c, cond, temperature, highest, max_harmonic_unknowns)) return LossSolver::harmonics;
+    const bool fat = c.mean_radius() < min_harmonic_diameter_ratio * c.wire().radius();
+    if (fat && cond.relative_permeability == 1 && cross_section_cells(c, cond.resistivity_at(temperature), highest) <= max_fat_wire_cells) {
+        return LossSolver::filaments;
+    }
+    return LossSolver::closed_form;
+}
+
+std::vector<CoilAtFrequency> coil_at_frequencies_by(LossSolver solver, const Solenoid& c, const Conductor& cond, double temperature,
+                                                    double l_dc, const std::vector<double>& fs, double highest,
+                                                    const ShieldSpec* shield) {
+    switch (solver) {
+        case LossSolver::harmonics: return coil_at_frequencies_harmonic(c, cond, temperature, l_dc, fs, shield);
+        case LossSolver::filaments: {
+            const double rho = cond.resistivity_at(temperature);
+            const Subdivision sub = subdivision_for(c.wire().radius(), skin_depth(rho, std::max(highest, 1.0)));
+            return coil_at_frequencies_numerical(c, cond, temperature, l_dc, fs, sub, {}, shield);
+        }
+        case LossSolver::closed_form: break;
+    }
+    return coil_at_frequencies(c, cond, temperature, l_dc, fs);
 }
 
 }  // namespace libcoil

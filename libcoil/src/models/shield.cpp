@@ -235,7 +235,8 @@ ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : om
 void ShieldWall::currents(std::complex<double>* flux, std::size_t columns) const {
     const auto n = static_cast<Eigen::Index>(rings_.size());
     Eigen::Map<Eigen::MatrixXcd> b(flux, n, static_cast<Eigen::Index>(columns));
-    b = factor_->lu.solve(std::complex<double>(0, -omega_) * b);
+    const Eigen::MatrixXcd rhs = std::complex<double>(0, -omega_) * b;  // not in place: the LU's row permutation would alias
+    b = factor_->lu.solve(rhs);
 }
 
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& turns, const ShieldSpec& s, double f) {

@@ -235,7 +235,9 @@ std::string text_report(const Analysis& a) {
     if (!a.at_frequency.empty()) {
         if (a.loss_method == LossSolver::filaments) {
             o << "  losses by the cross-section filament solver (" << a.subdivision.layers << " layers, grading "
-              << fixed(a.subdivision.grading, 2) << ", " << a.subdivision.sectors << " sectors)\n";
+              << fixed(a.subdivision.grading, 2) << ", " << a.subdivision.sectors << " sectors)\n"
+              << "  measured against a finite-element reference: " << cross_section_measured_error << "\n";
+            if (a.shield) o << "  the wires' own R and L in the shield's field; the wall's loss joins them in the impedance below\n";
         } else if (a.loss_method == LossSolver::harmonics) {
             o << "  losses by the wire-harmonic solver (Bessel harmonics of each wire's current: skin and proximity together)\n"
               << "  measured against a finite-element reference: " << wire_harmonics_measured_error << "\n";

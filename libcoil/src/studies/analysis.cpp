@@ -28,11 +28,11 @@ void add_thermal(Analysis& a, const AnalysisOptions& options) {
     const std::optional<FormerMaterial> former = a.spec.former ? std::optional(a.spec.former->material) : std::nullopt;
     double limit = a.spec.enamel_class;
     if (former && former->max_service_temperature > 0) limit = std::min(limit, former->max_service_temperature);
-    // With the default loss model, the winding heats with the wire-harmonic solver's R_ac / R_dc (the closed
-    // forms read close-wound turns up to 26 % low).
+    // With a solver as the loss model, the winding heats with its R_ac / R_dc (the closed forms read
+    // close-wound turns up to 28 % low).
     std::optional<double> ratio;
-    if (options.solver == LossSolver::harmonics && op.current_frequency && *op.current_frequency > 0) {
-        ratio = harmonic_ac_ratio(a.spec.solenoid, a.spec.conductor, op.ambient, *op.current_frequency);
+    if (options.solver != LossSolver::closed_form && op.current_frequency && *op.current_frequency > 0) {
+        ratio = ac_ratio_by(options.solver, a.spec.solenoid, a.spec.conductor, op.ambient, *op.current_frequency);
     }
     const WindingHeat heat = winding_heat(a.spec.solenoid, a.spec.conductor, op.current, op.current_frequency, op.ambient, limit, ratio);
     const WindingTemperature w = settle_winding(heat, 3e-11, true);
@@ -298,14 +298,24 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
         double top = spec.operating.current_frequency.value_or(0.0);
         for (double f : spec.operating.frequencies) top = std::max(top, f);
         const double rho = spec.conductor.resistivity_at(spec.operating.temperature);
-        if (!wire_harmonics_apply(spec.solenoid, spec.conductor, spec.operating.temperature, top, resolved.max_harmonic_unknowns)) {
-            resolved.solver = LossSolver::closed_form;
+        const Solenoid& s = spec.solenoid;
+        const bool fat = s.mean_radius() < min_harmonic_diameter_ratio * s.wire().radius();
+        resolved.solver = default_loss_solver(s, spec.conductor, spec.operating.temperature, top, resolved.max_harmonic_unknowns);
+        if (resolved.solver == LossSolver::filaments) {
+            a.warnings.push_back("R and L(f) from the cross-section solver: the wire is fat (mean diameter " +
+                                 three_digits(s.mean_radius() / s.wire().radius()) + " wire diameters, under " +
+                                 three_digits(min_harmonic_diameter_ratio) + "), where the wire-harmonic solver reads R up to 2.4 % high");
+        } else if (resolved.solver == LossSolver::closed_form) {
             a.warnings.push_back(spec.conductor.relative_permeability != 1
                                      ? std::string("R and L(f) from the closed forms: the wire-harmonic solver takes non-magnetic wire only")
-                                     : "R and L(f) from the closed forms: the wire-harmonic solver would take " +
-                                           std::to_string(wire_harmonic_unknowns(spec.solenoid, rho, top)) + " unknowns for this coil, more than the " +
-                                           std::to_string(resolved.max_harmonic_unknowns) +
-                                           " it is allowed by default (the closed forms read close-wound turns up to 26 % low)");
+                                 : fat ? std::string("R and L(f) from the closed forms: the wire is fat (mean diameter under ") +
+                                             three_digits(min_harmonic_diameter_ratio) + " wire diameters) and the cross-section solver would take " +
+                                             three_digits(cross_section_cells(s, rho, top)) + " cells, more than " +
+                                             three_digits(max_fat_wire_cells)
+                                       : "R and L(f) from the closed forms: the wire-harmonic solver would take " +
+                                             std::to_string(wire_harmonic_unknowns(spec.solenoid, rho, top)) + " unknowns for this coil, more than the " +
+                                             std::to_string(resolved.max_harmonic_unknowns) +
+                                             " it is allowed by default (the closed forms read close-wound turns up to 28 % low)");
         }
     }
     a.notes = spec.notes;

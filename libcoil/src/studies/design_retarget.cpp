@@ -1,5 +1,6 @@
 // The design search's last step for a kept design: the target met at the target frequency by the
-// wire-harmonic solver (design_search.hpp's Evaluator::retarget).
+// analysis's loss model (the wire-harmonic solver, or for fat wire the cross-section solver;
+// design_search.hpp's Evaluator::retarget).
 #include <cmath>
 
 #include "libcoil/core/constants.hpp"
@@ -12,26 +13,31 @@
 
 namespace libcoil::detail {
 
-// L at the target frequency as the analysis computes it: the wires' own L(f) by the wire-harmonic solver
-// (in the shield's field, if any; the closed forms where the analysis takes them), plus the shield ring model's change
+// L at the target frequency as the analysis computes it: the wires' own L(f) by its loss model (in the
+// shield's field, if any), plus the shield ring model's change
 // of L at that frequency.
 double Evaluator::inductance_at_target(const DesignFigures& d) const {
     const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
     const double bare = d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0.0);
     const double temperature = d.temperature > 0 ? d.temperature : q_.ambient;
     const ShieldSpec* shield = q_.shield ? &*q_.shield : nullptr;
-    double l = harmonics_apply(s)
-                   ? coil_at_frequencies_harmonic(s, q_.conductor, temperature, bare, {target_frequency_}, shield).front().inductance
-                   : coil_at_frequencies(s, q_.conductor, temperature, bare, {target_frequency_}).front().inductance;
+    double l = coil_at_frequencies_by(loss_solver(s), s, q_.conductor, temperature, bare, {target_frequency_}, top_frequency(), shield)
+                   .front()
+                   .inductance;
     if (shield) l += shielded_coil(s, bare, *shield, {target_frequency_}).points.front().inductance - bare;
     return l;
 }
 
-// As the analysis of the design's spec decides (its frequencies: the band's edges, the target's, the current's).
-bool Evaluator::harmonics_apply(const Solenoid& s) const {
+// The highest frequency the analysis of the design's spec asks for (the band's edges, the target's, the current's).
+double Evaluator::top_frequency() const {
     double top = std::max(target_frequency_, q_.current_frequency.value_or(0.0));
     if (q_.band) top = std::max(top, q_.band->ceiling);
-    return wire_harmonics_apply(s, q_.conductor, q_.ambient, top);
+    return top;
+}
+
+// As the analysis of the design's spec decides (losses.hpp's default_loss_solver).
+LossSolver Evaluator::loss_solver(const Solenoid& s) const {
+    return default_loss_solver(s, q_.conductor, q_.ambient, top_frequency(), default_max_harmonic_unknowns);
 }
 
 bool Evaluator::retarget(DesignFigures& d) const {
@@ -41,15 +47,15 @@ bool Evaluator::retarget(DesignFigures& d) const {
     const Candidate c{d.wire_index, d.form_diameter, d.pitch_before_trim / d_ins};
     DesignFigures cur = d;
     const bool heated = q_.current > 0 && q_.current_frequency && *q_.current_frequency > 0 &&
-                        harmonics_apply(Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length}));
+                        loss_solver(Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length})) !=
+                            LossSolver::closed_form;
     for (int k = 0; k < 8; ++k) {
         const double fall = inductance_at_target(cur) - cur.inductance;  // against the (shielded) nominal L
         // The winding heats with the solver's R_ac / R_dc too, as the analysis heats it.
         std::optional<double> ratio;
         if (heated) {
-            ratio = harmonic_ac_ratio(Solenoid(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index],
-                                                                q_.lead_length}),
-                                      q_.conductor, q_.ambient, *q_.current_frequency);
+            const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
+            ratio = ac_ratio_by(loss_solver(s), s, q_.conductor, q_.ambient, *q_.current_frequency);
         }
         const bool settled = e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance &&
                              (!heated || std::fabs(*e.fixed_ac_ratio_ / *ratio - 1) <= 1e-10);
@@ -66,7 +72,7 @@ bool Evaluator::retarget(DesignFigures& d) const {
     cur.inductance_at_target = inductance_at_target(cur);
     if (heated) {
         const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
-        e.fixed_ac_ratio_ = harmonic_ac_ratio(s, q_.conductor, q_.ambient, *q_.current_frequency);
+        e.fixed_ac_ratio_ = ac_ratio_by(loss_solver(s), s, q_.conductor, q_.ambient, *q_.current_frequency);
         Tally t;
         if (!e.screen_thermal(c, s, cur, t)) return false;
         e.loss_at_reference(s, cur, std::nullopt);
@@ -74,9 +80,12 @@ bool Evaluator::retarget(DesignFigures& d) const {
     // R and Q at the reference frequency by the solver too (the screen ranked with the closed forms').
     if (reference_ > 0) {
         const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
-        if (harmonics_apply(s)) {
+        const LossSolver solver = loss_solver(s);
+        if (solver != LossSolver::closed_form) {
             const double bare = cur.inductance - (q_.shield ? shield_change(cur.mean_diameter, cur.wire_index, cur.turns, cur.pitch) : 0.0);
-            cur.resistance = coil_at_frequencies_harmonic(s, q_.conductor, cur.temperature, bare, {reference_}).front().resistance;
+            cur.resistance = coil_at_frequencies_by(solver, s, q_.conductor, cur.temperature, bare, {reference_}, top_frequency())
+                                 .front()
+                                 .resistance;
             cur.q_factor = 2 * pi * reference_ * cur.inductance / cur.resistance;
         }
     }

@@ -123,7 +123,8 @@ public:
     // frequency meets the target; its figures recomputed. False if no pitch of its candidate does.
     bool retarget(DesignFigures& d) const;
     double inductance_at_target(const DesignFigures& d) const;
-    bool harmonics_apply(const Solenoid& s) const;
+    double top_frequency() const;
+    LossSolver loss_solver(const Solenoid& s) const;
 
 private:
     void check(const Candidate& c, Tally& t) const;

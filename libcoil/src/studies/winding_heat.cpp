@@ -11,10 +11,10 @@
 
 namespace libcoil {
 
-double harmonic_ac_ratio(const Solenoid& s, const Conductor& conductor, double temperature, double frequency) {
+double ac_ratio_by(LossSolver solver, const Solenoid& s, const Conductor& conductor, double temperature, double frequency) {
     if (!(frequency > 0)) return 1.0;
     const double l = 1e-6;  // the inductance does not enter R
-    const auto p = coil_at_frequencies_harmonic(s, conductor, temperature, l, {0.0, frequency});
+    const auto p = coil_at_frequencies_by(solver, s, conductor, temperature, l, {0.0, frequency}, frequency);
     return p[1].resistance / p[0].resistance;
 }
 

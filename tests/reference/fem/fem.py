@@ -56,7 +56,7 @@ def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_ov
                "-setnumber", "Rint", repr(rint), "-setnumber", "Rext", repr(rext),
                "-setnumber", "Tube", "1" if tube is not None else "0", "-setnumber", "sigt", repr(float(sigt))]
         subprocess.run(["getdp", "rings.pro", "-msh", "rings.msh", "-solve", "Magnetodynamics2D_av", "-pos", "voltages"] + pro,
-                       cwd=tmp, check=True, capture_output=True, timeout=1800)
+                       cwd=tmp, check=True, capture_output=True, timeout=5400)
         values = [float(x) for line in open(os.path.join(tmp, "U.txt")) for x in line.split()[1:]]
     # One row: the time (0), then each ring's voltage as (real, imaginary). GetDP's U is the voltage the
     # field drives, -Z I for the imposed 1 A; the rings are in series.

@@ -50,6 +50,11 @@ struct Subdivision {
 // layers and 36 sectors, 613 cells a turn; 18 turns take about 30 s and 0.5 GB (dense LU).
 Subdivision subdivision_for(double wire_radius, double skin_depth);
 
+// The solver's measured error against the finite-element set with subdivision_for's rule, for reports
+// (tests/python/test_fem_reference.py enforces 0.5 % for R).
+inline constexpr const char* cross_section_measured_error =
+    "R -0.35 .. +0.47 %, L -0.19 .. -0.01 % (six bare coils 100 kHz .. 30 MHz, three in copper tubes to 1 MHz)";
+
 // The coil's whole turns as rings (mean radius, axial position): turns() rounded to the nearest whole
 // number, at least 1, centred on z = 0. Both ring solvers (this one and wire_harmonics.hpp) take them.
 std::vector<std::pair<double, double>> coil_ring_centres(const Solenoid& coil);
@@ -80,7 +85,8 @@ public:
     RingImpedance solve(double frequency) const;
 
     std::size_t filaments() const { return cells_.size(); }
-    std::size_t unknowns() const { return orbits_.size(); }
+    // Complex unknowns of the system solved (the block form: every cell and every turn's voltage).
+    std::size_t unknowns() const { return blocks_.empty() ? orbits_.size() : cells_.size() + rings_.size(); }
 
 private:
     struct Cell {
@@ -90,8 +96,14 @@ private:
         int shape;         // index into the cross-section template
     };
     void build(const Subdivision& sub);
-    // The shield's wall coupled to every cell: adds to the orbits x orbits impedance matrix `z` (column-major).
-    void add_wall(std::complex<double>* z, double frequency, RingImpedance& out) const;
+    // The shield's wall coupled to the unknowns (the orbits, or with `per_cell` every cell): the cells'
+    // impedance gains j w back drive (column-major, unknowns x wall rings and wall rings x unknowns);
+    // `out` gets the wall's share.
+    void wall_coupling(double frequency, bool per_cell, std::vector<std::complex<double>>& back,
+                       std::vector<std::complex<double>>& drive, RingImpedance& out) const;
+    // Coils of equal rings at a uniform pitch: the turns' couplings depend only on their distance, so one
+    // block per distance (block Toeplitz) and an iterative solve (cross_section_blocks.cpp).
+    RingImpedance solve_blocks(double frequency) const;
 
     std::vector<std::pair<double, double>> rings_;
     double wire_radius_, resistivity_, outer_layer_ = 0;
@@ -102,6 +114,10 @@ private:
     std::vector<int> turn_orbit_of_turn_;      // turn -> turn orbit
     std::vector<int> turn_orbit_multiplicity_;
     std::vector<double> mutual_reduced_;       // orbits x orbits, row-major: sum over the column orbit
+    // Block Toeplitz form (equal rings at a uniform pitch): blocks_[m] (C x C, row-major) couples cell q of
+    // turn t with cell q' of turn t + m; C = cells_per_turn_. Empty: the dense form above.
+    std::vector<std::vector<double>> blocks_;
+    std::size_t cells_per_turn_ = 0;
 };
 
 }  // namespace libcoil

@@ -18,6 +18,7 @@
 #include "libcoil/models/cross_section.hpp"
 #include "libcoil/models/materials.hpp"
 #include "libcoil/models/solenoid.hpp"
+#include "libcoil/spec/choices.hpp"
 #include "libcoil/spec/records.hpp"
 
 namespace libcoil {
@@ -88,5 +89,22 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(
     const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
     const std::vector<double>& frequencies, const Subdivision& subdivision = {},
     const std::function<void(std::size_t, std::size_t)>& progress = {}, const ShieldSpec* shield = nullptr);
+
+// The loss model libcoil takes by default for a coil whose highest frequency of interest is `highest`
+// (one rule for the analysis, its winding heat and the design search's last step): the wire-harmonic
+// solver where it applies (wire_harmonics_apply); fat wire (mean diameter under min_harmonic_diameter_ratio
+// wire diameters, non-magnetic) the cross-section solver, up to max_fat_wire_cells cells at subdivision_for
+// of `highest` (its block form: 20 000 cells, 64 turns at d / delta 30, solve in 4.9 s on one core);
+// else the closed forms.
+inline constexpr double max_fat_wire_cells = 20000;
+LossSolver default_loss_solver(const Solenoid& coil, const Conductor& conductor, double temperature, double highest,
+                               std::size_t max_harmonic_unknowns);
+// The cells the cross-section solver takes for `coil` with subdivision_for at `frequency`.
+double cross_section_cells(const Solenoid& coil, double resistivity, double frequency);
+// The coil at `frequencies` by `solver` (filaments: subdivision_for at `highest`); with `shield`, the wires'
+// own R and L in its field (the solvers; the closed forms ignore it).
+std::vector<CoilAtFrequency> coil_at_frequencies_by(LossSolver solver, const Solenoid& coil, const Conductor& conductor,
+                                                    double temperature, double dc_inductance, const std::vector<double>& frequencies,
+                                                    double highest, const ShieldSpec* shield = nullptr);
 
 }  // namespace libcoil

@@ -11,6 +11,7 @@
 #include <string>
 
 #include "libcoil/models/materials.hpp"
+#include "libcoil/spec/choices.hpp"
 #include "libcoil/models/solenoid.hpp"
 #include "libcoil/models/thermal.hpp"
 
@@ -34,9 +35,10 @@ struct WindingHeat {
 WindingHeat winding_heat(const Solenoid& coil, const Conductor& conductor, double current,
                          std::optional<double> current_frequency, double ambient, double limit,
                          std::optional<double> ac_ratio = std::nullopt);
-// R_ac / R_dc of the winding at `frequency` and `temperature` by the wire-harmonic solver, what the analysis
-// and the search's last step heat it with where the solver applies (wire_harmonics_apply).
-double harmonic_ac_ratio(const Solenoid& coil, const Conductor& conductor, double temperature, double frequency);
+// R_ac / R_dc of the winding at `frequency` and `temperature` by `solver` (losses.hpp's
+// coil_at_frequencies_by), what the analysis and the search's last step heat it with where a solver is
+// the loss model (default_loss_solver).
+double ac_ratio_by(LossSolver solver, const Solenoid& coil, const Conductor& conductor, double temperature, double frequency);
 
 struct WindingTemperature {
     bool over_limit = false;  // the winding would settle above its limit (or run away)
