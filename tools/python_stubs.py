@@ -48,6 +48,7 @@ RECORD_FIELDS = {
 }
 # Functions whose pybind11 return type says only "object".
 RETURNS = {
+    "read_network": "Record", "read_measurement": "Record", "measured_figures": "Record",
     "design": "DesignResult", "couple": "CouplingResult", "former": "FormerResult", "sweep": "Sweep",
     "self_resonance": "Record", "design_array": "np.recarray", "lumped_impedance": "complex | NDArray[np.complex128]",
     "awg_diameter": "float | NDArray[np.float64]",
@@ -74,7 +75,7 @@ def py_type(t):
     t = re.sub(r"\bList\[", "list[", t)
     t = re.sub(r"\bTuple\[", "tuple[", t)
     t = re.sub(r"\bDict\[", "dict[", t)
-    t = re.sub(r"Optional\[([^\[\]]+)\]", r"\1 | None", t)
+    t = re.sub(r"Optional\[((?:[^\[\]]|\[[^\[\]]*\])+)\]", r"\1 | None", t)
     t = t.replace("Callable[[float], float]", "Callable[[float], float]")
     return t
 

@@ -6,6 +6,8 @@
 #include <pybind11/functional.h>
 #include <pybind11/stl/filesystem.h>
 
+#include <algorithm>
+#include <complex>
 #include <optional>
 
 #include "libcoil/libcoil.hpp"
@@ -53,6 +55,49 @@ void bind_models(py::module_& m) {
     m.def("format_quantity", [](double v, const std::string& dimension, int digits) {
         return libcoil::format_quantity(v, dimension_from_name(dimension), digits);
     }, "value"_a, "dimension"_a, "digits"_a = 4);
+
+    // Measurement files in.
+    m.def("read_network", [](const std::string& path) {
+        const libcoil::NetworkData d = libcoil::read_network_file(path);
+        const auto n = static_cast<py::ssize_t>(d.frequency.size()), p = static_cast<py::ssize_t>(d.ports);
+        py::array_t<std::complex<double>> values({n, p, p});
+        std::copy(d.values.begin(), d.values.end(), values.mutable_data());
+        return record("Record", py::dict("frequency"_a = py::array_t<double>(n, d.frequency.data()), "matrix"_a = values,
+                                         "ports"_a = d.ports, "parameter"_a = std::string(1, d.parameter),
+                                         "reference"_a = d.reference, "notes"_a = d.notes));
+    }, "path"_a, "A Touchstone (.s1p, .s2p, .ts) or CSV measurement: frequency (Hz) and the port matrices "
+                 "as the file holds them (S, Y or Z): matrix[k, i, j].");
+
+    m.def("read_measurement", [](const std::string& path, const std::string& arrangement) {
+        const libcoil::MeasuredImpedance z = libcoil::measured_impedance(
+            libcoil::read_network_file(path), libcoil::parse_choice<libcoil::MeasurementArrangement>(arrangement, "arrangement"));
+        return record("Record", py::dict("frequency"_a = py::array_t<double>(static_cast<py::ssize_t>(z.frequency.size()), z.frequency.data()),
+                                         "impedance"_a = py::array_t<std::complex<double>>(static_cast<py::ssize_t>(z.impedance.size()), z.impedance.data()),
+                                         "relative_error"_a = py::array_t<double>(static_cast<py::ssize_t>(z.relative_error.size()), z.relative_error.data()),
+                                         "weight"_a = py::array_t<double>(static_cast<py::ssize_t>(z.weight.size()), z.weight.data()),
+                                         "notes"_a = z.notes));
+    }, "path"_a, "arrangement"_a = "reflection",
+       "The coil's measured Z (ohm) at each frequency (Hz) by the arrangement it was measured in, with each point's "
+       "relative error for a trace error of 0.001 and its weight.");
+    m.def("measured_figures", [](std::vector<double> f, std::vector<std::complex<double>> z, std::optional<std::vector<double>> weight) {
+        libcoil::MeasuredImpedance m;
+        m.frequency = std::move(f);
+        m.impedance = std::move(z);
+        if (m.impedance.size() != m.frequency.size()) throw libcoil::InputError("impedance", "one value a frequency");
+        m.weight = weight ? *weight : std::vector<double>(m.frequency.size(), 1.0);
+        if (m.weight.size() != m.frequency.size()) throw libcoil::InputError("weight", "one value a frequency");
+        m.relative_error.assign(m.frequency.size(), 0.0);
+        const libcoil::MeasuredFigures r = libcoil::measured_figures(m);
+        const auto opt = [](const std::optional<double>& v) -> py::object { return v ? py::float_(*v) : py::object(py::none()); };
+        return record("Record", py::dict("reference_frequency"_a = r.reference_frequency, "inductance"_a = r.inductance,
+                                         "resistance"_a = r.resistance, "self_resonance"_a = opt(r.self_resonance),
+                                         "self_capacitance"_a = opt(r.self_capacitance),
+                                         "impedance_at_resonance"_a = opt(r.impedance_at_resonance),
+                                         "q_at_resonance"_a = opt(r.q_at_resonance), "second_resonance"_a = opt(r.second_resonance),
+                                         "q_factor"_a = py::array_t<double>(static_cast<py::ssize_t>(r.q_factor.size()), r.q_factor.data())));
+    }, "frequency"_a, "impedance"_a, "weight"_a = py::none(),
+       "L and R at the lowest well-measured frequency, the SRF, the self-capacitance, |Z| and Q at the SRF, the second "
+       "resonance and Q(f), read straight from a measured Z.");
 
     // Wire.
     m.def("parse_awg", [](const std::string& t) { return libcoil::parse_awg(t, "gauge"); }, "text"_a);

@@ -5,14 +5,15 @@ import re
 
 import pytest
 
-LAYERS = ["core", "spec", "models", "studies", "outputs"]
+LAYERS = ["core", "spec", "inputs", "models", "studies", "outputs"]
 # What each layer may include from the library (its own folder, and these).
 ALLOWED = {
     "core": {"core"},
+    "inputs": {"core", "inputs"},           # measurement files in: plain text to records, no physics
     "spec": {"core", "spec", "models"},     # the records name materials and wires (models/materials.hpp, wire.hpp)
     "models": {"core", "spec", "models"},   # models read the plain input records (spec/records.hpp, choices.hpp)
-    "studies": {"core", "spec", "models", "studies"},
-    "outputs": {"core", "spec", "models", "studies", "outputs"},
+    "studies": {"core", "spec", "inputs", "models", "studies"},
+    "outputs": {"core", "spec", "inputs", "models", "studies", "outputs"},
 }
 # A model may see the spec layer's records and choices, never its readers.
 MODEL_SPEC_HEADERS = {"spec/records.hpp", "spec/choices.hpp"}

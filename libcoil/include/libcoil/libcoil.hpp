@@ -12,6 +12,9 @@
 #include "libcoil/spec/requirement.hpp"
 #include "libcoil/spec/spec.hpp"
 
+// measurement files in: Touchstone and CSV to a record of frequencies and port matrices
+#include "libcoil/inputs/network_file.hpp"
+
 // the physics, one file per model
 #include "libcoil/models/coaxial_mutual.hpp"
 #include "libcoil/models/coupling.hpp"
@@ -44,6 +47,7 @@
 #include "libcoil/models/wire.hpp"
 
 // studies: inputs to one result record each
+#include "libcoil/studies/measurement.hpp"
 #include "libcoil/studies/analysis.hpp"
 #include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/cautions.hpp"

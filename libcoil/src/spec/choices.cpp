@@ -44,6 +44,11 @@ constexpr std::array<Choice<Arrangement>, 2> arrangements{{
     {Arrangement::coaxial, "coaxial", "on one axis"},
     {Arrangement::side_by_side, "side-by-side", "parallel axes"},
 }};
+constexpr std::array<Choice<MeasurementArrangement>, 3> measurement_arrangements{{
+    {MeasurementArrangement::reflection, "reflection", "one port at the coil's terminals: Z = Z0 (1 + S11) / (1 - S11)"},
+    {MeasurementArrangement::series_through, "series-through", "the coil in series between two ports: Z = 2 Z0 (1 - S21) / S21"},
+    {MeasurementArrangement::shunt_through, "shunt-through", "the coil from the through line to ground: Z = Z0 S21 / (2 (1 - S21))"},
+}};
 constexpr std::array<Choice<Spacing>, 2> spacings{{
     {Spacing::logarithmic, "log", "logarithmic"},
     {Spacing::linear, "linear", "linear"},
@@ -92,6 +97,7 @@ LIBCOIL_CHOICES(CapacitanceSource, capacitance_sources)
 LIBCOIL_CHOICES(LossSolver, loss_solvers)
 LIBCOIL_CHOICES(Arrangement, arrangements)
 LIBCOIL_CHOICES(Spacing, spacings)
+LIBCOIL_CHOICES(MeasurementArrangement, measurement_arrangements)
 
 #undef LIBCOIL_CHOICES
 

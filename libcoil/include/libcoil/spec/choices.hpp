@@ -35,6 +35,9 @@ enum class LossSolver { harmonics, closed_form, filaments };
 enum class Arrangement { coaxial, side_by_side };
 // A frequency grid's spacing.
 enum class Spacing { logarithmic, linear };
+// How a measured file holds the coil (measurement.hpp): one port at its terminals, or between two ports
+// in series, or from the through line to ground (shunt).
+enum class MeasurementArrangement { reflection, series_through, shunt_through };
 // How the turn network takes the turns' capacitances (turn_network.hpp):
 //  thin_wire             a line charge on each turn's axis (as NEC2's thin-wire kernel);
 //  wire_surface          the charge on each wire's true surface and its enamel (axisymmetric_charge.hpp):
@@ -78,6 +81,7 @@ LIBCOIL_DECLARE_CHOICES(FormerKind)
 LIBCOIL_DECLARE_CHOICES(GrooveProfile)
 LIBCOIL_DECLARE_CHOICES(ImpedanceModel)
 LIBCOIL_DECLARE_CHOICES(TurnCapacitance)
+LIBCOIL_DECLARE_CHOICES(MeasurementArrangement)
 LIBCOIL_DECLARE_CHOICES(CapacitanceSource)
 LIBCOIL_DECLARE_CHOICES(LossSolver)
 LIBCOIL_DECLARE_CHOICES(Arrangement)
