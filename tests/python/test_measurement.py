@@ -97,3 +97,36 @@ def test_the_wrong_file_for_the_arrangement(tmp_path):
         libcoil.read_measurement(path, arrangement="series-through")
     with pytest.raises(libcoil.InputError, match="arrangement"):
         libcoil.read_measurement(path, arrangement="sideways")
+
+
+def test_coil_compare_against_the_coils_own_sweep(run_coil, source_dir, tmp_path):
+    # The coil's own predicted sweep, written as a Touchstone file, read back as a measurement: every figure
+    # agrees with the prediction to the file's precision (the CLI end to end).
+    import json
+    spec = source_dir / "data/examples/bench-network-coil.yaml"
+    r = run_coil("sweep", spec, "--out", tmp_path)
+    assert r.returncode == 0, r.stderr
+    r = run_coil("compare", spec, tmp_path / "bench-network-coil.s1p", "--json")
+    assert r.returncode == 0, r.stderr
+    j = json.loads(r.stdout)
+    for key in ("inductance_H", "resistance_ohm", "self_resonance_Hz", "self_capacitance_F", "q_at_resonance"):
+        assert j["extracted"][key] == pytest.approx(j["predicted"][key], rel=1e-6), key
+        assert abs(j["deviation"][key]) < 1e-6, key
+    out = tmp_path / "out"
+    r = run_coil("compare", spec, tmp_path / "bench-network-coil.s1p", "--out", out)
+    assert r.returncode == 0 and "deviation" in r.stdout
+    assert sorted(p.name for p in out.iterdir()) == ["bench-network-coil.compare.csv", "bench-network-coil.compare.json",
+                                                   "bench-network-coil.compare.txt"]
+
+
+def test_coil_compare_on_a_malformed_file_exits_2_and_writes_nothing(run_coil, source_dir, tmp_path):
+    from test_network_files import MALFORMED
+    spec = source_dir / "data/examples/bench-network-coil.yaml"
+    for name, text, line, fragment in MALFORMED:
+        path = tmp_path / name
+        path.write_text(text)
+        out = tmp_path / "out"
+        r = run_coil("compare", spec, path, "--out", out)
+        assert r.returncode == 2, (name, r.stdout, r.stderr)
+        assert r.stderr.startswith(f"coil: {name} line {line}, column"), r.stderr
+        assert fragment in r.stderr and r.stdout == "" and not out.exists()

@@ -179,6 +179,24 @@ int run_sweep(const Given& g) {
     return 0;
 }
 
+int run_compare(const Given& g) {
+    const std::string& spec = g.positional.at(0);
+    const libcoil::MeasuredImpedance m = libcoil::measured_impedance(libcoil::read_network_file(g.positional.at(1)),
+                                                                     *g.choice<libcoil::MeasurementArrangement>("arrangement"));
+    const libcoil::Comparison c = libcoil::compare_study(libcoil::analyze(libcoil::load_coil_spec(spec)), m);
+    const std::string text = libcoil::comparison_text_report(c), json = libcoil::comparison_json_report(c);
+    std::vector<std::string> written;
+    if (g.has("out")) {
+        const std::filesystem::path dir(g.text("out"));
+        const std::string stem = stem_of(spec);
+        written = write_all({{dir / (stem + ".compare.txt"), text}, {dir / (stem + ".compare.json"), json},
+                             {dir / (stem + ".compare.csv"), libcoil::comparison_csv(c)}});
+    }
+    std::cout << (g.flag("json") ? json : text);
+    if (!g.flag("json")) print_written(written);
+    return 0;
+}
+
 int run_design(const Given& g) {
     const std::string& path = g.positional.at(0);
     const libcoil::Requirement q = libcoil::load_requirement(path);
@@ -322,6 +340,8 @@ const Verb verbs[] = {
     {"analyze", "Geometry, inductance, losses, self-resonance and the band check of the coil in a YAML spec",
      {{"spec", "Coil spec (YAML)"}}, run_analyze},
     {"sweep", "Impedance of the coil over frequency: CSV, Touchstone (.s1p) and a picture", {{"spec", "Coil spec (YAML)"}}, run_sweep},
+    {"compare", "The coil in a spec against a measurement of it (Touchstone .s1p/.s2p/.ts or CSV): the figures of both, side by side",
+     {{"spec", "Coil spec (YAML)"}, {"measurement", "The measured file"}}, run_compare},
     {"design", "Search for the coils that meet a requirement (YAML) and rank them", {{"requirement", "Design requirement (YAML)"}},
      run_design},
     {"former", "A printable winding former for the coil in a spec: STL, a dimension sheet (SVG) and its dimensions (YAML)",

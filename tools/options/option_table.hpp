@@ -65,6 +65,14 @@ inline const std::vector<Option>& option_table() {
          D::dimensionless, &choice_names<CapacitanceSource>, "helical-line"},
         {"sweep", "out", "--out", Kind::text, "Write STEM.sweep.csv, STEM.s1p and STEM.sweep.svg here (else CSV to stdout)",
          D::dimensionless, nullptr, "", false},
+        // coil compare SPEC MEASUREMENT
+        {"compare", "arrangement", "--arrangement", Kind::choice,
+         "How the file holds the coil: 'reflection' (one port at its terminals), 'series-through' (in series between two "
+         "ports) or 'shunt-through' (from the through line to ground)",
+         D::dimensionless, &choice_names<MeasurementArrangement>, "reflection", false},
+        {"compare", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
+        {"compare", "out", "--out", Kind::text, "Also write STEM.compare.txt, STEM.compare.json and STEM.compare.csv (both on the "
+         "measurement's frequencies) here", D::dimensionless, nullptr, "", false},
         // coil design REQUIREMENT
         {"design", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"design", "out", "--out", Kind::text, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)",

@@ -60,6 +60,7 @@
 #include "libcoil/studies/wire_study.hpp"
 
 // outputs: writers that only format a result record
+#include "libcoil/outputs/comparison_report.hpp"
 #include "libcoil/outputs/analysis_report.hpp"
 #include "libcoil/outputs/coupling_report.hpp"
 #include "libcoil/outputs/design_report.hpp"

@@ -7,6 +7,7 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
+#include "libcoil/studies/sweep.hpp"
 
 namespace libcoil {
 
@@ -135,4 +136,22 @@ MeasuredFigures measured_figures(const MeasuredImpedance& m) {
     return out;
 }
 
+Comparison compare_study(const Analysis& a, const MeasuredImpedance& m) {
+    if (m.frequency.empty()) throw InputError("measurement", "no points");
+    Comparison out;
+    out.title = a.spec.name;
+    out.measured = m;
+    SweepRequest q;
+    q.frequencies = m.frequency;
+    const Sweep s = sweep_study(a, q);
+    out.model = s.model;
+    for (const auto& p : s.points) out.predicted.push_back(p.impedance);
+    out.extracted = measured_figures(m);
+    MeasuredImpedance p = m;
+    p.impedance = out.predicted;
+    out.from_prediction = measured_figures(p);
+    return out;
+}
+
 }  // namespace libcoil
+

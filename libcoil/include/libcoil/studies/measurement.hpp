@@ -24,6 +24,7 @@
 
 #include "libcoil/inputs/network_file.hpp"
 #include "libcoil/spec/choices.hpp"
+#include "libcoil/studies/analysis.hpp"
 
 namespace libcoil {
 
@@ -52,4 +53,16 @@ struct MeasuredFigures {
 
 MeasuredFigures measured_figures(const MeasuredImpedance& z);
 
+// The prediction beside the measurement: the analysed coil's Z as mounted (sweep_study's default model) at
+// the measurement's frequencies, and the same figures read the same way from both.
+struct Comparison {
+    std::string title;                              // the spec's name
+    MeasuredImpedance measured;
+    std::vector<std::complex<double>> predicted;    // ohm, at measured.frequency
+    ImpedanceModel model = ImpedanceModel::network;
+    MeasuredFigures extracted, from_prediction;
+};
+Comparison compare_study(const Analysis& analysis, const MeasuredImpedance& measured);
+
 }  // namespace libcoil
+

@@ -1,0 +1,17 @@
+// `coil compare`: the prediction beside the measurement, as text, JSON and CSV. Formatting only.
+#pragma once
+
+#include <string>
+
+#include "libcoil/studies/measurement.hpp"
+
+namespace libcoil {
+
+std::string comparison_text_report(const Comparison& c);
+// At least: extracted, predicted and deviation (fractions), each with inductance_H, resistance_ohm,
+// self_resonance_Hz, self_capacitance_F and q_at_resonance (null where the data has none).
+std::string comparison_json_report(const Comparison& c);
+// Both on the measurement's frequencies: |Z|, phase, R and X of each, and each point's weight.
+std::string comparison_csv(const Comparison& c);
+
+}  // namespace libcoil
