@@ -116,7 +116,16 @@ def test_coil_compare_against_the_coils_own_sweep(run_coil, source_dir, tmp_path
     r = run_coil("compare", spec, tmp_path / "bench-network-coil.s1p", "--out", out)
     assert r.returncode == 0 and "deviation" in r.stdout
     assert sorted(p.name for p in out.iterdir()) == ["bench-network-coil.compare.csv", "bench-network-coil.compare.json",
-                                                   "bench-network-coil.compare.txt"]
+                                                   "bench-network-coil.compare.svg", "bench-network-coil.compare.txt"]
+    # The picture: both curves on every frequency of the file, and the shaded gap between them.
+    import xml.etree.ElementTree as ET
+    svg = ET.parse(out / "bench-network-coil.compare.svg").getroot()
+    ns = {"s": "http://www.w3.org/2000/svg"}
+    n = len(libcoil.read_network(str(tmp_path / "bench-network-coil.s1p")).frequency)
+    for id_ in ("measured", "predicted", "measured-phase", "predicted-phase"):
+        line = svg.find(f".//s:polyline[@id='{id_}']", ns)
+        assert len(line.get("points").split()) == n, id_
+    assert len(svg.find(".//s:polygon[@id='deviation']", ns).get("points").split()) == 2 * n
 
 
 def test_coil_compare_on_a_malformed_file_exits_2_and_writes_nothing(run_coil, source_dir, tmp_path):

@@ -190,7 +190,8 @@ int run_compare(const Given& g) {
         const std::filesystem::path dir(g.text("out"));
         const std::string stem = stem_of(spec);
         written = write_all({{dir / (stem + ".compare.txt"), text}, {dir / (stem + ".compare.json"), json},
-                             {dir / (stem + ".compare.csv"), libcoil::comparison_csv(c)}});
+                             {dir / (stem + ".compare.csv"), libcoil::comparison_csv(c)},
+                             {dir / (stem + ".compare.svg"), libcoil::comparison_svg(c)}});
     }
     std::cout << (g.flag("json") ? json : text);
     if (!g.flag("json")) print_written(written);

@@ -71,8 +71,8 @@ inline const std::vector<Option>& option_table() {
          "ports) or 'shunt-through' (from the through line to ground)",
          D::dimensionless, &choice_names<MeasurementArrangement>, "reflection", false},
         {"compare", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
-        {"compare", "out", "--out", Kind::text, "Also write STEM.compare.txt, STEM.compare.json and STEM.compare.csv (both on the "
-         "measurement's frequencies) here", D::dimensionless, nullptr, "", false},
+        {"compare", "out", "--out", Kind::text, "Also write STEM.compare.txt, .json, .csv (both on the measurement's "
+         "frequencies) and .svg (|Z| and phase of both) here", D::dimensionless, nullptr, "", false},
         // coil design REQUIREMENT
         {"design", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"design", "out", "--out", Kind::text, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)",

@@ -1,5 +1,6 @@
 #include "libcoil/outputs/comparison_report.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <optional>
 #include <sstream>
@@ -7,6 +8,8 @@
 #include <nlohmann/json.hpp>
 
 #include "core/text_format.hpp"
+#include "outputs/svg_axes.hpp"
+#include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/version.hpp"
 
@@ -99,4 +102,70 @@ std::string comparison_csv(const Comparison& c) {
     return o.str();
 }
 
+std::string comparison_svg(const Comparison& c) {
+    using detail::px;
+    std::vector<std::size_t> k;
+    for (std::size_t i = 0; i < c.measured.frequency.size(); ++i) {
+        if (c.measured.frequency[i] > 0) k.push_back(i);
+    }
+    if (k.size() < 2) throw InputError("measurement", "the picture needs two or more frequencies above 0 Hz");
+    const auto& f = c.measured.frequency;
+    double z_lo = INFINITY, z_hi = 0;
+    for (std::size_t i : k) {
+        for (double z : {std::abs(c.measured.impedance[i]), std::abs(c.predicted[i])}) {
+            if (z > 0) z_lo = std::min(z_lo, z);
+            z_hi = std::max(z_hi, z);
+        }
+    }
+    if (!(z_hi > 0)) throw InputError("measurement", "|Z| is 0 throughout");
+    z_lo = std::pow(10, std::floor(std::log10(z_lo)));
+    z_hi = std::max(std::pow(10, std::ceil(std::log10(z_hi))), 10 * z_lo);
+    const double W = 900, H = 580, left = 80, right = 860, top1 = 50, bottom1 = 330, top2 = 370, bottom2 = 520;
+    const detail::LogAxis x{f[k.front()], f[k.back()], left, right};
+    const detail::LogAxis y1{z_lo, z_hi, bottom1, top1};
+    const detail::LinAxis y2{-90, 90, bottom2, top2};
+    const auto zy = [&](std::complex<double> z) { return px(y1(std::clamp(std::abs(z), z_lo, z_hi))); };
+    const auto ph = [&](std::complex<double> z) { return px(y2(std::arg(z) * 180 / M_PI)); };
+    std::ostringstream o;
+    o << "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" << W << "\" height=\"" << H << "\" viewBox=\"0 0 " << W << ' ' << H
+      << "\" font-family=\"sans-serif\" font-size=\"12\">\n<title>" << detail::xml_escape(c.title) << "</title>\n";
+    o << "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n";
+    o << "<text x=\"" << left << "\" y=\"28\" font-size=\"15\" font-weight=\"bold\">measured against predicted"
+      << (c.title.empty() ? "" : ": " + detail::xml_escape(c.title)) << "</text>\n";
+    // The poorly measured points, greyed in both panels.
+    for (std::size_t j = 0; j < k.size(); ++j) {
+        if (c.measured.weight[k[j]] >= 0.5) continue;
+        const double a = x(f[k[j > 0 ? j - 1 : j]]), b = x(f[k[j + 1 < k.size() ? j + 1 : j]]);
+        for (const auto& [t, bt] : {std::pair{top1, bottom1}, std::pair{top2, bottom2}}) {
+            o << "<rect class=\"poor\" x=\"" << px((a + x(f[k[j]])) / 2) << "\" y=\"" << t << "\" width=\"" << px((b - a) / 2)
+              << "\" height=\"" << bt - t << "\" fill=\"#eeeeee\"/>\n";
+        }
+    }
+    detail::axes_and_grid(o, x, y1, y2, top1, bottom1, top2, bottom2, left, right);
+    // The gap between the curves, shaded.
+    o << "<polygon id=\"deviation\" fill=\"#f4b183\" fill-opacity=\"0.6\" stroke=\"none\" points=\"";
+    for (std::size_t i : k) o << px(x(f[i])) << ',' << zy(c.measured.impedance[i]) << ' ';
+    for (auto it = k.rbegin(); it != k.rend(); ++it) o << px(x(f[*it])) << ',' << zy(c.predicted[*it]) << ' ';
+    o << "\"/>\n";
+    const auto curve = [&](const char* id, const char* colour, const char* dash, const std::vector<std::complex<double>>& z, bool phase) {
+        o << "<polyline id=\"" << id << "\" fill=\"none\" stroke=\"" << colour << "\" stroke-width=\"2\"" << dash << " points=\"";
+        for (std::size_t i : k) o << px(x(f[i])) << ',' << (phase ? ph(z[i]) : zy(z[i])) << ' ';
+        o << "\"/>\n";
+    };
+    curve("measured", "#000000", "", c.measured.impedance, false);
+    curve("predicted", "#0050a0", " stroke-dasharray=\"6 4\"", c.predicted, false);
+    curve("measured-phase", "#000000", "", c.measured.impedance, true);
+    curve("predicted-phase", "#0050a0", " stroke-dasharray=\"6 4\"", c.predicted, true);
+    const double lx = left + 12, ly = top1 + 34;
+    o << "<g id=\"legend\">\n<line x1=\"" << lx << "\" y1=\"" << ly << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly
+      << "\" stroke=\"#000000\" stroke-width=\"2\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 4 << "\">measured</text>\n";
+    o << "<line x1=\"" << lx << "\" y1=\"" << ly + 18 << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly + 18
+      << "\" stroke=\"#0050a0\" stroke-width=\"2\" stroke-dasharray=\"6 4\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 22
+      << "\">predicted, " << detail::xml_escape(choice_name(c.model)) << " model</text>\n";
+    o << "<rect x=\"" << lx << "\" y=\"" << ly + 30 << "\" width=\"26\" height=\"10\" fill=\"#eeeeee\"/><text x=\"" << lx + 32
+      << "\" y=\"" << ly + 40 << "\">poorly measured in this arrangement</text>\n</g>\n</svg>\n";
+    return o.str();
+}
+
 }  // namespace libcoil
+

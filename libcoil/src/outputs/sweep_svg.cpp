@@ -67,40 +67,7 @@ std::string impedance_svg(const Sweep& pic) {
             }
         }
     }
-    // Grid and axes.
-    o << "<g stroke=\"#cccccc\" stroke-width=\"0.6\">\n";
-    for (double f : log_ticks(f_lo, f_hi, false)) {
-        o << "<line x1=\"" << px(x(f)) << "\" y1=\"" << top1 << "\" x2=\"" << px(x(f)) << "\" y2=\"" << bottom1 << "\"/>";
-        o << "<line x1=\"" << px(x(f)) << "\" y1=\"" << top2 << "\" x2=\"" << px(x(f)) << "\" y2=\"" << bottom2 << "\"/>\n";
-    }
-    for (double z : log_ticks(z_lo, z_hi, false)) {
-        o << "<line x1=\"" << left << "\" y1=\"" << px(y1(z)) << "\" x2=\"" << right << "\" y2=\"" << px(y1(z)) << "\"/>\n";
-    }
-    for (double ph : {-90.0, -45.0, 0.0, 45.0, 90.0}) {
-        o << "<line x1=\"" << left << "\" y1=\"" << px(y2(ph)) << "\" x2=\"" << right << "\" y2=\"" << px(y2(ph)) << "\"/>\n";
-    }
-    o << "</g>\n<g fill=\"none\" stroke=\"black\">\n";
-    o << "<rect x=\"" << left << "\" y=\"" << top1 << "\" width=\"" << right - left << "\" height=\"" << bottom1 - top1 << "\"/>\n";
-    o << "<rect x=\"" << left << "\" y=\"" << top2 << "\" width=\"" << right - left << "\" height=\"" << bottom2 - top2 << "\"/>\n";
-    o << "</g>\n<g text-anchor=\"middle\">\n";
-    for (double f : log_ticks(f_lo, f_hi, false)) {
-        o << "<text x=\"" << px(x(f)) << "\" y=\"" << bottom2 + 16 << "\">" << detail::xml_escape(tick_label(f, Dimension::frequency))
-          << "</text>\n";
-    }
-    o << "<text x=\"" << (left + right) / 2 << "\" y=\"" << bottom2 + 36 << "\">frequency</text>\n</g>\n";
-    o << "<g text-anchor=\"end\">\n";
-    for (double z : log_ticks(z_lo, z_hi, false)) {
-        o << "<text x=\"" << left - 6 << "\" y=\"" << px(y1(z) + 4) << "\">" << detail::xml_escape(tick_label(z, Dimension::resistance))
-          << "</text>\n";
-    }
-    for (double ph : {-90.0, -45.0, 0.0, 45.0, 90.0}) {
-        o << "<text x=\"" << left - 6 << "\" y=\"" << px(y2(ph) + 4) << "\">" << g(ph, 3) << "\u00b0</text>\n";
-    }
-    o << "</g>\n";
-    o << "<text x=\"18\" y=\"" << (top1 + bottom1) / 2 << "\" transform=\"rotate(-90 18 " << (top1 + bottom1) / 2
-      << ")\" text-anchor=\"middle\">|Z|</text>\n";
-    o << "<text x=\"18\" y=\"" << (top2 + bottom2) / 2 << "\" transform=\"rotate(-90 18 " << (top2 + bottom2) / 2
-      << ")\" text-anchor=\"middle\">phase of Z</text>\n";
+    detail::axes_and_grid(o, x, y1, y2, top1, bottom1, top2, bottom2, left, right);
 
     // Curves.
     if (pic.nominal_inductance > 0) {

@@ -13,5 +13,8 @@ std::string comparison_text_report(const Comparison& c);
 std::string comparison_json_report(const Comparison& c);
 // Both on the measurement's frequencies: |Z|, phase, R and X of each, and each point's weight.
 std::string comparison_csv(const Comparison& c);
+// |Z| and phase of both over the measurement's frequencies (those above 0 Hz), the gap between the two |Z|
+// curves shaded, the poorly measured ranges greyed.
+std::string comparison_svg(const Comparison& c);
 
 }  // namespace libcoil
