@@ -1,11 +1,10 @@
 // The CSV measurement reader and the reader by file extension (network_file.hpp).
 #include <cmath>
 #include <complex>
-#include <fstream>
-#include <sstream>
 #include <string>
 #include <vector>
 
+#include "core/text_file.hpp"
 #include "inputs/text_fields.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/inputs/network_file.hpp"
@@ -75,7 +74,7 @@ NetworkData read_measurement_csv(std::string_view text, std::string_view name) {
                 const auto [n, u] = name_and_unit(row[static_cast<std::size_t>(i)], name);
                 const Field& f = row[static_cast<std::size_t>(i)];
                 const auto take = [&](int& slot) {
-                    if (slot >= 0) detail::fail_at(name, f.line, f.column, "a second column " + quoted(f.text));
+                    if (slot >= 0) detail::fail_at(name, f.line, f.column, "a second column " + libcoil::quoted(f.text));
                     slot = i;
                 };
                 if (n == "frequency") {
@@ -102,7 +101,7 @@ NetworkData read_measurement_csv(std::string_view text, std::string_view name) {
                     polar = true;
                     take(b);
                 } else {
-                    detail::fail_at(name, f.line, f.column, "unknown column " + quoted(f.text) + "; expected frequency [Hz], Z real [ohm], "
+                    detail::fail_at(name, f.line, f.column, "unknown column " + libcoil::quoted(f.text) + "; expected frequency [Hz], Z real [ohm], "
                                                             "Z imag [ohm], Z magnitude [ohm], Z phase [deg], S11 real or S11 imag");
                 }
             }
@@ -133,22 +132,19 @@ NetworkData read_measurement_csv(std::string_view text, std::string_view name) {
 }
 
 NetworkData read_network_file(const std::string& path) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) throw InputError("measurement", "cannot open " + quoted(path));
-    std::ostringstream text;
-    text << in.rdbuf();
+    const std::string text = detail::read_text_file(path, "measurement file");
     const std::string name = path.substr(path.find_last_of('/') == std::string::npos ? 0 : path.find_last_of('/') + 1);
     const std::size_t dot = name.find_last_of('.');
     const std::string ext = dot == std::string::npos ? "" : detail::lower(std::string_view(name).substr(dot + 1));
-    if (ext == "csv") return read_measurement_csv(text.str(), name);
-    if (ext == "ts") return read_touchstone(text.str(), name, 0);
+    if (ext == "csv") return read_measurement_csv(text, name);
+    if (ext == "ts") return read_touchstone(text, name, 0);
     if (ext.size() >= 3 && ext.front() == 's' && ext.back() == 'p') {
         const std::string digits = ext.substr(1, ext.size() - 2);
         if (!digits.empty() && digits.size() <= 2 && digits.find_first_not_of("0123456789") == std::string::npos) {
-            return read_touchstone(text.str(), name, std::stoi(digits));
+            return read_touchstone(text, name, std::stoi(digits));
         }
     }
-    throw InputError("measurement", quoted(name) + ": expected a .s1p, .s2p, .ts or .csv file");
+    throw InputError("measurement", libcoil::quoted(name) + ": expected a .s1p, .s2p, .ts or .csv file");
 }
 
 }  // namespace libcoil

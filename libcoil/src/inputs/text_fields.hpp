@@ -71,7 +71,7 @@ inline double number(std::string_view file, const Field& f) {
     if (first != last && *first == '+') ++first;
     const auto [end, ec] = std::from_chars(first, last, v);
     if (ec != std::errc() || end != last || !std::isfinite(v)) {
-        fail_at(file, f.line, f.column, "expected a finite number, found " + quoted(f.text));
+        fail_at(file, f.line, f.column, "expected a finite number, found " + libcoil::quoted(f.text));
     }
     return v;
 }

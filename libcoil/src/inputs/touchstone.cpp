@@ -53,7 +53,7 @@ struct Reader {
                 r = detail::number(name, words[++i]);
                 if (!(r > 0)) fail(words[i], "the reference resistance must be positive");
             } else {
-                fail(words[i], "unknown option " + quoted(words[i].text) + "; expected a unit (Hz, kHz, MHz, GHz), a parameter "
+                fail(words[i], "unknown option " + libcoil::quoted(words[i].text) + "; expected a unit (Hz, kHz, MHz, GHz), a parameter "
                                "(S, Y, Z), a format (RI, MA, DB) or R <ohm>");
             }
         }

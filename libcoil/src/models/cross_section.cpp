@@ -43,7 +43,9 @@ Subdivision subdivision_for(double wire_radius, double skin_depth) {
     require_positive("wire_radius", wire_radius);
     require_positive("skin_depth", skin_depth);
     Subdivision s{8, 1.3, 16};
-    while (s.layers < 30 && wire_radius * (s.grading - 1) / (std::pow(s.grading, s.layers) - 1) > skin_depth / 6) ++s.layers;
+    while (s.layers < 30 && wire_radius * (s.grading - 1) / (std::pow(s.grading, s.layers) - 1) > skin_depth / layers_per_skin_depth) {
+        ++s.layers;
+    }
     s.sectors = 2 * s.layers;
     return s;
 }
@@ -187,7 +189,7 @@ void CrossSectionSolver::build(const Subdivision& sub) {
     // thick and 65 um long it read R 1.4 % low at d / delta = 48 (and worse as the layers thinned). Other
     // pairs average ln(distance) over both cells' Gauss samples.
     const auto sampled_log = [&](const Offset& a, const Offset& b, double ox, double oz, bool mapped_too, double rho_ref,
-                                 double shift) {
+                                 double centre_dphi) {
         double lng = 0;
         for (const auto& p : a.samples) {
             for (const auto& q : b.samples) {
@@ -196,7 +198,7 @@ void CrossSectionSolver::build(const Subdivision& sub) {
                 if (mapped_too) {
                     const double rp = std::hypot(p[0], p[1]), rq = std::hypot(q[0], q[1]);
                     double dphi = std::atan2(q[1], q[0]) - std::atan2(p[1], p[0]);
-                    dphi = std::remainder(dphi - shift, 2 * pi) + shift;  // the unwrapped angle the rectangles use
+                    dphi = std::remainder(dphi - centre_dphi, 2 * pi) + centre_dphi;  // unwrapped as the rectangles are
                     const double my = (rq * rq - rp * rp) / (2 * rho_ref), mx = rho_ref * dphi;
                     term -= 0.5 * std::log(mx * mx + my * my);
                 }
@@ -273,29 +275,29 @@ void CrossSectionSolver::build(const Subdivision& sub) {
     }
 }
 
-void CrossSectionSolver::wall_coupling(double frequency, bool per_cell, std::vector<std::complex<double>>& back,
-                                       std::vector<std::complex<double>>& drive, RingImpedance& out) const {
-    // The wall's currents for a unit current in each unknown (an orbit of cells, or one cell),
-    // I_w = Z_w^-1 (-j w M_w,unknown) (`drive`, rings x unknowns), act back on every cell through
-    // `back` (unknowns x rings, M_cell,w): the cells' impedance gains j w back drive. One factorisation
-    // of the wall, as many right-hand sides as unknowns.
+bool CrossSectionSolver::resolved_at(double frequency) const {
+    return frequency <= 0 || outer_layer_ <= skin_depth(resistivity_, frequency) / layers_per_skin_depth * (1 + 1e-7);
+}
+
+double CrossSectionSolver::cell_resistance(std::size_t k) const { return resistivity_ * 2 * pi * cells_[k].r / cells_[k].area; }
+
+void CrossSectionSolver::wall_coupling(double frequency, std::vector<std::complex<double>>& back, std::vector<std::complex<double>>& drive,
+                                       RingImpedance& out) const {
+    // The wall's currents for a unit current in each cell, I_w = Z_w^-1 (-j w M_w,cell) (`drive`), act back
+    // on every cell through `back` (M_cell,w). One factorisation of the wall, a right-hand side a cell.
     double outer = 0;
     for (const auto& [a, z] : rings_) outer = std::max(outer, a + wire_radius_);
     const ShieldWall wall(*shield_, outer, frequency);
     const auto W = static_cast<Eigen::Index>(wall.rings().size());
-    const auto n = static_cast<Eigen::Index>(per_cell ? cells_.size() : orbits_.size());
+    const auto n = static_cast<Eigen::Index>(cells_.size());
     back.assign(static_cast<std::size_t>(n * W), 0.0);
     drive.assign(static_cast<std::size_t>(n * W), 0.0);
     Eigen::Map<Eigen::MatrixXcd> b(back.data(), n, W), d(drive.data(), W, n);
     for (Eigen::Index w = 0; w < W; ++w) {
         const auto [rw, zw] = wall.rings()[static_cast<std::size_t>(w)];
         for (Eigen::Index i = 0; i < n; ++i) {
-            const std::vector<int> single{static_cast<int>(i)};
-            const std::vector<int>& group = per_cell ? single : orbits_[static_cast<std::size_t>(i)];
-            double m = 0;
-            for (int k : group) m += coaxial_mutual_inductance(rw, cells_[k].r, zw - cells_[k].z);
-            d(w, i) = m;
-            b(i, w) = coaxial_mutual_inductance(cells_[group[0]].r, rw, cells_[group[0]].z - zw);
+            const Cell& c = cells_[static_cast<std::size_t>(i)];
+            d(w, i) = b(i, w) = coaxial_mutual_inductance(rw, c.r, zw - c.z);
         }
     }
     wall.currents(drive.data(), static_cast<std::size_t>(n));
@@ -323,15 +325,14 @@ RingImpedance CrossSectionSolver::solve(double frequency) const {
     RingImpedance out;
     out.frequency = frequency;
     if (frequency > 0) {
-        out.resolved = outer_layer_ <= skin_depth(resistivity_, frequency) / 6 * 1.0000001;
+        out.resolved = resolved_at(frequency);
     }
 
     using cd = std::complex<double>;
     // Resistance of each orbit's representative cell.
     std::vector<double> res(n);
     for (std::size_t i = 0; i < n; ++i) {
-        const Cell& c = cells_[orbits_[i][0]];
-        res[i] = resistivity_ * 2 * pi * c.r / c.area;
+        res[i] = cell_resistance(static_cast<std::size_t>(orbits_[i][0]));
     }
     // E: orbit -> turn orbit of its representative; C: how many cells of orbit j lie in the
     // representative turn of each turn orbit.
@@ -369,7 +370,7 @@ RingImpedance CrossSectionSolver::solve(double frequency) const {
         }
         if (shield_) {
             std::vector<std::complex<double>> back, drive;
-            wall_coupling(frequency, false, back, drive, out);
+            wall_coupling(frequency, back, drive, out);  // the orbits are the cells here (no mirror reduction)
             const auto w = static_cast<Eigen::Index>(back.size() / n);
             Z.noalias() += cd(0, omega) * (Eigen::Map<const Eigen::MatrixXcd>(back.data(), static_cast<Eigen::Index>(n), w) *
                                            Eigen::Map<const Eigen::MatrixXcd>(drive.data(), w, static_cast<Eigen::Index>(n)));

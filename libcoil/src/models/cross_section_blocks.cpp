@@ -19,7 +19,6 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/cross_section.hpp"
-#include "libcoil/models/skin_effect.hpp"
 
 namespace libcoil {
 
@@ -31,9 +30,9 @@ using Vector = Eigen::VectorXcd;
 // Restarted GMRES with right preconditioning: solves A x = b from x0, to |b - A x| <= tol |b|.
 template <class Apply, class Precondition>
 Vector gmres(const Apply& apply, const Precondition& precondition, const Vector& b, Vector x, double tol, int restart,
-             int max_iterations, int& iterations) {
+             int max_iterations) {
     const double target = tol * b.norm();
-    iterations = 0;
+    int iterations = 0;
     const auto n = b.size();
     while (iterations < max_iterations) {
         Vector r = b - apply(x);
@@ -97,7 +96,7 @@ RingImpedance CrossSectionSolver::solve_blocks(double frequency) const {
     const double omega = 2 * pi * frequency;
     // Cell resistances of one turn (every turn the same).
     Eigen::VectorXd res(C);
-    for (Eigen::Index q = 0; q < C; ++q) res(q) = resistivity_ * 2 * pi * cells_[static_cast<std::size_t>(q)].r / cells_[static_cast<std::size_t>(q)].area;
+    for (Eigen::Index q = 0; q < C; ++q) res(q) = cell_resistance(static_cast<std::size_t>(q));
     // y = M x for the cells' currents as a C x N matrix (a turn a column), M block Toeplitz.
     std::vector<Eigen::Map<const Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, Eigen::RowMajor>>> block;
     for (const auto& b : blocks_) block.emplace_back(b.data(), C, C);
@@ -130,9 +129,9 @@ RingImpedance CrossSectionSolver::solve_blocks(double frequency) const {
         out.inductance = finite_result("cross-section solver", (x.conjugate().cwiseProduct(couple(x))).sum().real());
         return out;
     }
-    out.resolved = outer_layer_ <= skin_depth(resistivity_, frequency) / 6 * 1.0000001;
+    out.resolved = resolved_at(frequency);
     std::vector<cd> back, drive;
-    if (shield_) wall_coupling(frequency, true, back, drive, out);
+    if (shield_) wall_coupling(frequency, back, drive, out);
     const auto W = static_cast<Eigen::Index>(back.size() / static_cast<std::size_t>(std::max<Eigen::Index>(nc, 1)));
     const Eigen::Map<const Eigen::MatrixXcd> wall_back(back.data(), nc, W), wall_drive(drive.data(), W, nc);
     const cd jw(0, omega);
@@ -167,8 +166,7 @@ RingImpedance CrossSectionSolver::solve_blocks(double frequency) const {
     };
     Vector b = Vector::Zero(nc + N);
     b.tail(N).setOnes();
-    int iterations = 0;
-    const Vector x = gmres(apply, precondition, b, precondition(b), 1e-12, 80, 2000, iterations);
+    const Vector x = gmres(apply, precondition, b, precondition(b), 1e-12, 80, 2000);
     const cd total = x.tail(N).sum();
     out.resistance = finite_result("cross-section solver", total.real());
     out.inductance = finite_result("cross-section solver", total.imag() / omega);

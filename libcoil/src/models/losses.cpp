@@ -153,7 +153,7 @@ WireLossTable::WireLossTable(const Solenoid& c, const Conductor& cond, double te
     const double d = c.wire().bare_diameter;
     const double onset = rho / (pi * mu0 * cond.relative_permeability * std::pow(d / 0.7, 2));
     low = std::max(low, onset);
-    if (high <= low || c.mean_radius() < min_harmonic_diameter_ratio * c.wire().radius() || cond.relative_permeability != 1) return;
+    if (high <= low || fat_wire(c) || cond.relative_permeability != 1) return;
     // Only where the solve is affordable (wire_harmonics_apply); above, the last point's correction holds.
     // Big systems take 3 points a decade.
     if (wire_harmonic_unknowns(c, rho, high) > default_max_harmonic_unknowns / 2) per_decade = std::min(per_decade, 3);
@@ -203,16 +203,24 @@ void WireLossTable::correct(std::vector<CoilAtFrequency>& points) const {
     }
 }
 
+namespace {
+
+// subdivision_for at `f` (at least 1 Hz: below, the DC subdivision).
+Subdivision subdivision_at(const Solenoid& c, double rho, double f) {
+    return subdivision_for(c.wire().radius(), skin_depth(rho, std::max(f, 1.0)));
+}
+
+}  // namespace
+
 double cross_section_cells(const Solenoid& c, double rho, double f) {
-    const Subdivision sub = subdivision_for(c.wire().radius(), skin_depth(rho, std::max(f, 1.0)));
+    const Subdivision sub = subdivision_at(c, rho, f);
     return std::max(1.0, std::round(c.turns())) * (1 + (sub.layers - 1) * sub.sectors);
 }
 
 LossSolver default_loss_solver(const Solenoid& c, const Conductor& cond, double temperature, double highest,
                                std::size_t max_harmonic_unknowns) {
     if (wire_harmonics_apply(c, cond, temperature, highest, max_harmonic_unknowns)) return LossSolver::harmonics;
-    const bool fat = c.mean_radius() < min_harmonic_diameter_ratio * c.wire().radius();
-    if (fat && cond.relative_permeability == 1 && cross_section_cells(c, cond.resistivity_at(temperature), highest) <= max_fat_wire_cells) {
+    if (fat_wire(c) && cond.relative_permeability == 1 && cross_section_cells(c, cond.resistivity_at(temperature), highest) <= max_fat_wire_cells) {
         return LossSolver::filaments;
     }
     return LossSolver::closed_form;
@@ -224,9 +232,8 @@ std::vector<CoilAtFrequency> coil_at_frequencies_by(LossSolver solver, const Sol
     switch (solver) {
         case LossSolver::harmonics: return coil_at_frequencies_harmonic(c, cond, temperature, l_dc, fs, shield);
         case LossSolver::filaments: {
-            const double rho = cond.resistivity_at(temperature);
-            const Subdivision sub = subdivision_for(c.wire().radius(), skin_depth(rho, std::max(highest, 1.0)));
-            return coil_at_frequencies_numerical(c, cond, temperature, l_dc, fs, sub, {}, shield);
+            return coil_at_frequencies_numerical(c, cond, temperature, l_dc, fs, subdivision_at(c, cond.resistivity_at(temperature), highest),
+                                                 {}, shield);
         }
         case LossSolver::closed_form: break;
     }

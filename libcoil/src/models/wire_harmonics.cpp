@@ -59,7 +59,7 @@ std::size_t wire_harmonic_unknowns(const Solenoid& coil, double resistivity, dou
 
 bool wire_harmonics_apply(const Solenoid& coil, const Conductor& conductor, double temperature, double highest_frequency,
                           std::size_t max_unknowns) {
-    return conductor.relative_permeability == 1 && coil.mean_radius() >= min_harmonic_diameter_ratio * coil.wire().radius() &&
+    return conductor.relative_permeability == 1 && !fat_wire(coil) &&
            wire_harmonic_unknowns(coil, conductor.resistivity_at(temperature), highest_frequency) <= max_unknowns;
 }
 

@@ -296,15 +296,6 @@ YAML::Node load_yaml(std::string_view text, std::string_view source) {
     }
 }
 
-std::string read_text_file(const std::filesystem::path& path, std::string_view what) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) throw InputError(path.string(), "cannot open the " + std::string(what));
-    std::ostringstream buf;
-    buf << in.rdbuf();
-    if (in.bad()) throw InputError(path.string(), "cannot read the " + std::string(what));
-    return buf.str();
-}
-
 }  // namespace detail
 
 CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {

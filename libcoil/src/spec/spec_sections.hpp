@@ -9,6 +9,7 @@
 #include <yaml-cpp/yaml.h>
 
 #include "libcoil/spec/spec.hpp"
+#include "core/text_file.hpp"
 #include "spec/yaml_reader.hpp"
 
 namespace libcoil::detail {
@@ -25,7 +26,5 @@ double read_enamel_class(const YamlMap& m);
 
 // YAML text to a node; malformed YAML is an InputError naming source:line:column.
 YAML::Node load_yaml(std::string_view text, std::string_view source);
-// A whole file's text; InputError naming the path when it cannot be read.
-std::string read_text_file(const std::filesystem::path& path, std::string_view what);
 
 }  // namespace libcoil::detail

@@ -102,8 +102,7 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
     if (outside.empty()) return;
     const double f_max = *std::max_element(outside.begin(), outside.end());
     const Subdivision sub = subdivision_for(s.wire().radius(), skin_depth(rho, f_max));
-    const double turns = std::max(1.0, std::round(s.turns()));
-    const double estimate = turns * (1 + (sub.layers - 1) * sub.sectors) / 2;
+    const double estimate = cross_section_cells(s, rho, f_max) / 2;  // the mirror-halved dense count
     if (estimate > static_cast<double>(options.fallback_unknowns)) {
         a.warnings.push_back("close-wound turns (pitch " + three_digits(s.pitch_to_wire()) +
                              " wire diameters) at wire diameter / skin depth up to " + three_digits(worst_x * std::sqrt(2.0)) +
@@ -299,7 +298,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
         for (double f : spec.operating.frequencies) top = std::max(top, f);
         const double rho = spec.conductor.resistivity_at(spec.operating.temperature);
         const Solenoid& s = spec.solenoid;
-        const bool fat = s.mean_radius() < min_harmonic_diameter_ratio * s.wire().radius();
+        const bool fat = fat_wire(s);
         resolved.solver = default_loss_solver(s, spec.conductor, spec.operating.temperature, top, resolved.max_harmonic_unknowns);
         if (resolved.solver == LossSolver::filaments) {
             a.warnings.push_back("R and L(f) from the cross-section solver: the wire is fat (mean diameter " +

@@ -46,9 +46,11 @@ struct Subdivision {
 // solution (a = 200 mm, r = 1 mm): at d / delta 30 .. 166 an outer layer of delta / 2.6 reads R 0.7 % low,
 // delta / 4.5 0.1 % low, and finer ones converge to +0.19 % (the grading's own error; 1.2 gives +0.1 %).
 // Against the finite-element set (tests/reference/fem) R is within 0.5 % at every point to d / delta 83.
-// Cost: 1 + (layers - 1) x sectors cells a turn, halved by the mirror symmetry: at d / delta 100, 18
-// layers and 36 sectors, 613 cells a turn; 18 turns take about 30 s and 0.5 GB (dense LU).
+// Cost: 1 + (layers - 1) x sectors cells a turn: at d / delta 100, 18 layers and 36 sectors, 613 cells a
+// turn; a coil's block form (cross_section_blocks.cpp) solves 64 such turns in 27 s and 250 MB.
 Subdivision subdivision_for(double wire_radius, double skin_depth);
+// The rule's criterion: the outer layer no thicker than the skin depth over this.
+inline constexpr double layers_per_skin_depth = 6;
 
 // The solver's measured error against the finite-element set with subdivision_for's rule, for reports
 // (tests/python/test_fem_reference.py enforces 0.5 % for R).
@@ -96,11 +98,13 @@ private:
         int shape;         // index into the cross-section template
     };
     void build(const Subdivision& sub);
-    // The shield's wall coupled to the unknowns (the orbits, or with `per_cell` every cell): the cells'
-    // impedance gains j w back drive (column-major, unknowns x wall rings and wall rings x unknowns);
-    // `out` gets the wall's share.
-    void wall_coupling(double frequency, bool per_cell, std::vector<std::complex<double>>& back,
-                       std::vector<std::complex<double>>& drive, RingImpedance& out) const;
+    // The shield's wall coupled to every cell (in a shield the dense system is not mirror-reduced, so its
+    // unknowns are the cells too): the cells' impedance gains j w back drive (column-major, cells x wall
+    // rings and wall rings x cells); `out` gets the wall's share.
+    void wall_coupling(double frequency, std::vector<std::complex<double>>& back, std::vector<std::complex<double>>& drive,
+                       RingImpedance& out) const;
+    bool resolved_at(double frequency) const;       // the outer layer within skin depth / layers_per_skin_depth
+    double cell_resistance(std::size_t cell) const;  // ohm, of the cell's ring
     // Coils of equal rings at a uniform pitch: the turns' couplings depend only on their distance, so one
     // block per distance (block Toeplitz) and an iterative solve (cross_section_blocks.cpp).
     RingImpedance solve_blocks(double frequency) const;

@@ -61,6 +61,8 @@ std::size_t wire_harmonic_unknowns(const Solenoid& coil, double resistivity, dou
 // -0.27 .. +1.41 %.
 inline constexpr std::size_t default_max_harmonic_unknowns = 1000;
 inline constexpr double min_harmonic_diameter_ratio = 6;
+// Wire too fat for the solver: a mean diameter under min_harmonic_diameter_ratio wire diameters.
+inline bool fat_wire(const Solenoid& coil) { return coil.mean_radius() < min_harmonic_diameter_ratio * coil.wire().radius(); }
 bool wire_harmonics_apply(const Solenoid& coil, const Conductor& conductor, double temperature, double highest_frequency,
                           std::size_t max_unknowns = default_max_harmonic_unknowns);
 
