@@ -6,7 +6,7 @@
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/models/losses.hpp"
-#include "libcoil/models/turn_network.hpp"
+#include "studies/mounted_network.hpp"
 
 namespace libcoil {
 
@@ -31,52 +31,6 @@ std::vector<double> frequency_grid(double from, double to, int points, Spacing s
     f.back() = to;
     return f;
 }
-
-namespace {
-
-// Z(f) by the turn network (turn_network.hpp): every resonance of the coupled turns, with the winding's
-// closed-form R(f) spread over the turns (and in a shield, the ring model's wall loss with it). The former is
-// in the network (its polarisation charge); its loss tangent acts on the share of the capacitance it
-// brings, 1 - (f_former / f_air)^2 by the network's SRFs. A shield is in the network too (turn_network.hpp).
-void network_sweep(const Analysis& a, const std::vector<double>& f, Sweep& s) {
-    const SelfResonance& sr = a.self_resonance;
-    if (!sr.network.available) throw InputError("model", "network: the turn network is not built for this coil (over 600 turns)");
-    const Solenoid& coil = a.spec.solenoid;
-    TurnNetworkOptions o;
-    o.mounting = a.spec.surroundings.mounting;
-    o.relative_permittivity = a.spec.surroundings.relative_permittivity;
-    double tan_d = 0;
-    if (a.spec.former) {
-        const double in_air = TurnNetwork(coil, o).first_resonance();
-        o.former = a.spec.former->dielectric(coil.form_diameter());
-        const double ratio = std::min(1.0, sr.network.frequency / in_air);
-        tan_d = a.spec.former->material.loss_tangent * (1 - ratio * ratio);
-    }
-    if (a.spec.shield) o.shield = *a.spec.shield;
-    const TurnNetwork net(coil, o);
-    const auto wire = coil_at_frequencies(coil, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, f);
-    for (std::size_t i = 0; i < f.size(); ++i) {
-        ImpedancePoint p;
-        p.frequency = f[i];
-        // In a shield the network holds the perfect conductor's change to L; below the frequencies where the
-        // wall is that, the ring model's own change differs, and its wall loss adds to the wire's.
-        double r = wire[i].resistance, extra_l = 0;
-        if (a.shield && f[i] > 0) {
-            r += a.shield->table.added_resistance(f[i]);
-            extra_l = a.shield->table.inductance_change(f[i]) - (a.shield->result.perfect_conductor - a.inductance.recommended);
-        }
-        p.wire_resistance = r;
-        p.wire_inductance = wire[i].inductance + (a.shield && f[i] > 0 ? a.shield->table.inductance_change(f[i]) : 0.0);
-        p.impedance = f[i] > 0 ? net.impedance(f[i], r, tan_d, extra_l) : std::complex<double>(wire[i].resistance, 0);
-        p.apparent_inductance = f[i] > 0 ? p.impedance.imag() / (2 * 3.141592653589793 * f[i]) : wire[i].inductance;
-        p.q_factor = p.impedance.imag() / p.impedance.real();
-        s.points.push_back(p);
-    }
-    s.nominal_inductance = a.shield ? a.shield->result.perfect_conductor : a.inductance.recommended;
-    s.self_resonance = a.shield ? a.shield->self_resonance : sr.network.frequency;
-}
-
-}  // namespace
 
 Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
     const SelfResonance& sr = a.self_resonance;
@@ -112,7 +66,11 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
         c = sr.medhurst.capacitance;
     }
     if (model == ImpedanceModel::network) {
-        network_sweep(a, f, s);
+        detail::MountedNetwork net(a, f);
+        const detail::NetworkTerms terms = detail::spec_terms(a.spec);
+        s.points = net.points(terms);
+        s.nominal_inductance = (a.shield ? a.shield->result.perfect_conductor : a.inductance.recommended) + terms.lead_inductance;
+        s.self_resonance = net.self_resonance(terms);
     } else {
         const double lowest = f.front() > 0 ? f.front() : (f.size() > 1 ? f[1] : f.back());
         const CoilImpedance zc = coil_impedance(a, lowest > 0 ? lowest : span.low, std::max(f.back(), span.low));

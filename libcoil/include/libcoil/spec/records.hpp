@@ -112,6 +112,21 @@ inline constexpr double default_srf_margin = 2.0;
 // The thermal limit of an enamel: IEC 60317 thermal class 155 (degC) unless the spec says otherwise.
 inline constexpr double default_enamel_class = 155 + 273.15;  // K
 
+// What a bench measurement taught about a built coil (coil compare --fit, measurement_fit.hpp), for the
+// next analysis of it: the spec's `bench:` section, inline or a file the fit wrote.
+// former_permittivity and former_loss_tangent replace the former material's figures (every model then
+// sees them); the terminal terms act where the impedance between the terminals is formed: a capacitance
+// across the terminals (in the turn network itself, a lumped shift of the other models' resonance), a
+// series inductance outside the winding, and a factor on the winding's R(f).
+struct BenchCorrections {
+    std::optional<double> former_permittivity;
+    std::optional<double> former_loss_tangent;
+    double stray_capacitance = 0;   // F, >= 0
+    double lead_inductance = 0;     // H, may be negative (the leads shorter than the spec's lead_length)
+    double resistance_scale = 1;    // > 0
+    std::string source;             // where they came from (the file), for the report
+};
+
 // One coil as a spec describes it (spec.hpp reads it from YAML and writes it back).
 struct CoilSpec {
     std::string name{};
@@ -128,6 +143,7 @@ struct CoilSpec {
     // The build's tolerances (one standard deviation each): the typical ones unless `tolerances:` gives them.
     BuildTolerances tolerances{};
     bool tolerances_given = false;
+    std::optional<BenchCorrections> bench{};
 };
 
 }  // namespace libcoil
