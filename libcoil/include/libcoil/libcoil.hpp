@@ -48,6 +48,8 @@
 
 // studies: inputs to one result record each
 #include "libcoil/studies/measurement.hpp"
+#include "libcoil/studies/measurement_fit.hpp"
+#include "libcoil/studies/comparison.hpp"
 #include "libcoil/studies/analysis.hpp"
 #include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/cautions.hpp"

@@ -83,8 +83,18 @@ CoilImpedance::CoilImpedance(const Solenoid& coil, const Conductor& conductor, d
     }
 }
 
+void CoilImpedance::set_terminal_terms(const TerminalTerms& t) {
+    require_non_negative("stray_capacitance", t.stray_capacitance);
+    require_finite("lead_inductance", t.lead_inductance);
+    require_positive("resistance_scale", t.resistance_scale);
+    require_non_negative("resonance", t.resonance);
+    terms_ = t;
+}
+
 double CoilImpedance::resonance_low() const {
-    const double relative = sr_.frequency_low > 0 ? sr_.frequency_low / sr_.frequency : 1;
+    const double own = shield_ ? shield_->self_resonance : sr_.frequency;
+    const double moved = terms_.resonance > 0 ? terms_.resonance / own : 1;  // the bench terms' shift
+    const double relative = (sr_.frequency_low > 0 ? sr_.frequency_low / sr_.frequency : 1) * moved;
     if (!shield_) return sr_.frequency * relative;
     // The shield's shift, not yet checked against an outside reference: half of it more below.
     const double shift = shield_->by_network ? std::fabs(1 - shield_->self_resonance / sr_.frequency)
@@ -140,6 +150,7 @@ ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double indu
     require_non_negative("capacitance", capacitance);
     if (model == ImpedanceModel::network) throw InputError("model", "network: the turn network's Z(f) comes from the sweep study");
     double c = capacitance > 0 ? capacitance : sr_.capacitance;
+    resistance *= terms_.resistance_scale;
     if (shield_) {
         resistance += shield_->table.added_resistance(f);
         inductance += shield_->table.inductance_change(f);
@@ -155,7 +166,11 @@ ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double indu
     p.impedance = model == ImpedanceModel::lumped
                       ? lumped_impedance(w, resistance, inductance, c)
                       : line_impedance(w, resistance, inductance, phase_velocity(f), coil_.winding_length(), sr_.mounting);
-    p.apparent_inductance = f > 0 ? p.impedance.imag() / w : inductance;
+    if (f > 0 && terms_.stray_capacitance > 0) p.impedance = 1.0 / (1.0 / p.impedance + cplx(0, w * terms_.stray_capacitance));
+    if (f > 0) p.impedance += cplx(0, w * terms_.lead_inductance);
+    require_finite_impedance(p.impedance);
+    p.wire_inductance += terms_.lead_inductance;
+    p.apparent_inductance = f > 0 ? p.impedance.imag() / w : p.wire_inductance;
     p.q_factor = p.impedance.imag() / p.impedance.real();
     return p;
 }

@@ -76,12 +76,12 @@ InputError relabel(const InputError& e, const std::string& diameter_key, const s
     return InputError(f, detail).within("coil");
 }
 
-CoilSpec read_spec(const YAML::Node& root) {
+CoilSpec read_spec(const YAML::Node& root, const std::filesystem::path& base) {
     if (!root || root.IsNull()) {
         throw InputError("spec", "the spec is empty; expected a mapping with a \"coil:\" section");
     }
     const detail::YamlMap top(root, "");
-    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield", "limits", "tolerances"});
+    top.allow_only({"name", "description", "coil", "operating", "former", "surroundings", "band", "shield", "limits", "tolerances", "bench"});
     std::vector<std::string> notes;
     std::string name = top.optional_text("name").value_or("");
     std::string description = top.optional_text("description").value_or("");
@@ -113,11 +113,23 @@ CoilSpec read_spec(const YAML::Node& root) {
     Operating op;
     if (top.has("operating")) op = read_operating(top.map("operating"), notes);
 
+    std::optional<BenchCorrections> bench;
+    if (top.has("bench")) bench = detail::read_bench(top, base);
+
     try {
         const double mean = diameter_key == "mean_diameter" ? diameter : diameter + wire.insulated_diameter();
         Solenoid s(Solenoid::Params{mean, turns, pitch, wire, leads});
         CoilSpec spec{std::move(name), std::move(description), s, cond, op, {}, {}, {}, {}, {}};
         if (top.has("former")) spec.former = detail::read_former(top.map("former"), s.form_diameter(), notes);
+        if (bench) {
+            const BenchCorrections& b = *bench;
+            for (const auto& [value, key] : {std::pair{b.former_permittivity, "former_permittivity"}, std::pair{b.former_loss_tangent, "former_loss_tangent"}}) {
+                if (value && !spec.former) throw InputError(std::string("bench.") + key, "the spec has no former for it to apply to");
+            }
+            if (b.former_permittivity) spec.former->material.relative_permittivity = *b.former_permittivity;
+            if (b.former_loss_tangent) spec.former->material.loss_tangent = *b.former_loss_tangent;
+            spec.bench = b;
+        }
         if (top.has("surroundings")) spec.surroundings = detail::read_surroundings(top.map("surroundings"));
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));
         if (top.has("tolerances")) {
@@ -141,7 +153,7 @@ CoilSpec read_spec(const YAML::Node& root) {
         spec.notes = std::move(notes);
         return spec;
     } catch (const InputError& e) {
-        if (e.field().rfind("band", 0) == 0 || e.field().rfind("former", 0) == 0 || e.field().rfind("shield", 0) == 0 ||
+        if (e.field().rfind("band", 0) == 0 || e.field().rfind("bench", 0) == 0 || e.field().rfind("former", 0) == 0 || e.field().rfind("shield", 0) == 0 ||
             e.field().rfind("surroundings", 0) == 0 || e.field().rfind("limits", 0) == 0 || e.field().rfind("tolerances", 0) == 0) {
             throw;
         }
@@ -299,7 +311,7 @@ YAML::Node load_yaml(std::string_view text, std::string_view source) {
 }  // namespace detail
 
 CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
-    return read_spec(detail::load_yaml(yaml_text, source));
+    return read_spec(detail::load_yaml(yaml_text, source), std::filesystem::path(source).parent_path());
 }
 
 CoilSpec load_coil_spec(const std::filesystem::path& path) {

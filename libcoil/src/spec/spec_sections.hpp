@@ -24,6 +24,10 @@ BuildTolerances read_tolerances(const YamlMap& m);
 // limits.enamel_class: an IEC 60317 thermal class in degC, returned in K.
 double read_enamel_class(const YamlMap& m);
 
+// bench: a mapping, or the name of a file holding one under "bench:" (relative to `base`, the spec's
+// directory). InputError names the field (in the file, the file's path and the field).
+BenchCorrections read_bench(const YamlMap& top, const std::filesystem::path& base);
+
 // YAML text to a node; malformed YAML is an InputError naming source:line:column.
 YAML::Node load_yaml(std::string_view text, std::string_view source);
 

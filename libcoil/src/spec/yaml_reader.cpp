@@ -29,6 +29,8 @@ std::string YamlMap::path_of(std::string_view key) const {
 
 bool YamlMap::has(std::string_view key) const { return static_cast<bool>(node_[std::string(key)]); }
 
+bool YamlMap::has_map(std::string_view key) const { return has(key) && node_[std::string(key)].IsMap(); }
+
 void YamlMap::allow_only(std::initializer_list<std::string_view> allowed) const {
     std::vector<std::string> names(allowed.begin(), allowed.end());
     for (const auto& kv : node_) {

@@ -22,6 +22,7 @@ public:
 
     std::string path_of(std::string_view key) const;
     bool has(std::string_view key) const;
+    bool has_map(std::string_view key) const;  // present and a mapping
 
     // Throws InputError for any key outside `allowed`, with a "did you mean" hint.
     void allow_only(std::initializer_list<std::string_view> allowed) const;

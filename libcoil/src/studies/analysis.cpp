@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/models/dc_resistance.hpp"
@@ -12,6 +13,7 @@
 #include "libcoil/studies/cautions.hpp"
 #include "libcoil/studies/winding_heat.hpp"
 #include "core/text_format.hpp"
+#include "studies/mounted_network.hpp"
 
 namespace libcoil {
 
@@ -196,6 +198,37 @@ void add_shield(Analysis& a) {
                       (spec.surroundings.mounting == Mounting::grounded_end ? "; the grounded end is taken as joined to the shield" : ""));
 }
 
+// A bench section's terms (records.hpp): a capacitance across the terminals lowers the first resonance as
+// mounted (the turn network with that capacitor where it gives the SRF; else the lumped shift
+// f / sqrt(1 + C_s / C), C = 1 / (w0^2 L)); the leads' inductance and the R factor act in the impedance.
+void add_bench(Analysis& a) {
+    if (!a.spec.bench) return;
+    const BenchCorrections& b = *a.spec.bench;
+    std::string said = "bench corrections from " + b.source + ":";
+    if (b.former_permittivity) said += " former permittivity " + three_digits(*b.former_permittivity) + ",";
+    if (b.former_loss_tangent) said += " loss tangent " + detail::significant(*b.former_loss_tangent, 2) + ",";
+    said += " stray capacitance " + format_quantity(b.stray_capacitance, Dimension::capacitance, 3) + ", lead inductance " +
+            format_quantity(b.lead_inductance, Dimension::inductance, 3) + ", R factor " + three_digits(b.resistance_scale);
+    a.notes.push_back(said);
+    if (!(b.stray_capacitance > 0)) return;
+    const double f0 = a.self_resonance_as_mounted;
+    const bool network = a.self_resonance.method == "network" && (!a.shield || a.shield->by_network);
+    if (network) {
+        a.self_resonance_as_mounted = detail::MountedNetwork(a, {}).self_resonance(detail::spec_terms(a.spec));
+    } else {
+        const double l = a.shield ? a.shield->result.perfect_conductor : a.inductance.recommended;
+        const double c = 1 / (std::pow(2 * pi * f0, 2) * l);
+        a.self_resonance_as_mounted = f0 / std::sqrt(1 + b.stray_capacitance / c);
+    }
+}
+
+TerminalTerms terminal_terms(const Analysis& a) {
+    if (!a.spec.bench) return {};
+    const BenchCorrections& b = *a.spec.bench;
+    const double own = a.shield ? a.shield->self_resonance : a.self_resonance.frequency;
+    return {b.stray_capacitance, b.lead_inductance, b.resistance_scale, a.self_resonance_as_mounted != own ? a.self_resonance_as_mounted : 0.0};
+}
+
 void add_impedance_and_band(Analysis& a) {
     const CoilSpec& spec = a.spec;
     const CoilImpedance zc = coil_impedance(a);
@@ -226,6 +259,10 @@ void add_impedance_and_band(Analysis& a) {
         if (a.shield) {
             medhurst = shielded_self_resonance(medhurst, a.inductance.recommended, a.shield->result.perfect_conductor,
                                                a.shield->terminal_capacitance);
+        }
+        if (spec.bench && spec.bench->stray_capacitance > 0) {  // the bench's capacitance across the terminals, lumped
+            const double l = a.shield ? a.shield->result.perfect_conductor : a.inductance.recommended;
+            medhurst /= std::sqrt(1 + spec.bench->stray_capacitance * std::pow(2 * pi * medhurst, 2) * l);
         }
         a.band_srf_by_medhurst = check_srf_margin(medhurst, a.band->ceiling, c.required);  // Medhurst's figure as it stands
         if (a.band_srf_by_medhurst->pass != c.pass) {
@@ -265,16 +302,20 @@ FrequencySpan default_span(const Analysis& a) {
 CoilImpedance coil_impedance(const Analysis& a) {
     std::optional<ShieldLoad> load;
     if (a.shield) load = shield_load(a, a.shield->table);
-    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
-                         std::move(load), a.wire_table);
+    CoilImpedance zc(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
+                     std::move(load), a.wire_table);
+    zc.set_terminal_terms(terminal_terms(a));
+    return zc;
 }
 
 CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
     if (!a.shield || (low >= a.shield->table.low() && high <= a.shield->table.high())) return coil_impedance(a);
     const ShieldTable wider(a.spec.solenoid, a.inductance.recommended, *a.spec.shield, std::min(low, a.shield->table.low()),
                             std::max(high, a.shield->table.high()));
-    return CoilImpedance(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
-                         shield_load(a, wider), a.wire_table);
+    CoilImpedance zc(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
+                     shield_load(a, wider), a.wire_table);
+    zc.set_terminal_terms(terminal_terms(a));
+    return zc;
 }
 
 Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
@@ -322,6 +363,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     add_losses(a, resolved);
     add_self_resonance(a);
     add_shield(a);
+    add_bench(a);
     if (a.loss_method == LossSolver::harmonics) {
         const FrequencySpan span = default_span(a);
         a.wire_table = WireLossTable(spec.solenoid, spec.conductor, a.spec.operating.temperature, a.inductance.recommended, span.low,

@@ -7,7 +7,6 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
-#include "libcoil/studies/sweep.hpp"
 
 namespace libcoil {
 
@@ -32,9 +31,39 @@ std::optional<double> rising_zero(const std::vector<double>& f, const std::vecto
     return std::nullopt;
 }
 
+// The fixture's S at f, interpolated linearly between its points (S11, S12 S21, S22).
+struct FixtureS {
+    cd s11, s12s21, s22;
+};
+FixtureS fixture_at(const NetworkData& x, double f) {
+    const auto& fx = x.frequency;
+    if (f < fx.front() * (1 - 1e-9) || f > fx.back() * (1 + 1e-9)) {
+        throw InputError("fixture", "its file covers " + hz(fx.front()) + " to " + hz(fx.back()) + ", not the measurement's " + hz(f));
+    }
+    std::size_t k = 0;
+    while (k + 2 < fx.size() && fx[k + 1] < f) ++k;
+    const double t = fx.size() < 2 ? 0.0 : std::clamp((f - fx[k]) / (fx[k + 1] - fx[k]), 0.0, 1.0);
+    const std::size_t j = fx.size() < 2 ? k : k + 1;
+    const auto lerp = [&](int r, int c) { return x.at(k, r, c) + t * (x.at(j, r, c) - x.at(k, r, c)); };
+    return {lerp(0, 0), lerp(0, 1) * lerp(1, 0), lerp(1, 1)};
+}
+
+void check_fixture(const Fixture& fx, MeasurementArrangement arrangement, double z0) {
+    require_finite("fixture.series_inductance", fx.series_inductance);
+    require_non_negative("fixture.shunt_capacitance", fx.shunt_capacitance);
+    if (!fx.network) return;
+    const NetworkData& x = *fx.network;
+    if (arrangement != MeasurementArrangement::reflection) {
+        throw InputError("fixture", "a fixture file is removed from a reflection measurement only; give a through fixture as its series L and shunt C");
+    }
+    if (x.ports != 2 || x.parameter != 'S') throw InputError("fixture", "expected a 2-port file of S parameters (port 1 at the analyser, port 2 at the coil)");
+    const double xz0 = x.reference.empty() ? 50.0 : x.reference[0];
+    if (xz0 != z0) throw InputError("fixture", "its reference (" + format_value(xz0) + " ohm) differs from the measurement's (" + format_value(z0) + " ohm)");
+}
+
 }  // namespace
 
-MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangement arrangement) {
+MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangement arrangement, const Fixture& fixture) {
     MeasuredImpedance out;
     out.notes = d.notes;
     const double z0 = d.reference.empty() ? 50.0 : d.reference[0];
@@ -47,12 +76,20 @@ MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangemen
         throw InputError("arrangement", "the two ports' references differ (" + format_value(d.reference[0]) + " and " +
                                             format_value(d.reference[1]) + " ohm)");
     }
+    check_fixture(fixture, arrangement, z0);
     for (std::size_t k = 0; k < d.frequency.size(); ++k) {
         cd z;
         double e = 0;
         if (!through) {
-            const cd v = d.at(k, 0, 0);
-            if (d.parameter == 'Z') {
+            cd v = d.at(k, 0, 0);
+            if (fixture.network) {  // to the coil's plane, as a reflection
+                if (d.parameter == 'Z') v = (v - z0) / (v + z0);
+                if (d.parameter == 'Y') v = (1.0 - z0 * v) / (1.0 + z0 * v);
+                const FixtureS x = fixture_at(*fixture.network, d.frequency[k]);
+                v = (v - x.s11) / (x.s12s21 + x.s22 * (v - x.s11));
+                z = z0 * (1.0 + v) / (1.0 - v);
+                e = 2 * trace_error / std::abs(1.0 - v * v);
+            } else if (d.parameter == 'Z') {
                 z = v;
                 e = trace_error;  // an impedance file: no arrangement's error to add
             } else if (d.parameter == 'Y') {
@@ -66,6 +103,10 @@ MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangemen
             const cd s21 = d.at(k, 1, 0);
             z = arrangement == MeasurementArrangement::series_through ? 2 * z0 * (1.0 - s21) / s21 : z0 * s21 / (2.0 * (1.0 - s21));
             e = trace_error / std::abs(s21 * (1.0 - s21));
+        }
+        if (d.frequency[k] > 0 && (fixture.series_inductance != 0 || fixture.shunt_capacitance > 0)) {
+            const double w = 2 * pi * d.frequency[k];
+            z = 1.0 / (1.0 / (z - cd(0, w * fixture.series_inductance)) - cd(0, w * fixture.shunt_capacitance));
         }
         if (!std::isfinite(z.real()) || !std::isfinite(z.imag())) {
             throw InputError("measurement", "at " + hz(d.frequency[k]) + " the " + choice_name(arrangement) +
@@ -133,23 +174,6 @@ MeasuredFigures measured_figures(const MeasuredImpedance& m) {
         out.second_resonance = rising_zero(m.frequency, m.impedance, at + 1, second);
     }
     for (const cd& z : m.impedance) out.q_factor.push_back(z.real() != 0 ? z.imag() / z.real() : 0.0);
-    return out;
-}
-
-Comparison compare_study(const Analysis& a, const MeasuredImpedance& m) {
-    if (m.frequency.empty()) throw InputError("measurement", "no points");
-    Comparison out;
-    out.title = a.spec.name;
-    out.measured = m;
-    SweepRequest q;
-    q.frequencies = m.frequency;
-    const Sweep s = sweep_study(a, q);
-    out.model = s.model;
-    for (const auto& p : s.points) out.predicted.push_back(p.impedance);
-    out.extracted = measured_figures(m);
-    MeasuredImpedance p = m;
-    p.impedance = out.predicted;
-    out.from_prediction = measured_figures(p);
     return out;
 }
 

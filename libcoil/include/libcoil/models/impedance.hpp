@@ -61,12 +61,24 @@ struct ShieldLoad {
     bool by_network = false;          // the SRF from the turn network in its shield (else the lumped estimate)
 };
 
+// What a bench fit found outside the winding's models (records.hpp's BenchCorrections): the winding's R(f)
+// times `resistance_scale`; a capacitance across the terminals, Y + j w C; the leads' series inductance,
+// Z + j w L; and `resonance`, the first resonance as mounted with them (Hz; 0: the model's own).
+struct TerminalTerms {
+    double stray_capacitance = 0;  // F
+    double lead_inductance = 0;    // H
+    double resistance_scale = 1;
+    double resonance = 0;          // Hz
+};
+
 class CoilImpedance {
 public:
     // `wire`: the wire-harmonic solver's correction to the closed forms (losses.hpp); empty, the closed
     // forms as they stand.
     CoilImpedance(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance,
                   const SelfResonance& self_resonance, std::optional<ShieldLoad> shield = std::nullopt, WireLossTable wire = {});
+
+    void set_terminal_terms(const TerminalTerms& t);
 
     // Z at f (Hz, >= 0). For the lumped form `capacitance` (F) picks the self-capacitance; 0 takes the
     // recommended one.
@@ -85,7 +97,7 @@ public:
     // low-frequency L. The band check's ideal wL uses it.
     double nominal_inductance() const { return shield_ ? shield_->inductance : dc_inductance_; }
     // The first self-resonance of the coil as mounted (in its shield, if any), Hz.
-    double resonance() const { return shield_ ? shield_->self_resonance : sr_.frequency; }
+    double resonance() const { return terms_.resonance > 0 ? terms_.resonance : shield_ ? shield_->self_resonance : sr_.frequency; }
     // The lower edge of its band (self_resonance.hpp's srf_band): in a shield, scaled with the shielded SRF
     // and lowered by half the shield's shift more (the turn network's shift either way, the lumped
     // estimate's downward; neither yet checked against an outside reference of a coil in a shield).
@@ -106,6 +118,7 @@ private:
     SheathHelix helix_;
     std::optional<ShieldLoad> shield_;
     WireLossTable wire_;
+    TerminalTerms terms_;
 };
 
 }  // namespace libcoil

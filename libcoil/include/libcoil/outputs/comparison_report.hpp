@@ -3,7 +3,7 @@
 
 #include <string>
 
-#include "libcoil/studies/measurement.hpp"
+#include "libcoil/studies/comparison.hpp"
 
 namespace libcoil {
 

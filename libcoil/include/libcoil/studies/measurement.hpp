@@ -36,8 +36,21 @@ struct MeasuredImpedance {
     std::vector<std::string> notes;                 // the file's notes and the poorly measured ranges
 };
 
-// Throws InputError naming "arrangement" where the file does not suit it (ports, parameters, references).
-MeasuredImpedance measured_impedance(const NetworkData& data, MeasurementArrangement arrangement);
+// What sits between the analyser's reference plane and the coil, removed from the measurement.
+//   network: a 2-port of S parameters, port 1 at the plane and port 2 at the coil (reflection only), at
+//            frequencies covering the measurement's (interpolated linearly in real and imaginary parts);
+//            the coil's reflection G = (Gm - S11) / (S12 S21 + S22 (Gm - S11)).
+//   lumped:  a series inductance from the plane, then a capacitance across the coil's terminals (any
+//            arrangement): Z = 1 / (1 / (Zm - j w L) - j w C).
+struct Fixture {
+    std::optional<NetworkData> network;
+    double series_inductance = 0;  // H
+    double shunt_capacitance = 0;  // F
+};
+
+// Throws InputError naming "arrangement" where the file does not suit it (ports, parameters, references),
+// "fixture" where the fixture does not suit the file.
+MeasuredImpedance measured_impedance(const NetworkData& data, MeasurementArrangement arrangement, const Fixture& fixture = {});
 
 struct MeasuredFigures {
     double reference_frequency = 0;            // Hz, where L and R were read
@@ -52,17 +65,6 @@ struct MeasuredFigures {
 };
 
 MeasuredFigures measured_figures(const MeasuredImpedance& z);
-
-// The prediction beside the measurement: the analysed coil's Z as mounted (sweep_study's default model) at
-// the measurement's frequencies, and the same figures read the same way from both.
-struct Comparison {
-    std::string title;                              // the spec's name
-    MeasuredImpedance measured;
-    std::vector<std::complex<double>> predicted;    // ohm, at measured.frequency
-    ImpedanceModel model = ImpedanceModel::network;
-    MeasuredFigures extracted, from_prediction;
-};
-Comparison compare_study(const Analysis& analysis, const MeasuredImpedance& measured);
 
 }  // namespace libcoil
 
