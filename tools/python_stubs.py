@@ -38,6 +38,14 @@ RECORD_FIELDS = {
         "mesh_check": "Record", "files": "list[str]", "cautions": "list[str]", "notes": "list[str]",
         "vertices": ARRAY, "faces": "NDArray[np.uint32]",
     },
+    "Comparison": {
+        "libcoil_version": "str", "title": "str", "model": "str", "reference_frequency_Hz": "float",
+        "extracted": "dict[str, float | None]", "predicted": "dict[str, float | None]", "deviation": "dict[str, float | None]",
+        "fitted": "dict[str, dict[str, Any]] | None", "residual_rms_before": "float | None", "residual_rms_after": "float | None",
+        "correlation": "dict[str, Any] | None", "fitted_self_resonance_Hz": "float | None", "notes": "list[str]",
+        "frequency": ARRAY, "measured": "NDArray[np.complex128]", "predicted_impedance": "NDArray[np.complex128]", "weight": ARRAY,
+        "fitted_impedance": "NDArray[np.complex128] | None", "bench_yaml": "str | None", "text": "str",
+    },
     "CouplingResult": {
         "coil_a": "str", "coil_b": "str", "arrangement": "str", "distance": "float", "axial_offset": "float",
         "mutual_inductance": "float", "inductance_a": "float", "inductance_b": "float", "coupling_coefficient": "float",
@@ -49,7 +57,7 @@ RECORD_FIELDS = {
 # Functions whose pybind11 return type says only "object".
 RETURNS = {
     "read_network": "Record", "read_measurement": "Record", "measured_figures": "Record",
-    "design": "DesignResult", "couple": "CouplingResult", "former": "FormerResult", "sweep": "Sweep",
+    "compare": "Comparison", "design": "DesignResult", "couple": "CouplingResult", "former": "FormerResult", "sweep": "Sweep",
     "self_resonance": "Record", "design_array": "np.recarray", "lumped_impedance": "complex | NDArray[np.complex128]",
     "awg_diameter": "float | NDArray[np.float64]",
 }

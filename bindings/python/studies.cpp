@@ -175,6 +175,50 @@ void bind_studies(py::module_& m) {
     }, "analysis"_a, "frequencies"_a, "model"_a = py::none(), "capacitance"_a = "helical-line",
        "Z(f) of an analysed coil as mounted (its shield, its mounting): a Sweep of numpy arrays (frequency, impedance, ...).\n"
        "model None: the recommended SRF's model (the turn network up to 150 turns without a shield, else helical-line).");
+    m.def("compare", [](const libcoil::CoilSpec& spec, const py::object& measurement, bool fit, const std::string& arrangement,
+                        const std::optional<std::string>& fixture, double fixture_inductance, double fixture_capacitance) {
+        libcoil::Fixture fx;
+        if (fixture) fx.network = libcoil::read_network_file(*fixture);
+        fx.series_inductance = fixture_inductance;
+        fx.shunt_capacitance = fixture_capacitance;
+        const auto how = libcoil::parse_choice<libcoil::MeasurementArrangement>(arrangement, "arrangement");
+        libcoil::MeasuredImpedance m;
+        std::string source = "the measurement";
+        if (py::isinstance<py::str>(measurement) || py::hasattr(measurement, "__fspath__")) {
+            source = py::str(py::module_::import("os").attr("fspath")(measurement));
+            m = libcoil::measured_impedance(libcoil::read_network_file(source), how, fx);
+        } else {  // a read_measurement record (or anything with frequency, impedance and weight)
+            m.frequency = measurement.attr("frequency").cast<std::vector<double>>();
+            m.impedance = measurement.attr("impedance").cast<std::vector<std::complex<double>>>();
+            m.weight = py::hasattr(measurement, "weight") ? measurement.attr("weight").cast<std::vector<double>>()
+                                                          : std::vector<double>(m.frequency.size(), 1.0);
+            if (m.impedance.size() != m.frequency.size()) throw libcoil::InputError("impedance", "one value a frequency");
+            if (m.weight.size() != m.frequency.size()) throw libcoil::InputError("weight", "one value a frequency");
+            m.relative_error.assign(m.frequency.size(), 0.0);
+        }
+        libcoil::Comparison c;
+        {
+            py::gil_scoped_release release;
+            c = libcoil::compare_study(libcoil::analyze(spec), m, fit);
+        }
+        py::dict d = py::module_::import("json").attr("loads")(libcoil::comparison_json_report(c));
+        const auto n = static_cast<py::ssize_t>(c.measured.frequency.size());
+        for (const char* key : {"fitted", "residual_rms_before", "residual_rms_after", "correlation", "fitted_self_resonance_Hz"}) {
+            if (!d.contains(key)) d[key] = py::none();
+        }
+        d["frequency"] = py::array_t<double>(n, c.measured.frequency.data());
+        d["measured"] = py::array_t<std::complex<double>>(n, c.measured.impedance.data());
+        d["predicted_impedance"] = py::array_t<std::complex<double>>(n, c.predicted.data());
+        d["weight"] = py::array_t<double>(n, c.measured.weight.data());
+        d["fitted_impedance"] = c.fit ? py::object(py::array_t<std::complex<double>>(n, c.fit->impedance.data())) : py::object(py::none());
+        d["bench_yaml"] = c.fit ? py::object(py::str(libcoil::bench_yaml(c, source))) : py::object(py::none());
+        d["text"] = libcoil::comparison_text_report(c);
+        return record("Comparison", d);
+    }, "spec"_a, "measurement"_a, "fit"_a = false, "arrangement"_a = "reflection", "fixture"_a = py::none(),
+       "fixture_inductance"_a = 0.0, "fixture_capacitance"_a = 0.0,
+       "The coil of a spec against a measurement of it (a file's path, or a read_measurement record): the figures read "
+       "the same way from both (extracted, predicted, deviation), and with fit=True the bench fit (fitted: value and "
+       "standard_error per parameter, residual_rms_before/after, correlation, fitted_impedance, bench_yaml).");
     m.def("frequency_grid", [](double start, double stop, int points, bool logarithmic) {
         return libcoil::frequency_grid(start, stop, points, logarithmic ? libcoil::Spacing::logarithmic : libcoil::Spacing::linear);
     }, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);

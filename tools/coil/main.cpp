@@ -181,17 +181,23 @@ int run_sweep(const Given& g) {
 
 int run_compare(const Given& g) {
     const std::string& spec = g.positional.at(0);
+    libcoil::Fixture fixture;
+    if (g.has("fixture")) fixture.network = libcoil::read_network_file(g.text("fixture"));
+    if (g.has("fixture_inductance")) fixture.series_inductance = g.quantity("fixture_inductance");
+    if (g.has("fixture_capacitance")) fixture.shunt_capacitance = g.quantity("fixture_capacitance");
     const libcoil::MeasuredImpedance m = libcoil::measured_impedance(libcoil::read_network_file(g.positional.at(1)),
-                                                                     *g.choice<libcoil::MeasurementArrangement>("arrangement"));
-    const libcoil::Comparison c = libcoil::compare_study(libcoil::analyze(libcoil::load_coil_spec(spec)), m);
+                                                                     *g.choice<libcoil::MeasurementArrangement>("arrangement"), fixture);
+    const libcoil::Comparison c = libcoil::compare_study(libcoil::analyze(libcoil::load_coil_spec(spec)), m, g.flag("fit"));
     const std::string text = libcoil::comparison_text_report(c), json = libcoil::comparison_json_report(c);
     std::vector<std::string> written;
     if (g.has("out")) {
         const std::filesystem::path dir(g.text("out"));
         const std::string stem = stem_of(spec);
-        written = write_all({{dir / (stem + ".compare.txt"), text}, {dir / (stem + ".compare.json"), json},
-                             {dir / (stem + ".compare.csv"), libcoil::comparison_csv(c)},
-                             {dir / (stem + ".compare.svg"), libcoil::comparison_svg(c)}});
+        libcoil::FileSet files{
+            {dir / (stem + ".compare.txt"), text}, {dir / (stem + ".compare.json"), json},
+            {dir / (stem + ".compare.csv"), libcoil::comparison_csv(c)}, {dir / (stem + ".compare.svg"), libcoil::comparison_svg(c)}};
+        if (c.fit) files.emplace_back(dir / (stem + ".bench.yaml"), libcoil::bench_yaml(c, std::filesystem::path(g.positional.at(1)).filename().string()));
+        written = write_all(files);
     }
     std::cout << (g.flag("json") ? json : text);
     if (!g.flag("json")) print_written(written);

@@ -70,6 +70,17 @@ inline const std::vector<Option>& option_table() {
          "How the file holds the coil: 'reflection' (one port at its terminals), 'series-through' (in series between two "
          "ports) or 'shunt-through' (from the through line to ground)",
          D::dimensionless, &choice_names<MeasurementArrangement>, "reflection", false},
+        {"compare", "fit", "--fit", Kind::flag,
+         "Also fit what the model cannot know (the former's permittivity and loss tangent, a stray capacitance across the "
+         "terminals, the leads' inductance, an R factor) and, with --out, write them as STEM.bench.yaml for the spec's bench: line",
+         D::dimensionless, nullptr, "", false},
+        {"compare", "fixture", "--fixture", Kind::text,
+         "A 2-port Touchstone file of the fixture between the analyser (port 1) and the coil (port 2), removed from a reflection measurement",
+         D::dimensionless, nullptr, "", false},
+        {"compare", "fixture_inductance", "--fixture-inductance", Kind::quantity,
+         "The fixture's series inductance from the reference plane to the coil, removed from the measurement", D::inductance, nullptr, "", false},
+        {"compare", "fixture_capacitance", "--fixture-capacitance", Kind::quantity,
+         "The fixture's capacitance across the coil's terminals, removed from the measurement", D::capacitance, nullptr, "", false},
         {"compare", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"compare", "out", "--out", Kind::text, "Also write STEM.compare.txt, .json, .csv (both on the measurement's "
          "frequencies) and .svg (|Z| and phase of both) here", D::dimensionless, nullptr, "", false},

@@ -89,6 +89,28 @@ class FormerResult(Record):
     vertices: NDArray[np.float64]
     faces: NDArray[np.uint32]
 
+class Comparison(Record):
+    libcoil_version: str
+    title: str
+    model: str
+    reference_frequency_Hz: float
+    extracted: dict[str, float | None]
+    predicted: dict[str, float | None]
+    deviation: dict[str, float | None]
+    fitted: dict[str, dict[str, Any]] | None
+    residual_rms_before: float | None
+    residual_rms_after: float | None
+    correlation: dict[str, Any] | None
+    fitted_self_resonance_Hz: float | None
+    notes: list[str]
+    frequency: NDArray[np.float64]
+    measured: NDArray[np.complex128]
+    predicted_impedance: NDArray[np.complex128]
+    weight: NDArray[np.float64]
+    fitted_impedance: NDArray[np.complex128] | None
+    bench_yaml: str | None
+    text: str
+
 class CouplingResult(Record):
     coil_a: str
     coil_b: str
@@ -317,6 +339,7 @@ def churchill_chu_vertical(rayleigh: ArrayLike, prandtl: ArrayLike) -> float | N
 def coaxial_mutual_inductance(radius_a: ArrayLike, radius_b: ArrayLike, axial_distance: ArrayLike) -> float | NDArray[np.float64]: ...
 def coil_at_frequencies(solenoid: Solenoid, conductor: Conductor, temperature: float, frequency: ArrayLike) -> dict[str, Any]: ...
 def coil_mutual_inductance(a: Solenoid, b: Solenoid, distance: float, arrangement: str = ..., axial_offset: float = ...) -> float: ...
+def compare(spec: CoilSpec, measurement: object, fit: bool = ..., arrangement: str = ..., fixture: str | None = ..., fixture_inductance: float = ..., fixture_capacitance: float = ...) -> Comparison: ...
 def conductor(name: str) -> Conductor: ...
 def conductor_names() -> list[str]: ...
 def couple(a: CoilSpec, b: CoilSpec, distance: float, arrangement: str = ..., axial_offset: float = ..., frequencies: list[float] = ..., source_resistance: float = ..., load_resistance: float = ..., sweep_distances: list[float] = ...) -> CouplingResult: ...

@@ -47,7 +47,52 @@ std::optional<double> deviation(const std::optional<double>& measured, const std
     return *measured / *predicted - 1;
 }
 
+// A fitted parameter's value as a spec takes it ("0.81 pF", "3.42").
+std::string as_written(double v, Dimension d) { return d == Dimension::dimensionless ? significant(v, 4) : format_quantity(v, d, 4); }
+
+void fit_text(std::ostringstream& o, const Comparison& c) {
+    const MeasurementFit& fit = *c.fit;
+    o << "\nBench fit (" << fit.points << " weighted points, " << fit.iterations << " iterations"
+      << (fit.converged ? "" : ", not settled") << ")\n";
+    o << "  " << pad("", 22) << pad("start", 12) << pad("fitted", 26) << "\n";
+    for (const FittedParameter& p : fit.parameters) {
+        std::string v = as_written(p.value, p.dimension);
+        if (p.varied) v += " \u00b1 " + as_written(p.standard_error, p.dimension);
+        o << "  " << pad(p.name, 22) << pad(as_written(p.start, p.dimension), 12) << pad(v, 26) << p.note << "\n";
+    }
+    o << "  misfit (weighted rms of |Z - Zm| / |Zm|): " << significant(100 * fit.residual_rms_before, 3) << " % before, "
+      << significant(100 * fit.residual_rms_after, 3) << " % after\n";
+    for (std::size_t a = 0; a < fit.varied.size(); ++a) {
+        for (std::size_t b = a + 1; b < fit.varied.size(); ++b) {
+            const double r = fit.correlation[a][b];
+            if (std::fabs(r) >= 0.9) {
+                o << "  " << fit.varied[a] << " and " << fit.varied[b] << " are correlated (" << detail::fixed(r, 2)
+                  << "): the data fixes mostly their combination\n";
+            }
+        }
+    }
+    o << "  the fitted model's self-resonance: " << format_quantity(fit.self_resonance, Dimension::frequency) << "\n";
+    for (const auto& n : fit.notes) o << "  - " << n << "\n";
+}
+
 }  // namespace
+
+std::string bench_yaml(const Comparison& c, const std::string& measurement) {
+    if (!c.fit) throw InputError("fit", "the comparison holds no fit");
+    const MeasurementFit& fit = *c.fit;
+    std::ostringstream o;
+    o << "# Bench corrections fitted by libcoil " << version << " to " << measurement << " (" << fit.points
+      << " points; misfit " << significant(100 * fit.residual_rms_before, 3) << " % before, " << significant(100 * fit.residual_rms_after, 3)
+      << " % after).\n# Use them in the coil's spec with a line  bench: <this file>  so that its next analysis takes them.\n"
+         "# Each value's standard error follows it; held values are the spec's own.\nbench:\n";
+    for (const FittedParameter& p : fit.parameters) {
+        if (!c.fit->corrections.former_permittivity && (p.name == "former_permittivity" || p.name == "former_loss_tangent")) continue;
+        o << "  " << p.name << ": " << (p.dimension == Dimension::dimensionless ? significant(p.value, 6) : format_quantity(p.value, p.dimension, 6));
+        o << "   # " << (p.varied ? "\u00b1 " + as_written(p.standard_error, p.dimension) : std::string("held"))
+          << (p.note.empty() ? "" : "; " + p.note) << "\n";
+    }
+    return o.str();
+}
 
 std::string comparison_text_report(const Comparison& c) {
     std::ostringstream o;
@@ -64,6 +109,7 @@ std::string comparison_text_report(const Comparison& c) {
         o << "  " << pad(f.label, 20) << pad(shown(m, f.dimension), 14) << pad(shown(p, f.dimension), 14)
           << (d ? (*d >= 0 ? "+" : "") + detail::fixed(100 * *d, 2) + " %" : "-") << "\n";
     }
+    if (c.fit) fit_text(o, c);
     if (!c.measured.notes.empty()) {
         o << "\nNotes\n";
         for (const auto& n : c.measured.notes) o << "  - " << n << "\n";
@@ -83,6 +129,28 @@ std::string comparison_json_report(const Comparison& c) {
         j["predicted"][f.key] = value(f.get(c.from_prediction));
         j["deviation"][f.key] = value(deviation(f.get(c.extracted), f.get(c.from_prediction)));
     }
+    if (c.fit) {
+        const MeasurementFit& fit = *c.fit;
+        for (const FittedParameter& p : fit.parameters) {
+            auto& e = j["fitted"][p.name];
+            e["value"] = p.value;
+            e["standard_error"] = p.varied ? nlohmann::ordered_json(p.standard_error) : nlohmann::ordered_json(nullptr);
+            e["start"] = p.start;
+            e["varied"] = p.varied;
+            e["determined"] = p.determined;
+            e["note"] = p.note;
+        }
+        j["residual_rms_before"] = fit.residual_rms_before;
+        j["residual_rms_after"] = fit.residual_rms_after;
+        j["fit_points"] = fit.points;
+        j["fit_iterations"] = fit.iterations;
+        j["fit_converged"] = fit.converged;
+        j["correlation"]["parameters"] = fit.varied;
+        j["correlation"]["matrix"] = fit.correlation;
+        j["fitted_self_resonance_Hz"] = fit.self_resonance;
+        for (const Figure& f : figures) j["from_fit"][f.key] = value(f.get(*c.from_fit));
+        j["fit_notes"] = fit.notes;
+    }
     j["notes"] = c.measured.notes;
     return j.dump(1) + "\n";
 }
@@ -90,14 +158,17 @@ std::string comparison_json_report(const Comparison& c) {
 std::string comparison_csv(const Comparison& c) {
     std::ostringstream o;
     o << "frequency [Hz],measured |Z| [ohm],measured phase [deg],predicted |Z| [ohm],predicted phase [deg],"
-         "measured R [ohm],measured X [ohm],predicted R [ohm],predicted X [ohm],weight\n";
+         "measured R [ohm],measured X [ohm],predicted R [ohm],predicted X [ohm],weight"
+      << (c.fit ? ",fitted R [ohm],fitted X [ohm]" : "") << "\n";
     o.precision(10);
     for (std::size_t k = 0; k < c.measured.frequency.size(); ++k) {
         const auto& m = c.measured.impedance[k];
         const auto& p = c.predicted[k];
         o << c.measured.frequency[k] << ',' << std::abs(m) << ',' << std::arg(m) * 180 / M_PI << ',' << std::abs(p) << ','
           << std::arg(p) * 180 / M_PI << ',' << m.real() << ',' << m.imag() << ',' << p.real() << ',' << p.imag() << ','
-          << c.measured.weight[k] << "\n";
+          << c.measured.weight[k];
+        if (c.fit) o << ',' << c.fit->impedance[k].real() << ',' << c.fit->impedance[k].imag();
+        o << "\n";
     }
     return o.str();
 }
@@ -156,6 +227,10 @@ std::string comparison_svg(const Comparison& c) {
     curve("predicted", "#0050a0", " stroke-dasharray=\"6 4\"", c.predicted, false);
     curve("measured-phase", "#000000", "", c.measured.impedance, true);
     curve("predicted-phase", "#0050a0", " stroke-dasharray=\"6 4\"", c.predicted, true);
+    if (c.fit) {
+        curve("fitted", "#2e8b57", " stroke-dasharray=\"2 3\"", c.fit->impedance, false);
+        curve("fitted-phase", "#2e8b57", " stroke-dasharray=\"2 3\"", c.fit->impedance, true);
+    }
     const double lx = left + 12, ly = top1 + 34;
     o << "<g id=\"legend\">\n<line x1=\"" << lx << "\" y1=\"" << ly << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly
       << "\" stroke=\"#000000\" stroke-width=\"2\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 4 << "\">measured</text>\n";
@@ -163,7 +238,13 @@ std::string comparison_svg(const Comparison& c) {
       << "\" stroke=\"#0050a0\" stroke-width=\"2\" stroke-dasharray=\"6 4\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 22
       << "\">predicted, " << detail::xml_escape(choice_name(c.model)) << " model</text>\n";
     o << "<rect x=\"" << lx << "\" y=\"" << ly + 30 << "\" width=\"26\" height=\"10\" fill=\"#eeeeee\"/><text x=\"" << lx + 32
-      << "\" y=\"" << ly + 40 << "\">poorly measured in this arrangement</text>\n</g>\n</svg>\n";
+      << "\" y=\"" << ly + 40 << "\">poorly measured in this arrangement</text>\n";
+    if (c.fit) {
+        o << "<line x1=\"" << lx << "\" y1=\"" << ly + 54 << "\" x2=\"" << lx + 26 << "\" y2=\"" << ly + 54
+          << "\" stroke=\"#2e8b57\" stroke-width=\"2\" stroke-dasharray=\"2 3\"/><text x=\"" << lx + 32 << "\" y=\"" << ly + 58
+          << "\">fitted (bench terms)</text>\n";
+    }
+    o << "</g>\n</svg>\n";
     return o.str();
 }
 

@@ -14,7 +14,6 @@ namespace {
 
 using cd = std::complex<double>;
 
-constexpr double trace_error = 0.001;  // |dS|, a calibrated analyser's trace noise (common practice, no source)
 constexpr double good_error = 0.01, poor_error = 0.05;
 
 std::string hz(double f) { return format_quantity(f, Dimension::frequency, 3); }
@@ -77,6 +76,8 @@ MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangemen
                                             format_value(d.reference[1]) + " ohm)");
     }
     check_fixture(fixture, arrangement, z0);
+    if (d.parameter == 'S') out.measured_as = arrangement;
+    out.reference = z0;
     for (std::size_t k = 0; k < d.frequency.size(); ++k) {
         cd z;
         double e = 0;
@@ -130,6 +131,15 @@ MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangemen
         k = j + 1;
     }
     return out;
+}
+
+std::complex<double> measured_quantity(MeasurementArrangement arrangement, std::complex<double> z, double z0) {
+    switch (arrangement) {
+        case MeasurementArrangement::reflection: return (z - z0) / (z + z0);
+        case MeasurementArrangement::series_through: return 2 * z0 / (2 * z0 + z);
+        case MeasurementArrangement::shunt_through: return 2.0 * z / (2.0 * z + z0);
+    }
+    return z;
 }
 
 MeasuredFigures measured_figures(const MeasuredImpedance& m) {

@@ -43,21 +43,38 @@ public:
         Eigen::VectorXd r(2 * use_.size());
         for (std::size_t k = 0; k < use_.size(); ++k) {
             const std::size_t i = use_[k];
-            const cd e = std::sqrt(m_.weight[i]) * (z[i] - m_.impedance[i]) / std::abs(m_.impedance[i]);
+            cd e;
+            if (m_.measured_as) {  // in the measured S parameter, where the trace noise is
+                const MeasurementArrangement how = *m_.measured_as;
+                e = (measured_quantity(how, z[i], m_.reference) - measured_quantity(how, m_.impedance[i], m_.reference)) / trace_error;
+            } else {
+                e = (z[i] - m_.impedance[i]) / (std::abs(m_.impedance[i]) * sigma(i));
+            }
             r[2 * k] = e.real();
             r[2 * k + 1] = e.imag();
         }
         return r;
     }
-    double rms(const Eigen::VectorXd& r) const {
-        double w = 0;
-        for (std::size_t i : use_) w += m_.weight[i];
-        return std::sqrt(r.squaredNorm() / w);
+    // The misfit as a user reads it: the weighted rms of |Z - Z_i| / |Z_i|.
+    double rms(const Eigen::Matrix<double, n_par, 1>& p) {
+        const std::vector<cd> z = impedance(p);
+        double w = 0, sum = 0;
+        for (std::size_t i : use_) {
+            w += m_.weight[i];
+            sum += m_.weight[i] * std::norm((z[i] - m_.impedance[i]) / std::abs(m_.impedance[i]));
+        }
+        return std::sqrt(sum / w);
     }
     double self_resonance(const Eigen::Matrix<double, n_par, 1>& p) { return net_.self_resonance(terms_of(p)); }
     std::size_t points() const { return use_.size(); }
 
 private:
+    // Each point's relative standard deviation (each of the real and imaginary parts): the arrangement's
+    // error for its trace noise where the measurement states it, else 1 % over the square root of its weight.
+    double sigma(std::size_t i) const {
+        const double e = i < m_.relative_error.size() ? m_.relative_error[i] : 0.0;
+        return e > 0 ? e : 0.01 / std::sqrt(m_.weight[i]);
+    }
     detail::MountedNetwork net_;
     const MeasuredImpedance& m_;
     std::vector<std::size_t> use_;
@@ -112,7 +129,7 @@ MeasurementFit fit_measurement(const Analysis& a, const MeasuredImpedance& m) {
     }
 
     Eigen::VectorXd r = pr.residual(p);
-    out.residual_rms_before = pr.rms(r);
+    out.residual_rms_before = pr.rms(p);
     out.points = static_cast<int>(pr.points());
 
     // The start, from the figures read the same way from the measurement and from the model: the leads'
@@ -165,7 +182,7 @@ MeasurementFit fit_measurement(const Analysis& a, const MeasuredImpedance& m) {
             notes[k] = "held: no effect on the measured impedance";
         }
     }
-    for (out.iterations = 0; out.iterations < 60; ++out.iterations) {
+    for (out.iterations = 0; out.iterations < 100; ++out.iterations) {
         const Eigen::MatrixXd jtj = j.transpose() * j;
         const Eigen::VectorXd g = j.transpose() * r;
         bool stepped = false;
@@ -198,7 +215,7 @@ MeasurementFit fit_measurement(const Analysis& a, const MeasuredImpedance& m) {
         if (out.converged) break;
         j = jacobian(p, r);
     }
-    if (!out.converged) out.notes.push_back("the fit stopped after 60 iterations without settling; the values are its last");
+    if (!out.converged) out.notes.push_back("the fit stopped after 100 iterations without settling; the values are its last");
 
     // Standard errors and correlation over the parameters the data can separate.
     j = jacobian(p, r);
@@ -260,7 +277,7 @@ MeasurementFit fit_measurement(const Analysis& a, const MeasuredImpedance& m) {
         }
         out.correlation.push_back(row);
     }
-    out.residual_rms_after = pr.rms(r);
+    out.residual_rms_after = pr.rms(p);
     out.impedance = pr.impedance(p);
     out.self_resonance = pr.self_resonance(p);
     BenchCorrections& bc = out.corrections;

@@ -16,5 +16,9 @@ std::string comparison_csv(const Comparison& c);
 // |Z| and phase of both over the measurement's frequencies (those above 0 Hz), the gap between the two |Z|
 // curves shaded, the poorly measured ranges greyed.
 std::string comparison_svg(const Comparison& c);
+// The fitted values as the small YAML a spec's `bench:` line names (records.hpp's BenchCorrections), each
+// with its standard error as a comment; `measurement` names the file in the header. InputError naming
+// "fit" without a fit.
+std::string bench_yaml(const Comparison& c, const std::string& measurement);
 
 }  // namespace libcoil

@@ -34,6 +34,11 @@ struct MeasuredImpedance {
     std::vector<double> relative_error;             // the arrangement's error at each point for dS = 0.001
     std::vector<double> weight;                     // 0 .. 1
     std::vector<std::string> notes;                 // the file's notes and the poorly measured ranges
+    // What the instrument measured, for a fit to weigh its noise where it arises: S11 or S21 of the
+    // arrangement at `reference` ohm with `trace_error` on each of its parts; nullopt, Z itself (an
+    // impedance file, or points given outright) with relative_error (or 1 % over the root of the weight).
+    std::optional<MeasurementArrangement> measured_as;
+    double reference = 50;                          // ohm
 };
 
 // What sits between the analyser's reference plane and the coil, removed from the measurement.
@@ -65,6 +70,14 @@ struct MeasuredFigures {
 };
 
 MeasuredFigures measured_figures(const MeasuredImpedance& z);
+
+// The trace error taken for every S parameter measured (|dS| on each part): a calibrated analyser's trace
+// noise, common practice, no source.
+inline constexpr double trace_error = 0.001;
+
+// The quantity the arrangement measures, from the coil's Z: S11 = (Z - Z0) / (Z + Z0), series-through
+// S21 = 2 Z0 / (2 Z0 + Z), shunt-through S21 = 2 Z / (2 Z + Z0).
+std::complex<double> measured_quantity(MeasurementArrangement arrangement, std::complex<double> z, double reference);
 
 }  // namespace libcoil
 
