@@ -11,7 +11,7 @@ from typing import Any, Iterator
 
 import numpy as np
 
-__all__ = ["Record", "Sweep", "DesignResult", "FormerResult", "CouplingResult"]
+__all__ = ["Record", "Sweep", "DesignResult", "FormerResult", "CouplingResult", "Comparison"]
 
 
 def _wrap(value: Any) -> Any:
@@ -131,3 +131,24 @@ class CouplingResult(Record):
     """M, k and the crosstalk between two coils as mounted."""
 
     __slots__ = ()
+
+
+class Comparison(Record):
+    """A measurement beside the prediction: ``extracted``, ``predicted``, ``deviation`` (figures by key), the
+    arrays ``frequency``, ``measured``, ``predicted_impedance``, and with a fit ``fitted`` and ``bench_yaml``."""
+
+    __slots__ = ()
+
+    def plot(self, ax=None):
+        """|Z| measured, predicted (and fitted) against frequency on log axes (matplotlib)."""
+        import matplotlib.pyplot as plt
+
+        ax = ax or plt.gca()
+        ax.loglog(self.frequency, np.abs(self.measured), label="measured")
+        ax.loglog(self.frequency, np.abs(self.predicted_impedance), "--", label="predicted")
+        if self.fitted_impedance is not None:
+            ax.loglog(self.frequency, np.abs(self.fitted_impedance), ":", label="fitted")
+        ax.set_xlabel("frequency (Hz)")
+        ax.set_ylabel("|Z| (Ω)")
+        ax.legend()
+        return ax
