@@ -136,7 +136,21 @@ MALFORMED = [
     ("ak.csv", "# reference fifty ohm\nfrequency [MHz], S11 real, S11 imag\n1, 0, 0\n", 1, "finite number"),
     ("al.csv", "frequency [MHz], Z real [mohm], Z imag [ohm]\n1, 2, 3\n", 1, "ohm"),
     ("am.csv", "frequency [MHz], frequency [Hz], Z real [ohm], Z imag [ohm]\n", 1, "second column"),
+    # Found by tests/fuzz/fuzz_network_file (tools/fuzz): numbers that overflow once scaled.
+    ("an.s1p", "# MHz S DB R 50\n1 7000 0\n", 2, "out of range"),
+    ("ar.ts", "[Version] 2.0\n# MHz S RI R 50\n[Number of Ports] 1\n[Number of Frequencies] 2e49\n", 4, "1 .. 10000000"),
+    ("ao.s1p", "# GHz S RI R 50\n1e308 0.5 0\n", 2, "out of range"),
+    ("ap.s1p", "# MHz Z RI R 50\n1 1e307 0\n", 2, "out of range"),
+    ("aq.csv", "frequency [GHz], Z real [ohm], Z imag [ohm]\n1e308, 2, 3\n", 2, "out of range"),
 ]
+
+
+def test_a_huge_angle_stays_finite(tmp_path):
+    # Found by the fuzz target: an angle of 1e308 degrees once became NaN (the angle times pi overflowed);
+    # it is reduced modulo 360 first, which for a whole number of turns is exact.
+    got = libcoil.read_network(write(tmp_path, "big.s1p", "# MHz S MA R 50\n1 0.5 1e308\n2 0.5 720090\n"))
+    assert np.all(np.isfinite(got.matrix))
+    assert got.matrix[1, 0, 0] == pytest.approx(0.5 * np.exp(1j * np.radians(90)), abs=1e-12)
 
 
 @pytest.mark.parametrize("name,text,line,fragment", MALFORMED, ids=[m[0] for m in MALFORMED])

@@ -116,6 +116,7 @@ NetworkData read_measurement_csv(std::string_view text, std::string_view name) {
                                                                   std::to_string(row.size()));
         }
         const double f = detail::number(name, row[static_cast<std::size_t>(freq)]) * unit;
+        if (!std::isfinite(f)) detail::fail_at(name, number, row[static_cast<std::size_t>(freq)].column, "the frequency is out of range");
         if (!(f >= 0)) detail::fail_at(name, number, row[static_cast<std::size_t>(freq)].column, "a frequency cannot be negative");
         if (!out.frequency.empty() && f <= out.frequency.back()) {
             detail::fail_at(name, number, row[static_cast<std::size_t>(freq)].column, "the frequencies must rise from row to row");
@@ -123,7 +124,7 @@ NetworkData read_measurement_csv(std::string_view text, std::string_view name) {
         const double x = detail::number(name, row[static_cast<std::size_t>(a)]), y = detail::number(name, row[static_cast<std::size_t>(b)]);
         if (polar && x < 0) detail::fail_at(name, number, row[static_cast<std::size_t>(a)].column, "a magnitude cannot be negative");
         out.frequency.push_back(f);
-        out.values.push_back(polar ? std::polar(x, y * angle) : std::complex<double>(x, y));
+        out.values.push_back(polar ? std::polar(x, angle == 1.0 ? std::fmod(y, 2 * M_PI) : std::fmod(y, 360.0) * angle) : std::complex<double>(x, y));
     }
     if (header.empty()) detail::fail_at(name, number, 1, "no header row");
     if (out.frequency.empty()) detail::fail_at(name, number, 1, "no data rows after the header");

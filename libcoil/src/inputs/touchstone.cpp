@@ -89,7 +89,7 @@ struct Reader {
             order_given = true;
         } else if (key == "number of frequencies") {
             const double n = detail::number(name, one());
-            if (n != std::floor(n) || n < 1) fail(one(), "expected a whole number of frequencies, at least 1");
+            if (n != std::floor(n) || n < 1 || n > 1e7) fail(one(), "expected a whole number of frequencies, 1 .. 10000000");
             frequencies = static_cast<long>(n);
         } else if (key == "number of noise frequencies") {
             notes.push_back("the noise data is left out");
@@ -153,12 +153,17 @@ struct Reader {
 
     std::complex<double> pair(const Field& a, const Field& b) const {
         const double x = detail::number(name, a), y = detail::number(name, b);
+        const double angle = std::fmod(y, 360.0) * M_PI / 180;  // reduced first: a huge angle stays finite
         switch (format) {
             case Format::ri: return {x, y};
             case Format::ma:
                 if (x < 0) fail(a, "a magnitude cannot be negative");
-                return std::polar(x, y * M_PI / 180);
-            case Format::db: return std::polar(std::pow(10.0, x / 20), y * M_PI / 180);
+                return std::polar(x, angle);
+            case Format::db: {
+                const double m = std::pow(10.0, x / 20);
+                if (!std::isfinite(m)) fail(a, "a magnitude of " + a.text + " dB is out of range");
+                return std::polar(m, angle);
+            }
         }
         return {};
     }
@@ -174,6 +179,7 @@ struct Reader {
         std::size_t i = 0;
         while (i < numbers.size()) {
             const double f = detail::number(name, numbers[i]) * unit;
+            if (!std::isfinite(f)) fail(numbers[i], "the frequency " + numbers[i].text + " is out of range");
             if (version == 1 && ports == 2 && !out.frequency.empty() && f <= out.frequency.back()) {
                 out.notes.push_back("line " + std::to_string(numbers[i].line) + " on: the noise data, left out");
                 break;
@@ -192,6 +198,9 @@ struct Reader {
                 std::complex<double> v = pair(numbers[i + 1 + 2 * static_cast<std::size_t>(k)], numbers[i + 2 + 2 * static_cast<std::size_t>(k)]);
                 if (version == 1 && parameter == 'Z') v *= r;  // version 1 normalises Z and Y to R
                 if (version == 1 && parameter == 'Y') v /= r;
+                if (!std::isfinite(v.real()) || !std::isfinite(v.imag())) {
+                    fail(numbers[i + 1 + 2 * static_cast<std::size_t>(k)], "the value is out of range once scaled by its reference");
+                }
                 m[static_cast<std::size_t>(row * ports + col)] = v;
             }
             out.values.insert(out.values.end(), m.begin(), m.end());
