@@ -11,7 +11,6 @@ import math
 
 import numpy as np
 import pytest
-import yaml
 
 import libcoil
 
@@ -65,7 +64,10 @@ def test_the_fitted_yaml_feeds_the_next_analysis(run_coil, source_dir, tmp_path)
     assert all(set(v) >= {"value", "standard_error"} for v in j["fitted"].values())
     assert j["residual_rms_after"] < j["residual_rms_before"]
     fitted = out / "bench-network-coil.bench.yaml"
-    assert yaml.safe_load(fitted.read_text())["bench"].keys() == j["fitted"].keys()
+    lines = fitted.read_text().splitlines()
+    assert "bench:" in lines
+    keys = {ln.split(":")[0].strip() for ln in lines[lines.index("bench:") + 1:]}
+    assert keys == set(j["fitted"])
     benched = tmp_path / "benched.yaml"
     benched.write_text(spec.read_text() + f"bench: {fitted.name}\n")
     (tmp_path / fitted.name).write_text(fitted.read_text())
