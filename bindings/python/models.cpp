@@ -325,10 +325,11 @@ void bind_models(py::module_& m) {
        "surroundings_permittivity"_a = 1.0, "mounting"_a = "floating",
        "Self-resonance by each model (dict); former_* describe the dielectric shell under the winding.");
     m.def("lumped_impedance", py::vectorize(&libcoil::lumped_impedance), "angular_frequency"_a, "resistance"_a,
-          "inductance"_a, "capacitance"_a);
-    m.def("line_impedance", [](double w, double r, double l, double v, double len, const std::string& mounting) {
-        return libcoil::line_impedance(w, r, l, v, len, libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting"));
-    }, "angular_frequency"_a, "resistance"_a, "inductance"_a, "phase_velocity"_a, "length"_a, "mounting"_a = "floating");
+          "inductance"_a, "capacitance"_a, "loss_tangent"_a = 0.0);
+    m.def("line_impedance", [](double w, double r, double l, double v, double len, const std::string& mounting, double loss_tangent) {
+        return libcoil::line_impedance(w, r, l, v, len, libcoil::parse_choice<libcoil::Mounting>(mounting, "mounting"), loss_tangent);
+    }, "angular_frequency"_a, "resistance"_a, "inductance"_a, "phase_velocity"_a, "length"_a, "mounting"_a = "floating",
+       "loss_tangent"_a = 0.0);
 
     // The turn network (PEEC).
     m.def("ring_capacitance", py::vectorize(&libcoil::ring_capacitance), "ring_radius"_a, "wire_radius"_a,

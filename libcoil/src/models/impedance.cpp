@@ -36,19 +36,21 @@ void require_finite_impedance(const cplx& z) {
 
 }  // namespace
 
-cplx lumped_impedance(double w, double resistance, double inductance, double capacitance) {
+cplx lumped_impedance(double w, double resistance, double inductance, double capacitance, double loss_tangent) {
     require_non_negative("angular_frequency", w);
     require_positive("resistance", resistance);
     require_positive("inductance", inductance);
     require_non_negative("capacitance", capacitance);
+    require_non_negative("loss_tangent", loss_tangent);
     const cplx series(resistance, w * inductance);
-    const cplx z = series / (1.0 + cplx(0, w * capacitance) * series);
+    const cplx z = series / (1.0 + cplx(0, w * capacitance) * cplx(1, -loss_tangent) * series);
     require_finite_impedance(z);
     return z;
 }
 
 cplx line_impedance(double w, double resistance, double inductance, double phase_velocity, double length,
-                    Mounting mounting) {
+                    Mounting mounting, double loss_tangent) {
+    require_non_negative("loss_tangent", loss_tangent);
     require_non_negative("angular_frequency", w);
     require_positive("resistance", resistance);
     require_positive("inductance", inductance);
@@ -57,7 +59,7 @@ cplx line_impedance(double w, double resistance, double inductance, double phase
     if (w == 0) return {resistance, 0};
     const double lp = inductance / length;                        // L' (H/m)
     const cplx z(resistance / length, w * lp);                    // series impedance per metre
-    const cplx y(0, w / (lp * phase_velocity * phase_velocity));  // j w C', C' = 1 / (L' v^2)
+    const cplx y = cplx(0, w / (lp * phase_velocity * phase_velocity)) * cplx(1, -loss_tangent);  // j w C' (1 - j tan d), C' = 1 / (L' v^2)
     const cplx gamma = std::sqrt(z * y), z0 = std::sqrt(z / y);
     const cplx zin = mounting == Mounting::floating ? 2.0 * z0 * stable_tanh(gamma * (length / 2))
                                                     : z0 * stable_tanh(gamma * length);
@@ -90,6 +92,8 @@ void CoilImpedance::set_terminal_terms(const TerminalTerms& t) {
     require_non_negative("resonance", t.resonance);
     terms_ = t;
 }
+
+void CoilImpedance::set_dielectric_loss(double loss_tangent) { loss_tangent_ = require_non_negative("loss_tangent", loss_tangent); }
 
 double CoilImpedance::resonance_low() const {
     const double own = shield_ ? shield_->self_resonance : sr_.frequency;
@@ -164,8 +168,8 @@ ImpedancePoint CoilImpedance::with_wire(double f, double resistance, double indu
     p.wire_resistance = resistance;
     p.wire_inductance = inductance;
     p.impedance = model == ImpedanceModel::lumped
-                      ? lumped_impedance(w, resistance, inductance, c)
-                      : line_impedance(w, resistance, inductance, phase_velocity(f), coil_.winding_length(), sr_.mounting);
+                      ? lumped_impedance(w, resistance, inductance, c, loss_tangent_)
+                      : line_impedance(w, resistance, inductance, phase_velocity(f), coil_.winding_length(), sr_.mounting, loss_tangent_);
     if (f > 0 && terms_.stray_capacitance > 0) p.impedance = 1.0 / (1.0 / p.impedance + cplx(0, w * terms_.stray_capacitance));
     if (f > 0) p.impedance += cplx(0, w * terms_.lead_inductance);
     require_finite_impedance(p.impedance);

@@ -359,7 +359,16 @@ std::string json_report(const Analysis& a) {
                        {"wall_m", f.wall},
                        {"ribs", f.ribs},
                        {"rib_width_m", f.rib_width},
-                       {"relative_permittivity", f.material.relative_permittivity}};
+                       {"relative_permittivity", f.material.relative_permittivity},
+                       {"loss_tangent", f.material.loss_tangent},
+                       {"effective_loss_tangent", a.dielectric_loss_tangent}};
+    }
+    if (a.spec.bench) {
+        const BenchCorrections& b = *a.spec.bench;
+        j["bench"] = {{"source", b.source}, {"stray_capacitance_F", b.stray_capacitance}, {"lead_inductance_H", b.lead_inductance},
+                      {"resistance_scale", b.resistance_scale}};
+        j["bench"]["former_permittivity"] = b.former_permittivity ? nlohmann::ordered_json(*b.former_permittivity) : nlohmann::ordered_json(nullptr);
+        j["bench"]["former_loss_tangent"] = b.former_loss_tangent ? nlohmann::ordered_json(*b.former_loss_tangent) : nlohmann::ordered_json(nullptr);
     }
     if (a.shield && a.spec.shield) {
         const ShieldSpec& s = *a.spec.shield;

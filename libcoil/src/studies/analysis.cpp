@@ -150,6 +150,10 @@ void add_self_resonance(Analysis& a) {
     for (const auto& w : a.self_resonance.warnings) a.warnings.push_back(w);
     for (const auto& n : a.self_resonance.notes) a.notes.push_back(n);
     a.self_resonance_as_mounted = a.self_resonance.frequency;
+    if (spec.former && spec.former->material.loss_tangent > 0) {
+        const double ratio = sheath_helix_former_ratio(s, former, spec.surroundings);
+        a.dielectric_loss_tangent = spec.former->material.loss_tangent * (1 - ratio * ratio);
+    }
 }
 
 // The shielded coil: the ring model at the operating frequencies and over the span, and the SRF with the
@@ -305,6 +309,7 @@ CoilImpedance coil_impedance(const Analysis& a) {
     CoilImpedance zc(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
                      std::move(load), a.wire_table);
     zc.set_terminal_terms(terminal_terms(a));
+    zc.set_dielectric_loss(a.dielectric_loss_tangent);
     return zc;
 }
 
@@ -315,6 +320,7 @@ CoilImpedance coil_impedance(const Analysis& a, double low, double high) {
     CoilImpedance zc(a.spec.solenoid, a.spec.conductor, a.spec.operating.temperature, a.inductance.recommended, a.self_resonance,
                      shield_load(a, wider), a.wire_table);
     zc.set_terminal_terms(terminal_terms(a));
+    zc.set_dielectric_loss(a.dielectric_loss_tangent);
     return zc;
 }
 

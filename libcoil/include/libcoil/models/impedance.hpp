@@ -15,6 +15,8 @@
 //          to the shield between the terminals, and the line's phase velocity is scaled, v(f) ->
 //          s v(f / s) with s = f_shielded / f_bare, so that its first resonance lies at the shielded SRF
 //          (shield.hpp's lumped estimate) and the dispersion above it keeps its shape.
+//          A former's dielectric loss: its loss tangent on the share of the capacitance it brings, the
+//          shunt admittance j w C (1 - j tan d) in both forms (as the turn network takes it).
 // Source:  transmission-line theory (any text, e.g. Ramo, Whinnery & Van Duzer); the lumped model is the
 //          common practice. The line form's low-frequency limit is R + j w L exactly.
 // Domain:  up to about the second resonance; radiation, the leads and nearby metal are not modelled.
@@ -47,10 +49,11 @@ struct ImpedancePoint {
 };
 
 // The lumped form at angular frequency w (rad/s).
-std::complex<double> lumped_impedance(double w, double resistance, double inductance, double capacitance);
+// `loss_tangent` (here and in the line form): the dielectric's, on the capacitance, j w C (1 - j tan d).
+std::complex<double> lumped_impedance(double w, double resistance, double inductance, double capacitance, double loss_tangent = 0);
 // The line form at w, for a line of `length` with total R and L and axial phase velocity v.
 std::complex<double> line_impedance(double w, double resistance, double inductance, double phase_velocity,
-                                    double length, Mounting mounting);
+                                    double length, Mounting mounting, double loss_tangent = 0);
 
 // A coaxial shield around the coil, as the coil's impedance sees it.
 struct ShieldLoad {
@@ -79,6 +82,9 @@ public:
                   const SelfResonance& self_resonance, std::optional<ShieldLoad> shield = std::nullopt, WireLossTable wire = {});
 
     void set_terminal_terms(const TerminalTerms& t);
+    // The dielectric's loss on the capacitance: the former's loss tangent times the share of the
+    // capacitance it brings (analysis.hpp's dielectric_loss_tangent).
+    void set_dielectric_loss(double loss_tangent);
 
     // Z at f (Hz, >= 0). For the lumped form `capacitance` (F) picks the self-capacitance; 0 takes the
     // recommended one.
@@ -119,6 +125,7 @@ private:
     std::optional<ShieldLoad> shield_;
     WireLossTable wire_;
     TerminalTerms terms_;
+    double loss_tangent_ = 0;
 };
 
 }  // namespace libcoil

@@ -71,6 +71,9 @@ struct Analysis {
         ShieldTable table{};                // the shield over the analysis's frequency span, for the impedance
     };
     std::optional<Shielded> shield{};
+    // The former's loss tangent on the share of the capacitance it brings, 1 - (f_former / f_air)^2 by the
+    // sheath helix (0 without a former): the dielectric loss of the impedance rows and the band check.
+    double dielectric_loss_tangent = 0;
     // The first self-resonance of the coil as mounted: the shielded one in a shield, else the recommended.
     double self_resonance_as_mounted = 0;
     // The band it is expected in, as mounted (self_resonance.hpp's srf_band, and a shield's widening): the
