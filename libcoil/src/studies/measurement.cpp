@@ -126,8 +126,9 @@ MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangemen
         }
         std::size_t j = k;
         while (j + 1 < out.frequency.size() && out.relative_error[j + 1] > poor_error) ++j;
-        out.notes.push_back(std::string(choice_name(arrangement)) + " measures poorly from " + hz(out.frequency[k]) + " to " +
-                            hz(out.frequency[j]) + " (a trace error of 0.001 moves Z by more than 5 %); those points weigh less");
+        const std::string where = j == k ? "at " + hz(out.frequency[k]) : "from " + hz(out.frequency[k]) + " to " + hz(out.frequency[j]);
+        out.notes.push_back(std::string(choice_name(arrangement)) + " measures poorly " + where +
+                            " (a trace error of 0.001 moves Z by more than 5 %); those points weigh less");
         k = j + 1;
     }
     return out;
