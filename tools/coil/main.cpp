@@ -204,6 +204,27 @@ int run_compare(const Given& g) {
     return 0;
 }
 
+int run_fixture(const Given& g) {
+    const std::string& path = g.positional.at(0);
+    libcoil::FixtureRequest q;
+    if (g.has("from")) q.from = g.quantity("from");
+    if (g.has("to")) q.to = g.quantity("to");
+    if (g.has("points")) q.points = static_cast<int>(g.whole("points", 2, 100000, 401));
+    const libcoil::FixtureResult r = libcoil::fixture_study(libcoil::load_fixture(path), q);
+    const std::string text = libcoil::fixture_text_report(r), json = libcoil::fixture_json_report(r);
+    std::vector<std::string> written;
+    if (g.has("out")) {
+        const std::filesystem::path dir(g.text("out"));
+        const std::string stem = stem_of(path);
+        written = write_all({{dir / (stem + ".fixture.txt"), text}, {dir / (stem + ".fixture.json"), json},
+                             {dir / (stem + ".fixture.csv"), libcoil::fixture_csv(r)}, {dir / (stem + ".fixture.svg"), libcoil::fixture_svg(r)},
+                             {dir / (stem + (r.ports.size() == 2 ? ".s2p" : ".s1p")), libcoil::fixture_touchstone(r)}});
+    }
+    std::cout << (g.flag("json") ? json : text);
+    if (!g.flag("json")) print_written(written);
+    return 0;
+}
+
 int run_design(const Given& g) {
     const std::string& path = g.positional.at(0);
     const libcoil::Requirement q = libcoil::load_requirement(path);
@@ -349,6 +370,8 @@ const Verb verbs[] = {
     {"sweep", "Impedance of the coil over frequency: CSV, Touchstone (.s1p) and a picture", {{"spec", "Coil spec (YAML)"}}, run_sweep},
     {"compare", "The coil in a spec against a measurement of it (Touchstone .s1p/.s2p/.ts or CSV): the figures of both, side by side",
      {{"spec", "Coil spec (YAML)"}, {"measurement", "The measured file"}}, run_compare},
+    {"fixture", "The port impedance of a fixture (YAML) with its coils as their analyses see them, against its reference",
+     {{"fixture", "Fixture description (YAML)"}}, run_fixture},
     {"design", "Search for the coils that meet a requirement (YAML) and rank them", {{"requirement", "Design requirement (YAML)"}},
      run_design},
     {"former", "A printable winding former for the coil in a spec: STL, a dimension sheet (SVG) and its dimensions (YAML)",

@@ -84,6 +84,15 @@ inline const std::vector<Option>& option_table() {
         {"compare", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"compare", "out", "--out", Kind::text, "Also write STEM.compare.txt, .json, .csv (both on the measurement's "
          "frequencies) and .svg (|Z| and phase of both) here", D::dimensionless, nullptr, "", false},
+        // coil fixture FIXTURE
+        {"fixture", "from", "--from", Kind::quantity, "First frequency (default: the fixture's sweep, else half the reference band's low edge or 10 kHz)",
+         D::frequency, nullptr, "", false},
+        {"fixture", "to", "--to", Kind::quantity, "Last frequency (default: the fixture's sweep, else twice the band's top or 300 MHz)",
+         D::frequency, nullptr, "", false},
+        {"fixture", "points", "--points", Kind::integer, "Number of frequencies (log spaced)", D::dimensionless, nullptr, "401", false},
+        {"fixture", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
+        {"fixture", "out", "--out", Kind::text, "Also write STEM.fixture.txt, .json, .csv, .svg and the ports' .s1p or .s2p here",
+         D::dimensionless, nullptr, "", false},
         // coil design REQUIREMENT
         {"design", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"design", "out", "--out", Kind::text, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)",

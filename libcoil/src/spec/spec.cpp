@@ -310,6 +310,10 @@ YAML::Node load_yaml(std::string_view text, std::string_view source) {
 
 }  // namespace detail
 
+namespace detail {
+CoilSpec read_coil_spec(const YAML::Node& root, const std::filesystem::path& base) { return read_spec(root, base); }
+}  // namespace detail
+
 CoilSpec parse_coil_spec(std::string_view yaml_text, std::string_view source) {
     return read_spec(detail::load_yaml(yaml_text, source), std::filesystem::path(source).parent_path());
 }

@@ -28,6 +28,9 @@ double read_enamel_class(const YamlMap& m);
 // directory). InputError names the field (in the file, the file's path and the field).
 BenchCorrections read_bench(const YamlMap& top, const std::filesystem::path& base);
 
+// A coil spec from its YAML node (inline in a fixture, say); relative paths inside it from `base`.
+CoilSpec read_coil_spec(const YAML::Node& root, const std::filesystem::path& base);
+
 // YAML text to a node; malformed YAML is an InputError naming source:line:column.
 YAML::Node load_yaml(std::string_view text, std::string_view source);
 

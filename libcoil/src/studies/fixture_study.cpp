@@ -1,0 +1,252 @@
+#include "libcoil/studies/fixture_study.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+#include <Eigen/Dense>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+#include "libcoil/core/units.hpp"
+#include "libcoil/inputs/network_file.hpp"
+#include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/sweep.hpp"
+
+namespace libcoil {
+
+namespace {
+
+using cd = std::complex<double>;
+
+std::string part_field(std::size_t i, const char* key) { return "parts[" + std::to_string(i) + "]." + key; }
+
+// A one-port file's Z at the frequencies, interpolated linearly in its real and imaginary parts.
+std::vector<cd> table_impedance(const std::filesystem::path& file, const std::vector<double>& f, const std::string& field) {
+    NetworkData d;
+    try {
+        d = read_network_file(file.string());
+    } catch (const InputError& e) {
+        throw e.within(field);
+    }
+    if (d.ports != 1) throw InputError(field, file.string() + " has " + std::to_string(d.ports) + " ports; expected a one-port file");
+    const double z0 = d.reference.empty() ? 50.0 : d.reference[0];
+    std::vector<cd> z;
+    for (std::size_t k = 0; k < d.frequency.size(); ++k) {
+        const cd v = d.at(k, 0, 0);
+        z.push_back(d.parameter == 'Z' ? v : d.parameter == 'Y' ? 1.0 / v : z0 * (1.0 + v) / (1.0 - v));
+    }
+    std::vector<cd> out;
+    for (double x : f) {
+        const auto& g = d.frequency;
+        if (x < g.front() * (1 - 1e-9) || x > g.back() * (1 + 1e-9)) {
+            throw InputError(field, file.string() + " covers " + format_quantity(g.front(), Dimension::frequency) + " to " +
+                                        format_quantity(g.back(), Dimension::frequency) + ", not " + format_quantity(x, Dimension::frequency));
+        }
+        std::size_t k = 0;
+        while (k + 2 < g.size() && g[k + 1] < x) ++k;
+        if (g.size() == 1) {
+            out.push_back(z[0]);
+            continue;
+        }
+        const double t = std::clamp((x - g[k]) / (g[k + 1] - g[k]), 0.0, 1.0);
+        out.push_back(z[k] + t * (z[k + 1] - z[k]));
+    }
+    return out;
+}
+
+class Network {
+public:
+    Network(const FixtureSpec& fx, const std::vector<double>& f, FixtureResult& result) : fx_(fx) {
+        for (const auto& p : fx.parts) {
+            for (const std::string& n : {p.from, p.to}) {
+                if (n != fx.ground && !index_.count(n)) index_.emplace(n, static_cast<int>(index_.size()));
+            }
+        }
+        for (std::size_t i = 0; i < fx.parts.size(); ++i) {
+            const FixturePart& p = fx.parts[i];
+            if (p.kind == FixturePartKind::coil) {
+                const Analysis a = [&] {
+                    try {
+                        return analyze(*p.coil);
+                    } catch (const InputError& e) {
+                        throw e.within(part_field(i, "coil"));
+                    }
+                }();
+                SweepRequest q;
+                q.frequencies = f;
+                const Sweep s = sweep_study(a, q);
+                std::vector<cd> z;
+                for (const auto& pt : s.points) z.push_back(pt.impedance);
+                given_.emplace(i, std::move(z));
+                nominal_.emplace(i, s.nominal_inductance);
+                result.coils.push_back({p.name, p.source, s.nominal_inductance, s.self_resonance, std::string(choice_name(s.model))});
+                for (const auto& c : a.cautions) result.notes.push_back(p.name + ": " + c);
+            } else if (p.touchstone) {
+                given_.emplace(i, table_impedance(*p.touchstone, f, part_field(i, "touchstone")));
+            }
+        }
+    }
+
+    // The part's Z at frequency index k (f Hz), ideal or as built.
+    cd part(std::size_t i, std::size_t k, double f, bool ideal) const {
+        const FixturePart& p = fx_.parts[i];
+        const double w = 2 * pi * f;
+        if (p.kind == FixturePartKind::coil) return ideal ? cd(0, w * nominal_.at(i)) : given_.at(i)[k];
+        if (p.touchstone) return given_.at(i)[k];
+        cd z;
+        switch (p.kind) {
+            case FixturePartKind::resistor: z = p.value; break;
+            case FixturePartKind::capacitor: z = 1.0 / cd(0, w * p.value); break;
+            default: z = cd(0, w * p.value); break;
+        }
+        if (ideal) return z;
+        z += cd(p.esr, w * p.esl);
+        cd y = 1.0 / z;
+        if (p.parallel_resistance) y += 1.0 / *p.parallel_resistance;
+        if (p.parallel_capacitance) y += cd(0, w * *p.parallel_capacitance);
+        return 1.0 / y;
+    }
+
+    // The ports' Z matrix at frequency index k; `ideal_all` makes every part ideal, `ideal_one` just that one.
+    std::vector<cd> ports(std::size_t k, double f, bool ideal_all, std::optional<std::size_t> ideal_one = std::nullopt) const {
+        const auto n = static_cast<Eigen::Index>(index_.size());
+        Eigen::MatrixXcd y = Eigen::MatrixXcd::Zero(n, n);
+        for (std::size_t i = 0; i < fx_.parts.size(); ++i) {
+            const FixturePart& p = fx_.parts[i];
+            const cd a = 1.0 / part(i, k, f, ideal_all || ideal_one == i);
+            const int u = node(p.from), v = node(p.to);
+            if (u >= 0) y(u, u) += a;
+            if (v >= 0) y(v, v) += a;
+            if (u >= 0 && v >= 0) {
+                y(u, v) -= a;
+                y(v, u) -= a;
+            }
+        }
+        const auto m = static_cast<Eigen::Index>(fx_.ports.size());
+        Eigen::MatrixXcd e = Eigen::MatrixXcd::Zero(n, m);
+        for (Eigen::Index j = 0; j < m; ++j) {
+            const FixturePort& p = fx_.ports[static_cast<std::size_t>(j)];
+            if (node(p.from) >= 0) e(node(p.from), j) = 1;
+            if (node(p.to) >= 0) e(node(p.to), j) = -1;
+        }
+        const Eigen::MatrixXcd z = e.transpose() * y.partialPivLu().solve(e);
+        std::vector<cd> out;
+        for (Eigen::Index r = 0; r < m; ++r) {
+            for (Eigen::Index c = 0; c < m; ++c) {
+                const cd v = z(r, c);
+                if (!std::isfinite(v.real()) || !std::isfinite(v.imag())) {
+                    throw DomainError("fixture: the port impedance at " + format_quantity(f, Dimension::frequency) + " is not finite (an ideal resonance)");
+                }
+                out.push_back(v);
+            }
+        }
+        return out;
+    }
+
+private:
+    int node(const std::string& name) const { return name == fx_.ground ? -1 : index_.at(name); }
+    const FixtureSpec& fx_;
+    std::map<std::string, int> index_;
+    std::map<std::size_t, std::vector<cd>> given_;
+    std::map<std::size_t, double> nominal_;
+};
+
+double deviation_of(cd z, cd ref, bool in_db) {
+    const double ratio = std::abs(z) / std::abs(ref);
+    return in_db ? 20 * std::log10(ratio) : ratio - 1;
+}
+
+std::vector<double> frequencies_of(const FixtureSpec& fx, const FixtureRequest& q) {
+    if (!q.frequencies.empty()) {
+        if (q.frequencies.size() > 1000000) throw InputError("frequencies", "at most 1000000");
+        for (std::size_t i = 0; i < q.frequencies.size(); ++i) {
+            require_positive("frequencies", q.frequencies[i]);
+            if (i > 0 && !(q.frequencies[i] > q.frequencies[i - 1])) throw InputError("frequencies", "not rising at index " + std::to_string(i));
+        }
+        return q.frequencies;
+    }
+    const auto& r = fx.reference;
+    const double from = q.from.value_or(fx.from.value_or(r ? r->band_low / 2 : 10e3));
+    const double to = q.to.value_or(fx.to.value_or(r ? 2 * r->band_high : 300e6));
+    return frequency_grid(from, to, q.points.value_or(fx.points), Spacing::logarithmic);
+}
+
+}  // namespace
+
+std::vector<std::complex<double>> FixtureResult::s_parameters(std::size_t k) const {
+    const auto m = static_cast<Eigen::Index>(ports.size());
+    Eigen::MatrixXcd z(m, m), g = Eigen::MatrixXcd::Zero(m, m);
+    for (Eigen::Index r = 0; r < m; ++r) {
+        g(r, r) = ports[static_cast<std::size_t>(r)].reference;
+        for (Eigen::Index c = 0; c < m; ++c) z(r, c) = impedance[k][static_cast<std::size_t>(r * m + c)];
+    }
+    const Eigen::MatrixXcd s = (z - g) * (z + g).inverse();
+    std::vector<std::complex<double>> out;
+    for (Eigen::Index r = 0; r < m; ++r) {
+        for (Eigen::Index c = 0; c < m; ++c) out.push_back(s(r, c));
+    }
+    return out;
+}
+
+FixtureResult fixture_study(const FixtureSpec& fx, const FixtureRequest& q) {
+    FixtureResult out;
+    out.title = fx.name;
+    out.description = fx.description;
+    out.ports = fx.ports;
+    out.notes = fx.notes;
+    out.frequency = frequencies_of(fx, q);
+    const Network net(fx, out.frequency, out);
+    for (std::size_t k = 0; k < out.frequency.size(); ++k) out.impedance.push_back(net.ports(k, out.frequency[k], false));
+    if (!fx.reference) return out;
+
+    const FixtureReference& r = *fx.reference;
+    if (r.table) {
+        out.reference = table_impedance(*r.table, out.frequency, "reference.table");
+    } else {
+        for (std::size_t k = 0; k < out.frequency.size(); ++k) out.reference.push_back(net.ports(k, out.frequency[k], true)[0]);
+        for (const auto& p : fx.parts) {
+            if (p.touchstone) out.notes.push_back("the ideal reference keeps " + p.name + " as its file gives it (a file has no ideal form)");
+        }
+    }
+    FixtureVerdict v;
+    v.band_low = r.band_low;
+    v.band_high = r.band_high;
+    v.tolerance = r.tolerance;
+    v.in_db = r.in_db;
+    v.pass = true;
+    std::optional<std::size_t> worst;
+    for (std::size_t k = 0; k < out.frequency.size(); ++k) {
+        const double d = deviation_of(out.impedance[k][0], out.reference[k], r.in_db);
+        out.deviation.push_back(finite_result("fixture deviation", d));
+        const double f = out.frequency[k];
+        if (f < r.band_low * (1 - 1e-12) || f > r.band_high * (1 + 1e-12)) continue;
+        if (!worst || std::fabs(d) > std::fabs(v.worst_deviation)) {
+            worst = k;
+            v.worst_deviation = d;
+            v.worst_frequency = f;
+        }
+        if (std::fabs(d) > r.tolerance && v.pass) {
+            v.pass = false;
+            v.first_failure = f;
+        }
+    }
+    if (!worst) throw InputError("reference.band", "no frequency of the sweep lies in the band; widen the sweep");
+    if (v.worst_deviation != 0) {
+        const std::size_t k = *worst;
+        for (std::size_t i = 0; i < fx.parts.size(); ++i) {
+            const FixturePart& p = fx.parts[i];
+            if (p.ideal() || p.touchstone) continue;
+            const double d = deviation_of(net.ports(k, out.frequency[k], false, i)[0], out.reference[k], r.in_db);
+            const double share = (std::fabs(v.worst_deviation) - std::fabs(d)) / std::fabs(v.worst_deviation);
+            if (v.dominant_part.empty() || share > v.dominant_share) {
+                v.dominant_part = p.name;
+                v.dominant_share = share;
+            }
+        }
+    }
+    out.verdict = v;
+    return out;
+}
+
+}  // namespace libcoil
