@@ -219,6 +219,47 @@ void bind_studies(py::module_& m) {
        "The coil of a spec against a measurement of it (a file's path, or a read_measurement record): the figures read "
        "the same way from both (extracted, predicted, deviation), and with fit=True the bench fit (fitted: value and "
        "standard_error per parameter, residual_rms_before/after, correlation, fitted_impedance, bench_yaml).");
+    m.def("fixture", [](const py::object& fixture, std::optional<std::vector<double>> frequencies, std::optional<double> from,
+                        std::optional<double> to, std::optional<int> points) {
+        libcoil::FixtureSpec fx = [&] {
+            if (py::hasattr(fixture, "__fspath__")) return libcoil::load_fixture(py::str(py::module_::import("os").attr("fspath")(fixture)).cast<std::string>());
+            const std::string text = fixture.cast<std::string>();
+            if (text.find('\n') == std::string::npos && text.find(':') == std::string::npos) return libcoil::load_fixture(text);
+            return libcoil::parse_fixture(text, "fixture");
+        }();
+        libcoil::FixtureRequest q;
+        if (frequencies) q.frequencies = *frequencies;
+        q.from = from;
+        q.to = to;
+        q.points = points;
+        libcoil::FixtureResult r;
+        {
+            py::gil_scoped_release release;
+            r = libcoil::fixture_study(fx, q);
+        }
+        const auto n = static_cast<py::ssize_t>(r.frequency.size()), m = static_cast<py::ssize_t>(r.ports.size());
+        py::array_t<std::complex<double>> z({n, m, m});
+        auto* zp = z.mutable_data();
+        for (const auto& row : r.impedance) zp = std::copy(row.begin(), row.end(), zp);
+        py::array_t<std::complex<double>> s({n, m, m});
+        auto* sp = s.mutable_data();
+        for (std::size_t k = 0; k < r.frequency.size(); ++k) {
+            const auto row = r.s_parameters(k);
+            sp = std::copy(row.begin(), row.end(), sp);
+        }
+        py::dict d = py::module_::import("json").attr("loads")(libcoil::fixture_json_report(r));
+        d["frequency"] = py::array_t<double>(n, r.frequency.data());
+        d["impedance"] = z;
+        d["s"] = s;
+        d["reference_impedance"] = r.reference.empty() ? py::object(py::none())
+                                                       : py::object(py::array_t<std::complex<double>>(n, r.reference.data()));
+        d["deviation"] = r.deviation.empty() ? py::object(py::none()) : py::object(py::array_t<double>(n, r.deviation.data()));
+        if (!d.contains("verdict")) d["verdict"] = py::none();
+        d["text"] = libcoil::fixture_text_report(r);
+        return record("Record", d);
+    }, "fixture"_a, "frequencies"_a = py::none(), "from_"_a = py::none(), "to"_a = py::none(), "points"_a = py::none(),
+       "A fixture's port impedance (a path, or the YAML text): frequency, impedance[k, i, j] (ohm) and s[k, i, j] as numpy "
+       "arrays, with its reference, deviation and verdict where it has a reference.");
     m.def("frequency_grid", [](double start, double stop, int points, bool logarithmic) {
         return libcoil::frequency_grid(start, stop, points, logarithmic ? libcoil::Spacing::logarithmic : libcoil::Spacing::linear);
     }, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);
