@@ -9,6 +9,7 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
+#include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/cautions.hpp"
 #include "core/text_format.hpp"
 #include "studies/design_search.hpp"
@@ -16,9 +17,46 @@
 
 namespace libcoil {
 
+namespace {
+
+// Fields that contradict each other whatever the coil, found before the search. A minimum |Z| over the band
+// is bounded at its low edge: there |Z| <= w L / (1 - (f / f0)^2) for any coil resonating at f0 (lumped,
+// lossless; losses only lower the peak), with f0 at least the SRF margin times the ceiling, or |Z| <= (1 +
+// max_deviation) w L where the deviation is bounded; L at most the target and its tolerance. A 5 % allowance
+// covers the models' L(f) and the shield, so that only a sure contradiction stops the search.
+void check_conflicts(const Requirement& q) {
+    if (!q.band || !q.band->min_impedance) return;
+    const BandSpec& b = *q.band;
+    const double margin = required_srf_margin(b);
+    double rise = INFINITY;
+    std::string by;
+    if (margin > 0) {
+        const double x = b.low / (margin * b.ceiling);
+        rise = 1 / (1 - x * x);
+        by = "the SRF margin (band.srf_margin " + detail::significant(margin, 3) + ")";
+    }
+    if (b.max_deviation && 1 + *b.max_deviation < rise) {
+        rise = 1 + *b.max_deviation;
+        by = "band.max_deviation (" + detail::significant(100 * *b.max_deviation, 3) + " %)";
+    }
+    if (!std::isfinite(rise)) return;
+    const double most = 2 * pi * b.low * q.inductance * (1 + q.tolerance) * rise;
+    if (*b.min_impedance > 1.05 * most) {
+        throw InputError("band.min_impedance", format_quantity(*b.min_impedance, Dimension::resistance) + " cannot be met at band.low (" +
+                                                   format_quantity(b.low, Dimension::frequency) + "): a coil of target.inductance " +
+                                                   format_quantity(q.inductance, Dimension::inductance) + " (+" +
+                                                   detail::significant(100 * q.tolerance, 3) + " %) has at most " +
+                                                   format_quantity(most, Dimension::resistance) + " there under " + by +
+                                                   "; lower band.min_impedance, raise band.low or the target");
+    }
+}
+
+}  // namespace
+
 DesignResult design(const Requirement& q, const DesignOptions& options) {
     require_positive("target.inductance", q.inductance);
     if (q.wires.empty()) throw InputError("search.wires", "the list is empty");
+    check_conflicts(q);
     // The grid is enumerated by index, never stored: candidate i is (wire, diameter, ratio) in row-major order.
     const std::vector<double> diameters = q.form_diameter.values(), ratios = q.pitch_ratio.values();
     const std::size_t per_wire = diameters.size() * ratios.size(), total = q.wires.size() * per_wire;
@@ -57,8 +95,9 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         out.binding = "No candidate meets the requirement. Most were stopped by " + detail::reason_words(top_reason) + " (" +
                       std::to_string(most) + " of " + std::to_string(total) + ").";
         if (out.closest) {
+            const double by = (out.closest->excess - 1) * 100;
             out.binding += " The closest attempt, " + out.closest->detail + ", misses " + detail::reason_words(out.closest->reason) +
-                           " by " + detail::fixed((out.closest->excess - 1) * 100, 1) + " %.";
+                           (by < 0.05 ? " by less than 0.1 %." : " by " + detail::fixed(by, 1) + " %.");
         }
         out.cautions = safety_cautions(q.supply_voltage, q.rf_power, 0, 0);
         return out;
