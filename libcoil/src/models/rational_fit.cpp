@@ -1,0 +1,210 @@
+#include "libcoil/models/rational_fit.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include <Eigen/Dense>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/core/error.hpp"
+
+namespace libcoil {
+
+namespace {
+
+using cd = std::complex<double>;
+
+// The basis of the poles at s: for a real pole 1 / (s - a); for a pair (a, conj a) the two real-valued
+// functions 1 / (s - a) + 1 / (s - conj a) and j / (s - a) - j / (s - conj a).
+std::vector<cd> basis(const std::vector<cd>& poles, cd s) {
+    std::vector<cd> out;
+    for (std::size_t n = 0; n < poles.size(); ++n) {
+        const cd a = poles[n];
+        if (a.imag() == 0) {
+            out.push_back(1.0 / (s - a));
+        } else {
+            out.push_back(1.0 / (s - a) + 1.0 / (s - std::conj(a)));
+            out.push_back(cd(0, 1) / (s - a) - cd(0, 1) / (s - std::conj(a)));
+            ++n;
+        }
+    }
+    return out;
+}
+
+// Residues from the real-valued coefficients of basis().
+std::vector<cd> residues_of(const std::vector<cd>& poles, const Eigen::VectorXd& x) {
+    std::vector<cd> r;
+    Eigen::Index k = 0;
+    for (std::size_t n = 0; n < poles.size(); ++n) {
+        if (poles[n].imag() == 0) {
+            r.push_back(x[k++]);
+        } else {
+            const cd c(x[k], x[k + 1]);
+            r.push_back(c);
+            r.push_back(std::conj(c));
+            k += 2;
+            ++n;
+        }
+    }
+    return r;
+}
+
+}  // namespace
+
+cd RationalFit::operator()(cd s) const {
+    cd v = constant + s * proportional;
+    for (std::size_t n = 0; n < poles.size(); ++n) v += residues[n] / (s - poles[n]);
+    return v;
+}
+
+RationalFit vector_fit(const std::vector<double>& f, const std::vector<cd>& v, int order, int iterations) {
+    if (f.size() != v.size()) throw InputError("values", "one value a frequency");
+    if (order < 1 || order > 60) throw InputError("order", std::to_string(order) + "; expected 1 .. 60");
+    if (f.size() < static_cast<std::size_t>(2 * order + 4)) throw InputError("frequencies", "too few points for order " + std::to_string(order));
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        require_positive("frequencies", f[k]);
+        if (!std::isfinite(v[k].real()) || !std::isfinite(v[k].imag()) || std::abs(v[k]) == 0) throw InputError("values", "not finite or zero at index " + std::to_string(k));
+    }
+    const double w_lo = 2 * pi * f.front(), w_hi = 2 * pi * f.back();
+    // Starting poles: complex pairs spread logarithmically over the band, lightly damped; a real pole at the
+    // band's bottom for an odd order.
+    std::vector<cd> poles;
+    const int pairs = order / 2;
+    if (order % 2) poles.push_back(-w_lo);
+    for (int k = 0; k < pairs; ++k) {
+        const double b = w_lo * std::pow(w_hi / w_lo, pairs == 1 ? 0.5 : static_cast<double>(k) / (pairs - 1));
+        poles.push_back(cd(-b / 100, b));
+        poles.push_back(cd(-b / 100, -b));
+    }
+    const auto rows = static_cast<Eigen::Index>(2 * f.size());
+    const auto n = static_cast<Eigen::Index>(poles.size());
+    for (int it = 0; it < iterations; ++it) {
+        // [basis, 1, s, -f basis] x = f, weighted by 1 / |f|.
+        Eigen::MatrixXd m(rows, 2 * n + 2);
+        Eigen::VectorXd rhs(rows);
+        for (std::size_t k = 0; k < f.size(); ++k) {
+            const cd s(0, 2 * pi * f[k]);
+            const double w = 1 / std::abs(v[k]);
+            const std::vector<cd> b = basis(poles, s);
+            std::vector<cd> row;
+            for (const cd& x : b) row.push_back(x);
+            row.push_back(1);
+            row.push_back(s);
+            for (const cd& x : b) row.push_back(-v[k] * x);
+            for (Eigen::Index c = 0; c < 2 * n + 2; ++c) {
+                m(static_cast<Eigen::Index>(2 * k), c) = w * row[static_cast<std::size_t>(c)].real();
+                m(static_cast<Eigen::Index>(2 * k + 1), c) = w * row[static_cast<std::size_t>(c)].imag();
+            }
+            rhs[static_cast<Eigen::Index>(2 * k)] = w * v[k].real();
+            rhs[static_cast<Eigen::Index>(2 * k + 1)] = w * v[k].imag();
+        }
+        // Column scaling keeps the problem well conditioned over decades of frequency.
+        Eigen::VectorXd scale = m.colwise().norm().transpose();
+        for (Eigen::Index c = 0; c < scale.size(); ++c) {
+            if (scale[c] == 0) scale[c] = 1;
+        }
+        const Eigen::VectorXd x = (m * scale.cwiseInverse().asDiagonal()).colPivHouseholderQr().solve(rhs).cwiseQuotient(scale);
+        const Eigen::VectorXd ct = x.tail(n);
+        // The zeros of sigma: eigenvalues of A - b ct^T in real form.
+        Eigen::MatrixXd a = Eigen::MatrixXd::Zero(n, n);
+        Eigen::VectorXd bv = Eigen::VectorXd::Zero(n);
+        for (Eigen::Index k = 0; k < n; ++k) {
+            const cd p = poles[static_cast<std::size_t>(k)];
+            if (p.imag() == 0) {
+                a(k, k) = p.real();
+                bv[k] = 1;
+            } else {
+                a(k, k) = p.real();
+                a(k, k + 1) = p.imag();
+                a(k + 1, k) = -p.imag();
+                a(k + 1, k + 1) = p.real();
+                bv[k] = 2;
+                ++k;
+            }
+        }
+        const Eigen::VectorXcd z = (a - bv * ct.transpose()).eigenvalues();
+        std::vector<cd> next;
+        std::vector<cd> sorted(z.data(), z.data() + z.size());
+        std::sort(sorted.begin(), sorted.end(), [](cd p, cd q) { return std::pair(p.imag(), p.real()) < std::pair(q.imag(), q.real()); });
+        for (const cd& p0 : sorted) {
+            cd p(p0.real() > 0 ? -p0.real() : p0.real(), p0.imag());  // reflect the unstable
+            if (p.real() == 0) p = cd(-1e-6 * std::abs(p.imag()) - 1e-300, p.imag());
+            if (std::fabs(p.imag()) < 1e-9 * std::abs(p)) {
+                next.push_back(cd(p.real(), 0));
+            } else if (p.imag() > 0) {
+                next.push_back(p);
+                next.push_back(std::conj(p));
+            }
+        }
+        if (static_cast<Eigen::Index>(next.size()) != n) break;  // a pair split into two reals: keep the last poles
+        poles = next;
+    }
+    // The residues with the poles fixed.
+    Eigen::MatrixXd m(rows, n + 2);
+    Eigen::VectorXd rhs(rows);
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const cd s(0, 2 * pi * f[k]);
+        const double w = 1 / std::abs(v[k]);
+        std::vector<cd> row = basis(poles, s);
+        row.push_back(1);
+        row.push_back(s);
+        for (Eigen::Index c = 0; c < n + 2; ++c) {
+            m(static_cast<Eigen::Index>(2 * k), c) = w * row[static_cast<std::size_t>(c)].real();
+            m(static_cast<Eigen::Index>(2 * k + 1), c) = w * row[static_cast<std::size_t>(c)].imag();
+        }
+        rhs[static_cast<Eigen::Index>(2 * k)] = w * v[k].real();
+        rhs[static_cast<Eigen::Index>(2 * k + 1)] = w * v[k].imag();
+    }
+    Eigen::VectorXd scale = m.colwise().norm().transpose();
+    for (Eigen::Index c = 0; c < scale.size(); ++c) {
+        if (scale[c] == 0) scale[c] = 1;
+    }
+    const Eigen::VectorXd x = (m * scale.cwiseInverse().asDiagonal()).colPivHouseholderQr().solve(rhs).cwiseQuotient(scale);
+    RationalFit out;
+    out.poles = poles;
+    out.residues = residues_of(poles, x.head(n));
+    out.constant = x[n];
+    out.proportional = x[n + 1];
+    double sum = 0;
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const double e = std::abs(out(cd(0, 2 * pi * f[k])) - v[k]) / std::abs(v[k]);
+        sum += e * e;
+        out.max_relative_error = std::max(out.max_relative_error, e);
+    }
+    out.rms_relative_error = std::sqrt(sum / static_cast<double>(f.size()));
+    return out;
+}
+
+FosterAdmittance foster_admittance(const RationalFit& y) {
+    FosterAdmittance out;
+    out.conductance = y.constant;
+    out.capacitance = y.proportional;
+    const auto refuse = [&](const std::string& why) {
+        if (out.realisable) out.reason = why;
+        out.realisable = false;
+    };
+    if (out.conductance < 0) refuse("a negative conductance across the terminals");
+    if (out.capacitance < 0) refuse("a negative capacitance across the terminals");
+    for (std::size_t n = 0; n < y.poles.size(); ++n) {
+        const cd a = y.poles[n], c = y.residues[n];
+        FosterBranch b;
+        if (a.imag() == 0) {
+            b.inductance = 1 / c.real();
+            b.resistance = -a.real() / c.real();
+        } else {
+            const double alpha = -2 * a.real(), beta = -2 * (c.real() * a.real() + c.imag() * a.imag()), gamma = std::norm(a);
+            b.inductance = 1 / (2 * c.real());
+            b.resistance = b.inductance * (alpha - beta * b.inductance);
+            b.capacitance = 1 / (b.inductance * (gamma - b.resistance * beta));
+            b.conductance = beta * b.inductance * b.capacitance;
+            ++n;
+        }
+        if (!(b.inductance > 0) || b.resistance < 0 || b.capacitance < 0 || b.conductance < 0 || !std::isfinite(b.capacitance)) {
+            refuse("branch " + std::to_string(out.branches.size() + 1) + " would need a negative element");
+        }
+        out.branches.push_back(b);
+    }
+    return out;
+}
+
+}  // namespace libcoil
