@@ -225,6 +225,31 @@ int run_fixture(const Given& g) {
     return 0;
 }
 
+int run_export_circuit(const Given& g) {
+    const std::string& path = g.positional.at(0);
+    libcoil::CircuitExportRequest q;
+    if (g.has("from")) q.from = g.quantity("from");
+    if (g.has("to")) q.to = g.quantity("to");
+    if (g.has("order")) q.order = static_cast<int>(g.whole("order", 1, 30));
+    const libcoil::CircuitExport c = libcoil::circuit_export(libcoil::analyze(libcoil::load_coil_spec(path)), q);
+    std::string name = "COIL_" + stem_of(path);
+    for (char& ch : name) {
+        if (!std::isalnum(static_cast<unsigned char>(ch))) ch = '_';
+    }
+    if (g.has("name")) name = g.text("name");
+    const std::string text = libcoil::circuit_export_text(c), spice = libcoil::spice_subcircuit(c, name);
+    std::vector<std::string> written;
+    if (g.has("out")) {
+        const std::filesystem::path dir(g.text("out"));
+        written = write_all({{dir / (stem_of(path) + ".cir"), spice}, {dir / (stem_of(path) + ".circuit.txt"), text}});
+        std::cout << text;
+        print_written(written);
+    } else {
+        std::cout << spice;
+    }
+    return 0;
+}
+
 int run_design(const Given& g) {
     const std::string& path = g.positional.at(0);
     const libcoil::Requirement q = libcoil::load_requirement(path);
@@ -372,6 +397,8 @@ const Verb verbs[] = {
      {{"spec", "Coil spec (YAML)"}, {"measurement", "The measured file"}}, run_compare},
     {"fixture", "The port impedance of a fixture (YAML) with its coils as their analyses see them, against its reference",
      {{"fixture", "Fixture description (YAML)"}}, run_fixture},
+    {"export-circuit", "An equivalent circuit of the coil for a circuit simulator: a SPICE subcircuit fitted to its impedance",
+     {{"spec", "Coil spec (YAML)"}}, run_export_circuit},
     {"design", "Search for the coils that meet a requirement (YAML) and rank them", {{"requirement", "Design requirement (YAML)"}},
      run_design},
     {"former", "A printable winding former for the coil in a spec: STL, a dimension sheet (SVG) and its dimensions (YAML)",

@@ -93,6 +93,15 @@ inline const std::vector<Option>& option_table() {
         {"fixture", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"fixture", "out", "--out", Kind::text, "Also write STEM.fixture.txt, .json, .csv, .svg and the ports' .s1p or .s2p here",
          D::dimensionless, nullptr, "", false},
+        // coil export-circuit SPEC
+        {"export-circuit", "from", "--from", Kind::quantity, "Bottom of the fitted range (default: SRF / 1000)", D::frequency, nullptr, "", false},
+        {"export-circuit", "to", "--to", Kind::quantity, "Top of the fitted range (default: 2.5 x SRF)", D::frequency, nullptr, "", false},
+        {"export-circuit", "order", "--order", Kind::integer,
+         "Pole pairs of the fit (default: the least from 2 to 10 within 1 % and 1 degree, and passive)", D::dimensionless, nullptr, "", false},
+        {"export-circuit", "name", "--name", Kind::text, "The subcircuit's name (default: COIL_ and the spec's file name)", D::dimensionless,
+         nullptr, "", false},
+        {"export-circuit", "out", "--out", Kind::text, "Write STEM.cir and STEM.circuit.txt here (else the subcircuit to stdout)",
+         D::dimensionless, nullptr, "", false},
         // coil design REQUIREMENT
         {"design", "json", "--json", Kind::flag, "Print one JSON object with SI values instead of the report", D::dimensionless, nullptr, "", false},
         {"design", "out", "--out", Kind::text, "Also write the report, the JSON and the chosen design's spec (NAME.chosen.yaml)",

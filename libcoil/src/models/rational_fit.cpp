@@ -175,6 +175,127 @@ RationalFit vector_fit(const std::vector<double>& f, const std::vector<cd>& v, i
     return out;
 }
 
+namespace {
+
+// min |A x - b| with x_i >= 0 where `bounded`, by Lawson and Hanson's active set; A's columns pre-scaled.
+Eigen::VectorXd bounded_least_squares(const Eigen::MatrixXd& a, const Eigen::VectorXd& b, const std::vector<bool>& bounded) {
+    const auto n = a.cols();
+    std::vector<bool> passive(static_cast<std::size_t>(n));
+    for (Eigen::Index j = 0; j < n; ++j) passive[static_cast<std::size_t>(j)] = !bounded[static_cast<std::size_t>(j)];
+    const auto solve_on = [&](const std::vector<bool>& set) {
+        std::vector<Eigen::Index> cols;
+        for (Eigen::Index j = 0; j < n; ++j) {
+            if (set[static_cast<std::size_t>(j)]) cols.push_back(j);
+        }
+        Eigen::VectorXd x = Eigen::VectorXd::Zero(n);
+        if (cols.empty()) return x;
+        Eigen::MatrixXd sub(a.rows(), static_cast<Eigen::Index>(cols.size()));
+        for (std::size_t c = 0; c < cols.size(); ++c) sub.col(static_cast<Eigen::Index>(c)) = a.col(cols[c]);
+        const Eigen::VectorXd z = sub.colPivHouseholderQr().solve(b);
+        for (std::size_t c = 0; c < cols.size(); ++c) x[cols[c]] = z[static_cast<Eigen::Index>(c)];
+        return x;
+    };
+    Eigen::VectorXd x = solve_on(passive);
+    for (int outer = 0; outer < 3 * n + 10; ++outer) {
+        const Eigen::VectorXd w = a.transpose() * (b - a * x);
+        Eigen::Index best = -1;
+        for (Eigen::Index j = 0; j < n; ++j) {
+            if (!passive[static_cast<std::size_t>(j)] && w[j] > 1e-12 * (1 + b.norm()) && (best < 0 || w[j] > w[best])) best = j;
+        }
+        if (best < 0) break;
+        passive[static_cast<std::size_t>(best)] = true;
+        for (int inner = 0; inner < 3 * n + 10; ++inner) {
+            const Eigen::VectorXd s = solve_on(passive);
+            double step = 1;
+            Eigen::Index hit = -1;
+            for (Eigen::Index j = 0; j < n; ++j) {
+                if (bounded[static_cast<std::size_t>(j)] && passive[static_cast<std::size_t>(j)] && s[j] <= 0) {
+                    const double t = x[j] / (x[j] - s[j]);
+                    if (t < step) {
+                        step = t;
+                        hit = j;
+                    }
+                }
+            }
+            if (hit < 0) {
+                x = s;
+                break;
+            }
+            x += step * (s - x);
+            for (Eigen::Index j = 0; j < n; ++j) {
+                if (bounded[static_cast<std::size_t>(j)] && passive[static_cast<std::size_t>(j)] && x[j] <= 1e-15 * (1 + std::fabs(x[j]))) {
+                    passive[static_cast<std::size_t>(j)] = false;
+                    x[j] = 0;
+                }
+            }
+            passive[static_cast<std::size_t>(hit)] = false;
+            x[hit] = 0;
+        }
+    }
+    return x;
+}
+
+}  // namespace
+
+RationalFit passive_fit(const std::vector<double>& f, const std::vector<cd>& v, int pairs, double per_decade) {
+    if (pairs < 1 || pairs > 30) throw InputError("order", std::to_string(pairs) + " pole pairs; expected 1 .. 30");
+    require_positive("per_decade", per_decade);
+    const RationalFit first = vector_fit(f, v, 2 * pairs);
+    std::vector<cd> poles;
+    const double lo = 2 * pi * f.front() / 1000, hi = 2 * pi * f.back();
+    const int reals = std::max(1, static_cast<int>(std::ceil(per_decade * std::log10(hi / lo))));
+    for (int k = 0; k < reals; ++k) poles.push_back(-lo * std::pow(hi / lo, reals == 1 ? 0.0 : static_cast<double>(k) / (reals - 1)));
+    for (const cd& p : first.poles) {
+        if (p.imag() != 0) poles.push_back(p);
+    }
+    const auto n = static_cast<Eigen::Index>(poles.size());
+    const auto rows = static_cast<Eigen::Index>(2 * f.size());
+    Eigen::MatrixXd m(rows, n + 2);
+    Eigen::VectorXd rhs(rows);
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const cd s(0, 2 * pi * f[k]);
+        const double w = 1 / std::abs(v[k]);
+        std::vector<cd> row = basis(poles, s);
+        row.push_back(1);
+        row.push_back(s);
+        for (Eigen::Index c = 0; c < n + 2; ++c) {
+            m(static_cast<Eigen::Index>(2 * k), c) = w * row[static_cast<std::size_t>(c)].real();
+            m(static_cast<Eigen::Index>(2 * k + 1), c) = w * row[static_cast<std::size_t>(c)].imag();
+        }
+        rhs[static_cast<Eigen::Index>(2 * k)] = w * v[k].real();
+        rhs[static_cast<Eigen::Index>(2 * k + 1)] = w * v[k].imag();
+    }
+    Eigen::VectorXd scale = m.colwise().norm().transpose();
+    for (Eigen::Index c = 0; c < scale.size(); ++c) {
+        if (scale[c] == 0) scale[c] = 1;
+    }
+    std::vector<bool> bounded(static_cast<std::size_t>(n + 2), false);
+    for (int k = 0; k < reals; ++k) bounded[static_cast<std::size_t>(k)] = true;
+    bounded[static_cast<std::size_t>(n)] = bounded[static_cast<std::size_t>(n + 1)] = true;
+    const Eigen::VectorXd x = bounded_least_squares(m * scale.cwiseInverse().asDiagonal(), rhs, bounded).cwiseQuotient(scale);
+    RationalFit out;
+    // Real poles whose residue came out 0 carry nothing: left out.
+    std::vector<cd> kept_poles, kept_residues;
+    const std::vector<cd> r = residues_of(poles, x.head(n));
+    for (std::size_t k = 0; k < poles.size(); ++k) {
+        if (poles[k].imag() == 0 && r[k] == 0.0) continue;
+        kept_poles.push_back(poles[k]);
+        kept_residues.push_back(r[k]);
+    }
+    out.poles = kept_poles;
+    out.residues = kept_residues;
+    out.constant = x[n];
+    out.proportional = x[n + 1];
+    double sum = 0;
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const double e = std::abs(out(cd(0, 2 * pi * f[k])) - v[k]) / std::abs(v[k]);
+        sum += e * e;
+        out.max_relative_error = std::max(out.max_relative_error, e);
+    }
+    out.rms_relative_error = std::sqrt(sum / static_cast<double>(f.size()));
+    return out;
+}
+
 FosterAdmittance foster_admittance(const RationalFit& y) {
     FosterAdmittance out;
     out.conductance = y.constant;
@@ -205,6 +326,18 @@ FosterAdmittance foster_admittance(const RationalFit& y) {
         out.branches.push_back(b);
     }
     return out;
+}
+
+double least_real_part(const RationalFit& y, double from, double to) {
+    require_positive("from", from);
+    require_positive("to", to);
+    double least = y(cd(0, 0)).real() / std::max(1e-300, std::abs(y(cd(0, 0))));
+    const int n = 4000;
+    for (int k = 0; k < n; ++k) {
+        const cd v = y(cd(0, 2 * pi * from * std::pow(to / from, k / (n - 1.0))));
+        least = std::min(least, v.real() / std::abs(v));
+    }
+    return least;
 }
 
 }  // namespace libcoil

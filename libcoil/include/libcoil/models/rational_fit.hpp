@@ -33,6 +33,13 @@ struct RationalFit {
 RationalFit vector_fit(const std::vector<double>& frequencies, const std::vector<std::complex<double>>& values, int order,
                        int iterations = 12);
 
+// A fit meant to be realised as passive parts: the complex pole pairs from vector_fit at order 2 x `pairs`,
+// the real poles fixed, `per_decade` of them spread logarithmically from a decade below the band to its top;
+// then the residues by least squares with the real poles' residues, the constant and the proportional term
+// held non-negative (Lawson and Hanson's active set, 1974, quoted from memory), the pairs' free.
+RationalFit passive_fit(const std::vector<double>& frequencies, const std::vector<std::complex<double>>& values, int pairs,
+                        double per_decade = 2);
+
 // One branch of an admittance's Foster realisation between the two terminals: R + sL in series with (C || G);
 // a value of 0 leaves that element out (C = 0 and G = 0: the branch has no capacitor).
 struct FosterBranch {
@@ -41,9 +48,12 @@ struct FosterBranch {
 struct FosterAdmittance {
     double conductance = 0, capacitance = 0;  // across the terminals
     std::vector<FosterBranch> branches;
-    bool realisable = true;                   // every element >= 0
+    bool realisable = true;                   // every element >= 0 (a SPICE netlist takes negative ones too)
     std::string reason;                       // why not
 };
 FosterAdmittance foster_admittance(const RationalFit& y);
+
+// The least of Re Y(j w) / |Y| over a log grid from `from` to `to` (Hz) and at DC: passive where >= 0.
+double least_real_part(const RationalFit& y, double from, double to);
 
 }  // namespace libcoil
