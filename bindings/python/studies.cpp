@@ -260,6 +260,28 @@ void bind_studies(py::module_& m) {
     }, "fixture"_a, "frequencies"_a = py::none(), "from_"_a = py::none(), "to"_a = py::none(), "points"_a = py::none(),
        "A fixture's port impedance (a path, or the YAML text): frequency, impedance[k, i, j] (ohm) and s[k, i, j] as numpy "
        "arrays, with its reference, deviation and verdict where it has a reference.");
+    m.def("export_circuit", [](const libcoil::CoilSpec& spec, std::optional<double> from, std::optional<double> to, std::optional<int> order,
+                               const std::string& name) {
+        libcoil::CircuitExportRequest q;
+        q.from = from;
+        q.to = to;
+        q.order = order;
+        libcoil::CircuitExport c;
+        {
+            py::gil_scoped_release release;
+            c = libcoil::circuit_export(libcoil::analyze(spec), q);
+        }
+        const auto opt = [](const std::optional<double>& v) -> py::object { return v ? py::float_(*v) : py::object(py::none()); };
+        return record("Record", py::dict("spice"_a = libcoil::spice_subcircuit(c, name), "text"_a = libcoil::circuit_export_text(c),
+                                         "from_"_a = c.from, "to"_a = c.to, "pairs"_a = c.pairs,
+                                         "max_magnitude_error"_a = c.max_magnitude_error, "max_phase_error"_a = c.max_phase_error,
+                                         "least_real_part"_a = c.least_real_part, "meets_goals"_a = c.meets_goals,
+                                         "model_self_resonance"_a = opt(c.model_self_resonance), "fitted_self_resonance"_a = opt(c.fitted_self_resonance),
+                                         "model_second_resonance"_a = opt(c.model_second_resonance),
+                                         "fitted_second_resonance"_a = opt(c.fitted_second_resonance), "notes"_a = c.notes));
+    }, "spec"_a, "from_"_a = py::none(), "to"_a = py::none(), "order"_a = py::none(), "name"_a = "COIL",
+       "The coil's equivalent circuit for a circuit simulator (a SPICE subcircuit, `spice`), with the fit's errors and "
+       "the first two resonances of model and circuit.");
     m.def("frequency_grid", [](double start, double stop, int points, bool logarithmic) {
         return libcoil::frequency_grid(start, stop, points, logarithmic ? libcoil::Spacing::logarithmic : libcoil::Spacing::linear);
     }, "start"_a, "stop"_a, "points"_a, "logarithmic"_a = true);

@@ -68,3 +68,11 @@ def test_export_circuit_errors(run_coil, source_dir, tmp_path):
     for args, field in ((["--order", "0"], "--order"), (["--from", "10 MHz", "--to", "1 MHz"], "to"), (["--name", "a.b"], "name")):
         r = run_coil("export-circuit", spec, "--out", tmp_path / "out", *args)
         assert r.returncode == 2 and field in r.stderr and not (tmp_path / "out").exists(), (args, r.stderr)
+
+
+def test_export_circuit_from_python(source_dir):
+    spec = libcoil.load_coil_spec(source_dir / "data/examples/bench-network-coil.yaml")
+    c = libcoil.export_circuit(spec, name="L1")
+    assert c.meets_goals and c.max_magnitude_error < 0.01 and c.max_phase_error < 1
+    assert ".subckt L1 T1 T2" in c.spice and c.spice.rstrip().endswith(".ends L1")
+    assert c.fitted_self_resonance == pytest.approx(c.model_self_resonance, rel=0.005)
