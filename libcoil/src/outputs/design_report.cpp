@@ -44,7 +44,14 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
 
     o << "\nSearch: " << r.candidates_evaluated << " candidates, " << r.feasible << " feasible, " << r.front_size
       << " on the Pareto front (loss, size, SRF margin)\n";
-    for (const auto& [reason, n] : r.rejected_by_reason) o << "  rejected by " << pad(reason, 24) << n << "\n";
+    for (const auto& [reason, n] : r.rejected_by_reason) {
+        o << "  rejected by " << pad(reason, 24) << pad(std::to_string(n), 10);
+        const auto best = r.best_excess_by_reason.find(reason);
+        if (r.pareto.empty() && best != r.best_excess_by_reason.end()) {
+            o << "the closest misses it by " << (best->second - 1 < 0.0005 ? std::string("less than 0.1 %") : fixed(100 * (best->second - 1), 1) + " %");
+        }
+        o << "\n";
+    }
 
     if (r.pareto.empty()) {
         o << "\n" << r.binding << "\n";
@@ -167,6 +174,8 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
     j["why_chosen"] = r.why_chosen;
     j["binding"] = r.binding;
     if (r.closest) j["closest"] = {{"reason", r.closest->reason}, {"excess", r.closest->excess}, {"detail", r.closest->detail}};
+    if (!r.best_excess_by_reason.empty()) j["best_excess_by_reason"] = r.best_excess_by_reason;
+    if (!r.chosen) j["one_change"] = r.one_change.empty() ? nlohmann::ordered_json(nullptr) : nlohmann::ordered_json(r.one_change);
     if (r.spread) {
         const Spread& s = *r.spread;
         const auto stat = [](const SpreadStatistics& st) {

@@ -1,6 +1,7 @@
 #include "libcoil/studies/design.hpp"
 
 #include <algorithm>
+#include <map>
 #include <cmath>
 #include <sstream>
 #include <thread>
@@ -18,6 +19,86 @@
 namespace libcoil {
 
 namespace {
+
+// The one limit whose change, alone, makes a design feasible: the criteria in the order of their least
+// excess, each relaxed to 2 % past what its closest candidate needed (then 40 and 100 %), and the search
+// run again with it; the first that yields a design is the answer, its factor narrowed by two halvings.
+std::string one_change(const Requirement& q, const DesignOptions& options, const std::map<std::string, double>& best) {
+    std::vector<std::pair<double, std::string>> order;
+    for (const auto& [reason, excess] : best) {
+        if (std::isfinite(excess) && excess > 0) order.emplace_back(excess, reason);
+    }
+    std::sort(order.begin(), order.end());
+    DesignOptions again = options;
+    again.seek_one_change = false;
+    again.spread = false;
+    again.progress = nullptr;
+    // The requirement with one limit relaxed by the factor e (over that criterion's least excess), and its words.
+    const auto relaxed = [&](const std::string& reason, double e, Requirement& r, std::string& words) {
+        r = q;
+        const auto length = [](double v) { return format_quantity(v, Dimension::length, 3); };
+        if (reason == "outer_diameter") {
+            r.max_outer_diameter *= e;
+            words = "raise limits.max_outer_diameter from " + length(q.max_outer_diameter) + " to " + length(r.max_outer_diameter);
+        } else if (reason == "length") {
+            r.max_length *= e;
+            words = "raise limits.max_length from " + length(q.max_length) + " to " + length(r.max_length);
+        } else if (reason == "wire_length" && q.max_wire_length) {
+            *r.max_wire_length *= e;
+            words = "raise limits.max_wire_length from " + length(*q.max_wire_length) + " to " + length(*r.max_wire_length);
+        } else if (reason == "thermal" && q.current > 0) {
+            r.current /= std::sqrt(e);
+            words = "lower operating.current from " + format_quantity(q.current, Dimension::current, 3) + " to " +
+                    format_quantity(r.current, Dimension::current, 3);
+        } else if (reason == "srf_margin" && q.band && required_srf_margin(*q.band) / e >= 1) {
+            r.band->srf_margin = required_srf_margin(*q.band) / e;
+            words = "lower band.srf_margin from " + detail::significant(required_srf_margin(*q.band), 3) + " to " +
+                    detail::significant(*r.band->srf_margin, 3);
+        } else if (reason == "max_deviation" && q.band && q.band->max_deviation) {
+            *r.band->max_deviation *= e;
+            words = "raise band.max_deviation from " + detail::significant(100 * *q.band->max_deviation, 3) + " % to " +
+                    detail::significant(100 * *r.band->max_deviation, 3) + " %";
+        } else if (reason == "min_impedance" && q.band && q.band->min_impedance) {
+            *r.band->min_impedance /= e;
+            words = "lower band.min_impedance from " + format_quantity(*q.band->min_impedance, Dimension::resistance, 3) + " to " +
+                    format_quantity(*r.band->min_impedance, Dimension::resistance, 3);
+        } else {
+            return false;
+        }
+        return true;
+    };
+    const auto feasible = [&](const Requirement& r) {
+        try {
+            return design(r, again).chosen.has_value();
+        } catch (const InputError&) {
+            return false;
+        }
+    };
+    double below = 1;
+    for (const double step : {1.02, 1.4, 2.0}) {
+        for (const auto& [excess, reason] : order) {
+            Requirement r = q;
+            std::string words;
+            if (!relaxed(reason, excess * step, r, words) || !feasible(r)) continue;
+            // Found: narrow the factor between the last step that failed and this one (two halvings).
+            double lo = below, hi = step;
+            for (int k = 0; k < 2; ++k) {
+                const double mid = std::sqrt(lo * hi);
+                Requirement t = q;
+                std::string w;
+                if (relaxed(reason, excess * mid, t, w) && feasible(t)) {
+                    hi = mid;
+                    words = w;
+                } else {
+                    lo = mid;
+                }
+            }
+            return words;
+        }
+        below = step;
+    }
+    return "";
+}
 
 // Fields that contradict each other whatever the coil, found before the search. A minimum |Z| over the band
 // is bounded at its low edge: there |Z| <= w L / (1 - (f / f0)^2) for any coil resonating at f0 (lumped,
@@ -80,6 +161,11 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         }
         for (const auto& d : t.front.designs()) archive.add(d);
         if (t.closest && (!out.closest || t.closest->excess < out.closest->excess)) out.closest = t.closest;
+        for (std::size_t r = 0; r < t.best_excess.size(); ++r) {
+            if (!std::isfinite(t.best_excess[r])) continue;
+            auto [it, fresh] = out.best_excess_by_reason.emplace(detail::reason_text[r].key, t.best_excess[r]);
+            if (!fresh) it->second = std::min(it->second, t.best_excess[r]);
+        }
     }
     std::vector<DesignFigures> front = archive.take();
     for (auto& d : front) d.wire_label = q.wires[d.wire_index].wire.label;
@@ -98,6 +184,11 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
             const double by = (out.closest->excess - 1) * 100;
             out.binding += " The closest attempt, " + out.closest->detail + ", misses " + detail::reason_words(out.closest->reason) +
                            (by < 0.05 ? " by less than 0.1 %." : " by " + detail::fixed(by, 1) + " %.");
+        }
+        if (options.seek_one_change) {
+            out.one_change = one_change(q, options, out.best_excess_by_reason);
+            out.binding += out.one_change.empty() ? " No single limit, relaxed alone, makes a design feasible."
+                                                  : " One change that makes a design feasible (found by searching again): " + out.one_change + ".";
         }
         out.cautions = safety_cautions(q.supply_voltage, q.rf_power, 0, 0);
         return out;
@@ -157,6 +248,11 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     if (out.pareto.empty()) {
         out.binding = "No candidate meets the requirement: every design the search kept (" + std::to_string(front.size()) +
                       ") fails the band with the turn network's self-resonance, the recommended one.";
+        if (options.seek_one_change) {
+            out.one_change = one_change(q, options, out.best_excess_by_reason);
+            out.binding += out.one_change.empty() ? " No single limit, relaxed alone, makes a design feasible."
+                                                  : " One change that makes a design feasible (found by searching again): " + out.one_change + ".";
+        }
         out.cautions = safety_cautions(q.supply_voltage, q.rf_power, 0, 0);
         return out;
     }

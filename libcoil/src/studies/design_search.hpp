@@ -8,6 +8,7 @@
 #pragma once
 
 #include <array>
+#include <limits>
 #include <cstddef>
 #include <cstdint>
 #include <optional>
@@ -63,6 +64,12 @@ struct Tally {
     Archive front;
     std::array<std::size_t, static_cast<std::size_t>(Reason::count)> rejected = {};
     std::optional<Rejection> closest = std::nullopt;
+    // The least excess over each criterion's limit among the candidates it stopped (infinity: none).
+    std::array<double, static_cast<std::size_t>(Reason::count)> best_excess = [] {
+        std::array<double, static_cast<std::size_t>(Reason::count)> a{};
+        a.fill(std::numeric_limits<double>::infinity());
+        return a;
+    }();
     std::size_t feasible = 0;
     double sheet_rho = -1;  // Nagaoka's coefficient at the last longest winding's D / l
     NagaokaSlope sheet{};
@@ -82,6 +89,7 @@ struct Tally {
     void reject(Reason reason, double excess, const Detail& detail) {
         const auto r = static_cast<std::size_t>(reason);
         ++rejected[r];
+        best_excess[r] = std::min(best_excess[r], excess);
         if (!closest || excess < closest->excess) keep_closest(r, excess, detail);
     }
 

@@ -74,6 +74,7 @@ struct DesignOptions {
     bool spread = false;          // run the tolerance spread on the chosen design
     std::size_t samples = 2000;
     std::uint64_t seed = 1;
+    bool seek_one_change = true;  // when nothing is feasible, search again with each limit relaxed alone
 };
 
 struct DesignResult {
@@ -87,6 +88,11 @@ struct DesignResult {
     std::string why_chosen;
     std::optional<Rejection> closest;   // when nothing is feasible: the attempt that came closest
     std::string binding;                // when nothing is feasible: which constraint binds, in words
+    // When nothing is feasible: per criterion, the least excess over its limit that any candidate it stopped
+    // reached (as Rejection::excess), and the one change of a limit found to make a design feasible, checked by
+    // searching again with it ("" when no single change of a limit does).
+    std::map<std::string, double> best_excess_by_reason;
+    std::string one_change;
     std::vector<std::string> cautions;  // safety cautions the inputs call for
     std::vector<std::string> notes;     // assumptions
     std::vector<std::string> warnings;
