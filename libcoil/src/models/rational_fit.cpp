@@ -49,6 +49,49 @@ std::vector<cd> residues_of(const std::vector<cd>& poles, const Eigen::VectorXd&
     return r;
 }
 
+// The weighted real-valued least squares for fixed poles: [basis(poles), 1, s] x = f at s = j 2 pi f, each row
+// over |f| (a relative fit), real and imaginary parts as rows of their own.
+void residue_system(const std::vector<cd>& poles, const std::vector<double>& f, const std::vector<cd>& v, Eigen::MatrixXd& m,
+                    Eigen::VectorXd& rhs) {
+    const auto cols = static_cast<Eigen::Index>(basis(poles, cd(0, 1)).size() + 2);
+    m.resize(static_cast<Eigen::Index>(2 * f.size()), cols);
+    rhs.resize(static_cast<Eigen::Index>(2 * f.size()));
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const cd s(0, 2 * pi * f[k]);
+        const double w = 1 / std::abs(v[k]);
+        std::vector<cd> row = basis(poles, s);
+        row.push_back(1);
+        row.push_back(s);
+        for (Eigen::Index c = 0; c < cols; ++c) {
+            m(static_cast<Eigen::Index>(2 * k), c) = w * row[static_cast<std::size_t>(c)].real();
+            m(static_cast<Eigen::Index>(2 * k + 1), c) = w * row[static_cast<std::size_t>(c)].imag();
+        }
+        rhs[static_cast<Eigen::Index>(2 * k)] = w * v[k].real();
+        rhs[static_cast<Eigen::Index>(2 * k + 1)] = w * v[k].imag();
+    }
+}
+
+// Column norms, to scale a system that spans decades of frequency (1 for a zero column).
+Eigen::VectorXd column_scale(const Eigen::MatrixXd& m) {
+    Eigen::VectorXd scale = m.colwise().norm().transpose();
+    for (Eigen::Index c = 0; c < scale.size(); ++c) {
+        if (scale[c] == 0) scale[c] = 1;
+    }
+    return scale;
+}
+
+// The fit's errors against the samples, relative.
+void measure(RationalFit& out, const std::vector<double>& f, const std::vector<cd>& v) {
+    double sum = 0;
+    out.max_relative_error = 0;
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const double e = std::abs(out(cd(0, 2 * pi * f[k])) - v[k]) / std::abs(v[k]);
+        sum += e * e;
+        out.max_relative_error = std::max(out.max_relative_error, e);
+    }
+    out.rms_relative_error = std::sqrt(sum / static_cast<double>(f.size()));
+}
+
 }  // namespace
 
 cd RationalFit::operator()(cd s) const {
@@ -140,38 +183,17 @@ RationalFit vector_fit(const std::vector<double>& f, const std::vector<cd>& v, i
         poles = next;
     }
     // The residues with the poles fixed.
-    Eigen::MatrixXd m(rows, n + 2);
-    Eigen::VectorXd rhs(rows);
-    for (std::size_t k = 0; k < f.size(); ++k) {
-        const cd s(0, 2 * pi * f[k]);
-        const double w = 1 / std::abs(v[k]);
-        std::vector<cd> row = basis(poles, s);
-        row.push_back(1);
-        row.push_back(s);
-        for (Eigen::Index c = 0; c < n + 2; ++c) {
-            m(static_cast<Eigen::Index>(2 * k), c) = w * row[static_cast<std::size_t>(c)].real();
-            m(static_cast<Eigen::Index>(2 * k + 1), c) = w * row[static_cast<std::size_t>(c)].imag();
-        }
-        rhs[static_cast<Eigen::Index>(2 * k)] = w * v[k].real();
-        rhs[static_cast<Eigen::Index>(2 * k + 1)] = w * v[k].imag();
-    }
-    Eigen::VectorXd scale = m.colwise().norm().transpose();
-    for (Eigen::Index c = 0; c < scale.size(); ++c) {
-        if (scale[c] == 0) scale[c] = 1;
-    }
+    Eigen::MatrixXd m;
+    Eigen::VectorXd rhs;
+    residue_system(poles, f, v, m, rhs);
+    const Eigen::VectorXd scale = column_scale(m);
     const Eigen::VectorXd x = (m * scale.cwiseInverse().asDiagonal()).colPivHouseholderQr().solve(rhs).cwiseQuotient(scale);
     RationalFit out;
     out.poles = poles;
     out.residues = residues_of(poles, x.head(n));
     out.constant = x[n];
     out.proportional = x[n + 1];
-    double sum = 0;
-    for (std::size_t k = 0; k < f.size(); ++k) {
-        const double e = std::abs(out(cd(0, 2 * pi * f[k])) - v[k]) / std::abs(v[k]);
-        sum += e * e;
-        out.max_relative_error = std::max(out.max_relative_error, e);
-    }
-    out.rms_relative_error = std::sqrt(sum / static_cast<double>(f.size()));
+    measure(out, f, v);
     return out;
 }
 
@@ -249,26 +271,10 @@ RationalFit passive_fit(const std::vector<double>& f, const std::vector<cd>& v, 
         if (p.imag() != 0) poles.push_back(p);
     }
     const auto n = static_cast<Eigen::Index>(poles.size());
-    const auto rows = static_cast<Eigen::Index>(2 * f.size());
-    Eigen::MatrixXd m(rows, n + 2);
-    Eigen::VectorXd rhs(rows);
-    for (std::size_t k = 0; k < f.size(); ++k) {
-        const cd s(0, 2 * pi * f[k]);
-        const double w = 1 / std::abs(v[k]);
-        std::vector<cd> row = basis(poles, s);
-        row.push_back(1);
-        row.push_back(s);
-        for (Eigen::Index c = 0; c < n + 2; ++c) {
-            m(static_cast<Eigen::Index>(2 * k), c) = w * row[static_cast<std::size_t>(c)].real();
-            m(static_cast<Eigen::Index>(2 * k + 1), c) = w * row[static_cast<std::size_t>(c)].imag();
-        }
-        rhs[static_cast<Eigen::Index>(2 * k)] = w * v[k].real();
-        rhs[static_cast<Eigen::Index>(2 * k + 1)] = w * v[k].imag();
-    }
-    Eigen::VectorXd scale = m.colwise().norm().transpose();
-    for (Eigen::Index c = 0; c < scale.size(); ++c) {
-        if (scale[c] == 0) scale[c] = 1;
-    }
+    Eigen::MatrixXd m;
+    Eigen::VectorXd rhs;
+    residue_system(poles, f, v, m, rhs);
+    const Eigen::VectorXd scale = column_scale(m);
     std::vector<bool> bounded(static_cast<std::size_t>(n + 2), false);
     for (int k = 0; k < reals; ++k) bounded[static_cast<std::size_t>(k)] = true;
     bounded[static_cast<std::size_t>(n)] = bounded[static_cast<std::size_t>(n + 1)] = true;
@@ -286,13 +292,7 @@ RationalFit passive_fit(const std::vector<double>& f, const std::vector<cd>& v, 
     out.residues = kept_residues;
     out.constant = x[n];
     out.proportional = x[n + 1];
-    double sum = 0;
-    for (std::size_t k = 0; k < f.size(); ++k) {
-        const double e = std::abs(out(cd(0, 2 * pi * f[k])) - v[k]) / std::abs(v[k]);
-        sum += e * e;
-        out.max_relative_error = std::max(out.max_relative_error, e);
-    }
-    out.rms_relative_error = std::sqrt(sum / static_cast<double>(f.size()));
+    measure(out, f, v);
     return out;
 }
 
