@@ -25,10 +25,10 @@ def generator(source_dir):
     return module
 
 
-def test_the_example_measurement_is_current(source_dir, tmp_path):
+def test_the_example_measurement_is_current(source_dir, tmp_path, monkeypatch):
     # The cached synthetic file is what its generator writes today (the model or the noise unchanged).
     out = tmp_path / "again.s1p"
-    generator(source_dir).main.__globals__["sys"].argv = ["make_bench_example", str(out)]
+    monkeypatch.setattr("sys.argv", ["make_bench_example", str(out)])
     generator(source_dir).main()
     assert out.read_text() == (source_dir / "data/examples/bench-network-coil.measured.s1p").read_text()
 

@@ -11,6 +11,7 @@
 #include "libcoil/core/units.hpp"
 #include "libcoil/inputs/network_file.hpp"
 #include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/measurement.hpp"
 #include "libcoil/studies/sweep.hpp"
 
 namespace libcoil {
@@ -21,7 +22,8 @@ using cd = std::complex<double>;
 
 std::string part_field(std::size_t i, const char* key) { return "parts[" + std::to_string(i) + "]." + key; }
 
-// A one-port file's Z at the frequencies, interpolated linearly in its real and imaginary parts.
+// A one-port file's Z at the frequencies (S, Y or Z as the file holds it, by measurement.hpp's reflection
+// reading), interpolated linearly in its real and imaginary parts.
 std::vector<cd> table_impedance(const std::filesystem::path& file, const std::vector<double>& f, const std::string& field) {
     NetworkData d;
     try {
@@ -30,28 +32,10 @@ std::vector<cd> table_impedance(const std::filesystem::path& file, const std::ve
         throw e.within(field);
     }
     if (d.ports != 1) throw InputError(field, file.string() + " has " + std::to_string(d.ports) + " ports; expected a one-port file");
-    const double z0 = d.reference.empty() ? 50.0 : d.reference[0];
-    std::vector<cd> z;
-    for (std::size_t k = 0; k < d.frequency.size(); ++k) {
-        const cd v = d.at(k, 0, 0);
-        z.push_back(d.parameter == 'Z' ? v : d.parameter == 'Y' ? 1.0 / v : z0 * (1.0 + v) / (1.0 - v));
-    }
+    d.values = measured_impedance(d, MeasurementArrangement::reflection).impedance;
+    d.parameter = 'Z';
     std::vector<cd> out;
-    for (double x : f) {
-        const auto& g = d.frequency;
-        if (x < g.front() * (1 - 1e-9) || x > g.back() * (1 + 1e-9)) {
-            throw InputError(field, file.string() + " covers " + format_quantity(g.front(), Dimension::frequency) + " to " +
-                                        format_quantity(g.back(), Dimension::frequency) + ", not " + format_quantity(x, Dimension::frequency));
-        }
-        std::size_t k = 0;
-        while (k + 2 < g.size() && g[k + 1] < x) ++k;
-        if (g.size() == 1) {
-            out.push_back(z[0]);
-            continue;
-        }
-        const double t = std::clamp((x - g[k]) / (g[k + 1] - g[k]), 0.0, 1.0);
-        out.push_back(z[k] + t * (z[k + 1] - z[k]));
-    }
+    for (double x : f) out.push_back(matrix_at(d, x, field)[0]);
     return out;
 }
 

@@ -30,23 +30,6 @@ std::optional<double> rising_zero(const std::vector<double>& f, const std::vecto
     return std::nullopt;
 }
 
-// The fixture's S at f, interpolated linearly between its points (S11, S12 S21, S22).
-struct FixtureS {
-    cd s11, s12s21, s22;
-};
-FixtureS fixture_at(const NetworkData& x, double f) {
-    const auto& fx = x.frequency;
-    if (f < fx.front() * (1 - 1e-9) || f > fx.back() * (1 + 1e-9)) {
-        throw InputError("fixture", "its file covers " + hz(fx.front()) + " to " + hz(fx.back()) + ", not the measurement's " + hz(f));
-    }
-    std::size_t k = 0;
-    while (k + 2 < fx.size() && fx[k + 1] < f) ++k;
-    const double t = fx.size() < 2 ? 0.0 : std::clamp((f - fx[k]) / (fx[k + 1] - fx[k]), 0.0, 1.0);
-    const std::size_t j = fx.size() < 2 ? k : k + 1;
-    const auto lerp = [&](int r, int c) { return x.at(k, r, c) + t * (x.at(j, r, c) - x.at(k, r, c)); };
-    return {lerp(0, 0), lerp(0, 1) * lerp(1, 0), lerp(1, 1)};
-}
-
 void check_fixture(const Fixture& fx, MeasurementArrangement arrangement, double z0) {
     require_finite("fixture.series_inductance", fx.series_inductance);
     require_non_negative("fixture.shunt_capacitance", fx.shunt_capacitance);
@@ -86,8 +69,8 @@ MeasuredImpedance measured_impedance(const NetworkData& d, MeasurementArrangemen
             if (fixture.network) {  // to the coil's plane, as a reflection
                 if (d.parameter == 'Z') v = (v - z0) / (v + z0);
                 if (d.parameter == 'Y') v = (1.0 - z0 * v) / (1.0 + z0 * v);
-                const FixtureS x = fixture_at(*fixture.network, d.frequency[k]);
-                v = (v - x.s11) / (x.s12s21 + x.s22 * (v - x.s11));
+                const auto x = matrix_at(*fixture.network, d.frequency[k], "fixture");  // S11, S12, S21, S22
+                v = (v - x[0]) / (x[1] * x[2] + x[3] * (v - x[0]));
                 z = z0 * (1.0 + v) / (1.0 - v);
                 e = 2 * trace_error / std::abs(1.0 - v * v);
             } else if (d.parameter == 'Z') {

@@ -39,6 +39,10 @@ struct NetworkData {
     }
 };
 
+// The port matrix at f (Hz), ports x ports row-major, interpolated linearly in its real and imaginary parts
+// between the file's points. InputError naming `field` where f lies outside the file's frequencies.
+std::vector<std::complex<double>> matrix_at(const NetworkData& d, double f, const std::string& field);
+
 // `name` is the file's name for messages; `ports` the port count its extension gives (.s1p: 1), or 0 for
 // a version 2 file that states it.
 NetworkData read_touchstone(std::string_view text, std::string_view name, int ports);
