@@ -173,7 +173,7 @@ Requirement load_requirement(const std::filesystem::path& path) {
 
 double target_frequency(const Requirement& q) {
     if (q.inductance_frequency) return *q.inductance_frequency;
-    if (q.band) return std::sqrt(q.band->low * q.band->ceiling);
+    if (q.band) return q.band->low;
     return q.current_frequency.value_or(0.0);
 }
 

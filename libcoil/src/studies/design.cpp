@@ -10,6 +10,7 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
+#include "libcoil/models/thermal.hpp"
 #include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/cautions.hpp"
 #include "core/text_format.hpp"
@@ -105,7 +106,44 @@ std::string one_change(const Requirement& q, const DesignOptions& options, const
 // lossless; losses only lower the peak), with f0 at least the SRF margin times the ceiling, or |Z| <= (1 +
 // max_deviation) w L where the deviation is bounded; L at most the target and its tolerance. A 5 % allowance
 // covers the models' L(f) and the shield, so that only a sure contradiction stops the search.
+// Thermal: the winding sheds its loss from its outer cylinder (winding_heat.hpp). Per metre of wire that
+// cylinder has at most (D_out / D_mean)(p + d) square metres, largest on the grid's smallest form and largest
+// pitch (a winding of N p + d, one turn's end allowance counted whole), and still air takes at most what the
+// smallest such cylinder sheds per square metre at the limit temperature (natural convection's coefficient
+// falls as the diameter grows). The loss per metre is at least the DC one, I^2 rho(T_limit) / A. Where every
+// wire needs more than 1.05 x that, no coil of the grid carries the current.
+void check_thermal(const Requirement& q) {
+    if (!(q.current > 0) || q.wires.empty()) return;
+    double limit = q.enamel_class;
+    std::string by = "limits.enamel_class (" + detail::fixed(q.enamel_class - 273.15, 0) + " degC)";
+    if (q.former && q.former->material.max_service_temperature < limit) {
+        limit = q.former->material.max_service_temperature;
+        by = "the former's service temperature (" + detail::fixed(limit - 273.15, 0) + " degC)";
+    }
+    const double form = q.form_diameter.min;
+    if (!(form > 0) || !(limit > q.ambient)) return;
+    double best = 0;  // the most any wire could shed over what it dissipates
+    std::string best_wire;
+    for (const auto& w : q.wires) {
+        const double d = w.wire.insulated_diameter(), area = pi / 4 * w.wire.bare_diameter * w.wire.bare_diameter;
+        const double pitch = q.turns ? q.max_length / *q.turns : q.pitch_ratio.max * d;
+        const double cylinder_per_metre = (form + 2 * d) / (form + d) * (pitch + d);
+        const ThermalSurface surface{form + 2 * d, 1.0, 0.85, CoilAxis::horizontal};
+        const double flux = (convected_power(surface, limit, q.ambient) + radiated_power(surface, limit, q.ambient)) / (pi * (form + 2 * d));
+        const double need = q.current * q.current * q.conductor.resistivity_at(limit) / area;
+        const double ratio = flux * cylinder_per_metre / need;
+        if (ratio > best) {
+            best = ratio;
+            best_wire = w.wire.label;
+        }
+    }
+    if (best * 1.05 >= 1) return;
+    throw InputError("operating.current", format_quantity(q.current, Dimension::current) + " cannot be carried within " + by + " by any wire of search.wires: the best, " +
+                                              best_wire + ", dissipates " + detail::significant(1 / best, 3) + " x what still air can take from the largest winding surface the grid allows (search.pitch_ratio.max, search.form_diameter.min); lower operating.current, add a thicker wire to search.wires, or raise the temperature limit");
+}
+
 void check_conflicts(const Requirement& q) {
+    check_thermal(q);
     if (!q.band || !q.band->min_impedance) return;
     const BandSpec& b = *q.band;
     const double margin = required_srf_margin(b);

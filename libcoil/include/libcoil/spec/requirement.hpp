@@ -63,9 +63,9 @@ struct Objective {
 };
 
 struct Requirement;
-// The frequency at which the target inductance is met: target.frequency if given, else the band's
-// geometric centre (the tolerance then spent evenly over the band, L falling across it), else the
-// current's frequency, else 0 (the low-frequency inductance).
+// The frequency at which the target inductance is met: target.frequency if given, else the band's low
+// edge (where a supply network's or filter's inductance is specified; L then falls across the band as the
+// current moves to the wires' surfaces), else the current's frequency, else 0 (the low-frequency inductance).
 double target_frequency(const Requirement& q);
 
 struct Requirement {
