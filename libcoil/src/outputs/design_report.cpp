@@ -87,7 +87,7 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
             o << "  winding estimated at " << format_quantity(d.temperature, Dimension::temperature) << " (rise "
               << fixed(d.rise, 1) << " K, limit " << format_quantity(d.temperature_limit, Dimension::temperature)
               << ") in still air; an estimate, not a rating\n";
-            if (r.chosen_analysis && r.chosen_analysis->band) {
+            if (r.chosen_analysis) {
                 o << "  full re-analysis: L " << format_quantity(r.chosen_analysis->inductance.recommended, Dimension::inductance);
                 if (d.target_frequency > 0) {
                     o << " at low frequency, " << format_quantity(inductance_at_target(*r.chosen_analysis, d.target_frequency), Dimension::inductance)
@@ -97,9 +97,11 @@ std::string design_text_report(const Requirement& q, const DesignResult& r, std:
                     o << " unshielded, " << format_quantity(r.chosen_analysis->shield->result.perfect_conductor, Dimension::inductance)
                       << " in the shield (its high-frequency limit)";
                 }
-                o << ", SRF " << format_quantity(r.chosen_analysis->self_resonance_as_mounted, Dimension::frequency)
-                  << ", band check " << (r.chosen_analysis->band->pass ? "PASS" : "FAIL") << "\n";
+                o << ", SRF " << format_quantity(r.chosen_analysis->self_resonance_as_mounted, Dimension::frequency);
+                if (r.chosen_analysis->band) o << ", band check " << (r.chosen_analysis->band->pass ? "PASS" : "FAIL");
+                o << "\n";
             }
+            if (r.fixture_check) o << "  fixture check " << (r.fixture_check->verdict->pass ? "PASS" : "FAIL") << ": " << r.fixture_words << "\n";
         } else {
             o << "\nNo design passed the full re-analysis; see the warnings.\n";
         }
@@ -175,6 +177,19 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
     j["binding"] = r.binding;
     if (r.closest) j["closest"] = {{"reason", r.closest->reason}, {"excess", r.closest->excess}, {"detail", r.closest->detail}};
     if (!r.best_excess_by_reason.empty()) j["best_excess_by_reason"] = r.best_excess_by_reason;
+    if (r.fixture_check) {
+        const FixtureVerdict& v = *r.fixture_check->verdict;
+        j["fixture_check"] = {{"pass", v.pass},
+                              {"tolerance", v.tolerance},
+                              {"tolerance_unit", v.in_db ? "dB" : "fraction"},
+                              {"band_low_Hz", v.band_low},
+                              {"band_high_Hz", v.band_high},
+                              {"worst_deviation", v.worst_deviation},
+                              {"worst_frequency_Hz", v.worst_frequency},
+                              {"first_failure_Hz", v.first_failure ? nlohmann::ordered_json(*v.first_failure) : nlohmann::ordered_json(nullptr)},
+                              {"dominant_part", v.dominant_part},
+                              {"words", r.fixture_words}};
+    }
     if (!r.chosen) j["one_change"] = r.one_change.empty() ? nlohmann::ordered_json(nullptr) : nlohmann::ordered_json(r.one_change);
     if (r.spread) {
         const Spread& s = *r.spread;

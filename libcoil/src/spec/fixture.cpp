@@ -1,5 +1,6 @@
 #include "libcoil/spec/fixture.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <set>
 
@@ -29,21 +30,43 @@ std::pair<std::string, std::string> between(const YAML::Node& n, const std::stri
     return {a, c};
 }
 
-FixturePart read_part(const YAML::Node& n, const std::string& where, const std::filesystem::path& base) {
+// A coupling: the two coil parts it joins (checked against the parts once all are read), where they sit.
+FixturePart read_coupling(const detail::YamlMap& m, const YAML::Node& n, FixturePart p) {
+    m.allow_only({"name", "kind", "coils", "arrangement", "distance", "axial_offset"});
+    const YAML::Node c = n["coils"];
+    const std::string field = m.path_of("coils");
+    if (!c || !c.IsSequence() || c.size() != 2 || !c[0].IsScalar() || !c[1].IsScalar()) {
+        throw InputError(field, "expected the names of two coil parts, as [L1, L2]");
+    }
+    p.from = c[0].Scalar();
+    p.to = c[1].Scalar();
+    if (p.from == p.to) throw InputError(field, "both are \"" + p.from + "\"; a coupling joins two different coils");
+    p.arrangement = parse_choice<Arrangement>(m.text("arrangement"), m.path_of("arrangement"));
+    p.distance = m.positive_quantity("distance", Dimension::length);
+    if (m.has("axial_offset")) p.axial_offset = m.quantity("axial_offset", Dimension::length);
+    return p;
+}
+
+FixturePart read_part(const YAML::Node& n, const std::string& where, const std::filesystem::path& base, std::string_view designed) {
     if (!n.IsMap()) throw InputError(where, "expected a mapping (name, kind, between, ...), got " + detail::describe(n));
     const detail::YamlMap m(n, where);
-    m.allow_only({"name", "kind", "between", "value", "esr", "esl", "parallel_resistance", "parallel_capacitance", "spec", "coil", "touchstone"});
     FixturePart p;
     p.name = m.text("name");
-    const auto kind = m.optional_choice("kind", {"coil", "resistor", "capacitor", "inductor"});
-    if (!kind) throw InputError(m.path_of("kind"), "missing; expected coil, resistor, capacitor or inductor");
+    const auto kind = m.optional_choice("kind", {"coil", "resistor", "capacitor", "inductor", "coupling"});
+    if (!kind) throw InputError(m.path_of("kind"), "missing; expected coil, resistor, capacitor, inductor or coupling");
     p.kind = static_cast<FixturePartKind>(*kind);
+    if (p.kind == FixturePartKind::coupling) return read_coupling(m, n, p);
+    m.allow_only({"name", "kind", "between", "value", "esr", "esl", "parallel_resistance", "parallel_capacitance", "spec", "coil", "touchstone"});
     std::tie(p.from, p.to) = between(n, where);
     if (p.kind == FixturePartKind::coil) {
         for (const char* k : {"value", "esr", "esl", "parallel_resistance", "parallel_capacitance", "touchstone"}) {
             if (m.has(k)) throw InputError(m.path_of(k), "a coil's impedance comes from its spec; give its strays there (bench:)");
         }
         m.at_most_one_of("spec", "coil");
+        if (!designed.empty() && p.name == designed) {
+            p.source = "the design";  // the search supplies it; a spec given here is not read
+            return p;
+        }
         if (m.has("coil")) {
             try {
                 p.coil = detail::read_coil_spec(n["coil"], base);
@@ -110,10 +133,37 @@ FixtureReference read_reference(const detail::YamlMap& m, const std::filesystem:
     return r;
 }
 
+// A coupling joins two coil parts, each in one coupling at most (the pair's M is then one number); the
+// designed coil (which the search varies) in none.
+void check_couplings(const FixtureSpec& f, std::string_view designed) {
+    std::set<std::string> coupled;
+    for (std::size_t i = 0; i < f.parts.size(); ++i) {
+        const FixturePart& k = f.parts[i];
+        if (k.kind != FixturePartKind::coupling) continue;
+        for (const std::string& c : {k.from, k.to}) {
+            const auto it = std::find_if(f.parts.begin(), f.parts.end(), [&](const FixturePart& p) { return p.name == c; });
+            if (it == f.parts.end() || it->kind != FixturePartKind::coil) {
+                throw InputError(item("parts", i) + ".coils", "\"" + c + "\" is not a coil part of this fixture");
+            }
+            if (!designed.empty() && c == designed) {
+                throw InputError(item("parts", i) + ".coils", "\"" + c + "\" is the designed coil; a search cannot vary a coupled pair "
+                                 "(design it alone, then check the pair with the fixture study)");
+            }
+            if (!coupled.insert(c).second) throw InputError(item("parts", i) + ".coils", "\"" + c + "\" is in another coupling already");
+        }
+    }
+    if (!designed.empty()) {
+        const auto it = std::find_if(f.parts.begin(), f.parts.end(), [&](const FixturePart& p) { return p.name == designed; });
+        if (it == f.parts.end()) throw InputError("coil", "\"" + std::string(designed) + "\" names no part of the fixture");
+        if (it->kind != FixturePartKind::coil) throw InputError("coil", "\"" + std::string(designed) + "\" is a " + std::string(fixture_part_kind_name(it->kind)) + ", not a coil");
+    }
+}
+
 // Every node must reach the ground through parts; a port's nodes must be nodes of the parts.
 void check_topology(const FixtureSpec& f) {
     std::set<std::string> nodes{f.ground};
     for (const auto& p : f.parts) {
+        if (p.kind == FixturePartKind::coupling) continue;
         nodes.insert(p.from);
         nodes.insert(p.to);
     }
@@ -121,6 +171,7 @@ void check_topology(const FixtureSpec& f) {
     for (bool grew = true; grew;) {
         grew = false;
         for (const auto& p : f.parts) {
+            if (p.kind == FixturePartKind::coupling) continue;
             const bool a = reached.count(p.from) > 0, b = reached.count(p.to) > 0;
             if (a != b) {
                 reached.insert(a ? p.to : p.from);
@@ -130,6 +181,7 @@ void check_topology(const FixtureSpec& f) {
     }
     for (std::size_t i = 0; i < f.parts.size(); ++i) {
         const auto& p = f.parts[i];
+        if (p.kind == FixturePartKind::coupling) continue;
         if (!reached.count(p.from) || !reached.count(p.to)) {
             throw InputError(item("parts", i) + ".between", "node \"" + (reached.count(p.from) ? p.to : p.from) + "\" has no path through the parts to " + f.ground);
         }
@@ -141,7 +193,11 @@ void check_topology(const FixtureSpec& f) {
     }
 }
 
-FixtureSpec read_fixture(const YAML::Node& root, const std::filesystem::path& base) {
+}  // namespace
+
+namespace detail {
+
+FixtureSpec read_fixture(const YAML::Node& root, const std::filesystem::path& base, std::string_view designed) {
     if (!root || !root.IsMap()) throw InputError("fixture", "expected a mapping with \"parts:\" and \"ports:\"");
     const detail::YamlMap top(root, "");
     top.allow_only({"name", "description", "ground", "parts", "ports", "reference", "sweep"});
@@ -154,7 +210,7 @@ FixtureSpec read_fixture(const YAML::Node& root, const std::filesystem::path& ba
     if (parts.size() > max_parts) throw InputError("parts", std::to_string(parts.size()) + " parts; at most " + std::to_string(max_parts));
     std::set<std::string> names;
     for (std::size_t i = 0; i < parts.size(); ++i) {
-        FixturePart p = read_part(parts[i], item("parts", i), base);
+        FixturePart p = read_part(parts[i], item("parts", i), base, designed);
         if (!names.insert(p.name).second) throw InputError(item("parts", i) + ".name", "\"" + p.name + "\" names another part already");
         f.parts.push_back(std::move(p));
     }
@@ -185,23 +241,34 @@ FixtureSpec read_fixture(const YAML::Node& root, const std::filesystem::path& ba
             f.points = static_cast<int>(n);
         }
     }
+    check_couplings(f, designed);
     check_topology(f);
     return f;
 }
 
-}  // namespace
+}  // namespace detail
 
 std::string_view fixture_part_kind_name(FixturePartKind k) {
-    static const char* names[] = {"coil", "resistor", "capacitor", "inductor"};
+    static const char* names[] = {"coil", "resistor", "capacitor", "inductor", "coupling"};
     return names[static_cast<int>(k)];
 }
 
-FixtureSpec parse_fixture(std::string_view yaml_text, std::string_view source) {
-    return read_fixture(detail::load_yaml(yaml_text, source), std::filesystem::path(source).parent_path());
+FixtureSpec parse_fixture(std::string_view yaml_text, std::string_view source, std::string_view designed) {
+    return detail::read_fixture(detail::load_yaml(yaml_text, source), std::filesystem::path(source).parent_path(), designed);
 }
 
-FixtureSpec load_fixture(const std::filesystem::path& path) {
-    return parse_fixture(detail::read_text_file(path, "fixture file"), path.string());
+FixtureSpec load_fixture(const std::filesystem::path& path, std::string_view designed) {
+    return parse_fixture(detail::read_text_file(path, "fixture file"), path.string(), designed);
+}
+
+FixtureSpec with_coil(FixtureSpec f, std::string_view part, const CoilSpec& coil) {
+    for (auto& p : f.parts) {
+        if (p.name == part && p.kind == FixturePartKind::coil) {
+            p.coil = coil;
+            return f;
+        }
+    }
+    throw InputError("coil", "\"" + std::string(part) + "\" names no coil part of the fixture");
 }
 
 }  // namespace libcoil

@@ -66,11 +66,40 @@ WireOption read_wire_option(const std::string& text, const std::string& field) {
     return o;
 }
 
-Requirement read_requirement(const YAML::Node& root) {
+// fixture: {file: F, coil: L1} or {coil: L1, parts: ..., ports: ..., reference: ...}; the reference is
+// required (the criterion is its tolerance over its band).
+void read_fixture_criterion(const YAML::Node& node, const std::filesystem::path& base, Requirement& q) {
+    if (!node.IsMap()) throw InputError("fixture", "expected a mapping: {file: ..., coil: ...}, or the fixture's keys and coil:");
+    const detail::YamlMap m(node, "fixture");
+    q.fixture_part = m.text("coil");
+    if (m.has("file")) {
+        m.allow_only({"file", "coil"});
+        std::filesystem::path file(m.text("file"));
+        if (file.is_relative()) file = base / file;
+        try {
+            q.fixture = load_fixture(file, q.fixture_part);
+        } catch (const InputError& e) {
+            throw e.within("fixture.file (" + file.string() + ")");
+        }
+        q.fixture_source = file.string();
+    } else {
+        YAML::Node inline_fixture = YAML::Clone(node);
+        inline_fixture.remove("coil");
+        try {
+            q.fixture = detail::read_fixture(inline_fixture, base, q.fixture_part);
+        } catch (const InputError& e) {
+            throw e.within("fixture");
+        }
+        q.fixture_source = "inline";
+    }
+    if (!q.fixture->reference) throw InputError("fixture.reference", "missing; the criterion needs the reference's tolerance and band");
+}
+
+Requirement read_requirement(const YAML::Node& root, const std::filesystem::path& base) {
     if (!root || root.IsNull()) throw InputError("requirement", "the requirement is empty; expected a mapping with \"target:\"");
     const detail::YamlMap top(root, "");
     top.allow_only({"name", "description", "target", "band", "operating", "limits", "search", "objective", "former", "shield",
-                    "surroundings", "conductor", "tolerances"});
+                    "surroundings", "conductor", "tolerances", "fixture"});
     Requirement q;
     q.name = top.optional_text("name").value_or("");
     q.description = top.optional_text("description").value_or("");
@@ -158,13 +187,14 @@ Requirement read_requirement(const YAML::Node& root) {
         q.tolerances = detail::read_tolerances(top.map("tolerances"));
         q.tolerances_given = true;
     }
+    if (top.has("fixture")) read_fixture_criterion(root["fixture"], base, q);
     return q;
 }
 
 }  // namespace
 
 Requirement parse_requirement(std::string_view yaml_text, std::string_view source) {
-    return read_requirement(detail::load_yaml(yaml_text, source));
+    return read_requirement(detail::load_yaml(yaml_text, source), std::filesystem::path(source).parent_path());
 }
 
 Requirement load_requirement(const std::filesystem::path& path) {
@@ -174,6 +204,7 @@ Requirement load_requirement(const std::filesystem::path& path) {
 double target_frequency(const Requirement& q) {
     if (q.inductance_frequency) return *q.inductance_frequency;
     if (q.band) return q.band->low;
+    if (q.fixture) return q.fixture->reference->band_low;
     return q.current_frequency.value_or(0.0);
 }
 

@@ -9,6 +9,7 @@
 #include <yaml-cpp/yaml.h>
 
 #include "libcoil/spec/spec.hpp"
+#include "libcoil/spec/fixture.hpp"
 #include "core/text_file.hpp"
 #include "spec/yaml_reader.hpp"
 
@@ -30,6 +31,9 @@ BenchCorrections read_bench(const YamlMap& top, const std::filesystem::path& bas
 
 // A coil spec from its YAML node (inline in a fixture, say); relative paths inside it from `base`.
 CoilSpec read_coil_spec(const YAML::Node& root, const std::filesystem::path& base);
+
+// A fixture from its YAML node (fixture.hpp; inline in a requirement, say); `designed` as parse_fixture's.
+FixtureSpec read_fixture(const YAML::Node& root, const std::filesystem::path& base, std::string_view designed);
 
 // YAML text to a node; malformed YAML is an InputError naming source:line:column.
 YAML::Node load_yaml(std::string_view text, std::string_view source);

@@ -26,6 +26,21 @@ Analysis mounted(const CoilSpec& spec, const std::vector<double>& frequencies) {
 
 }  // namespace
 
+namespace {
+// Where b's wall sees a's field come from: its own radius, or the other coil's centre where that is further.
+double b_source_distance(const CoilSpec& b, double distance) {
+    return std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2);
+}
+}  // namespace
+
+double credited_pair_shielding_db(const CoilSpec& a, const CoilSpec& b, double distance, double frequency) {
+    // Each shield is credited with its wall's figure, capped, and no more than its open ends let out.
+    double db = 0;
+    if (a.shield) db += credited_magnetic_shielding_db(*a.shield, frequency, a.shield->inner_diameter / 2, a.solenoid.winding_length());
+    if (b.shield) db += credited_magnetic_shielding_db(*b.shield, frequency, b_source_distance(b, distance), b.solenoid.winding_length());
+    return db;
+}
+
 CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement arr, double distance, double offset,
                              std::vector<double> frequencies, double rs, double rl, const std::vector<double>& sweep) {
     CouplingStudy s;
@@ -62,13 +77,9 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
         x.inductance_a = pa.wire_inductance;
         x.resistance_b = pb.wire_resistance;
         x.inductance_b = pb.wire_inductance;
-        // Each shield is credited with its wall's figure, capped, and no more than its open ends let out.
-        const auto wall = [&](const ShieldSpec& sh, double r, const Solenoid& coil) {
-            x.theoretical_shielding_db += magnetic_shielding(sh, f, r).total_db;
-            x.shielding_db += credited_magnetic_shielding_db(sh, f, r, coil.winding_length());
-        };
-        if (a.shield) wall(*a.shield, a.shield->inner_diameter / 2, a.solenoid);
-        if (b.shield) wall(*b.shield, std::max(b.shield->inner_diameter / 2, distance - b.shield->inner_diameter / 2), b.solenoid);
+        if (a.shield) x.theoretical_shielding_db += magnetic_shielding(*a.shield, f, a.shield->inner_diameter / 2).total_db;
+        if (b.shield) x.theoretical_shielding_db += magnetic_shielding(*b.shield, f, b_source_distance(b, distance)).total_db;
+        x.shielding_db = credited_pair_shielding_db(a, b, distance, f);
         Coupling as_mounted = s.at;
         as_mounted.inductance_a = x.inductance_a;
         as_mounted.inductance_b = x.inductance_b;

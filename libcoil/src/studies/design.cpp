@@ -59,6 +59,13 @@ std::string one_change(const Requirement& q, const DesignOptions& options, const
             *r.band->max_deviation *= e;
             words = "raise band.max_deviation from " + detail::significant(100 * *q.band->max_deviation, 3) + " % to " +
                     detail::significant(100 * *r.band->max_deviation, 3) + " %";
+        } else if (reason == "fixture" && q.fixture) {
+            double& t = r.fixture->reference->tolerance;
+            t *= e;
+            const auto words_of = [&](double v) {
+                return q.fixture->reference->in_db ? detail::significant(v, 3) + " dB" : detail::significant(100 * v, 3) + " %";
+            };
+            words = "raise the fixture's reference.tolerance from " + words_of(q.fixture->reference->tolerance) + " to " + words_of(t);
         } else if (reason == "min_impedance" && q.band && q.band->min_impedance) {
             *r.band->min_impedance /= e;
             words = "lower band.min_impedance from " + format_quantity(*q.band->min_impedance, Dimension::resistance, 3) + " to " +
@@ -168,6 +175,24 @@ void check_conflicts(const Requirement& q) {
                                                    format_quantity(most, Dimension::resistance) + " there under " + by +
                                                    "; lower band.min_impedance, raise band.low or the target");
     }
+}
+
+// Why the chosen design passes in its fixture, in words, and what a coil-only SRF margin would have said.
+std::string fixture_words(const Requirement& q, const FixtureResult& fx, double srf) {
+    const FixtureVerdict& v = *fx.verdict;
+    const auto dev = [&](double x) { return v.in_db ? detail::fixed(x, 2) + " dB" : (x >= 0 ? "+" : "") + detail::fixed(100 * x, 1) + " %"; };
+    const auto f = [](double x) { return format_quantity(x, Dimension::frequency, 4); };
+    std::string w = "In the fixture (" + (q.fixture->name.empty() ? q.fixture_source : q.fixture->name) + ", the design as " + q.fixture_part +
+                    ") the port stays within " + (v.in_db ? detail::significant(v.tolerance, 3) + " dB" : "+/-" + detail::significant(100 * v.tolerance, 3) + " %") +
+                    " of its reference from " + f(v.band_low) + " to " + f(v.band_high) + ": worst " + dev(v.worst_deviation) + " at " + f(v.worst_frequency) + ".";
+    if (srf < v.band_high) {
+        w += " The coil resonates at " + f(srf) + ", inside that band: a coil-only SRF margin would reject it, but there the coil's "
+             "impedance stays large against the parts that share the port with it, and the port barely sees the resonance.";
+    } else {
+        w += " The coil resonates at " + f(srf) + ", " + detail::fixed(srf / v.band_high, 2) + " x the band's top.";
+    }
+    if (!v.dominant_part.empty()) w += " The worst deviation is mostly due to " + v.dominant_part + ".";
+    return w;
 }
 
 }  // namespace
@@ -312,13 +337,24 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         const double l_full = inductance_at_target(*a, target_frequency(q));
         const bool l_ok = std::fabs(l_full / q.inductance - 1) <= q.tolerance;
         const bool band_ok = !a->band || a->band->pass;
-        if (l_ok && band_ok) {
+        std::optional<FixtureResult> fx;
+        if (l_ok && band_ok && q.fixture) {
+            try {
+                fx = fixture_study(with_coil(*q.fixture, q.fixture_part, out.specs[i]));
+            } catch (const std::exception& e) {
+                out.warnings.push_back("design " + std::to_string(i + 1) + " could not be checked in the fixture (" + e.what() + "); the next one is taken");
+                continue;
+            }
+        }
+        const bool fixture_ok = !fx || fx->verdict->pass;
+        if (l_ok && band_ok && fixture_ok) {
             out.chosen = i;
             out.chosen_analysis = std::move(a);
+            out.fixture_check = std::move(fx);
             break;
         }
         out.warnings.push_back("design " + std::to_string(i + 1) + " passed the search's screening but not the full " +
-                               std::string(l_ok ? "band check" : "inductance check") + "; the next one is taken");
+                               std::string(!l_ok ? "inductance check" : !band_ok ? "band check" : "fixture check") + "; the next one is taken");
     }
     if (out.chosen) {
         const DesignFigures& d = out.pareto[*out.chosen];
@@ -329,6 +365,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
             << (ev.ceiling() > 0 ? "ceiling / SRF " : "1 MHz / SRF ") << detail::fixed(d.srf_metric(ev.ceiling()) / best_srf, 2)
             << " x the best";
         out.why_chosen = why.str();
+        if (out.fixture_check) out.fixture_words = fixture_words(q, *out.fixture_check, out.chosen_analysis->self_resonance_as_mounted);
         out.cautions = safety_cautions(q.supply_voltage, q.rf_power, d.temperature, d.temperature_limit);
         if (options.spread) {
             const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, q.wires[d.wire_index].wire, q.lead_length});

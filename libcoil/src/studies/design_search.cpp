@@ -15,6 +15,7 @@
 #include "libcoil/models/proximity.hpp"
 #include "libcoil/models/shield.hpp"
 #include "libcoil/studies/band_check.hpp"
+#include "libcoil/studies/sweep.hpp"
 #include "libcoil/studies/cautions.hpp"
 #include "libcoil/studies/winding_heat.hpp"
 #include "models/monotone_root.hpp"
@@ -79,6 +80,13 @@ Evaluator::Evaluator(const Requirement& q) : q_(q) {
     }
     ceiling_ = q.band ? q.band->ceiling : 0;
     reference_ = q.band ? q.band->ceiling : q.current_frequency.value_or(0);
+    if (q.fixture) {
+        const FixtureReference& r = *q.fixture->reference;
+        fixture_ = std::make_shared<const PortResponse>(
+            port_response(*q.fixture, q.fixture_part, q.inductance, frequency_grid(r.band_low, r.band_high, fixture_points, Spacing::logarithmic)));
+        // Without a band, the fixture's band's top is where the SRF and the loss are weighed.
+        if (!q.band) ceiling_ = reference_ = r.band_high;
+    }
     fewest_turns_ = std::ceil(1 / q.turns_step - 1e-9) * q.turns_step;  // one turn or more, on the step
     limit_ = q.enamel_class;
     target_frequency_ = target_frequency(q);
@@ -408,73 +416,45 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
     d.self_resonance = as_mounted(sr.frequency);
     std::optional<ShieldLoad> shield;
     if (q_.shield) shield = ShieldLoad{ShieldTable::perfect(g.shielded_change), c_t, d.self_resonance, d.inductance};
-    if (!q_.band) return true;
-    const BandSpec& b = *q_.band;
-    d.srf_margin = d.self_resonance / b.ceiling;
-    // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band:
-    // the network's SRF is at most helix_bound x the sheath helix's (measured up to 0.91 floating, 1.12
-    // grounded on the NEC2 set and long fine-pitch coils; docs/models.md), and the band's low edge sits
-    // below it by the network's error and the close-wound allowance (srf_band). A shield lowers the edge
-    // further; bounding without that is safe.
-    const double helix_bound = q_.surroundings.mounting == Mounting::grounded_end ? 1.15 : 0.95;
-    const double low_bound = srf_band(helix_bound * sr.frequency, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0).low;
-    std::optional<BandMiss> miss = screen_srf_margin(b, as_mounted(low_bound));
+    std::optional<BandMiss> miss;
+    if (q_.band) {
+        d.srf_margin = d.self_resonance / q_.band->ceiling;
+        // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band:
+        // the network's SRF is at most helix_bound x the sheath helix's (measured up to 0.91 floating, 1.12
+        // grounded on the NEC2 set and long fine-pitch coils; docs/models.md), and the band's low edge sits
+        // below it by the network's error and the close-wound allowance (srf_band). A shield lowers the edge
+        // further; bounding without that is safe.
+        const double helix_bound = q_.surroundings.mounting == Mounting::grounded_end ? 1.15 : 0.95;
+        const double low_bound = srf_band(helix_bound * sr.frequency, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0).low;
+        miss = screen_srf_margin(*q_.band, as_mounted(low_bound));
+    }
     // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
-    if (!miss && (b.max_deviation || b.min_impedance)) {
+    const bool band_z = q_.band && (q_.band->max_deviation || q_.band->min_impedance);
+    if (!miss && (band_z || fixture_)) {
         const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield));
         field = z.mean_square_field();
-        miss = libcoil::screen_band(b, z, screen_points);
+        if (band_z) miss = libcoil::screen_band(*q_.band, z, screen_points);
+        if (!miss && fixture_) miss = screen_fixture(z);
     }
     if (!miss) return true;
     const std::string key = miss->criterion;
-    const Reason reason = key == "srf_margin" ? Reason::srf_margin : key == "max_deviation" ? Reason::max_deviation : Reason::min_impedance;
+    const Reason reason = key == "srf_margin"      ? Reason::srf_margin
+                          : key == "max_deviation" ? Reason::max_deviation
+                          : key == "fixture"       ? Reason::fixture
+                                                   : Reason::min_impedance;
     t.reject(reason, miss->excess, [&] {
         if (reason == Reason::srf_margin) return what(c) + ": SRF " + format_quantity(miss->value, Dimension::frequency);
         if (reason == Reason::max_deviation) {
             return what(c) + ": |Z| off wL by " + fixed(miss->value * 100, 1) + " % at " + format_quantity(miss->frequency, Dimension::frequency);
         }
+        if (reason == Reason::fixture) {
+            return what(c) + ": the fixture's port off its reference by " +
+                   (fixture_->criterion.in_db ? fixed(miss->value, 2) + " dB" : fixed(miss->value * 100, 1) + " %") + " at " +
+                   format_quantity(miss->frequency, Dimension::frequency);
+        }
         return what(c) + ": |Z| " + format_quantity(miss->value, Dimension::resistance) + " at " + format_quantity(miss->frequency, Dimension::frequency);
     });
     return false;
-}
-
-// The search screens with the sheath helix (fast, and an upper bound: the turn network read 0.68 .. 0.86 of
-// it on the NEC2 set); a design it keeps is confirmed here with the turn network's SRF, the recommended one
-// (in its shield where it has one), and the band screened again on the coil as mounted.
-std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
-    const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
-    const FormerDielectric fd = q_.former ? q_.former->dielectric(d.form_diameter) : FormerDielectric{};
-    SelfResonance sr = self_resonance(s, d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0),
-                                      fd, q_.surroundings, false);
-    const double bare_l = sr.inductance;
-    double former_ratio = 1;
-    if (const auto n = network_resonance(s, fd, q_.surroundings)) {
-        sr.frequency = n->frequency;
-        sr.method = "network";
-        former_ratio = n->former_ratio;
-    } else if (fd.wall > 0 && fd.relative_permittivity != q_.surroundings.relative_permittivity) {
-        former_ratio = sheath_helix_former_ratio(s, fd, q_.surroundings);
-    }
-    const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), fd, former_ratio);
-    sr.frequency_low = band.low;
-    sr.frequency_high = band.high;
-    std::optional<ShieldLoad> shield;
-    d.self_resonance = sr.frequency;
-    if (q_.shield) {
-        const double c_t = shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end);
-        bool by_network = false;
-        if (sr.method == "network") {
-            if (const auto n = network_resonance(s, fd, q_.surroundings, &*q_.shield)) {
-                d.self_resonance = n->frequency;
-                by_network = true;
-            }
-        }
-        if (!by_network) d.self_resonance = shielded_self_resonance(sr.frequency, bare_l, d.inductance, c_t);
-        shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance, by_network};
-    }
-    if (!q_.band) return std::nullopt;
-    d.srf_margin = d.self_resonance / q_.band->ceiling;
-    return libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield)), screen_points);
 }
 
 // Loss and Q at the reference frequency.

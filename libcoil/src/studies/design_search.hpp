@@ -9,6 +9,7 @@
 
 #include <array>
 #include <limits>
+#include <memory>
 #include <cstddef>
 #include <cstdint>
 #include <optional>
@@ -21,12 +22,15 @@
 #include "libcoil/spec/requirement.hpp"
 #include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/design.hpp"
+#include "libcoil/studies/fixture_study.hpp"
 #include "studies/pareto_archive.hpp"
 
 namespace libcoil::detail {
 
 // Band screening points during the search: the winners are checked in full at 512.
 inline constexpr int screen_points = 9;
+// Fixture screening points over its reference band (log spaced): the winner is checked by the fixture study.
+inline constexpr int fixture_points = 25;
 
 struct Candidate {
     std::size_t wire;
@@ -36,7 +40,7 @@ struct Candidate {
 // Why a candidate fails, with the key the report and JSON use and the words of the binding-limit note.
 enum class Reason : std::size_t {
     outer_diameter, length, wire_length, thermal, srf_margin, max_deviation, min_impedance,
-    inductance_out_of_reach, snapping, groove, shield, model_domain, count
+    inductance_out_of_reach, snapping, groove, shield, model_domain, fixture, count
 };
 struct ReasonText {
     const char *key, *words;
@@ -54,6 +58,7 @@ constexpr std::array<ReasonText, static_cast<std::size_t>(Reason::count)> reason
     {"groove", "the former's groove (the pitch must exceed the wire by the groove's clearance)"},
     {"shield", "the shield (its inner diameter, or the shielded inductance after the trim)"},
     {"model_domain", "the models' domain"},
+    {"fixture", "the fixture's port tolerance"},
 }};
 
 // The words of a reason's key ("the length limit ..."), for the binding-limit note.
@@ -133,6 +138,9 @@ public:
     double inductance_at_target(const DesignFigures& d) const;
     double top_frequency() const;
     LossSolver loss_solver(const Solenoid& s) const;
+    // The fixture criterion on a candidate's impedance (design_fixture.cpp): the first port's worst deviation
+    // on the screen's points, as a miss where it passes the tolerance.
+    std::optional<BandMiss> screen_fixture(const CoilImpedance& z) const;
 
 private:
     void check(const Candidate& c, Tally& t) const;
@@ -158,6 +166,7 @@ private:
     std::vector<double> screen_fall_per_length_;  // H/m of wire, per wire option
     std::optional<double> fixed_offset_;          // H, set for one design by retarget()
     std::optional<double> fixed_ac_ratio_;        // the winding's R_ac / R_dc, set for one design by retarget()
+    std::shared_ptr<const PortResponse> fixture_; // the fixture's port as the coil varies, at fixture_points
 };
 
 }  // namespace libcoil::detail

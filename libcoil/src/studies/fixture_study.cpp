@@ -10,7 +10,9 @@
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/inputs/network_file.hpp"
+#include "libcoil/models/coupling.hpp"
 #include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/coupling_study.hpp"
 #include "libcoil/studies/measurement.hpp"
 #include "libcoil/studies/sweep.hpp"
 
@@ -41,15 +43,18 @@ std::vector<cd> table_impedance(const std::filesystem::path& file, const std::ve
 
 class Network {
 public:
-    Network(const FixtureSpec& fx, const std::vector<double>& f, FixtureResult& result) : fx_(fx) {
+    // Every part's Z at the frequencies `f`, each coil by its full analysis and sweep; a coil part without a
+    // spec (the designed one) is given later by set_coil().
+    Network(const FixtureSpec& fx, const std::vector<double>& f, FixtureResult* result) : fx_(fx), f_(f) {
         for (const auto& p : fx.parts) {
+            if (p.kind == FixturePartKind::coupling) continue;
             for (const std::string& n : {p.from, p.to}) {
                 if (n != fx.ground && !index_.count(n)) index_.emplace(n, static_cast<int>(index_.size()));
             }
         }
         for (std::size_t i = 0; i < fx.parts.size(); ++i) {
             const FixturePart& p = fx.parts[i];
-            if (p.kind == FixturePartKind::coil) {
+            if (p.kind == FixturePartKind::coil && p.coil) {
                 const Analysis a = [&] {
                     try {
                         return analyze(*p.coil);
@@ -62,20 +67,48 @@ public:
                 const Sweep s = sweep_study(a, q);
                 std::vector<cd> z;
                 for (const auto& pt : s.points) z.push_back(pt.impedance);
-                given_.emplace(i, std::move(z));
-                nominal_.emplace(i, s.nominal_inductance);
-                result.coils.push_back({p.name, p.source, s.nominal_inductance, s.self_resonance, std::string(choice_name(s.model))});
-                for (const auto& c : a.cautions) result.notes.push_back(p.name + ": " + c);
+                set_coil(i, std::move(z), s.nominal_inductance);
+                if (result) {
+                    result->coils.push_back({p.name, p.source, s.nominal_inductance, s.self_resonance, std::string(choice_name(s.model))});
+                    for (const auto& c : a.cautions) result->notes.push_back(p.name + ": " + c);
+                }
             } else if (p.touchstone) {
                 given_.emplace(i, table_impedance(*p.touchstone, f, part_field(i, "touchstone")));
             }
         }
+        // Each coupling's M at each frequency: the bare coils' M less both shields' credited shielding.
+        for (std::size_t i = 0; i < fx.parts.size(); ++i) {
+            const FixturePart& k = fx.parts[i];
+            if (k.kind != FixturePartKind::coupling) continue;
+            const std::size_t a = part_index(k.from), b = part_index(k.to);
+            if (!fx.parts[a].coil || !fx.parts[b].coil) throw InputError(part_field(i, "coils"), "a coupled coil has no spec");
+            const CoilSpec &sa = *fx.parts[a].coil, &sb = *fx.parts[b].coil;
+            double bare = 0;
+            try {
+                bare = coil_mutual_inductance(sa.solenoid, sb.solenoid, k.arrangement, k.distance, k.axial_offset);
+            } catch (const InputError& e) {
+                throw e.within(part_field(i, ""));
+            }
+            std::vector<double> m;
+            for (double x : f) m.push_back(bare * std::pow(10.0, -credited_pair_shielding_db(sa, sb, k.distance, x) / 20));
+            couplings_.push_back({i, a, b, std::move(m)});
+            if (result) {
+                result->notes.push_back(k.name + ": M between " + k.from + " and " + k.to + " " + format_quantity(bare, Dimension::inductance) +
+                                        " bare (the coupling study's filament sum), less the shields' credited shielding; it acts "
+                                        "on the coils' series branches, which holds well below their resonances");
+            }
+        }
     }
 
-    // The part's Z at frequency index k (f Hz), ideal or as built.
-    cd part(std::size_t i, std::size_t k, double f, bool ideal) const {
+    void set_coil(std::size_t i, std::vector<cd> z, double nominal) {
+        given_[i] = std::move(z);
+        nominal_[i] = nominal;
+    }
+
+    // The part's Z at frequency index k, ideal or as built.
+    cd part(std::size_t i, std::size_t k, bool ideal) const {
         const FixturePart& p = fx_.parts[i];
-        const double w = 2 * pi * f;
+        const double w = 2 * pi * f_[k];
         if (p.kind == FixturePartKind::coil) return ideal ? cd(0, w * nominal_.at(i)) : given_.at(i)[k];
         if (p.touchstone) return given_.at(i)[k];
         cd z;
@@ -92,20 +125,41 @@ public:
         return 1.0 / y;
     }
 
-    // The ports' Z matrix at frequency index k; `ideal_all` makes every part ideal, `ideal_one` just that one.
-    std::vector<cd> ports(std::size_t k, double f, bool ideal_all, std::optional<std::size_t> ideal_one = std::nullopt) const {
+    // The ports' Z matrix at frequency index k; `ideal_all` makes every part ideal (a coupling: none),
+    // `ideal_one` just that one; `free` replaces the part `free->first`'s Z by `free->second`.
+    std::vector<cd> ports(std::size_t k, bool ideal_all, std::optional<std::size_t> ideal_one = std::nullopt,
+                          std::optional<std::pair<std::size_t, cd>> free = std::nullopt) const {
         const auto n = static_cast<Eigen::Index>(index_.size());
         Eigen::MatrixXcd y = Eigen::MatrixXcd::Zero(n, n);
-        for (std::size_t i = 0; i < fx_.parts.size(); ++i) {
-            const FixturePart& p = fx_.parts[i];
-            const cd a = 1.0 / part(i, k, f, ideal_all || ideal_one == i);
-            const int u = node(p.from), v = node(p.to);
-            if (u >= 0) y(u, u) += a;
-            if (v >= 0) y(v, v) += a;
-            if (u >= 0 && v >= 0) {
-                y(u, v) -= a;
-                y(v, u) -= a;
+        // Stamp an admittance a between the branches' nodes (u1, v1) and (u2, v2): the current into u1 per volt
+        // across (u2, v2).
+        const auto stamp = [&](const FixturePart& p, const FixturePart& q, cd a) {
+            const int u[2] = {node(p.from), node(p.to)}, v[2] = {node(q.from), node(q.to)};
+            for (int r = 0; r < 2; ++r) {
+                for (int c = 0; c < 2; ++c) {
+                    if (u[r] >= 0 && v[c] >= 0) y(u[r], v[c]) += (r == c ? 1.0 : -1.0) * a;
+                }
             }
+        };
+        const auto z_of = [&](std::size_t i) {
+            if (free && free->first == i) return free->second;
+            return part(i, k, ideal_all || ideal_one == i);
+        };
+        std::vector<bool> done(fx_.parts.size(), false);
+        // A coupled pair: its branch impedance matrix [[Za, jwM], [jwM, Zb]] inverted and stamped whole.
+        for (const auto& c : couplings_) {
+            const bool off = ideal_all || ideal_one == c.part;
+            const cd za = z_of(c.a), zb = z_of(c.b), zm(0, off ? 0.0 : 2 * pi * f_[k] * c.mutual[k]);
+            const cd det = za * zb - zm * zm;
+            stamp(fx_.parts[c.a], fx_.parts[c.a], zb / det);
+            stamp(fx_.parts[c.b], fx_.parts[c.b], za / det);
+            stamp(fx_.parts[c.a], fx_.parts[c.b], -zm / det);
+            stamp(fx_.parts[c.b], fx_.parts[c.a], -zm / det);
+            done[c.a] = done[c.b] = done[c.part] = true;
+        }
+        for (std::size_t i = 0; i < fx_.parts.size(); ++i) {
+            if (done[i] || fx_.parts[i].kind == FixturePartKind::coupling) continue;
+            stamp(fx_.parts[i], fx_.parts[i], 1.0 / z_of(i));
         }
         const auto m = static_cast<Eigen::Index>(fx_.ports.size());
         Eigen::MatrixXcd e = Eigen::MatrixXcd::Zero(n, m);
@@ -120,7 +174,7 @@ public:
             for (Eigen::Index c = 0; c < m; ++c) {
                 const cd v = z(r, c);
                 if (!std::isfinite(v.real()) || !std::isfinite(v.imag())) {
-                    throw DomainError("fixture: the port impedance at " + format_quantity(f, Dimension::frequency) + " is not finite (an ideal resonance)");
+                    throw DomainError("fixture: the port impedance at " + format_quantity(f_[k], Dimension::frequency) + " is not finite (an ideal resonance)");
                 }
                 out.push_back(v);
             }
@@ -128,12 +182,25 @@ public:
         return out;
     }
 
+    std::size_t part_index(const std::string& name) const {
+        for (std::size_t i = 0; i < fx_.parts.size(); ++i) {
+            if (fx_.parts[i].name == name) return i;
+        }
+        throw InputError("parts", "no part named \"" + name + "\"");
+    }
+
 private:
+    struct Coupled {
+        std::size_t part, a, b;
+        std::vector<double> mutual;  // H at each frequency
+    };
     int node(const std::string& name) const { return name == fx_.ground ? -1 : index_.at(name); }
     const FixtureSpec& fx_;
+    const std::vector<double>& f_;
     std::map<std::string, int> index_;
     std::map<std::size_t, std::vector<cd>> given_;
     std::map<std::size_t, double> nominal_;
+    std::vector<Coupled> couplings_;
 };
 
 double deviation_of(cd z, cd ref, bool in_db) {
@@ -158,6 +225,46 @@ std::vector<double> frequencies_of(const FixtureSpec& fx, const FixtureRequest& 
 
 }  // namespace
 
+std::complex<double> PortResponse::port_impedance(std::size_t k, std::complex<double> z) const {
+    const auto& c = coefficients[k];
+    return (c[0] * z + c[1]) / (c[2] * z + c[3]);
+}
+
+double PortResponse::deviation(std::size_t k, std::complex<double> z) const {
+    return deviation_of(port_impedance(k, z), reference[k], criterion.in_db);
+}
+
+PortResponse port_response(const FixtureSpec& fx, std::string_view part, double nominal_inductance, const std::vector<double>& f) {
+    if (!fx.reference) throw InputError("reference", "missing; a fixture criterion needs the reference's tolerance and band");
+    require_positive("nominal_inductance", nominal_inductance);
+    PortResponse out;
+    out.criterion = *fx.reference;
+    out.frequency = f;
+    Network net(fx, out.frequency, nullptr);
+    const std::size_t i = net.part_index(std::string(part));
+    if (fx.parts[i].kind != FixturePartKind::coil) throw InputError("coil", "\"" + std::string(part) + "\" is not a coil part");
+    net.set_coil(i, std::vector<cd>(f.size()), nominal_inductance);
+    for (std::size_t k = 0; k < f.size(); ++k) {
+        const double x = 2 * pi * f[k] * nominal_inductance;
+        const cd z[3] = {cd(0, x), cd(0, 4 * x), cd(x, x / 4)};
+        Eigen::Matrix<cd, 3, 4> m;
+        for (int r = 0; r < 3; ++r) {
+            const cd p = net.ports(k, false, std::nullopt, std::pair{i, z[r]})[0];
+            m.row(r) << z[r], 1.0, -z[r] * p, -p;
+        }
+        Eigen::Vector4d scale;
+        for (int c = 0; c < 4; ++c) scale(c) = std::max(m.col(c).norm(), 1e-300);
+        const Eigen::Matrix<cd, 3, 4> ms = m * scale.cwiseInverse().asDiagonal();
+        Eigen::JacobiSVD<Eigen::Matrix<cd, 3, 4>> svd(ms, Eigen::ComputeFullV);
+        const Eigen::Matrix<cd, 4, 1> v = svd.matrixV().col(3).cwiseQuotient(scale.cast<cd>());
+        out.coefficients.push_back({v(0), v(1), v(2), v(3)});
+        if (fx.reference->table) continue;
+        out.reference.push_back(net.ports(k, true)[0]);
+    }
+    if (fx.reference->table) out.reference = table_impedance(*fx.reference->table, f, "reference.table");
+    return out;
+}
+
 std::vector<std::complex<double>> FixtureResult::s_parameters(std::size_t k) const {
     const auto m = static_cast<Eigen::Index>(ports.size());
     Eigen::MatrixXcd z(m, m), g = Eigen::MatrixXcd::Zero(m, m);
@@ -180,15 +287,18 @@ FixtureResult fixture_study(const FixtureSpec& fx, const FixtureRequest& q) {
     out.ports = fx.ports;
     out.notes = fx.notes;
     out.frequency = frequencies_of(fx, q);
-    const Network net(fx, out.frequency, out);
-    for (std::size_t k = 0; k < out.frequency.size(); ++k) out.impedance.push_back(net.ports(k, out.frequency[k], false));
+    for (std::size_t i = 0; i < fx.parts.size(); ++i) {
+        if (fx.parts[i].kind == FixturePartKind::coil && !fx.parts[i].coil) throw InputError(part_field(i, "spec"), "missing; the coil part needs a spec");
+    }
+    const Network net(fx, out.frequency, &out);
+    for (std::size_t k = 0; k < out.frequency.size(); ++k) out.impedance.push_back(net.ports(k, false));
     if (!fx.reference) return out;
 
     const FixtureReference& r = *fx.reference;
     if (r.table) {
         out.reference = table_impedance(*r.table, out.frequency, "reference.table");
     } else {
-        for (std::size_t k = 0; k < out.frequency.size(); ++k) out.reference.push_back(net.ports(k, out.frequency[k], true)[0]);
+        for (std::size_t k = 0; k < out.frequency.size(); ++k) out.reference.push_back(net.ports(k, true)[0]);
         for (const auto& p : fx.parts) {
             if (p.touchstone) out.notes.push_back("the ideal reference keeps " + p.name + " as its file gives it (a file has no ideal form)");
         }
@@ -221,7 +331,7 @@ FixtureResult fixture_study(const FixtureSpec& fx, const FixtureRequest& q) {
         for (std::size_t i = 0; i < fx.parts.size(); ++i) {
             const FixturePart& p = fx.parts[i];
             if (p.ideal() || p.touchstone) continue;
-            const double d = deviation_of(net.ports(k, out.frequency[k], false, i)[0], out.reference[k], r.in_db);
+            const double d = deviation_of(net.ports(k, false, i)[0], out.reference[k], r.in_db);
             const double share = (std::fabs(v.worst_deviation) - std::fabs(d)) / std::fabs(v.worst_deviation);
             if (v.dominant_part.empty() || share > v.dominant_share) {
                 v.dominant_part = p.name;

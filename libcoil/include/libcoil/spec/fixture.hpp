@@ -13,6 +13,7 @@
 //     - {name: C2, kind: capacitor, between: [supply, gnd], value: 1 uF, parallel_resistance: 10 Mohm}
 //     - {name: L3, kind: inductor, between: [x, y], value: 1 mH, esr: 1 ohm, parallel_capacitance: 5 pF}
 //     - {name: Z1, kind: capacitor, between: [a, b], touchstone: part.s1p}  # its Z from a one-port file instead
+//     - {name: K12, kind: coupling, coils: [L1, L2], arrangement: side-by-side, distance: 60 mm}  # M between two coils
 //   ports:                                  # one or two
 //     - {name: EUT, between: [line, gnd], reference: 50 ohm}
 //   reference:                              # optional: what the port impedance should be
@@ -23,7 +24,10 @@
 //   sweep: {from: 10 kHz, to: 300 MHz, points: 401}   # optional: the default frequencies
 //
 // Each part's impedance: resistor R + j w ESL; capacitor ESR + j w ESL + 1 / (j w C); inductor ESR + j w L;
-// then in parallel with `parallel_resistance` and `parallel_capacitance` where given.
+// then in parallel with `parallel_resistance` and `parallel_capacitance` where given. A coupling joins two
+// coil parts by their mutual inductance, as the coupling study computes it (coupling_study.hpp: the bare
+// coils' M at `distance`, `axial_offset` along the axes, less both shields' credited shielding), each coil
+// wound the same way from its first node to its second.
 #pragma once
 
 #include <filesystem>
@@ -36,12 +40,12 @@
 
 namespace libcoil {
 
-enum class FixturePartKind { coil, resistor, capacitor, inductor };
+enum class FixturePartKind { coil, resistor, capacitor, inductor, coupling };
 
 struct FixturePart {
     std::string name;
     FixturePartKind kind = FixturePartKind::resistor;
-    std::string from, to;                      // nodes
+    std::string from, to;                      // nodes (a coupling: the two coil parts it joins)
     double value = 0;                          // ohm, F or H (0 for a coil or a Touchstone part)
     double esr = 0, esl = 0;                   // ohm, H
     std::optional<double> parallel_resistance; // ohm
@@ -49,7 +53,12 @@ struct FixturePart {
     std::optional<CoilSpec> coil;              // kind coil
     std::optional<std::filesystem::path> touchstone;  // a one-port file: the part's Z (the study reads it)
     std::string source;                        // the coil's spec file or the Touchstone file, for the report
-    bool ideal() const { return esr == 0 && esl == 0 && !parallel_resistance && !parallel_capacitance && !touchstone && kind != FixturePartKind::coil; }
+    Arrangement arrangement = Arrangement::side_by_side;  // a coupling's
+    double distance = 0, axial_offset = 0;     // m, a coupling's
+    bool ideal() const {
+        return esr == 0 && esl == 0 && !parallel_resistance && !parallel_capacitance && !touchstone && kind != FixturePartKind::coil &&
+               kind != FixturePartKind::coupling;
+    }
 };
 
 struct FixturePort {
@@ -78,8 +87,12 @@ struct FixtureSpec {
 };
 
 // InputError names the YAML path (parts[2].value, ports[0].between, ...), the file where it is another one.
-FixtureSpec parse_fixture(std::string_view yaml_text, std::string_view source = "fixture");
-FixtureSpec load_fixture(const std::filesystem::path& path);
+// `designed`: the coil part a design search supplies (requirement.hpp's fixture:), which may come without a
+// spec; it must be a coil part, and no coupling may reach it.
+FixtureSpec parse_fixture(std::string_view yaml_text, std::string_view source = "fixture", std::string_view designed = {});
+FixtureSpec load_fixture(const std::filesystem::path& path, std::string_view designed = {});
+// The fixture with the part named `part` (a coil) given `coil`.
+FixtureSpec with_coil(FixtureSpec fixture, std::string_view part, const CoilSpec& coil);
 
 std::string_view fixture_part_kind_name(FixturePartKind k);
 

@@ -27,6 +27,9 @@
 //   shield: {inner_diameter: 50 mm, length: 80 mm, thickness: 0.1 mm, material: copper}   # optional
 //   surroundings: {mounting: floating}
 //   conductor: copper
+//   fixture:                         # optional: the circuit the coil serves (fixture.hpp), as a criterion
+//     file: bench-network-fixture.yaml   # beside the requirement; or the fixture's keys inline
+//     coil: L1                       # the part the designed coil takes (its spec there, if any, is not read)
 //   tolerances:                      # optional, one standard deviation each (defaults: spread.hpp)
 //     form_diameter: 0.1 mm
 //     pitch: 0.02 mm
@@ -41,6 +44,7 @@
 #include <vector>
 
 #include "libcoil/models/materials.hpp"
+#include "libcoil/spec/fixture.hpp"
 #include "libcoil/spec/spec.hpp"
 #include "libcoil/models/wire.hpp"
 
@@ -65,7 +69,7 @@ struct Objective {
 struct Requirement;
 // The frequency at which the target inductance is met: target.frequency if given, else the band's low
 // edge (where a supply network's or filter's inductance is specified; L then falls across the band as the
-// current moves to the wires' surfaces), else the current's frequency, else 0 (the low-frequency inductance).
+// current moves to the wires' surfaces), else the fixture's band's low edge, else the current's frequency, else 0 (the low-frequency inductance).
 double target_frequency(const Requirement& q);
 
 struct Requirement {
@@ -99,6 +103,11 @@ struct Requirement {
     Conductor conductor;
     BuildTolerances tolerances;
     bool tolerances_given = false;
+    // The circuit the coil serves, with its reference, tolerance and band: the search screens each candidate
+    // by the first port's deviation there, and the chosen design must pass the full fixture study.
+    std::optional<FixtureSpec> fixture;
+    std::string fixture_part;    // the coil part the design takes
+    std::string fixture_source;  // the fixture's file, or "inline"
     std::vector<std::string> notes;
 };
 

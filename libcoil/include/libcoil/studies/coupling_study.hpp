@@ -40,6 +40,10 @@ struct CouplingStudy {
     std::vector<std::string> notes;
 };
 
+// Both shields' credited magnetic shielding between the coils at `frequency` (dB; 0 without shields), as
+// the study credits it: M as mounted is the bare coils' M times 10^(-dB / 20).
+double credited_pair_shielding_db(const CoilSpec& a, const CoilSpec& b, double distance, double frequency);
+
 // InputError names the arguments: "distance", "axial_offset", "frequencies", "source_resistance", ...
 // `frequencies`: where the crosstalk is wanted (empty: the specs' operating frequencies, both together).
 // `sweep_distances`: centre distances for the table and the picture (may be empty).

@@ -18,7 +18,9 @@
 //   srf   ceiling / SRF (with no band: 1 MHz / SRF).
 // A weighted sum with positive weights is minimised on the Pareto set, so ranking the set ranks all.
 // The winner is re-analysed in full (analysis.hpp: the band check at 512 points, the shield's ring model,
-// the thermal estimate); if it fails there, the next one is taken and the report says so. The steps of
+// the thermal estimate) and, with a fixture criterion, in its fixture by the fixture study; if it fails
+// there, the next one is taken and the report says so. The fixture criterion screens each candidate by
+// the port's deviation at 25 log-spaced points of the fixture's band (fixture_study.hpp's PortResponse). The steps of
 // one candidate's evaluation are in src/studies/design_search.hpp.
 #pragma once
 
@@ -30,6 +32,7 @@
 #include <vector>
 
 #include "libcoil/studies/analysis.hpp"
+#include "libcoil/studies/fixture_study.hpp"
 #include "libcoil/spec/requirement.hpp"
 #include "libcoil/spec/spec.hpp"
 #include "libcoil/studies/spread.hpp"
@@ -99,6 +102,10 @@ struct DesignResult {
     std::vector<CoilSpec> specs;              // the coil spec of each ranked design, for the first `top`
     std::optional<Analysis> chosen_analysis;  // the full re-analysis of the chosen design
     std::optional<Spread> spread;             // with DesignOptions::spread and a chosen design
+    // With a fixture criterion: the chosen design in the fixture, by the full fixture study (its coil by the
+    // full analysis and sweep), and in words why it passes where a coil-only margin would not.
+    std::optional<FixtureResult> fixture_check;
+    std::string fixture_words;
 };
 
 DesignResult design(const Requirement& requirement, const DesignOptions& options = {});

@@ -13,7 +13,9 @@
 //          that removes the most of it is named, with the share it removes.
 #pragma once
 
+#include <array>
 #include <complex>
+#include <string_view>
 #include <optional>
 #include <string>
 #include <vector>
@@ -60,6 +62,23 @@ struct FixtureResult {
     std::vector<std::string> notes;
     std::vector<std::complex<double>> s_parameters(std::size_t k) const;  // S at frequency k, row-major
 };
+
+// The first port's impedance as one coil part's impedance z varies, at each frequency: by the bilinear
+// theorem of linear circuits Z_port = (a z + b) / (c z + d), its coefficients the null vector (Eigen's SVD,
+// columns scaled) of three solutions of the network at z = jX, 4jX and X (1 + j/4), X = w L_nominal. A
+// design search screens a candidate coil with it at no network solution per candidate. The reference is
+// the fixture's, with the part an ideal inductor of L_nominal where the reference is the ideal fixture.
+struct PortResponse {
+    std::vector<double> frequency;                                   // Hz
+    std::vector<std::array<std::complex<double>, 4>> coefficients;   // a, b, c, d at each frequency
+    std::vector<std::complex<double>> reference;                     // ohm
+    FixtureReference criterion;
+    std::complex<double> port_impedance(std::size_t k, std::complex<double> z) const;
+    double deviation(std::size_t k, std::complex<double> z) const;  // as the verdict's: a fraction, or dB
+};
+// InputError "reference" when the fixture has none; "coil" when `part` names no coil part.
+PortResponse port_response(const FixtureSpec& fixture, std::string_view part, double nominal_inductance,
+                           const std::vector<double>& frequencies);
 
 // InputError names "frequencies", the fixture's fields (parts[i].touchstone: out of its range, ...).
 FixtureResult fixture_study(const FixtureSpec& fixture, const FixtureRequest& request = {});
