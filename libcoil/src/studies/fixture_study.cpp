@@ -87,7 +87,7 @@ public:
             try {
                 bare = coil_mutual_inductance(sa.solenoid, sb.solenoid, k.arrangement, k.distance, k.axial_offset);
             } catch (const InputError& e) {
-                throw e.within(part_field(i, ""));
+                throw e.within("parts[" + std::to_string(i) + "]");
             }
             std::vector<double> m;
             for (double x : f) m.push_back(bare * std::pow(10.0, -credited_pair_shielding_db(sa, sb, k.distance, x) / 20));
