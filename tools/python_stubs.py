@@ -28,7 +28,7 @@ RECORD_FIELDS = {
         "candidates_evaluated": "int", "feasible": "int", "pareto_size": "int", "rejected_by_reason": "Record",
         "designs": "Record", "chosen": "int | None", "why_chosen": "str", "binding": "str", "closest": "Record | None",
         "spread": "Record | None", "chosen_analysis": "Analysis | None", "cautions": "list[str]", "warnings": "list[str]",
-        "notes": "list[str]",
+        "notes": "list[str]", "fixture_check": "Record | None", "one_change": "str | None",
     },
     "FormerResult": {
         "name": "str", "kind": "str", "material": "str", "turns": "float", "pitch": "float", "outer_diameter": "float",

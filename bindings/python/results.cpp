@@ -165,7 +165,16 @@ py::dict design_dict(const Requirement& q, const DesignResult& r) {
                           "self_resonance"_a = stat(s.self_resonance), "within_tolerance"_a = s.within_tolerance, "sensitivities"_a = sens,
                           "first_order_inductance_sd"_a = s.first_order_inductance_deviation);
     }
+    py::object fixture_check = py::none();
+    if (r.fixture_check) {
+        const FixtureVerdict& v = *r.fixture_check->verdict;
+        fixture_check = py::dict("pass"_a = v.pass, "tolerance"_a = v.tolerance, "in_db"_a = v.in_db, "band_low"_a = v.band_low,
+                                 "band_high"_a = v.band_high, "worst_deviation"_a = v.worst_deviation, "worst_frequency"_a = v.worst_frequency,
+                                 "first_failure"_a = v.first_failure ? py::object(py::float_(*v.first_failure)) : py::object(py::none()),
+                                 "dominant_part"_a = v.dominant_part, "words"_a = r.fixture_words);
+    }
     return py::dict("candidates_evaluated"_a = r.candidates_evaluated, "feasible"_a = r.feasible, "pareto_size"_a = r.front_size,
+                    "fixture_check"_a = fixture_check, "one_change"_a = r.one_change.empty() ? py::object(py::none()) : py::object(py::str(r.one_change)),
                     "rejected_by_reason"_a = rejected, "designs"_a = designs,
                     "chosen"_a = r.chosen ? py::object(py::int_(*r.chosen)) : py::object(py::none()), "why_chosen"_a = r.why_chosen,
                     "binding"_a = r.binding, "closest"_a = closest, "spread"_a = spread,

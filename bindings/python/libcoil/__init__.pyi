@@ -60,6 +60,8 @@ class DesignResult(Record):
     cautions: list[str]
     warnings: list[str]
     notes: list[str]
+    fixture_check: Record | None
+    one_change: str | None
 
 class FormerResult(Record):
     name: str
