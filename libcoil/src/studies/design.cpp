@@ -188,8 +188,9 @@ std::string fixture_words(const Requirement& q, const FixtureResult& fx, double 
                     ") the port stays within " + (v.in_db ? detail::significant(v.tolerance, 3) + " dB" : "+/-" + detail::significant(100 * v.tolerance, 3) + " %") +
                     " of its reference from " + f(v.band_low) + " to " + f(v.band_high) + ": worst " + dev(v.worst_deviation) + " at " + f(v.worst_frequency) + ".";
     if (srf < v.band_high) {
-        w += " The coil resonates at " + f(srf) + ", inside that band: a coil-only SRF margin would reject it, but there the coil's "
-             "impedance stays large against the parts that share the port with it, and the port barely sees the resonance.";
+        w += " The coil resonates at " + f(srf) + ", inside that band: a coil-only SRF margin would reject it, yet the port, which is "
+             "what the circuit needs, stays within its tolerance through the resonance (the parts that share the port with the coil "
+             "set its impedance there).";
     } else {
         w += " The coil resonates at " + f(srf) + ", " + detail::fixed(srf / v.band_high, 2) + " x the band's top.";
     }
