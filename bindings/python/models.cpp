@@ -142,6 +142,10 @@ void bind_models(py::module_& m) {
           "R_ac / R_dc of an isolated round wire, x = sqrt(2) r / delta.");
     m.def("skin_inductance_ratio", py::vectorize([](double x) { return libcoil::skin_ratios(x).internal_inductance; }),
           "x"_a, "L_int(f) / L_int(0) of an isolated round wire.");
+    m.def("skin_ratios_series", [](double x) {
+        const auto r = libcoil::skin_ratios_series(x);
+        return py::make_tuple(r.resistance, r.internal_inductance);
+    }, "x"_a, "(R_ac / R_dc, L_int(f) / L_int(0)) from the Kelvin functions' series: the tables' reference.");
     m.def("dc_resistance", [](const libcoil::Conductor& c, double d, double length, double t) {
         return libcoil::dc_resistance(c, d, length, t);
     }, "conductor"_a, "diameter"_a, "length"_a, "temperature"_a);
@@ -164,6 +168,8 @@ void bind_models(py::module_& m) {
     }, "solenoid"_a, "conductor"_a, "temperature"_a, "frequency"_a,
        "Closed-form R(f), L(f), Q(f) over an array of frequencies (arrays of the same shape).");
     m.def("proximity_loss_function", py::vectorize(&libcoil::proximity_loss_function), "x"_a);
+    m.def("proximity_loss_function_series", &libcoil::proximity_loss_function_series, "x"_a,
+          "G(x) from the Kelvin functions: the tables' reference.");
     m.def("mean_square_field_per_ampere", &libcoil::mean_square_field_per_ampere, "solenoid"_a);
     m.def("ac_resistance", [](const libcoil::Solenoid& s, const libcoil::Conductor& c, double t, double f) {
         const auto r = libcoil::ac_resistance(s, c, t, f);

@@ -9,6 +9,7 @@
 #include "libcoil/models/dc_resistance.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/kelvin.hpp"
+#include "models/wire_kernels.hpp"
 #include "libcoil/models/skin_effect.hpp"
 #include "models/wire_bessel.hpp"
 
@@ -63,6 +64,11 @@ constexpr double own_field_constant = 1.75;
 }  // namespace
 
 double proximity_loss_function(double x) {
+    require_non_negative("x", x);
+    return finite_result("proximity loss function", detail::wire_kernels(x).proximity);
+}
+
+double proximity_loss_function_series(double x) {
     require_non_negative("x", x);
     // Below x = 0.05 the closed form takes lambda from a small imaginary part and loses digits (2.5e-10 at
     // x = 1e-3); the series G = (x^4/16)(1 - 11 x^4/384 + ...) is used instead, its next term
@@ -152,19 +158,11 @@ AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temp
     }
     const double rho = cond.resistivity_at(temperature);
     const double x = std::sqrt(2.0) * c.wire().radius() / skin_depth(rho, frequency, cond.relative_permeability);
-    // One evaluation of the Kelvin functions serves both ratios, where neither takes its small-x series.
-    SkinRatios s;
-    double g;
-    if (x >= 0.05) {
-        const ScaledBesselPair kb = scaled_kelvin_bessel(x);
-        s = detail::skin_ratios_from(kb, x);
-        g = detail::proximity_loss_from(kb, x);
-    } else {
-        s = skin_ratios(x);
-        g = proximity_loss_function(x);
-    }
-    r.skin_ratio = s.resistance;
-    r.internal_inductance_ratio = s.internal_inductance;
+    // One lookup in the tables serves both ratios and G.
+    const detail::WireKernels k = detail::wire_kernels(x);
+    const double g = k.proximity;
+    r.skin_ratio = k.resistance;
+    r.internal_inductance_ratio = k.internal_inductance;
     const double rw = c.wire().radius();
     r.proximity_ratio = 4 * pi * pi * rw * rw * g * mean_square_field;
     r.resistance = finite_result("AC resistance", helix * (r.skin_ratio + r.proximity_ratio) + leads * r.skin_ratio);

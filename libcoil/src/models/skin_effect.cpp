@@ -7,6 +7,7 @@
 #include "libcoil/core/error.hpp"
 #include "libcoil/models/kelvin.hpp"
 #include "models/wire_bessel.hpp"
+#include "models/wire_kernels.hpp"
 
 namespace libcoil {
 
@@ -18,6 +19,12 @@ double skin_depth(double resistivity, double frequency, double mu_r) {
 }
 
 SkinRatios skin_ratios(double x) {
+    require_non_negative("x", x);
+    const detail::WireKernels k = detail::wire_kernels(x);
+    return {finite_result("skin ratio", k.resistance), finite_result("skin ratio", k.internal_inductance)};
+}
+
+SkinRatios skin_ratios_series(double x) {
     require_non_negative("x", x);
     if (x < 1e-3) {
         const double x4 = x * x * x * x;
