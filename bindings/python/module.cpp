@@ -21,4 +21,5 @@ PYBIND11_MODULE(_core, m) {
 
     bind_models(m);
     bind_studies(m);
+    bind_batch(m);
 }

@@ -50,6 +50,7 @@
 #include "libcoil/studies/measurement.hpp"
 #include "libcoil/studies/measurement_fit.hpp"
 #include "libcoil/studies/comparison.hpp"
+#include "libcoil/studies/batch.hpp"
 #include "libcoil/studies/fixture_study.hpp"
 #include "libcoil/studies/circuit_export.hpp"
 #include "libcoil/outputs/circuit_files.hpp"

@@ -40,4 +40,19 @@ inline WireKernels wire_kernels(double x) {
     return {horner(t::resistance_tail[j], w) * up, horner(t::internal_inductance_tail[j], w) * tt, horner(t::proximity_tail[j], w) * up};
 }
 
+// R_ac / R_dc alone (one polynomial instead of three).
+inline double wire_skin_resistance(double x) {
+    namespace t = skin_tables;
+    if (x < t::x_table) {
+        const double s = x * (t::segments / t::x_table);
+        int i = static_cast<int>(s);
+        if (i >= t::segments) i = t::segments - 1;
+        return horner(t::resistance[i], 2 * (s - i) - 1);
+    }
+    const double tt = t::x_table / x, s = tt * t::tail_segments;
+    int j = static_cast<int>(s);
+    if (j >= t::tail_segments) j = t::tail_segments - 1;
+    return horner(t::resistance_tail[j], 2 * (s - j) - 1) * (x / t::x_table);
+}
+
 }  // namespace libcoil::detail
