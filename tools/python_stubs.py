@@ -57,7 +57,7 @@ RECORD_FIELDS = {
 # Functions whose pybind11 return type says only "object".
 RETURNS = {
     "read_network": "Record", "read_measurement": "Record", "measured_figures": "Record",
-    "compare": "Comparison", "fixture": "Record", "export_circuit": "Record", "design": "DesignResult", "couple": "CouplingResult", "former": "FormerResult", "sweep": "Sweep",
+    "evaluate": "dict[str, Any]", "compare": "Comparison", "fixture": "Record", "export_circuit": "Record", "design": "DesignResult", "couple": "CouplingResult", "former": "FormerResult", "sweep": "Sweep",
     "self_resonance": "Record", "design_array": "np.recarray", "lumped_impedance": "complex | NDArray[np.complex128]",
     "awg_diameter": "float | NDArray[np.float64]",
 }

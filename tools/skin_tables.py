@@ -74,11 +74,12 @@ def fit(f, a, w, degree):
     return [float(c) for c in reversed(poly)]  # lowest power first
 
 
-def evaluate(c, v):  # in double, Horner, as the C++ does
-    s = 0.0
-    for x in reversed(c):
-        s = s * v + x
-    return s
+def evaluate(c, w):  # in double, by Estrin's scheme in the same order as the C++ (wire_kernels.hpp)
+    v, x = list(c), w
+    while len(v) > 1:
+        v = [v[2 * i] + v[2 * i + 1] * x if 2 * i + 1 < len(v) else v[2 * i] for i in range((len(v) + 1) // 2)]
+        x = x * x
+    return v[0]
 
 
 def tables():
