@@ -35,6 +35,7 @@ int parse_awg(std::string_view text, std::string_view field) {
     } else if (s.size() == 3 && s[1] == '/' && s[2] == '0' && s[0] >= '1' && s[0] <= '4') {
         gauge = 1 - (s[0] - '0');  // "2/0" is -1, "4/0" is -3
     } else if (std::all_of(s.begin(), s.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); })) {
+        if (s.size() > 3) throw bad("gauge outside AWG 4/0 .. AWG 56");  // (and beyond what an int holds)
         gauge = std::stoi(s);
     } else {
         throw bad("gauge number not understood");

@@ -297,15 +297,82 @@ BandSpec read_band(const YamlMap& m) {
     return b;
 }
 
+namespace {
+
+// source:line:column of byte `at` in `text`.
+std::string place(std::string_view text, std::size_t at, std::string_view source) {
+    const std::size_t line = static_cast<std::size_t>(std::count(text.begin(), text.begin() + static_cast<std::ptrdiff_t>(at), '\n')) + 1;
+    const std::size_t start = text.rfind('\n', at == 0 ? 0 : at - 1);
+    const std::size_t column = at - (start == std::string_view::npos || at == 0 ? 0 : start + 1) + 1;
+    return std::string(source) + ":" + std::to_string(line) + ":" + std::to_string(column);
+}
+
+// The text must be UTF-8 without control characters other than tab, line feed and carriage return: names
+// and descriptions reach reports, JSON and terminals.
+void check_text(std::string_view text, std::string_view source) {
+    for (std::size_t i = 0; i < text.size();) {
+        const auto c = static_cast<unsigned char>(text[i]);
+        if (c < 0x80) {
+            if ((c < 0x20 && c != '\t' && c != '\n' && c != '\r') || c == 0x7f) {
+                throw InputError(place(text, i, source), "a control character (byte " + std::to_string(c) + ") in the text; expected printable UTF-8");
+            }
+            ++i;
+            continue;
+        }
+        const int n = c >= 0xf0 && c <= 0xf4 ? 3 : c >= 0xe0 ? 2 : c >= 0xc2 && c <= 0xdf ? 1 : -1;
+        // n continuation bytes 10xxxxxx must follow
+        bool ok = n > 0 && i + static_cast<std::size_t>(n) < text.size();
+        for (int k = 1; ok && k <= n; ++k) ok = (static_cast<unsigned char>(text[i + static_cast<std::size_t>(k)]) & 0xc0) == 0x80;
+        if (ok && n == 2) {  // three-byte forms: no overlong ones, no surrogates
+            const auto c1 = static_cast<unsigned char>(text[i + 1]);
+            ok = !(c == 0xe0 && c1 < 0xa0) && !(c == 0xed && c1 >= 0xa0);
+        }
+        if (ok && n == 3) {  // four-byte forms: no overlong ones, nothing past U+10FFFF
+            const auto c1 = static_cast<unsigned char>(text[i + 1]);
+            ok = !(c == 0xf0 && c1 < 0x90) && !(c == 0xf4 && c1 >= 0x90);
+        }
+        if (!ok) throw InputError(place(text, i, source), "not valid UTF-8 (byte " + std::to_string(c) + "); save the file as UTF-8");
+        i += static_cast<std::size_t>(n) + 1;
+    }
+}
+
+// A key given twice in one mapping (YAML forbids it; the parser would keep the first silently), and nesting
+// beyond any spec's.
+void check_keys(const YAML::Node& node, const std::string& path, int depth) {
+    if (depth > 32) throw InputError(path.empty() ? "spec" : path, "nested deeper than 32 levels");
+    if (node.IsMap()) {
+        std::vector<std::string> seen;
+        for (const auto& kv : node) {
+            const std::string key = kv.first.IsScalar() ? kv.first.Scalar() : "";
+            const std::string here = path.empty() ? key : path + "." + key;
+            if (!key.empty() && std::find(seen.begin(), seen.end(), key) != seen.end()) {
+                throw InputError(here, "given twice in the same mapping; give it once");
+            }
+            seen.push_back(key);
+            check_keys(kv.second, here, depth + 1);
+        }
+    } else if (node.IsSequence()) {
+        for (std::size_t i = 0; i < node.size(); ++i) check_keys(node[i], path + "[" + std::to_string(i) + "]", depth + 1);
+    }
+}
+
+}  // namespace
+
 YAML::Node load_yaml(std::string_view text, std::string_view source) {
+    check_text(text, source);
+    std::vector<YAML::Node> docs;
     try {
-        return YAML::Load(std::string(text));
+        docs = YAML::LoadAll(std::string(text));
     } catch (const YAML::Exception& e) {
         std::ostringstream where;
         where << source;
         if (!e.mark.is_null()) where << ":" << e.mark.line + 1 << ":" << e.mark.column + 1;
         throw InputError(where.str(), "malformed YAML: " + e.msg);
     }
+    if (docs.size() > 1) throw InputError(std::string(source), "holds " + std::to_string(docs.size()) + " YAML documents; expected one");
+    if (docs.empty()) return YAML::Node();
+    check_keys(docs.front(), "", 0);
+    return docs.front();
 }
 
 }  // namespace detail

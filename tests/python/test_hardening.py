@@ -1,0 +1,108 @@
+"""Inputs bounded before any work, and every bad one a clear error (issue 21, first part).
+
+Check values: common practice (no outside source): a command given a bad input exits 2 with one line naming
+the input and writes nothing; it never reports an internal error, blocks, or reads without bound."""
+import os
+
+import pytest
+
+import libcoil
+
+SPEC = "data/examples/bench-network-coil.yaml"
+
+
+def body(source_dir):
+    # The demo spec without its name line, to prepend a name of our own.
+    text = (source_dir / SPEC).read_text()
+    return "\n".join(l for l in text.splitlines() if not l.startswith("name:")) + "\n"
+
+
+def expect_error(r, *words):
+    assert r.returncode == 2, (r.returncode, r.stdout[-300:], r.stderr)
+    assert r.stdout == "" and "internal error" not in r.stderr
+    assert len(r.stderr.splitlines()) == 1, r.stderr
+    for w in words:
+        assert w in r.stderr, r.stderr
+
+
+@pytest.mark.parametrize("where", ["wire", "spec", "requirement"])
+def test_a_gauge_beyond_an_int_is_a_clear_error(run_coil, source_dir, tmp_path, where):
+    # Found by the outside campaign: std::stoi let std::out_of_range through ("internal error: stoi").
+    if where == "wire":
+        r = run_coil("wire", "--gauge", "AWG 99999999999")
+        expect_error(r, "--gauge", "AWG 4/0 .. AWG 56")
+        return
+    if where == "spec":
+        path = tmp_path / "s.yaml"
+        path.write_text((source_dir / SPEC).read_text().replace("gauge: AWG 16", "gauge: AWG 99999999999"))
+        expect_error(run_coil("analyze", path), "coil.wire.gauge")
+        with pytest.raises(libcoil.InputError):
+            libcoil.load_coil_spec(path)
+    else:
+        path = tmp_path / "r.yaml"
+        path.write_text((source_dir / "data/examples/bench-network-requirement.yaml").read_text().replace("AWG 14,", "AWG 99999999999,"))
+        expect_error(run_coil("design", path), "search.wires[0]")
+
+
+@pytest.mark.parametrize("name,raw,words", [
+    ("invalid UTF-8", b'name: "\xff\xfe bad"\n', ["s.yaml:1:8", "UTF-8"]),
+    ("a lone continuation byte", b'name: "a\x80b"\n', ["s.yaml:1:9", "UTF-8"]),
+    ("an overlong form", b'name: "\xc0\xaf"\n', ["UTF-8"]),
+    ("a surrogate", b'name: "\xed\xa0\x80"\n', ["UTF-8"]),
+    ("an escape sequence", b'name: "a\x1b[31mred"\n', ["control character", "s.yaml:1:9"]),
+    ("a NUL byte", b'name: "a\x00b"\n', ["control character"]),
+])
+def test_text_must_be_printable_utf8(run_coil, source_dir, tmp_path, name, raw, words):
+    path = tmp_path / "s.yaml"
+    path.write_bytes(raw + body(source_dir).encode())
+    r = run_coil("analyze", path, "--json")
+    expect_error(r, *words)
+    assert "\x1b" not in r.stderr  # the message never carries the control bytes themselves
+
+
+def test_utf8_names_are_kept(run_coil, source_dir, tmp_path):
+    path = tmp_path / "s.yaml"
+    path.write_text('name: "Drossel café € 🔌"\n' + body(source_dir), encoding="utf-8")
+    r = run_coil("analyze", path, "--json")
+    assert r.returncode == 0, r.stderr
+    assert "Drossel café € 🔌" in r.stdout
+
+
+def test_only_regular_files_are_read(run_coil, tmp_path):
+    fifo = tmp_path / "fifo.yaml"
+    os.mkfifo(fifo)
+    for path in ("/dev/zero", fifo):
+        expect_error(run_coil("analyze", path), str(path), "not a regular file")
+    # A directory is caught by the command line's own check of the argument (its two-line form).
+    r = run_coil("analyze", tmp_path)
+    assert r.returncode == 2 and r.stdout == "" and str(tmp_path) in r.stderr and "directory" in r.stderr
+    with pytest.raises(libcoil.InputError, match="not a regular file"):
+        libcoil.load_coil_spec(tmp_path)
+
+
+def test_a_file_too_large_is_refused_unread(run_coil, tmp_path):
+    path = tmp_path / "huge.yaml"
+    with open(path, "wb") as f:
+        f.truncate(65 << 20)  # sparse: 65 MiB of nothing, past the 64 MiB bound
+    expect_error(run_coil("analyze", path), "65 MiB", "at most 64 MiB")
+
+
+@pytest.mark.parametrize("edit,words", [
+    (("  turns: 18\n", "  turns: 18\n  turns: 12\n"), ["coil.turns", "given twice"]),
+    (("coil:\n", "coil:\n  pitch: 3 mm\n"), ["coil.pitch", "given twice"]),
+])
+def test_a_key_given_twice_is_an_error(run_coil, source_dir, tmp_path, edit, words):
+    text = (source_dir / SPEC).read_text()
+    assert edit[0] in text
+    path = tmp_path / "s.yaml"
+    path.write_text(text.replace(edit[0], edit[1], 1))
+    expect_error(run_coil("analyze", path), *words)
+
+
+def test_several_documents_are_an_error(run_coil, source_dir, tmp_path):
+    text = (source_dir / SPEC).read_text()
+    path = tmp_path / "s.yaml"
+    path.write_text(text + "---\n" + text)
+    expect_error(run_coil("analyze", path), "2 YAML documents")
+    with pytest.raises(libcoil.InputError, match="documents"):
+        libcoil.parse_coil_spec(text + "---\n" + text)
