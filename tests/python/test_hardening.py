@@ -106,3 +106,24 @@ def test_several_documents_are_an_error(run_coil, source_dir, tmp_path):
     expect_error(run_coil("analyze", path), "2 YAML documents")
     with pytest.raises(libcoil.InputError, match="documents"):
         libcoil.parse_coil_spec(text + "---\n" + text)
+
+
+@pytest.mark.parametrize("operating,field", [
+    ("operating: {frequencies: [1e30 Hz], temperature: 20 degC}", "operating.frequencies[0]"),
+    ("operating: {frequencies: [1 MHz], temperature: 1e9 K}", "operating.temperature"),
+    ("operating: {frequencies: [1 MHz], current: 1e30 A}", "operating.current"),
+    ("operating: {frequencies: [1 MHz], current: 3 A, ambient: 5000 degC}", "operating.ambient"),
+])
+def test_operating_figures_beyond_any_model_are_refused(run_coil, source_dir, tmp_path, operating, field):
+    text = (source_dir / SPEC).read_text()
+    start = text.index("operating:")
+    end = text.index("\n", text.index("current:", start)) + 1
+    path = tmp_path / "s.yaml"
+    path.write_text(text[:start] + operating + "\n" + text[end:])
+    expect_error(run_coil("analyze", path), field, "beyond")
+
+
+def test_a_requirement_current_beyond_any_coil_is_refused(run_coil, source_dir, tmp_path):
+    path = tmp_path / "r.yaml"
+    path.write_text((source_dir / "data/examples/bench-network-requirement.yaml").read_text().replace("current: 6 A", "current: 1e30 A"))
+    expect_error(run_coil("design", path), "operating.current", "10 kA")

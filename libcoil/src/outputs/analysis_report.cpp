@@ -6,6 +6,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/models/wire_harmonics.hpp"
@@ -441,7 +443,7 @@ std::string json_report(const Analysis& a) {
     j["cautions"] = a.cautions;
     j["warnings"] = a.warnings;
     j["notes"] = a.notes;
-    return j.dump(2) + "\n";
+    return detail::json_text(j, 2);
 }
 
 }  // namespace libcoil

@@ -7,6 +7,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "core/text_format.hpp"
 #include "outputs/svg_axes.hpp"
 #include "libcoil/core/error.hpp"
@@ -152,7 +154,7 @@ std::string comparison_json_report(const Comparison& c) {
         j["fit_notes"] = fit.notes;
     }
     j["notes"] = c.measured.notes;
-    return j.dump(1) + "\n";
+    return detail::json_text(j, 1);
 }
 
 std::string comparison_csv(const Comparison& c) {

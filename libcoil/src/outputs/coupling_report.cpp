@@ -6,6 +6,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
@@ -91,7 +93,7 @@ std::string coupling_json_report(const CouplingStudy& s, const std::vector<std::
     j["sweep"] = sw;
     j["files"] = files;
     j["notes"] = s.notes;
-    return j.dump(2) + "\n";
+    return detail::json_text(j, 2);
 }
 
 std::string coupling_svg(const CouplingStudy& s) {

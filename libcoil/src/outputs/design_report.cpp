@@ -4,6 +4,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "libcoil/outputs/design_report.hpp"
 #include "libcoil/core/units.hpp"
 #include "libcoil/version.hpp"
@@ -217,7 +219,7 @@ std::string design_json_report(const Requirement& q, const DesignResult& r, std:
     j["cautions"] = r.cautions;
     j["warnings"] = r.warnings;
     j["notes"] = r.notes;
-    return j.dump(2) + "\n";
+    return detail::json_text(j, 2);
 }
 
 }  // namespace libcoil

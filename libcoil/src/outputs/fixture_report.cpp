@@ -6,6 +6,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "core/text_format.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/core/units.hpp"
@@ -110,7 +112,7 @@ std::string fixture_json_report(const FixtureResult& r) {
                         {"dominant_part", v.dominant_part}, {"dominant_share", v.dominant_share}};
     }
     j["notes"] = r.notes;
-    return j.dump(1) + "\n";
+    return detail::json_text(j, 1);
 }
 
 std::string fixture_csv(const FixtureResult& r) {

@@ -7,6 +7,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "libcoil/outputs/files.hpp"
@@ -283,7 +285,7 @@ std::string former_json_report(const FormerBuild& b, const std::vector<std::stri
     j["files"] = files;
     j["cautions"] = b.cautions;
     j["notes"] = g.notes;
-    return j.dump(2) + "\n";
+    return detail::json_text(j, 2);
 }
 
 std::vector<std::string> former_file_paths(const std::string& dir, const std::string& stem) {

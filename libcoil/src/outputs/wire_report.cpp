@@ -4,6 +4,8 @@
 
 #include <nlohmann/json.hpp>
 
+#include "outputs/json_text.hpp"
+
 #include "libcoil/core/units.hpp"
 #include "libcoil/version.hpp"
 #include "core/text_format.hpp"
@@ -60,7 +62,7 @@ std::string wire_json_report(const WireStudy& study) {
     j["skin_depth_m"] = r.skin_depth;
     j["skin_ac_dc_ratio"] = r.skin_ratio;
     j["skin_onset_frequency_Hz"] = r.skin_onset_frequency;
-    return j.dump(2) + "\n";
+    return detail::json_text(j, 2);
 }
 
 std::string wire_table_text(const std::vector<WireStudy>& rows) {

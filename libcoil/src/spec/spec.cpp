@@ -35,6 +35,24 @@ Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
     return make_wire(c, w.path_of(""));
 }
 
+// Bounds beyond which no model of the library means anything (common practice, no source): frequencies to
+// 100 GHz, temperatures to 1000 degC (past every enamel, short of copper's melting at 1085 degC), currents
+// to 10 kA.
+void check_operating_bounds(const detail::YamlMap& m, const Operating& op) {
+    const auto bound = [&](const std::string& field, const std::string& text, double v, double limit, const char* what) {
+        if (v > limit) throw InputError(field, "\"" + text + "\" is beyond " + what);
+    };
+    for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
+        bound(m.path_of("frequencies") + "[" + std::to_string(i) + "]", format_quantity(op.frequencies[i], Dimension::frequency), op.frequencies[i], 100e9,
+              "100 GHz, where no model of a wound coil holds");
+    }
+    if (m.has("current_frequency")) bound(m.path_of("current_frequency"), m.text("current_frequency"), *op.current_frequency, 100e9, "100 GHz");
+    if (m.has("current")) bound(m.path_of("current"), m.text("current"), op.current, 10e3, "10 kA, which no single-layer air coil carries");
+    for (const char* k : {"temperature", "ambient"}) {
+        if (m.has(k)) bound(m.path_of(k), m.text(k), k[0] == 't' ? op.temperature : op.ambient, 1273.15, "1000 degC (copper melts at 1085 degC)");
+    }
+}
+
 Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& notes) {
     m.allow_only({"frequencies", "temperature", "current", "current_frequency", "ambient", "supply_voltage", "rf_power"});
     Operating op;
@@ -54,9 +72,11 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
     if (m.has("temperature")) {
         op.temperature = m.positive_quantity("temperature", Dimension::temperature);
         op.temperature_given = true;
-    } else if (op.current > 0) {
+    }
+    check_operating_bounds(m, op);
+    if (!op.temperature_given && op.current > 0) {
         notes.push_back("no operating.temperature given: the wire is taken at the thermal estimate for the current");
-    } else {
+    } else if (!op.temperature_given) {
         notes.push_back("no operating.temperature given: the wire is taken at 20 degC");
     }
     return op;
