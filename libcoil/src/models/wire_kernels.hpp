@@ -31,38 +31,41 @@ inline double estrin(const double (&c)[N], double w) {  // NOLINT(misc-no-recurs
     }
 }
 
+// Where x falls: a part of the table and w in [-1, 1] on it, or a part of the tail (t = x_table / x).
+struct TablePlace {
+    bool tail = false;
+    int part = 0;
+    double w = 0;
+};
+inline TablePlace table_place(double x) {
+    namespace t = skin_tables;
+    const bool tail = x >= t::x_table;
+    const double s = tail ? t::x_table / x * t::tail_segments : x * (t::segments / t::x_table);
+    const int last = tail ? t::tail_segments - 1 : t::segments - 1;
+    int i = static_cast<int>(s);
+    if (i > last) i = last;
+    return {tail, i, 2 * (s - i) - 1};
+}
+
 // x = sqrt(2) r / delta >= 0 (not checked: the callers check their inputs).
 inline WireKernels wire_kernels(double x) {
     namespace t = skin_tables;
-    if (x < t::x_table) {
-        const double s = x * (t::segments / t::x_table);
-        int i = static_cast<int>(s);
-        if (i >= t::segments) i = t::segments - 1;
-        const double w = 2 * (s - i) - 1;
-        double g = estrin(t::proximity[i], w);
-        if (i == 0) g *= (x * x) * (x * x);
-        return {estrin(t::resistance[i], w), estrin(t::internal_inductance[i], w), g};
+    const TablePlace p = table_place(x);
+    if (!p.tail) {
+        double g = estrin(t::proximity[p.part], p.w);
+        if (p.part == 0) g *= (x * x) * (x * x);
+        return {estrin(t::resistance[p.part], p.w), estrin(t::internal_inductance[p.part], p.w), g};
     }
-    const double tt = t::x_table / x, s = tt * t::tail_segments;
-    int j = static_cast<int>(s);
-    if (j >= t::tail_segments) j = t::tail_segments - 1;
-    const double w = 2 * (s - j) - 1, up = x / t::x_table;
-    return {estrin(t::resistance_tail[j], w) * up, estrin(t::internal_inductance_tail[j], w) * tt, estrin(t::proximity_tail[j], w) * up};
+    const double up = x / t::x_table;
+    return {estrin(t::resistance_tail[p.part], p.w) * up, estrin(t::internal_inductance_tail[p.part], p.w) / up,
+            estrin(t::proximity_tail[p.part], p.w) * up};
 }
 
 // R_ac / R_dc alone (one polynomial instead of three).
 inline double wire_skin_resistance(double x) {
     namespace t = skin_tables;
-    if (x < t::x_table) {
-        const double s = x * (t::segments / t::x_table);
-        int i = static_cast<int>(s);
-        if (i >= t::segments) i = t::segments - 1;
-        return estrin(t::resistance[i], 2 * (s - i) - 1);
-    }
-    const double tt = t::x_table / x, s = tt * t::tail_segments;
-    int j = static_cast<int>(s);
-    if (j >= t::tail_segments) j = t::tail_segments - 1;
-    return estrin(t::resistance_tail[j], 2 * (s - j) - 1) * (x / t::x_table);
+    const TablePlace p = table_place(x);
+    return p.tail ? estrin(t::resistance_tail[p.part], p.w) * (x / t::x_table) : estrin(t::resistance[p.part], p.w);
 }
 
 }  // namespace libcoil::detail
