@@ -127,3 +127,26 @@ def test_a_requirement_current_beyond_any_coil_is_refused(run_coil, source_dir, 
     path = tmp_path / "r.yaml"
     path.write_text((source_dir / "data/examples/bench-network-requirement.yaml").read_text().replace("current: 6 A", "current: 1e30 A"))
     expect_error(run_coil("design", path), "operating.current", "10 kA")
+
+
+def test_an_empty_option_is_an_error_not_the_current_directory(run_coil, source_dir, tmp_path):
+    r = run_coil("former", source_dir / SPEC, "--out", "", cwd=tmp_path)
+    expect_error(r, "--out", "empty")
+    assert list(tmp_path.iterdir()) == []
+
+
+@pytest.mark.parametrize("args,words", [
+    (["--chord", "1e-9 mm"], ["--chord", "at least 0.001 mm"]),
+])
+def test_a_former_mesh_is_bounded_before_it_is_built(run_coil, source_dir, tmp_path, args, words):
+    # Found by the outside campaign: a 1e-9 mm chord grew to 1.9 GB and ended in bad_alloc.
+    expect_error(run_coil("former", source_dir / SPEC, "--out", tmp_path / "o", *args), *words)
+    assert not (tmp_path / "o").exists()
+
+
+def test_a_former_of_very_many_turns_is_refused_before_meshing(run_coil, source_dir, tmp_path):
+    # (100 000 turns are refused earlier, by the inductance models' l/D range.)
+    text = (source_dir / SPEC).read_text().replace("  turns: 18\n", "  turns: 10000\n")
+    path = tmp_path / "s.yaml"
+    path.write_text(text)
+    expect_error(run_coil("former", path, "--out", tmp_path / "o"), "5 million triangles", "coarser")

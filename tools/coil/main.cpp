@@ -448,6 +448,13 @@ int main(int argc, char** argv) {
         if (!subs[i].first->parsed()) continue;
         const Given& g = *subs[i].second;
         try {
+            // An option given as an empty text is a mistake (an unset shell variable, say), never "the default":
+            // --out "" would otherwise write into the current directory.
+            for (const auto& [key, given] : g.values) {
+                for (const auto& v : given) {
+                    if (v.empty()) throw libcoil::InputError(key, "is empty; give a value or leave the option out");
+                }
+            }
             return verbs[i].run(g);
         } catch (const libcoil::InputError& e) {
             // The library names its fields; the table turns an option's field back into the flag the user typed.

@@ -288,6 +288,11 @@ std::vector<Point> groove_rows(const FormerGeometry& g, const std::vector<double
     return rows;
 }
 
+// Bounds on the mesh, checked before it is built and while it grows: a chord tolerance no printer resolves, and a size no
+// slicer takes (common practice, no source).
+inline constexpr double min_chord_tolerance = 1e-6;        // m
+inline constexpr double max_mesh_triangles = 5e6;  // a binary STL of 250 MB
+
 class MeshBuilder {
 public:
     std::uint32_t at(double theta, double r, double z) { return m_.add_vertex(r * std::cos(theta), r * std::sin(theta), z); }
@@ -306,6 +311,9 @@ public:
                 m_.add_triangle(a[i], b[j], b[j + 1]);
                 ++j;
             }
+        }
+        if (static_cast<double>(m_.triangles.size()) > max_mesh_triangles) {
+            throw InputError("chord_tolerance", "the mesh passes 5 million triangles; give a coarser tolerance (or wind fewer turns)");
         }
     }
 
@@ -338,8 +346,12 @@ void subdivide(std::vector<Column>& out, double a, double b, double step, Column
 
 }  // namespace
 
+
 TriangleMesh former_mesh(const FormerGeometry& g, double tol) {
     require_positive("chord_tolerance", tol);
+    if (tol < min_chord_tolerance) {
+        throw InputError("chord_tolerance", format_value(tol * 1e3) + " mm is finer than any printer resolves; expected at least 0.001 mm");
+    }
     const double two_pi = 2 * pi;
     const double r_max = std::max(g.outer_radius, g.flange_radius);
     const double step = std::min(two_pi / 12, 2 * std::acos(std::max(-1.0, 1 - tol / r_max)));
@@ -375,8 +387,15 @@ TriangleMesh former_mesh(const FormerGeometry& g, double tol) {
         }
     }
 
-    MeshBuilder mb;
     const auto offsets = profile_offsets(g, tol);
+    // Each column meets each profile row about twice (outer and inner faces, two triangles a quad).
+    const double estimate = 4.0 * static_cast<double>(cols.size()) * static_cast<double>(offsets.size());
+    if (estimate > max_mesh_triangles) {
+        throw InputError("chord_tolerance", "the mesh would have about " + format_value(std::round(estimate / 1e6)) + " million triangles (" +
+                                                std::to_string(cols.size()) + " columns by " + std::to_string(offsets.size()) +
+                                                " rows for " + format_value(g.turns) + " turns); at most 5 million: give a coarser tolerance");
+    }
+    MeshBuilder mb;
     const double ro = g.outer_radius, rf = g.flange_radius, tf = g.flange_thickness, len = g.length;
     std::vector<std::vector<std::uint32_t>> chains;
     std::vector<double> ring_theta;                      // one per distinct angle
