@@ -150,3 +150,18 @@ def test_a_former_of_very_many_turns_is_refused_before_meshing(run_coil, source_
     path = tmp_path / "s.yaml"
     path.write_text(text)
     expect_error(run_coil("former", path, "--out", tmp_path / "o"), "5 million triangles", "coarser")
+
+
+@pytest.mark.parametrize("args,words", [
+    (["wire", "--diameter", "1 km"], ["--diameter", "beyond 20 mm"]),  # it blamed --enamel
+    (["wire", "--gauge", "AWG 18", "--temperature", "-300 degC"], ["--temperature", "degC", "absolute zero"]),  # it said -26.85
+])
+def test_messages_name_what_the_user_typed(run_coil, args, words):
+    expect_error(run_coil(*args), *words)
+
+
+def test_an_open_quote_is_pointed_at(run_coil, tmp_path):
+    # It reported only "coil: missing" for the section the open quote had swallowed.
+    path = tmp_path / "s.yaml"
+    path.write_text('name: "unterminated\ncoil:\n  turns: 3\n')
+    expect_error(run_coil("analyze", path), "coil: missing", "the text of name", "quote left open")

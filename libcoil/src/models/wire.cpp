@@ -8,6 +8,7 @@
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
+#include "libcoil/core/units.hpp"
 #include "models/data_tables.hpp"
 
 namespace libcoil {
@@ -66,6 +67,8 @@ Wire make_wire(const WireChoice& c, std::string_view prefix) {
         w.label = awg_label(*c.gauge);
     } else {
         w.bare_diameter = require_positive(field("diameter"), *c.diameter);
+        // AWG 4/0 is 11.7 mm; past 20 mm a conductor is a rod or a tube, not a wire one winds.
+        if (w.bare_diameter > 20e-3) throw InputError(field("diameter"), format_value(w.bare_diameter * 1e3) + " mm is beyond 20 mm; expected a winding wire");
         char buf[32];
         std::snprintf(buf, sizeof buf, "%.4g mm wire", w.bare_diameter * 1e3);
         w.label = buf;

@@ -63,7 +63,17 @@ void YamlMap::at_most_one_of(std::string_view a, std::string_view b) const {
 
 YamlMap YamlMap::map(std::string_view key) const {
     const YAML::Node n = node_[std::string(key)];
-    if (!n) throw InputError(path_of(key), "missing; this section is required");
+    if (!n) {
+        // A quote left open swallows the lines after it into one text: say so where the section's name is
+        // found inside another value.
+        for (const auto& kv : node_) {
+            if (kv.second.IsScalar() && kv.second.Scalar().find(std::string(key) + ":") != std::string::npos) {
+                throw InputError(path_of(key), "missing; the text of " + path_of(kv.first.Scalar()) + " holds \"" + std::string(key) +
+                                                   ":\" (is a quote left open there?)");
+            }
+        }
+        throw InputError(path_of(key), "missing; this section is required");
+    }
     return YamlMap(n, path_of(key));
 }
 
