@@ -2,6 +2,7 @@
 
 Check values: common practice (no outside source): a command given a bad input exits 2 with one line naming
 the input and writes nothing; it never reports an internal error, blocks, or reads without bound."""
+import math
 import os
 
 import pytest
@@ -165,3 +166,24 @@ def test_an_open_quote_is_pointed_at(run_coil, tmp_path):
     path = tmp_path / "s.yaml"
     path.write_text('name: "unterminated\ncoil:\n  turns: 3\n')
     expect_error(run_coil("analyze", path), "coil: missing", "the text of name", "quote left open")
+
+
+def test_python_calls_that_ran_without_bound_or_disagreed():
+    s = libcoil.load_coil_spec(libcoil_source() / SPEC)
+    # coil_mutual_inductance took a negative distance that the coupling study refuses.
+    with pytest.raises(libcoil.InputError, match="distance"):
+        libcoil.coil_mutual_inductance(s.solenoid, s.solenoid, -0.08, "coaxial")
+    # The shield's sheet model looped k l / 2 pi times (forever at 1e300 m). Past 2000 periods of its
+    # integrand it now takes sin^2's mean; a long coil in a long perfect tube loses the share (a / b)^2 of
+    # mu0 pi a^2 N^2 / l (textbook magnetostatics: the field returns through the annulus; from memory).
+    a, b, n = 0.01, 0.02, 10
+    for length in (100.0, 1e4):
+        sheet = libcoil.mu0 * math.pi * a**2 * n**2 / length
+        assert libcoil.sheet_in_long_shield_change(a, length, n, b) == pytest.approx(-sheet * (a / b) ** 2, rel=1e-3)
+    with pytest.raises(libcoil.DomainError):
+        libcoil.sheet_in_long_shield_change(a, 1e300, n, b)
+
+
+def libcoil_source():
+    import pathlib
+    return pathlib.Path(os.environ.get("LIBCOIL_SOURCE_DIR", "."))

@@ -42,7 +42,7 @@ double parallel_filament_mutual_inductance(double a, double b, double d, double 
 }
 
 double coil_mutual_inductance(const Solenoid& a, const Solenoid& b, Arrangement arrangement, double distance, double axial_offset) {
-    require_finite("distance", distance);
+    require_positive("distance", distance);  // as the coupling study takes it: centre to centre, b ahead or beside
     require_finite("axial_offset", axial_offset);
     const TurnFilaments fa = detail::turn_filaments(a), fb = detail::turn_filaments(b);
     double sum = 0;

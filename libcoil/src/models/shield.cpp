@@ -192,11 +192,21 @@ double sheet_in_long_shield_change(double a, double l, double n, double b) {
         const double i_a = bm::cyl_bessel_i(1, k * a);
         return s * s * i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
     };
-    // The integrand oscillates with period 2 pi / l: integrate piece by piece.
+    // The integrand oscillates with period 2 pi / l: integrate piece by piece, the first 2000 periods; beyond,
+    // where G changes little over a period, sin^2 takes its mean 1/2 (a coil thousands of times longer than
+    // the shield's gap, where this loop would otherwise run without bound).
     const double period = 2 * pi / l;
+    const double k_pieces = std::min(k_max, 2000 * period);
     double sum = 0;
-    for (double k0 = 0; k0 < k_max; k0 += period) {
-        sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(g, k0, std::min(k_max, k0 + period), 8, 1e-12);
+    for (double k0 = 0; k0 < k_pieces; k0 += period) {
+        sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(g, k0, std::min(k_pieces, k0 + period), 8, 1e-12);
+    }
+    if (k_pieces < k_max) {
+        const auto mean = [&](double k) {
+            const double i_a = bm::cyl_bessel_i(1, k * a);
+            return 0.5 / (k * k) * i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
+        };
+        sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(mean, k_pieces, k_max, 15, 1e-12);
     }
     return finite_result("sheet_in_long_shield_change", -8 * mu0 * a * a * n * n / (l * l) * sum);
 }
