@@ -69,4 +69,10 @@ double medhurst_capacitance(double mean_diameter, double winding_length) {
     return finite_result("Medhurst", medhurst_h(winding_length / mean_diameter) * 1e-10 * mean_diameter);
 }
 
+double medhurst_capacitance_formula(double mean_diameter, double winding_length) {
+    require_positive("mean_diameter", mean_diameter);
+    require_positive("winding_length", winding_length);
+    return finite_result("Medhurst", medhurst_h_formula(winding_length / mean_diameter) * 1e-10 * mean_diameter);  // pF/cm to F
+}
+
 }  // namespace libcoil

@@ -36,13 +36,13 @@ Figures element(const BatchInput& in, std::size_t i, BatchChain chain) {
     require_non_negative("frequency", f);
     const double rho = c.resistivity_at(t), r = s.wire().radius();
     Figures out{};
-    out.dc_resistance = rho * s.wire_length() / (pi * r * r);
+    out.dc_resistance = rho * resistance_per_resistivity(s.wire().bare_diameter, s.wire_length());
     if (chain == BatchChain::light) {
         out.inductance = rosa_inductance(s.mean_diameter(), s.turns(), s.pitch(), s.wire().bare_diameter);
         // x = sqrt(2) r / delta, delta = sqrt(rho / (pi f mu0 mu_r)) (skin_effect.hpp), by its tables.
         const double x = r * std::sqrt(2 * pi * f * mu0 * c.relative_permeability / rho);
         out.resistance = out.dc_resistance * detail::wire_skin_resistance(x);
-        const double c_self = medhurst_h_formula(s.winding_length() / s.mean_diameter()) * 1e-10 * s.mean_diameter();
+        const double c_self = medhurst_capacitance_formula(s.mean_diameter(), s.winding_length());
         out.self_resonance = 1 / (2 * pi * std::sqrt(out.inductance * c_self));
     } else {
         out.inductance = recommended_inductance(s);

@@ -27,5 +27,7 @@ double medhurst_h(double length_to_diameter);
 double medhurst_h_formula(double length_to_diameter);
 // Self-capacitance in F of a coil of mean diameter D and winding length l (both m), from the table.
 double medhurst_capacitance(double mean_diameter, double winding_length);
+// The same from the empirical formula (medhurst_h_formula).
+double medhurst_capacitance_formula(double mean_diameter, double winding_length);
 
 }  // namespace libcoil
