@@ -102,7 +102,7 @@ def shield_of(p):
 @pytest.mark.parametrize("p", POINTS, ids=[ident(p) for p in POINTS])
 def test_wire_harmonic_solver_against_the_fem(p):
     # The wire-harmonic solver (wire_harmonics.hpp) on the FEM's own rings, bare (100 kHz .. 30 MHz) and in
-    # copper tubes (100 kHz .. 1 MHz). Measured: bare R -0.04 .. +0.61 %, L -0.11 .. -0.08 %; in the tubes
+    # copper tubes (100 kHz .. 10 MHz). Measured: bare R -0.04 .. +0.61 %, L -0.11 .. -0.08 %; in the tubes
     # R -0.04 .. +0.54 %, L -0.26 .. -0.10 %.
     n, pitch = p["turns"], p["pitch"]
     rings = [(p["mean_radius"], (k - (n - 1) / 2) * pitch) for k in range(n)]
@@ -136,7 +136,7 @@ def analysed(p):
 def test_default_analysis_against_the_fem(p):
     # Issue 17's acceptance: the default analysis within 2 % for R and 1 % for L(f) at every point, bare and
     # shielded, close-wound and spaced. Measured: bare R +0.06 .. +0.72 %, L +0.03 .. +0.17 %; in the tubes
-    # R +0.05 .. +0.55 %, L -0.04 .. +0.03 % (the cache's points: bare to 30 MHz, in tubes to 1 MHz).
+    # R +0.05 .. +0.55 %, L -0.04 .. +0.03 % (the cache's points: bare to 30 MHz, in tubes to 10 MHz).
     r, l = analysed(p)
     assert r == pytest.approx(p["resistance"], rel=0.02)
     assert l == pytest.approx(p["inductance"], rel=0.01)

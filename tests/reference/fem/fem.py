@@ -23,12 +23,12 @@ def skin_depth(frequency, sigma=COPPER):
     return math.sqrt(2 / (2 * math.pi * frequency * 4e-7 * math.pi * sigma))
 
 
-def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_over_a=0.1, tube=None):
+def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_over_a=0.1, tube=None, timeout=5400):
     """Z (ohm) of n rings in series at `frequency`; the mesh is hw = skin depth / `wall` at the wires (at
     most r / 10: on close-12-fine at 100 kHz, where the skin depth does not bind, r / 4 read R 0.23 % above
     r / 8 and r / 16 a further 0.07 % below), the air to `domain` x the coil's size, hmax = `hmax_over_a` x a. `tube` = (bore radius,
     wall thickness, length[, conductivity]) adds a coaxial conducting tube centred on the coil (an open
-    shield), meshed at its skin depth / `wall` (at most a quarter of its wall)."""
+    shield), meshed at its skin depth / `wall` (at most a quarter of its wall). getdp gets `timeout` seconds."""
     for tool in ("gmsh", "getdp"):
         if shutil.which(tool) is None:
             raise RuntimeError(f"{tool} is missing: tools/setup --references installs it")
@@ -56,7 +56,7 @@ def impedance(a, r, n, pitch, frequency, sigma=COPPER, wall=3, domain=5, hmax_ov
                "-setnumber", "Rint", repr(rint), "-setnumber", "Rext", repr(rext),
                "-setnumber", "Tube", "1" if tube is not None else "0", "-setnumber", "sigt", repr(float(sigt))]
         subprocess.run(["getdp", "rings.pro", "-msh", "rings.msh", "-solve", "Magnetodynamics2D_av", "-pos", "voltages"] + pro,
-                       cwd=tmp, check=True, capture_output=True, timeout=5400)
+                       cwd=tmp, check=True, capture_output=True, timeout=timeout)
         values = [float(x) for line in open(os.path.join(tmp, "U.txt")) for x in line.split()[1:]]
     # One row: the time (0), then each ring's voltage as (real, imaginary). GetDP's U is the voltage the
     # field drives, -Z I for the imposed 1 A; the rings are in series.

@@ -35,10 +35,10 @@ COILS = [
 FREQUENCIES = (1e5, 1e6, 1e7, 3e7)
 
 
-def entry(job, wall=3):
+def entry(job, wall=3, timeout=5400):
     coil, f = job
     name, a, r, n, p, tube = coil
-    z = fem.impedance(a, r, n, p, f, tube=tube, wall=wall)
+    z = fem.impedance(a, r, n, p, f, tube=tube, wall=wall, timeout=timeout)
     shield = None if tube is None else {"bore_radius": tube[0], "wall": tube[1], "length": tube[2], "conductivity_S_per_m": fem.COPPER}
     return {"name": name, "mean_radius": a, "wire_radius": r, "turns": n, "pitch": p, "shield": shield, "frequency": f,
             "resistance": z.real, "inductance": z.imag / (2 * math.pi * f), "mesh_per_skin_depth": wall}
@@ -47,11 +47,13 @@ def entry(job, wall=3):
 def attempt(job):
     # Debian's getdp 3.5 dies with SIGSEGV on the biggest meshes (close-10, spaced-8 and demo-like-18 at
     # 30 MHz with skin depth / 3 at the wires); those are retried at skin depth / 2, which on close-5 at
-    # 30 MHz moved R by +0.008 % and L by +0.0002 % (the entry records the mesh).
+    # 30 MHz moved R by +0.008 % and L by +0.0002 % (the entry records the mesh). On close-5-in-tube at 10 MHz
+    # getdp's direct solve at skin depth / 3 (1.74 M unknowns) ran past 35 minutes without an end, where skin
+    # depth / 2 (1.37 M) took 100 s: the finer mesh gets half an hour before the retry.
     failure = ""
-    for wall in (3, 2):
+    for wall, timeout in ((3, 1800), (2, 5400)):
         try:
-            return job, entry(job, wall)
+            return job, entry(job, wall, timeout)
         except Exception as e:  # noqa: BLE001 - a getdp crash leaves this point out, not the set
             failure = str(e)
     return job, failure
