@@ -38,6 +38,35 @@ RingField ring_field(double a, double zs, double rho, double z) {
     return f;
 }
 
+// The same at one point (rho, z) for n source rings (a[j], zs[j]) at once: their elliptic integrals
+// interleave (elliptic.hpp), and the arithmetic around them is ring_field's with the divisions shared (three
+// a ring here, six there; the results agree to an ulp or two).
+template <int n>
+void ring_fields(const double* a, const double* zs, double rho, double z, RingField* out) {
+    double dz[n], d2[n], m[n], inv_m[n], kc[n], inv_s[n];
+    for (int j = 0; j < n; ++j) {
+        dz[j] = z - zs[j];
+        const double s2 = (a[j] + rho) * (a[j] + rho) + dz[j] * dz[j];
+        d2[j] = (a[j] - rho) * (a[j] - rho) + dz[j] * dz[j];
+        inv_s[j] = 1 / std::sqrt(s2);
+        m[j] = 4 * a[j] * rho * inv_s[j] * inv_s[j];
+        inv_m[j] = s2 / (4 * a[j] * rho);  // infinite on the axis, where elliptic_pairs takes m's series instead
+        kc[j] = std::sqrt(d2[j]) * inv_s[j];
+    }
+    detail::EllipticPair p[n];
+    detail::elliptic_pairs<n>(kc, m, p, inv_m);
+    const double inv_pi_rho = rho > 0 ? 1 / (pi * rho) : 0;
+    for (int j = 0; j < n; ++j) {
+        const double k = p[j].k, e = p[j].k - m[j] * p[j].k_minus_e_over_m;
+        const double inv_d2 = d2[j] > 0 ? 1 / d2[j] : 0;
+        out[j].phi = (2 / pi) * k * inv_s[j];
+        out[j].e_z = (2 / pi) * dz[j] * e * inv_d2 * inv_s[j];
+        out[j].e_rho = rho > 1e-9 * (a[j] + std::fabs(dz[j])) && d2[j] > 0
+                           ? (k - (a[j] * a[j] - rho * rho + dz[j] * dz[j]) * inv_d2 * e) * inv_s[j] * inv_pi_rho
+                           : 0;
+    }
+}
+
 // A panel: a straight piece of an outline, or an arc of a circle (centre (cr, cz), radius R, angles t0 .. t1)
 // where the outline traces one: the charge lies on the true surface, so that a smooth face's curvature is
 // not lost between panels (with chords, the normal field converges only as the panel length).
@@ -50,6 +79,8 @@ struct Panel {
     double lambda;   // dielectric faces
     int group;       // conductors
     double charge_scale;  // conductors: free charge per total charge (the permittivity touching it)
+    std::array<double, 8> gauss_r{}, gauss_z{};  // the whole panel's Gauss-Legendre points (piece_integral's)
+    std::array<double, 4> far_r{}, far_z{};      // and far_integral's
 
     // The point at u in [0, 1] along the panel.
     std::array<double, 2> at(double u) const {
@@ -65,6 +96,8 @@ constexpr double gauss_x[] = {-0.9602898564975363, -0.7966664774136267, -0.52553
                               0.1834346424956498,  0.5255324099163290,  0.7966664774136267,  0.9602898564975363};
 constexpr double gauss_w[] = {0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.3626837833783620,
                               0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
+constexpr double far_x[] = {-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526};
+constexpr double far_w[] = {0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538};
 
 struct Kernel {
     double phi = 0, e_n = 0;
@@ -75,19 +108,63 @@ struct Kernel {
 Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z, double nr, double nz,
                       const std::optional<double>& plane) {
     const double half = 0.5 * (u1 - u0) * p.length;
+    double a[8], zs[8];
+    if (u0 == 0 && u1 == 1 && p.gauss_r[0] > 0) {  // the whole panel: its points are kept
+        for (int g = 0; g < 8; ++g) {
+            a[g] = p.gauss_r[static_cast<std::size_t>(g)];
+            zs[g] = p.gauss_z[static_cast<std::size_t>(g)];
+        }
+    } else {
+        for (int g = 0; g < 8; ++g) {
+            const auto x = p.at(u0 + 0.5 * (1 + gauss_x[g]) * (u1 - u0));
+            a[g] = x[0];
+            zs[g] = x[1];
+        }
+    }
+    RingField f[8];
+    ring_fields<8>(a, zs, rho, z, f);
+    if (plane) {
+        double image[8];
+        for (int g = 0; g < 8; ++g) image[g] = 2 * *plane - zs[g];
+        RingField i[8];
+        ring_fields<8>(a, image, rho, z, i);
+        for (int g = 0; g < 8; ++g) {
+            f[g].phi -= i[g].phi;
+            f[g].e_rho -= i[g].e_rho;
+            f[g].e_z -= i[g].e_z;
+        }
+    }
     Kernel k;
     for (int g = 0; g < 8; ++g) {
-        const auto [a, zs] = p.at(u0 + 0.5 * (1 + gauss_x[g]) * (u1 - u0));
-        const double weight = gauss_w[g] * half * 2 * pi * a;
-        RingField f = ring_field(a, zs, rho, z);
-        if (plane) {
-            const RingField i = ring_field(a, 2 * *plane - zs, rho, z);
-            f.phi -= i.phi;
-            f.e_rho -= i.e_rho;
-            f.e_z -= i.e_z;
+        const double weight = gauss_w[g] * half * 2 * pi * a[g];
+        k.phi += weight * f[g].phi;
+        k.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
+    }
+    return k;
+}
+
+// The whole panel from a point beyond three panel lengths: four Gauss-Legendre points. The n-point rule's
+// remainder on a 1 / d kernel is (L / d)^2n (n!)^4 / ((2n + 1) ((2n)!)^2) of the integral, for n = 4 2.3e-5 (L / d)^8:
+// 3.5e-9 at three lengths, where the eight points cost twice as much for nothing the solution can see.
+Kernel far_integral(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane) {
+    RingField f[4];
+    ring_fields<4>(p.far_r.data(), p.far_z.data(), rho, z, f);
+    if (plane) {
+        double image[4];
+        for (std::size_t g = 0; g < 4; ++g) image[g] = 2 * *plane - p.far_z[g];
+        RingField i[4];
+        ring_fields<4>(p.far_r.data(), image, rho, z, i);
+        for (int g = 0; g < 4; ++g) {
+            f[g].phi -= i[g].phi;
+            f[g].e_rho -= i[g].e_rho;
+            f[g].e_z -= i[g].e_z;
         }
-        k.phi += weight * f.phi;
-        k.e_n += weight * (f.e_rho * nr + f.e_z * nz);
+    }
+    Kernel k;
+    for (std::size_t g = 0; g < 4; ++g) {
+        const double weight = far_w[g] * 0.5 * p.length * 2 * pi * p.far_r[g];
+        k.phi += weight * f[g].phi;
+        k.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
     }
     return k;
 }
@@ -113,6 +190,7 @@ Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz
             image.z1 = 2 * *plane - p.z1;
             image.cz = 2 * *plane - p.cz;
             image.t0 = -p.t0;
+            image.gauss_r = {};  // its points are the mirror of the kept ones: taken afresh
             image.t1 = -p.t1;
             const Kernel i = piece_integral(image, 0, 1, rho, z, nr, nz, std::nullopt);
             k.phi -= i.phi;
@@ -121,6 +199,7 @@ Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz
         return k;
     }
     const double dist = std::hypot(rho - p.rc, z - p.zc);
+    if (dist > 3 * p.length) return far_integral(p, rho, z, nr, nz, plane);
     if (dist > 1.5 * p.length) return piece_integral(p, 0, 1, rho, z, nr, nz, plane);
     Kernel k;
     for (int s = 0; s < 4; ++s) {
@@ -210,6 +289,16 @@ void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<
             p.lambda = lambda;
             p.group = group;
             p.charge_scale = charge_scale;
+            for (std::size_t g = 0; g < 8; ++g) {
+                const auto x = p.at(0.5 * (1 + gauss_x[g]));
+                p.gauss_r[g] = x[0];
+                p.gauss_z[g] = x[1];
+            }
+            for (std::size_t g = 0; g < 4; ++g) {
+                const auto x = p.at(0.5 * (1 + far_x[g]));
+                p.far_r[g] = x[0];
+                p.far_z[g] = x[1];
+            }
             out.push_back(p);
         }
     }

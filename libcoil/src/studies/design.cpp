@@ -277,49 +277,61 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     });
     // The ranked designs with the turn network's SRF, the recommended one (the search screened with the
     // sheath helix's, an upper bound): confirmed in rank order until `top` pass; one whose band fails
-    // with it leaves the list and counts under its reason. The network costs a millisecond or less a
-    // design, so only the designs returned pay it.
+    // with it leaves the list and counts under its reason. The network costs milliseconds for each new
+    // geometry (the near-field section and the former's charge; docs/models.md), so only the ranked
+    // designs pay it, and the screen's bound (network_srf_edge) keeps out those it surely rejects.
     out.front_size = front.size();
     const std::size_t wanted = std::max<std::size_t>(options.top, 1);
     std::size_t dropped = 0;
     std::vector<std::optional<FixtureResult>> fixture_checks;  // with out.pareto
-    for (auto& d : front) {
-        if (out.pareto.size() == wanted) break;
+    struct Checked {
+        DesignFigures design;
         std::optional<BandMiss> miss;
+        std::optional<FixtureResult> fixture;
+    };
+    const auto check = [&](DesignFigures d) {
+        Checked c{std::move(d), std::nullopt, std::nullopt};
         try {
             // The search met the target with a quick estimate of L's fall at the target frequency: a design
             // the turn network confirms is trimmed to meet it by the wire-harmonic solver and confirmed again.
-            miss = ev.confirm(d);
-            if (!miss) {
-                if (!ev.retarget(d)) {
-                    miss = BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
-                } else {
-                    miss = ev.confirm(d);
-                }
-            }
+            c.miss = ev.confirm(c.design);
+            if (!c.miss) c.miss = ev.retarget(c.design) ? ev.confirm(c.design) : BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
         } catch (const std::exception&) {
-            miss = BandMiss{"model_domain", 10, 0, 0};
+            c.miss = BandMiss{"model_domain", 10, 0, 0};
         }
         // In its fixture by the full study (the coil by its full analysis and sweep): the screen's port is the
         // helical-line impedance's at 25 points, which can miss what the turn network shows near resonance.
-        std::optional<FixtureResult> fx;
-        if (!miss && q.fixture) {
+        if (!c.miss && q.fixture) {
             try {
-                fx = fixture_study(with_coil(*q.fixture, q.fixture_part, design_spec(q, d)));
-                const FixtureVerdict& v = *fx->verdict;
-                if (!v.pass) miss = BandMiss{"fixture", std::fabs(v.worst_deviation) / v.tolerance, v.worst_frequency, v.worst_deviation};
+                c.fixture = fixture_study(with_coil(*q.fixture, q.fixture_part, design_spec(q, c.design)));
+                const FixtureVerdict& v = *c.fixture->verdict;
+                if (!v.pass) c.miss = BandMiss{"fixture", std::fabs(v.worst_deviation) / v.tolerance, v.worst_frequency, v.worst_deviation};
             } catch (const std::exception&) {
-                miss = BandMiss{"model_domain", 10, 0, 0};
+                c.miss = BandMiss{"model_domain", 10, 0, 0};
             }
         }
-        if (!miss) {
-            out.pareto.push_back(d);
-            fixture_checks.push_back(std::move(fx));
-            continue;
+        return c;
+    };
+    // In rank order, `threads` designs at a time: a batch is checked side by side and taken in order until
+    // `top` have passed; the checks past that point are discarded, so the outcome is the one-thread one.
+    for (std::size_t start = 0; start < front.size() && out.pareto.size() < wanted; start += threads) {
+        const std::size_t count = std::min<std::size_t>(threads, front.size() - start);
+        std::vector<Checked> batch(count);
+        std::vector<std::thread> helpers;
+        for (std::size_t j = 1; j < count; ++j) helpers.emplace_back([&, j] { batch[j] = check(front[start + j]); });
+        batch[0] = check(front[start]);
+        for (auto& h : helpers) h.join();
+        for (Checked& c : batch) {
+            if (out.pareto.size() == wanted) break;
+            if (!c.miss) {
+                out.pareto.push_back(std::move(c.design));
+                fixture_checks.push_back(std::move(c.fixture));
+                continue;
+            }
+            ++dropped;
+            --out.feasible;
+            ++out.rejected_by_reason[c.miss->criterion];
         }
-        ++dropped;
-        --out.feasible;
-        ++out.rejected_by_reason[miss->criterion];
     }
     if (dropped > 0) {
         out.notes.push_back(std::to_string(dropped) + " of the best-ranked designs (screened with the sheath helix's SRF, an upper "

@@ -419,14 +419,9 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
     std::optional<BandMiss> miss;
     if (q_.band) {
         d.srf_margin = d.self_resonance / q_.band->ceiling;
-        // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band:
-        // the network's SRF is at most helix_bound x the sheath helix's (measured up to 0.91 floating, 1.12
-        // grounded on the NEC2 set and long fine-pitch coils; docs/models.md), and the band's low edge sits
-        // below it by the network's error and the close-wound allowance (srf_band). A shield lowers the edge
-        // further; bounding without that is safe.
-        const double helix_bound = q_.surroundings.mounting == Mounting::grounded_end ? 1.15 : 0.95;
-        const double low_bound = srf_band(helix_bound * sr.frequency, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0).low;
-        miss = screen_srf_margin(*q_.band, as_mounted(low_bound));
+        // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band
+        // (network_srf_edge), as mounted: a shield lowers the edge further; bounding without that is safe.
+        miss = screen_srf_margin(*q_.band, as_mounted(network_srf_edge(s, g.bare_inductance, sr.frequency, fd)));
     }
     // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
     const bool band_z = q_.band && (q_.band->max_deviation || q_.band->min_impedance);
