@@ -66,3 +66,15 @@ TEST(Spec, ErrorsNameTheYamlPath) {
     EXPECT_EQ(error_of("coil: [1, 2").substr(0, 10), "test.yaml:");  // malformed YAML gives file:line:col
     EXPECT_EQ(error_of("coil:\n  turns: 10\n").substr(0, 10), "coil.wire:");
 }
+
+TEST(Spec, WrittenBackWithoutAnOperatingSectionReadsBack) {
+    // Found by tests/fuzz (fuzz_spec): a spec with no operating section was written back with "operating:"
+    // alone, which the reader refuses as an empty value.
+    const CoilSpec s = parse_coil_spec(base, "base");
+    const Wire& w = s.solenoid.wire();
+    const std::string text = coil_spec_yaml(s, WireChoice{std::nullopt, w.bare_diameter, w.insulation, std::nullopt});
+    EXPECT_EQ(text.find("operating:"), std::string::npos);
+    const CoilSpec again = parse_coil_spec(text, "again");
+    EXPECT_DOUBLE_EQ(again.solenoid.pitch(), s.solenoid.pitch());
+    EXPECT_DOUBLE_EQ(again.solenoid.turns(), s.solenoid.turns());
+}

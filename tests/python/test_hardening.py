@@ -187,3 +187,25 @@ def test_python_calls_that_ran_without_bound_or_disagreed():
 def libcoil_source():
     import pathlib
     return pathlib.Path(os.environ.get("LIBCOIL_SOURCE_DIR", "."))
+
+
+@pytest.mark.parametrize("text", [",", ",# note\nname: x\n", "---\n,", "name: a\n---\n,", "&a ,", "!t ,", "!o, ", "&a,", " , a", "# c\n\n,"])
+def test_a_document_that_begins_with_a_comma_is_refused_before_the_yaml_parser(tmp_path, text):
+    # Found by tests/fuzz (fuzz_spec): Debian's yaml-cpp 0.7 allocates without end on a document whose first
+    # token is ",". The run gets 1 GB of address space and 60 s: without the check it would fail on both.
+    import resource
+    import subprocess
+
+    path = tmp_path / "comma.yaml"
+    path.write_text(text)
+
+    def limit():
+        resource.setrlimit(resource.RLIMIT_AS, (1 << 30, 1 << 30))
+
+    for command in ("analyze", "design"):
+        r = subprocess.run([os.environ["LIBCOIL_COIL"], command, str(path)], capture_output=True, text=True, timeout=60,
+                           preexec_fn=limit)
+        expect_error(r, "comma.yaml", "a ',' before any value")
+    for parse in (libcoil.parse_coil_spec, libcoil.parse_requirement):
+        with pytest.raises(libcoil.InputError, match="before any value"):
+            parse(text, "python")

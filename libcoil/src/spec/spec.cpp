@@ -356,6 +356,44 @@ void check_text(std::string_view text, std::string_view source) {
     }
 }
 
+// Debian's yaml-cpp 0.7 never returns from a document whose first token is a flow entry (",", after any
+// "---", comments, anchors and tags): it allocates until memory runs out (found by tests/fuzz, fuzz_spec:
+// 50 bytes took the machine's memory). Such a document is malformed YAML; it is refused here first.
+void check_document_starts(std::string_view text, std::string_view source) {
+    std::size_t i = 0;
+    bool start = true;  // at a document's start
+    while (i < text.size()) {
+        const std::size_t eol = std::min(text.find('\n', i), text.size());
+        std::string_view line = text.substr(i, eol - i);
+        if (line.substr(0, 3) == "---" || line.substr(0, 3) == "...") {
+            start = true;
+            line.remove_prefix(3);
+        } else if (start && !line.empty() && line.front() == '%') {
+            line = {};  // a directive
+        }
+        if (start) {
+            std::size_t k = 0;
+            while (k < line.size()) {
+                const char c = line[k];
+                if (c == ' ' || c == '\t' || c == '\r') {
+                    ++k;
+                } else if (c == '#') {
+                    k = line.size();
+                } else if (c == '&' || c == '!') {  // an anchor or a tag: its name runs to a space or a flow mark
+                    ++k;
+                    while (k < line.size() && std::string_view(" \t,[]{}").find(line[k]) == std::string_view::npos) ++k;
+                } else {
+                    const auto at = static_cast<std::size_t>(line.data() - text.data()) + k;
+                    if (c == ',') throw InputError(place(text, at, source), "malformed YAML: a ',' before any value");
+                    start = false;
+                    break;
+                }
+            }
+        }
+        i = eol + 1;
+    }
+}
+
 // A key given twice in one mapping (YAML forbids it; the parser would keep the first silently), and nesting
 // beyond any spec's.
 void check_keys(const YAML::Node& node, const std::string& path, int depth) {
@@ -380,6 +418,7 @@ void check_keys(const YAML::Node& node, const std::string& path, int depth) {
 
 YAML::Node load_yaml(std::string_view text, std::string_view source) {
     check_text(text, source);
+    check_document_starts(text, source);
     std::vector<YAML::Node> docs;
     try {
         docs = YAML::LoadAll(std::string(text));

@@ -47,22 +47,24 @@ std::string coil_spec_yaml(const CoilSpec& s, const WireChoice& wc) {
         o << "    insulation: " << q(c.wire().insulation, "mm", 1e3) << "\n";
     }
     o << "  conductor: " << s.conductor.name << "\n";
+    // The operating section only where it holds something: "operating:" alone does not read back.
     const Operating& op = s.operating;
-    o << "operating:\n";
+    std::ostringstream ops;
     if (!op.frequencies.empty()) {
-        o << "  frequencies: [";
-        for (std::size_t i = 0; i < op.frequencies.size(); ++i) o << (i ? ", " : "") << hz(op.frequencies[i]);
-        o << "]\n";
+        ops << "  frequencies: [";
+        for (std::size_t i = 0; i < op.frequencies.size(); ++i) ops << (i ? ", " : "") << hz(op.frequencies[i]);
+        ops << "]\n";
     }
     const auto celsius = [](double k) { return detail::significant(k - zero_celsius, 10) + " degC"; };
-    if (op.temperature_given) o << "  temperature: " << celsius(op.temperature) << "\n";
+    if (op.temperature_given) ops << "  temperature: " << celsius(op.temperature) << "\n";
     if (op.current > 0) {
-        o << "  current: " << detail::significant(op.current, 10) << " A\n";
-        if (op.current_frequency && *op.current_frequency > 0) o << "  current_frequency: " << hz(*op.current_frequency) << "\n";
-        o << "  ambient: " << celsius(op.ambient) << "\n";
+        ops << "  current: " << detail::significant(op.current, 10) << " A\n";
+        if (op.current_frequency && *op.current_frequency > 0) ops << "  current_frequency: " << hz(*op.current_frequency) << "\n";
+        ops << "  ambient: " << celsius(op.ambient) << "\n";
     }
-    if (op.supply_voltage > 0) o << "  supply_voltage: " << detail::significant(op.supply_voltage, 10) << " V\n";
-    if (op.rf_power > 0) o << "  rf_power: " << detail::significant(op.rf_power, 10) << " W\n";
+    if (op.supply_voltage > 0) ops << "  supply_voltage: " << detail::significant(op.supply_voltage, 10) << " V\n";
+    if (op.rf_power > 0) ops << "  rf_power: " << detail::significant(op.rf_power, 10) << " W\n";
+    if (!ops.str().empty()) o << "operating:\n" << ops.str();
     if (s.former) {
         const FormerSpec& f = *s.former;
         o << "former:\n  material: " << f.material.name << "\n  kind: " << former_kind_name(f.kind) << "\n  wall: "
