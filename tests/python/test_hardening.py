@@ -189,10 +189,12 @@ def libcoil_source():
     return pathlib.Path(os.environ.get("LIBCOIL_SOURCE_DIR", "."))
 
 
-@pytest.mark.parametrize("text", [",", ",# note\nname: x\n", "---\n,", "name: a\n---\n,", "&a ,", "!t ,", "!o, ", "&a,", " , a", "# c\n\n,"])
-def test_a_document_that_begins_with_a_comma_is_refused_before_the_yaml_parser(tmp_path, text):
-    # Found by tests/fuzz (fuzz_spec): Debian's yaml-cpp 0.7 allocates without end on a document whose first
-    # token is ",". The run gets 1 GB of address space and 60 s: without the check it would fail on both.
+@pytest.mark.parametrize("text", [",", ",# note\nname: x\n", "---\n,", "name: a\n---\n,", "&a ,", "!t ,", "!o, ", "&a,", " , a", "# c\n\n,",
+                                  "e\n#le\n,", "- a\n,", "\"x\"\n,", "[a]\n,"])
+def test_a_flow_entry_outside_a_flow_is_refused_before_the_yaml_parser(tmp_path, text):
+    # Found by tests/fuzz (fuzz_spec): Debian's yaml-cpp 0.7 allocates without end where a document's first
+    # token is "," or a line begins with one after a node. The run gets 1 GB of address space and 60 s:
+    # without the check it would fail on both.
     import resource
     import subprocess
 
@@ -205,7 +207,15 @@ def test_a_document_that_begins_with_a_comma_is_refused_before_the_yaml_parser(t
     for command in ("analyze", "design"):
         r = subprocess.run([os.environ["LIBCOIL_COIL"], command, str(path)], capture_output=True, text=True, timeout=60,
                            preexec_fn=limit)
-        expect_error(r, "comma.yaml", "a ',' before any value")
+        expect_error(r, "comma.yaml", "a ',' outside any [ ] or { }")
     for parse in (libcoil.parse_coil_spec, libcoil.parse_requirement):
-        with pytest.raises(libcoil.InputError, match="before any value"):
+        with pytest.raises(libcoil.InputError, match="outside any"):
             parse(text, "python")
+
+
+@pytest.mark.parametrize("text", ["a: [1,\n,2]\n", "a: {b: 1\n, c: 2}\n", "a: b\n  , c\n", "a: |\n  ,x\n", "a: \"x\n,y\"\n",
+                                  "a: 'it''s\n,'\n"])
+def test_a_comma_inside_a_flow_a_quote_or_an_indented_line_reaches_the_parser(text):
+    # The check above refuses only what yaml-cpp loops on: these are read (and then refused for the unknown key).
+    with pytest.raises(libcoil.InputError, match="unknown key"):
+        libcoil.parse_coil_spec(text, "python")

@@ -356,38 +356,66 @@ void check_text(std::string_view text, std::string_view source) {
     }
 }
 
-// Debian's yaml-cpp 0.7 never returns from a document whose first token is a flow entry (",", after any
-// "---", comments, anchors and tags): it allocates until memory runs out (found by tests/fuzz, fuzz_spec:
-// 50 bytes took the machine's memory). Such a document is malformed YAML; it is refused here first.
-void check_document_starts(std::string_view text, std::string_view source) {
+// Debian's yaml-cpp 0.7 never returns from a document where a flow entry (",") stands outside any flow
+// collection as a document's first token (after any "---", comments, anchors and tags) or at the start of
+// a line after a complete node ("- a\n,", "\"x\"\n,", "e\n# c\n,"): it allocates until memory runs out
+// (found by tests/fuzz, fuzz_spec; 50 bytes took the machine's memory). Such text is malformed YAML for a
+// spec (a continuation line of a plain scalar may begin with ",", but only indented, which is left alone
+// there); it is refused here first. The scan follows flow brackets and quotes as they open a token, which
+// is all it needs to tell a flow entry in "[1,\n, 2]" from one outside.
+void check_flow_entries(std::string_view text, std::string_view source) {
+    constexpr std::string_view token_start = " \t[{,:";
+    int depth = 0;        // open flow collections
+    char quote = 0;       // the open quote, if a quoted scalar runs on
+    bool start = true;    // at a document's start, where even an indented "," loops
     std::size_t i = 0;
-    bool start = true;  // at a document's start
     while (i < text.size()) {
         const std::size_t eol = std::min(text.find('\n', i), text.size());
-        std::string_view line = text.substr(i, eol - i);
+        const std::string_view line = text.substr(i, eol - i);
+        std::size_t k = 0;
         if (line.substr(0, 3) == "---" || line.substr(0, 3) == "...") {
             start = true;
-            line.remove_prefix(3);
+            k = 3;
         } else if (start && !line.empty() && line.front() == '%') {
-            line = {};  // a directive
+            k = line.size();  // a directive
         }
-        if (start) {
-            std::size_t k = 0;
-            while (k < line.size()) {
-                const char c = line[k];
+        if (quote == 0 && depth == 0 && (start || (k < line.size() && line[k] != ' ' && line[k] != '\t'))) {
+            std::size_t j = k;
+            while (j < line.size()) {
+                const char c = line[j];
                 if (c == ' ' || c == '\t' || c == '\r') {
-                    ++k;
-                } else if (c == '#') {
-                    k = line.size();
+                    if (!start) break;  // after a node only column 0 counts
+                    ++j;
                 } else if (c == '&' || c == '!') {  // an anchor or a tag: its name runs to a space or a flow mark
-                    ++k;
-                    while (k < line.size() && std::string_view(" \t,[]{}").find(line[k]) == std::string_view::npos) ++k;
+                    ++j;
+                    while (j < line.size() && std::string_view(" \t,[]{}").find(line[j]) == std::string_view::npos) ++j;
+                    while (j < line.size() && (line[j] == ' ' || line[j] == '\t')) ++j;
                 } else {
-                    const auto at = static_cast<std::size_t>(line.data() - text.data()) + k;
-                    if (c == ',') throw InputError(place(text, at, source), "malformed YAML: a ',' before any value");
-                    start = false;
+                    if (c == ',') {
+                        throw InputError(place(text, i + j, source), "malformed YAML: a ',' outside any [ ] or { } before the line's value");
+                    }
+                    if (c != '#') start = false;
                     break;
                 }
+            }
+        }
+        for (; k < line.size(); ++k) {
+            const char c = line[k];
+            const bool opens = k == 0 || token_start.find(line[k - 1]) != std::string_view::npos;
+            if (quote == '"') {
+                if (c == '\\') ++k;
+                else if (c == '"') quote = 0;
+            } else if (quote == '\'') {
+                if (c == '\'' && k + 1 < line.size() && line[k + 1] == '\'') ++k;
+                else if (c == '\'') quote = 0;
+            } else if (c == '#' && (k == 0 || line[k - 1] == ' ' || line[k - 1] == '\t')) {
+                break;  // a comment
+            } else if ((c == '"' || c == '\'') && opens) {
+                quote = c;
+            } else if ((c == '[' || c == '{') && opens) {
+                ++depth;
+            } else if ((c == ']' || c == '}') && depth > 0) {
+                --depth;
             }
         }
         i = eol + 1;
@@ -418,7 +446,7 @@ void check_keys(const YAML::Node& node, const std::string& path, int depth) {
 
 YAML::Node load_yaml(std::string_view text, std::string_view source) {
     check_text(text, source);
-    check_document_starts(text, source);
+    check_flow_entries(text, source);
     std::vector<YAML::Node> docs;
     try {
         docs = YAML::LoadAll(std::string(text));
