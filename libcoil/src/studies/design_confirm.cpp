@@ -38,18 +38,19 @@ double Evaluator::network_srf_edge(const Solenoid& s, double inductance, double 
     return srf_band(bound, "network", q_.surroundings.mounting, spacing, fd, 1.0).low;
 }
 
-// The search screens with the sheath helix (fast, and an upper bound: the turn network read 0.68 .. 0.86 of
-// it on the NEC2 set); a design it keeps is confirmed here with the turn network's SRF, the recommended one
-// (in its shield where it has one), and the band screened again on the coil as mounted.
+// The search screens with a bound on the turn network's SRF (network_srf_edge above); a design it keeps is
+// confirmed here with the turn network's SRF, the recommended one (in its shield where it has one), and the
+// band screened again on the coil as mounted.
 std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
     const FormerDielectric fd = q_.former ? q_.former->dielectric(d.form_diameter) : FormerDielectric{};
-    // First a bound at a fiftieth of the cost: the network without the former. A dielectric only adds
-    // capacitance (the field energy at given potentials grows with the permittivity), and in the
-    // network's charge formulation the resonances fall as the capacitance grows; the former's network
-    // read 0.9 .. 0.997 of the bare one on 460 random coils (tests/cpp/test_turn_network.cpp checks 120), the 1 %
-    // allowed here only spares numerical doubt. Where even that bound's low edge misses the SRF margin,
-    // the full confirmation below would too. Not in a shield, whose shift moves the edge both ways.
+    // First a bound without the former's charge solve: the network without the former (its near-field
+    // section is kept for the full network below). A dielectric only adds capacitance (the field energy at
+    // given potentials grows with the permittivity), and in the network's charge formulation the
+    // resonances fall as the capacitance grows; the former's network read at most 0.997 of the bare one on
+    // 460 random coils (tests/cpp/test_turn_network.cpp checks 120), the 1 % allowed here only spares
+    // numerical doubt. Where even that bound's low edge misses the SRF margin, the full confirmation below
+    // would too. Not in a shield, whose shift moves the edge both ways.
     if (q_.band && !q_.shield && fd.wall > 0) {
         if (const auto bare = network_resonance(s, FormerDielectric{}, q_.surroundings)) {
             const double edge = srf_band(bare->frequency * 1.01, "network", q_.surroundings.mounting, s.pitch_to_wire(), FormerDielectric{}, 1.0).low;
