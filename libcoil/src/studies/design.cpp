@@ -334,8 +334,8 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         }
     }
     if (dropped > 0) {
-        out.notes.push_back(std::to_string(dropped) + " of the best-ranked designs (screened with the sheath helix's SRF, an upper "
-                            "bound" + std::string(q.fixture ? ", and the fixture's port at 25 points" : "") + ") failed the band with the turn network's SRF" +
+        out.notes.push_back(std::to_string(dropped) + " of the best-ranked designs (screened with an upper bound on the turn network's SRF "
+                            "from the sheath helix's" + std::string(q.fixture ? ", and the fixture's port at 25 points" : "") + ") failed the band with the turn network's SRF" +
                             std::string(q.fixture ? " or the full fixture study" : "") + " and were dropped");
     }
     if (out.pareto.empty()) {
