@@ -48,7 +48,7 @@ def attempt(job):
     # Debian's getdp 3.5 dies with SIGSEGV on the biggest meshes (close-10, spaced-8 and demo-like-18 at
     # 30 MHz with skin depth / 3 at the wires); those are retried at skin depth / 2, which on close-5 at
     # 30 MHz moved R by +0.008 % and L by +0.0002 % (the entry records the mesh). On close-5-in-tube at 10 MHz
-    # getdp's direct solve at skin depth / 3 (1.74 M unknowns) ran past 35 minutes without an end, where skin
+    # getdp's direct solve at skin depth / 3 (1.74 M unknowns) did not finish in 33 CPU-minutes, where skin
     # depth / 2 (1.37 M) took 100 s: the finer mesh gets half an hour before the retry.
     failure = ""
     for wall, timeout in ((3, 1800), (2, 5400)):
