@@ -1,5 +1,7 @@
 // libFuzzer target: the unit parser (core/units.hpp). The first byte picks the dimension, the rest is the
-// text. parse_quantity must return a finite value or throw InputError; anything else is a finding.
+// text. parse_quantity must return a finite value or throw InputError; anything else is a finding. The seeds
+// (tests/fuzz/corpus/units) are named after their dimension and unit; their first byte is the dimension's
+// place in the Dimension enum.
 #include <cmath>
 #include <cstddef>
 #include <cstdint>

@@ -42,10 +42,19 @@ def test_envelope_holds_on_fresh_coils(seed):
 
 
 def test_bins_follow_the_solenoids_spacing():
-    # The generator bins by p / bare d, as the search does (Solenoid::pitch_to_wire).
+    # The generator bins by p / bare d, as the search does (Solenoid::pitch_to_wire), not by the insulated d.
+    import random
+
     g = generator()
-    (spacing, *_), = g.sample(3, 1)
-    assert spacing >= 1.01
+    rng = random.Random(3)
+    while True:
+        coil = g.draw(rng)
+        d, enamel, _, pitch, *_ = coil
+        row = g.ratios(coil)
+        if enamel > 0 and row is not None:
+            break
+    assert row[0] == pytest.approx(pitch / d, rel=1e-15)
+    assert row[0] > pitch / (d + 2 * enamel) * 1.01
     assert g.bin_of(1.0, g.SPACING_EDGES) == 0
     assert g.bin_of(100.0, g.SPACING_EDGES) == len(g.SPACING_EDGES)
     assert g.bin_of(g.LENGTH_EDGES[0], g.LENGTH_EDGES) == 1

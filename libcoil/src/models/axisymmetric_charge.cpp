@@ -103,6 +103,33 @@ struct Kernel {
     double phi = 0, e_n = 0;
 };
 
+// The kernel summed over n source points of a panel, w[g] the weight of point g along it (its length
+// included): the fields of the rings there, less their images in the ground plane where there is one.
+template <int n>
+Kernel quadrature_sum(const double* a, const double* zs, const double* w, double rho, double z, double nr, double nz,
+                      const std::optional<double>& plane) {
+    RingField f[n];
+    ring_fields<n>(a, zs, rho, z, f);
+    if (plane) {
+        double image[n];
+        for (int g = 0; g < n; ++g) image[g] = 2 * *plane - zs[g];
+        RingField i[n];
+        ring_fields<n>(a, image, rho, z, i);
+        for (int g = 0; g < n; ++g) {
+            f[g].phi -= i[g].phi;
+            f[g].e_rho -= i[g].e_rho;
+            f[g].e_z -= i[g].e_z;
+        }
+    }
+    Kernel k;
+    for (int g = 0; g < n; ++g) {
+        const double weight = w[g] * 2 * pi * a[g];
+        k.phi += weight * f[g].phi;
+        k.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
+    }
+    return k;
+}
+
 // The integral over the part u0 .. u1 of a panel (unit surface charge) of the potential and the field
 // along (nr, nz) at (rho, z), times 4 pi eps0; the ground plane's image included where `plane` is given.
 Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z, double nr, double nz,
@@ -121,52 +148,18 @@ Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z
             zs[g] = x[1];
         }
     }
-    RingField f[8];
-    ring_fields<8>(a, zs, rho, z, f);
-    if (plane) {
-        double image[8];
-        for (int g = 0; g < 8; ++g) image[g] = 2 * *plane - zs[g];
-        RingField i[8];
-        ring_fields<8>(a, image, rho, z, i);
-        for (int g = 0; g < 8; ++g) {
-            f[g].phi -= i[g].phi;
-            f[g].e_rho -= i[g].e_rho;
-            f[g].e_z -= i[g].e_z;
-        }
-    }
-    Kernel k;
-    for (int g = 0; g < 8; ++g) {
-        const double weight = gauss_w[g] * half * 2 * pi * a[g];
-        k.phi += weight * f[g].phi;
-        k.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
-    }
-    return k;
+    double w[8];
+    for (int g = 0; g < 8; ++g) w[g] = gauss_w[g] * half;
+    return quadrature_sum<8>(a, zs, w, rho, z, nr, nz, plane);
 }
 
 // The whole panel from a point beyond three panel lengths: four Gauss-Legendre points. The n-point rule's
 // remainder on a 1 / d kernel is (L / d)^2n (n!)^4 / ((2n + 1) ((2n)!)^2) of the integral, for n = 4 2.3e-5 (L / d)^8:
 // 3.5e-9 at three lengths, where the eight points cost twice as much for nothing the solution can see.
 Kernel far_integral(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane) {
-    RingField f[4];
-    ring_fields<4>(p.far_r.data(), p.far_z.data(), rho, z, f);
-    if (plane) {
-        double image[4];
-        for (std::size_t g = 0; g < 4; ++g) image[g] = 2 * *plane - p.far_z[g];
-        RingField i[4];
-        ring_fields<4>(p.far_r.data(), image, rho, z, i);
-        for (int g = 0; g < 4; ++g) {
-            f[g].phi -= i[g].phi;
-            f[g].e_rho -= i[g].e_rho;
-            f[g].e_z -= i[g].e_z;
-        }
-    }
-    Kernel k;
-    for (std::size_t g = 0; g < 4; ++g) {
-        const double weight = far_w[g] * 0.5 * p.length * 2 * pi * p.far_r[g];
-        k.phi += weight * f[g].phi;
-        k.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
-    }
-    return k;
+    double w[4];
+    for (int g = 0; g < 4; ++g) w[g] = far_w[g] * 0.5 * p.length;
+    return quadrature_sum<4>(p.far_r.data(), p.far_z.data(), w, rho, z, nr, nz, plane);
 }
 
 // The same over a whole panel: split in four where the point is near, in halves about the middle on the

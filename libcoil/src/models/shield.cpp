@@ -186,11 +186,14 @@ double sheet_in_long_shield_change(double a, double l, double n, double b) {
     // I1(x)^2 K1(y) / I1(y) ~ exp(2x - 2y): past 2 k (b - a) = 80 nothing is left; below k b = 600 no
     // Bessel function overflows.
     const double k_max = std::min(40 / (b - a), 600 / b);
+    const auto shield_kernel = [&](double k) {  // G(k) = I1(ka)^2 K1(kb) / I1(kb)
+        const double i_a = bm::cyl_bessel_i(1, k * a);
+        return i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
+    };
     const auto g = [&](double k) {
         if (k <= 0) return l * l / 4 * a * a / (2 * b * b);  // the limit of sin^2 / k^2 times G
         const double s = std::sin(k * l / 2) / k;
-        const double i_a = bm::cyl_bessel_i(1, k * a);
-        return s * s * i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
+        return s * s * shield_kernel(k);
     };
     // The integrand oscillates with period 2 pi / l: integrate piece by piece, the first 2000 periods; beyond,
     // where G changes little over a period, sin^2 takes its mean 1/2 (a coil thousands of times longer than
@@ -202,10 +205,7 @@ double sheet_in_long_shield_change(double a, double l, double n, double b) {
         sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(g, k0, std::min(k_pieces, k0 + period), 8, 1e-12);
     }
     if (k_pieces < k_max) {
-        const auto mean = [&](double k) {
-            const double i_a = bm::cyl_bessel_i(1, k * a);
-            return 0.5 / (k * k) * i_a * i_a * bm::cyl_bessel_k(1, k * b) / bm::cyl_bessel_i(1, k * b);
-        };
+        const auto mean = [&](double k) { return 0.5 / (k * k) * shield_kernel(k); };
         sum += bm::quadrature::gauss_kronrod<double, 31>::integrate(mean, k_pieces, k_max, 15, 1e-12);
     }
     return finite_result("sheet_in_long_shield_change", -8 * mu0 * a * a * n * n / (l * l) * sum);
