@@ -190,10 +190,12 @@ def libcoil_source():
 
 
 @pytest.mark.parametrize("text", [",", ",# note\nname: x\n", "---\n,", "name: a\n---\n,", "&a ,", "!t ,", "!o, ", "&a,", " , a", "# c\n\n,",
-                                  "e\n#le\n,", "- a\n,", "\"x\"\n,", "[a]\n,"])
-def test_a_flow_entry_outside_a_flow_is_refused_before_the_yaml_parser(tmp_path, text):
-    # Found by tests/fuzz (fuzz_spec): Debian's yaml-cpp 0.7 allocates without end where a document's first
-    # token is "," or a line begins with one after a node. The run gets 1 GB of address space and 60 s:
+                                  "e\n#le\n,", "- a\n,", "\"x\"\n,", "[a]\n,",
+                                  "\"a\", \"b\"", "'a', b", "[a], b", "{a: 1}, b", "&x \"a\", b", "\"a\"\n  , b", "\"a\"\n\t, b",
+                                  "!  \"floating\", \"grounded-end\"\ncoil: {form_diameter: 25\n\n]\n"])
+def test_a_flow_entry_after_a_documents_value_is_refused_in_bounded_memory(tmp_path, text):
+    # Found by tests/fuzz (fuzz_spec): Debian's yaml-cpp 0.7 allocates without end where a "," outside any flow
+    # follows a document's value (or begins the document); the last case is the fuzzer's own finding. The run gets 1 GB of address space and 60 s:
     # without the check it would fail on both.
     import resource
     import subprocess
