@@ -13,9 +13,6 @@ using namespace libcoil;
 
 namespace {
 
-// The potential, times 4 pi eps0, of a unit ring charge (radius b, at z = 0) on the axis at height z.
-double ring_on_axis(double b, double z) { return 1 / std::hypot(b, z); }
-
 // A sphere's outline: a half circle from the south pole to the north through the equator, counter-clockwise.
 Outline half_circle(double radius, int sides) {
     Outline o;

@@ -78,3 +78,13 @@ TEST(Spec, WrittenBackWithoutAnOperatingSectionReadsBack) {
     EXPECT_DOUBLE_EQ(again.solenoid.pitch(), s.solenoid.pitch());
     EXPECT_DOUBLE_EQ(again.solenoid.turns(), s.solenoid.turns());
 }
+
+TEST(Spec, ACoilAtTheEndOfTheLengthRangeReadsBackFromItsFormDiameter) {
+    // Found by tests/fuzz (fuzz_spec): l / D = 1000 exactly, given by its mean diameter, was written back by
+    // its form diameter (4.8 mm + 0.2 mm wire), which read back a rounding past 1000 and was refused.
+    const CoilSpec s = parse_coil_spec("coil: {mean_diameter: 5 mm, turns: 5000, pitch: 1 mm, wire: {diameter: 0.2 mm}}\n", "edge");
+    const Wire& w = s.solenoid.wire();
+    const CoilSpec again = parse_coil_spec(coil_spec_yaml(s, WireChoice{std::nullopt, w.bare_diameter, w.insulation, std::nullopt}), "again");
+    EXPECT_NEAR(again.solenoid.mean_diameter(), 5e-3, 1e-17);
+    EXPECT_THROW(parse_coil_spec("coil: {mean_diameter: 5 mm, turns: 5001, pitch: 1 mm, wire: {diameter: 0.2 mm}}\n", "past"), InputError);
+}

@@ -56,8 +56,8 @@ TEST(TurnNetwork, InductanceIsTheRingsPlusTheAxialSheet) {
 TEST(TurnNetwork, UniformDielectricLowersEveryResonanceBySqrtEpsilon) {
     const Solenoid s = coil(0.02, 12, 3e-3, 1e-3);
     for (Mounting m : {Mounting::floating, Mounting::grounded_end}) {
-        const auto air = TurnNetwork(s, {m}).resonances(3);
-        const auto oil = TurnNetwork(s, {m, -1, 2.25}).resonances(3);
+        const auto air = TurnNetwork(s, {.mounting = m}).resonances(3);
+        const auto oil = TurnNetwork(s, {.mounting = m, .relative_permittivity = 2.25}).resonances(3);
         ASSERT_EQ(air.size(), 3u);
         for (std::size_t i = 0; i < 3; ++i) EXPECT_NEAR(oil[i], air[i] / 1.5, 1e-12 * air[i]);
     }
@@ -66,7 +66,7 @@ TEST(TurnNetwork, UniformDielectricLowersEveryResonanceBySqrtEpsilon) {
 TEST(TurnNetwork, ImpedancePeaksAtTheFirstResonanceAndIsWLFarBelow) {
     const Solenoid s = coil(0.02, 10, 6e-3, 1e-3);
     for (Mounting m : {Mounting::floating, Mounting::grounded_end}) {
-        const TurnNetwork n(s, {m});
+        const TurnNetwork n(s, {.mounting = m});
         const double f0 = n.resonances(1).at(0);
         // The peak of |Z| with a little loss lies at the natural frequency (to the scan's step).
         double best = 0, at = 0;
@@ -88,14 +88,14 @@ TEST(TurnNetwork, GroundingOneEndLowersTheFirstResonance) {
     // A quarter-wave mode (one end held at ground) against the free coil's half-wave one: lower for any coil.
     for (double turns : {5.0, 20.0, 60.0}) {
         const Solenoid s = coil(0.02, turns, 2e-3, 0.8e-3);
-        const double f = TurnNetwork(s).resonances(1).at(0), g = TurnNetwork(s, {Mounting::grounded_end}).resonances(1).at(0);
+        const double f = TurnNetwork(s).resonances(1).at(0), g = TurnNetwork(s, {.mounting = Mounting::grounded_end}).resonances(1).at(0);
         EXPECT_LT(g, f) << turns;
     }
 }
 
 TEST(TurnNetwork, BadInputNamesTheField) {
     const Solenoid s = coil(0.02, 10, 3e-3, 1e-3);
-    EXPECT_THROW(TurnNetwork(s, {Mounting::floating, -1, 0.5}), InputError);
+    EXPECT_THROW(TurnNetwork(s, {.relative_permittivity = 0.5}), InputError);
     const TurnNetwork n(s);
     EXPECT_THROW(n.impedance(0), InputError);
     EXPECT_THROW(n.impedance(1e6, -1), InputError);

@@ -16,7 +16,7 @@ JSON_KEYS = {"mean_diameter_m", "winding_length_m", "wire_length_m", "turns", "p
 
 def expectation(spec):
     """(field, text) from the spec's '# expect: FIELD | TEXT' line; the empty file carries none."""
-    lines = spec.read_text().splitlines()
+    lines = spec.read_bytes().decode("utf-8", "replace").splitlines()  # some hold bytes that are not UTF-8 on purpose
     if not lines:
         return "spec", "the spec is empty"
     assert lines[0].startswith("# expect: "), spec
@@ -24,8 +24,45 @@ def expectation(spec):
     return field, text
 
 
+BAD_CALLS = [line for line in (BAD_DIR.parent / "bad-calls.txt").read_text().splitlines() if line.strip() and not line.startswith("#")]
+BAD_REQUIREMENTS = sorted((BAD_DIR.parent / "bad-requirements").glob("*.yaml"))
+
+
 def test_catalogue_is_large_enough():
-    assert len(BAD_SPECS) >= 15
+    # Issue 21: at least 100 bad inputs across all subcommands.
+    assert len(BAD_SPECS) >= 50 and len(BAD_CALLS) >= 80
+    assert len(BAD_SPECS) + len(BAD_CALLS) + len(BAD_REQUIREMENTS) >= 100
+    verbs = {line.split()[0] for line in BAD_CALLS}
+    assert verbs == {"analyze", "sweep", "compare", "fixture", "export-circuit", "design", "former", "couple", "wire"}
+
+
+@pytest.mark.parametrize("line", BAD_CALLS, ids=[line.split(" | ")[0][:60] for line in BAD_CALLS])
+def test_bad_call_exits_2_names_the_field_and_writes_nothing(line, run_coil, source_dir, tmp_path):
+    import shlex
+    args, field, text = (part.strip() for part in line.split(" | ", 2))
+    examples = source_dir / "data/examples"
+    names = {"{spec}": examples / "bench-network-coil.yaml", "{requirement}": examples / "bench-network-requirement.yaml",
+             "{fixture}": examples / "bench-network-fixture.yaml", "{measured}": examples / "bench-network-coil.measured.s1p",
+             "{out}": tmp_path / "out"}
+
+    def fill(word):
+        for key, path in names.items():
+            word = word.replace(key, str(path))
+        while "{bad:" in word:
+            i = word.index("{bad:")
+            j = word.index("}", i)
+            word = word[:i] + str(BAD_DIR.parent / "bad-files" / word[i + 5:j]) + word[j + 1:]
+        return word
+
+    work = tmp_path / "cwd"
+    work.mkdir()
+    r = run_coil(*(fill(a) for a in shlex.split(args)), cwd=work)
+    assert r.returncode == 2, (r.returncode, r.stdout[-300:], r.stderr)
+    assert r.stdout == "" and len(r.stderr.splitlines()) == 1, r.stderr
+    assert r.stderr.startswith(f"coil: {fill(field)}: "), r.stderr
+    assert fill(text) in r.stderr, r.stderr
+    assert "internal error" not in r.stderr
+    assert not (tmp_path / "out").exists() and list(work.iterdir()) == []
 
 
 @pytest.mark.parametrize("spec", BAD_SPECS, ids=[p.name for p in BAD_SPECS])
@@ -40,7 +77,8 @@ def test_bad_spec_exits_2_names_the_field_and_writes_nothing(spec, run_coil, tmp
         message = r.stderr[len("coil: "):]
         # The field leads the message; malformed YAML leads with FILE:LINE:COLUMN instead.
         head = message.split(": ", 1)[0]
-        assert head == field or pathlib.Path(head).name.startswith(field + ":"), message
+        name = pathlib.Path(head).name
+        assert head == field or name == field or name.startswith(field + ":"), message
         assert text in message, message
         assert not out_dir.exists()
 

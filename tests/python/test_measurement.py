@@ -137,5 +137,5 @@ def test_coil_compare_on_a_malformed_file_exits_2_and_writes_nothing(run_coil, s
         out = tmp_path / "out"
         r = run_coil("compare", spec, path, "--out", out)
         assert r.returncode == 2, (name, r.stdout, r.stderr)
-        assert r.stderr.startswith(f"coil: {name} line {line}, column"), r.stderr
+        assert r.stderr.startswith(f"coil: {path}:{line}:"), r.stderr
         assert fragment in r.stderr and r.stdout == "" and not out.exists()

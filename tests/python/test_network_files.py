@@ -157,7 +157,7 @@ def test_a_huge_angle_stays_finite(tmp_path):
 def test_a_malformed_file_is_a_clear_error_naming_its_line(tmp_path, name, text, line, fragment):
     with pytest.raises(libcoil.InputError) as e:
         libcoil.read_network(write(tmp_path, name, text))
-    assert f"{name} line {line}, column" in str(e.value)
+    assert f"{name}:{line}:" in str(e.value)
     assert fragment in str(e.value)
 
 

@@ -288,11 +288,16 @@ libcoil::FlangeSpec parse_flange(const std::string& text, const std::string& fla
     if (x == std::string::npos) {
         throw libcoil::InputError(flag, libcoil::quoted(text) + "; expected DIAMETER x THICKNESS, e.g. \"40 mm x 2 mm\"");
     }
-    return {libcoil::parse_quantity(text.substr(0, x), Dimension::length, flag),
-            libcoil::parse_quantity(text.substr(x + 1), Dimension::length, flag)};
+    const libcoil::FlangeSpec f{libcoil::parse_quantity(text.substr(0, x), Dimension::length, flag),
+                                libcoil::parse_quantity(text.substr(x + 1), Dimension::length, flag)};
+    if (!(f.diameter > 0 && f.thickness > 0)) {
+        throw libcoil::InputError(flag, libcoil::quoted(text) + "; expected a diameter and a thickness both greater than zero");
+    }
+    return f;
 }
 
 int run_former(const Given& g) {
+    if (!g.has("out_dir")) throw libcoil::InputError("out_dir", "required: the directory to write the former's files into");
     libcoil::FormerOptions opt;
     opt.kind = g.choice<libcoil::FormerKind>("kind");
     opt.profile = g.choice<libcoil::GrooveProfile>("profile");
@@ -332,6 +337,7 @@ std::vector<double> parse_distance_sweep(const std::string& text) {
 }
 
 int run_couple(const Given& g) {
+    if (!g.has("distance")) throw libcoil::InputError("distance", "required: the distance between the coils' centres, e.g. \"60 mm\"");
     std::vector<double> f;
     if (g.has("frequencies")) {
         for (const auto& t : g.values.at("frequencies")) f.push_back(libcoil::parse_quantity(t, Dimension::frequency, "--frequency"));
@@ -382,6 +388,19 @@ int run_wire(const Given& g) {
     return 0;
 }
 
+// A library check of an option speaks SI ("-0.001 must be greater than zero"); when the message begins with
+// the value of the text the user typed for that option, it is said in the user's words ("-1 mm" ...).
+std::string in_users_words(const Given& g, const libcoil::InputError& e) {
+    const auto given = g.values.find(e.field());
+    if (given == g.values.end() || given->second.size() != 1) return e.detail();
+    const fe::Option& o = fe::option(g.verb, e.field());
+    if (o.kind != fe::Kind::quantity) return e.detail();
+    const std::string& text = given->second.front();
+    const std::string si = libcoil::format_value(libcoil::parse_quantity(text, o.dimension, o.flag)) + " ";
+    if (e.detail().compare(0, si.size(), si) != 0) return e.detail();
+    return libcoil::quoted(text) + e.detail().substr(si.size() - 1);
+}
+
 struct Verb {
     const char* name;
     const char* help;
@@ -426,8 +445,6 @@ int main(int argc, char** argv) {
             sub->add_option(v.positional[i].first, given->positional[i], v.positional[i].second)->required()->check(CLI::ExistingFile);
         }
         add_options(sub, *given);
-        if (std::string_view(v.name) == "former") sub->get_option("--out")->required();
-        if (std::string_view(v.name) == "couple") sub->get_option("--distance")->required();
         subs.emplace_back(sub, std::move(given));
     }
 
@@ -440,7 +457,8 @@ int main(int argc, char** argv) {
     } catch (const CLI::CallForVersion& e) {
         return app.exit(e);
     } catch (const CLI::ParseError& e) {
-        app.exit(e);
+        // One line, as every other bad input's (CLI11 words it: an unknown option, a missing file, ...).
+        std::cerr << "coil: " << e.what() << " ('coil VERB --help' lists the options)\n";
         return exit_bad_input;
     }
 
@@ -458,7 +476,7 @@ int main(int argc, char** argv) {
             return verbs[i].run(g);
         } catch (const libcoil::InputError& e) {
             // The library names its fields; the table turns an option's field back into the flag the user typed.
-            std::cerr << "coil: " << libcoil::InputError(fe::flag_for_field(g.verb, e.field()), e.detail()).what() << "\n";
+            std::cerr << "coil: " << libcoil::InputError(fe::flag_for_field(g.verb, e.field()), in_users_words(g, e)).what() << "\n";
             return exit_bad_input;
         } catch (const libcoil::DomainError& e) {
             std::cerr << "coil: outside every model's domain: " << e.what() << "\n";

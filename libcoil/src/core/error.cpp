@@ -71,6 +71,24 @@ namespace detail {
 
 }  // namespace detail
 
+double require_frequency(std::string_view field, double hz) {
+    require_positive(field, hz);
+    if (hz > max_model_frequency) throw InputError(std::string(field), format_value(hz) + " is beyond 100 GHz, where no model of a wound coil holds");
+    return hz;
+}
+
+double require_temperature(std::string_view field, double kelvin) {
+    require_finite(field, kelvin);
+    if (!(kelvin > 0)) {
+        throw InputError(std::string(field), format_value(kelvin) + " K (" + format_value(kelvin - 273.15) + " degC) is at or below absolute zero");
+    }
+    if (kelvin > max_model_temperature) {
+        throw InputError(std::string(field), format_value(kelvin) + " K (" + format_value(kelvin - 273.15) +
+                                                 " degC) is beyond 1000 degC (copper melts at 1085 degC)");
+    }
+    return kelvin;
+}
+
 void detail::throw_below(std::string_view field, double value, double minimum, std::string_view why) {
     throw InputError(std::string(field), format_value(value) + " is below " + format_value(minimum) + ": " + std::string(why));
 }

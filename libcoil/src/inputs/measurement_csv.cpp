@@ -137,12 +137,13 @@ NetworkData read_network_file(const std::string& path) {
     const std::string name = path.substr(path.find_last_of('/') == std::string::npos ? 0 : path.find_last_of('/') + 1);
     const std::size_t dot = name.find_last_of('.');
     const std::string ext = dot == std::string::npos ? "" : detail::lower(std::string_view(name).substr(dot + 1));
-    if (ext == "csv") return read_measurement_csv(text, name);
-    if (ext == "ts") return read_touchstone(text, name, 0);
+    // Errors name the path as given, FILE:LINE:COLUMN, as the YAML readers' do.
+    if (ext == "csv") return read_measurement_csv(text, path);
+    if (ext == "ts") return read_touchstone(text, path, 0);
     if (ext.size() >= 3 && ext.front() == 's' && ext.back() == 'p') {
         const std::string digits = ext.substr(1, ext.size() - 2);
         if (!digits.empty() && digits.size() <= 2 && digits.find_first_not_of("0123456789") == std::string::npos) {
-            return read_touchstone(text, name, std::stoi(digits));
+            return read_touchstone(text, path, std::stoi(digits));
         }
     }
     throw InputError("measurement", libcoil::quoted(name) + ": expected a .s1p, .s2p, .ts or .csv file");

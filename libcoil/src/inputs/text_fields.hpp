@@ -20,7 +20,7 @@ struct Field {
 };
 
 [[noreturn]] inline void fail_at(std::string_view file, int line, int column, const std::string& what) {
-    throw InputError(std::string(file) + " line " + std::to_string(line) + ", column " + std::to_string(column), what);
+    throw InputError(std::string(file) + ":" + std::to_string(line) + ":" + std::to_string(column), what);
 }
 
 inline std::string lower(std::string_view s) {

@@ -10,14 +10,6 @@
 
 namespace libcoil {
 
-namespace {
-
-std::string mm(double v) { return format_quantity(v, Dimension::length); }
-
-constexpr double solid_radius_floor = 0.5e-3;  // a bore narrower than this is left solid
-
-}  // namespace
-
 double FormerGeometry::groove_surface(double u) const {
     const double x = std::fabs(u);
     if (x >= half_width) return outer_radius;
@@ -30,6 +22,10 @@ double FormerGeometry::groove_surface(double u) const {
 }
 
 namespace {
+
+std::string mm(double v) { return format_quantity(v, Dimension::length); }
+
+constexpr double solid_radius_floor = 0.5e-3;  // a bore narrower than this is left solid
 
 // integral from u1 to u2 (0 <= u1 <= u2 <= half width) of (R_o^2 - g(u)^2) / 2 du: the removed share of
 // r dr du in one groove's meridional section.
@@ -102,6 +98,10 @@ FormerGeometry former_geometry(const CoilSpec& spec, const FormerOptions& o) {
         throw InputError("kind", "ribbed needs ribs and rib_width when the spec's former is not ribbed");
     }
     if (o.kind) f.kind = *o.kind;
+    if (f.kind != FormerKind::ribbed && (o.ribs || o.rib_width)) {
+        throw InputError(o.ribs ? "ribs" : "rib_width", "applies to a ribbed former only; this one is a grooved tube (choose the ribbed kind)");
+    }
+    if (o.ribs && *o.ribs < 3) throw InputError("ribs", std::to_string(*o.ribs) + "; a ribbed former needs 3 ribs or more");
     if (o.ribs) f.ribs = *o.ribs;
     if (o.rib_width) f.rib_width = require_positive("rib_width", *o.rib_width);
     if (o.profile) f.groove.profile = *o.profile;

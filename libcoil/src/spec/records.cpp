@@ -21,4 +21,21 @@ void validate_band(const BandSpec& b) {
     if (b.min_impedance) require_positive("band.min_impedance", *b.min_impedance);
 }
 
+void validate_tolerances(const BuildTolerances& t, const Solenoid& coil) {
+    // A build tolerance is a small share of what it scatters; past a quarter of the nominal the normal law's
+    // tails (and the samples drawn from it) mean nothing: common practice, no source.
+    const auto plausible = [](const char* field, double sd, double nominal, std::string (*say)(double)) {
+        require_non_negative(field, sd);
+        if (sd > nominal / 4) {
+            const std::string told = say(sd), whole = say(nominal);
+            throw InputError(field, told + " is more than a quarter of the nominal " + whole + "; expected a build tolerance (one standard deviation)");
+        }
+    };
+    const auto length = [](double v) { return format_quantity(v, Dimension::length); };
+    plausible("tolerances.form_diameter", t.form_diameter, coil.form_diameter(), length);
+    plausible("tolerances.pitch", t.pitch, coil.pitch(), length);
+    plausible("tolerances.wire_diameter", t.wire_diameter, 1.0, [](double v) { return format_value(100 * v) + " %"; });
+    plausible("tolerances.turns", t.turns, coil.turns(), [](double v) { return format_value(v) + " turns"; });
+}
+
 }  // namespace libcoil

@@ -123,9 +123,9 @@ Requirement read_requirement(const YAML::Node& root, const std::filesystem::path
         q.notes.push_back("no operating.ambient given: 25 degC still air assumed");
     }
     // The same bounds as a coil spec's operating section (spec.cpp): 10 kA, 100 GHz, 1000 degC.
-    if (q.current > 10e3) throw InputError(op.path_of("current"), "\"" + op.text("current") + "\" is beyond 10 kA, which no single-layer air coil carries");
-    if (q.current_frequency && *q.current_frequency > 100e9) throw InputError(op.path_of("frequency"), "\"" + op.text("frequency") + "\" is beyond 100 GHz");
-    if (q.ambient > 1273.15) throw InputError(op.path_of("ambient"), "\"" + op.text("ambient") + "\" is beyond 1000 degC");
+    if (q.current > max_model_current) throw InputError(op.path_of("current"), "\"" + op.text("current") + "\" is beyond 10 kA, which no single-layer air coil carries");
+    if (q.current_frequency && *q.current_frequency > max_model_frequency) throw InputError(op.path_of("frequency"), "\"" + op.text("frequency") + "\" is beyond 100 GHz");
+    if (q.ambient > max_model_temperature) throw InputError(op.path_of("ambient"), "\"" + op.text("ambient") + "\" is beyond 1000 degC");
     if (op.has("supply_voltage")) q.supply_voltage = std::fabs(op.quantity("supply_voltage", Dimension::voltage));
     if (op.has("rf_power")) q.rf_power = op.non_negative_quantity("rf_power", Dimension::power);
 

@@ -32,21 +32,19 @@ Wire read_wire(const detail::YamlMap& w, std::vector<std::string>& notes) {
     return make_wire(c, w.path_of(""));
 }
 
-// Bounds beyond which no model of the library means anything (common practice, no source): frequencies to
-// 100 GHz, temperatures to 1000 degC (past every enamel, short of copper's melting at 1085 degC), currents
-// to 10 kA.
+// The bounds beyond which no model of the library means anything (core/error.hpp), said in the spec's words.
 void check_operating_bounds(const detail::YamlMap& m, const Operating& op) {
     const auto bound = [&](const std::string& field, const std::string& text, double v, double limit, const char* what) {
         if (v > limit) throw InputError(field, "\"" + text + "\" is beyond " + what);
     };
     for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
-        bound(m.path_of("frequencies") + "[" + std::to_string(i) + "]", format_quantity(op.frequencies[i], Dimension::frequency), op.frequencies[i], 100e9,
+        bound(m.path_of("frequencies") + "[" + std::to_string(i) + "]", format_value(op.frequencies[i]) + " Hz", op.frequencies[i], max_model_frequency,
               "100 GHz, where no model of a wound coil holds");
     }
-    if (m.has("current_frequency")) bound(m.path_of("current_frequency"), m.text("current_frequency"), *op.current_frequency, 100e9, "100 GHz");
-    if (m.has("current")) bound(m.path_of("current"), m.text("current"), op.current, 10e3, "10 kA, which no single-layer air coil carries");
+    if (m.has("current_frequency")) bound(m.path_of("current_frequency"), m.text("current_frequency"), *op.current_frequency, max_model_frequency, "100 GHz");
+    if (m.has("current")) bound(m.path_of("current"), m.text("current"), op.current, max_model_current, "10 kA, which no single-layer air coil carries");
     for (const char* k : {"temperature", "ambient"}) {
-        if (m.has(k)) bound(m.path_of(k), m.text(k), k[0] == 't' ? op.temperature : op.ambient, 1273.15, "1000 degC (copper melts at 1085 degC)");
+        if (m.has(k)) bound(m.path_of(k), m.text(k), k[0] == 't' ? op.temperature : op.ambient, max_model_temperature, "1000 degC (copper melts at 1085 degC)");
     }
 }
 
@@ -55,19 +53,33 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
     Operating op;
     if (m.has("frequencies")) {
         op.frequencies = m.quantity_list("frequencies", Dimension::frequency);
+        // Each operating frequency runs the loss solver (seconds apiece for the cross-section solver); a
+        // frequency response is the sweep's work.
+        if (op.frequencies.size() > max_operating_frequencies) {
+            throw InputError(m.path_of("frequencies"), std::to_string(op.frequencies.size()) + " frequencies; expected at most " +
+                                                           std::to_string(max_operating_frequencies) + " (a sweep gives the response over a range)");
+        }
         for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
-            if (op.frequencies[i] < 0) {
-                throw InputError(m.path_of("frequencies") + "[" + std::to_string(i) + "]", "must not be negative");
+            if (!(op.frequencies[i] > 0)) {
+                throw InputError(m.path_of("frequencies") + "[" + std::to_string(i) + "]",
+                                 "\"" + (op.frequencies[i] == 0 ? "0 Hz" : format_quantity(op.frequencies[i], Dimension::frequency)) +
+                                     "\" must be greater than zero (the DC resistance is reported anyway)");
             }
         }
     }
     if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);
     if (m.has("current_frequency")) op.current_frequency = m.non_negative_quantity("current_frequency", Dimension::frequency);
-    if (m.has("ambient")) op.ambient = m.positive_quantity("ambient", Dimension::temperature);
+    // A temperature at or below absolute zero is said so, in the spec's words.
+    const auto above_absolute_zero = [&](const char* key) {
+        const double t = m.quantity(key, Dimension::temperature);
+        if (!(t > 0)) throw InputError(m.path_of(key), "\"" + m.text(key) + "\" is at or below absolute zero");
+        return t;
+    };
+    if (m.has("ambient")) op.ambient = above_absolute_zero("ambient");
     if (m.has("supply_voltage")) op.supply_voltage = m.non_negative_quantity("supply_voltage", Dimension::voltage);
     if (m.has("rf_power")) op.rf_power = m.non_negative_quantity("rf_power", Dimension::power);
     if (m.has("temperature")) {
-        op.temperature = m.positive_quantity("temperature", Dimension::temperature);
+        op.temperature = above_absolute_zero("temperature");
         op.temperature_given = true;
     }
     check_operating_bounds(m, op);
@@ -151,6 +163,7 @@ CoilSpec read_spec(const YAML::Node& root, const std::filesystem::path& base) {
         if (top.has("band")) spec.band = detail::read_band(top.map("band"));
         if (top.has("tolerances")) {
             spec.tolerances = detail::read_tolerances(top.map("tolerances"));
+            validate_tolerances(spec.tolerances, spec.solenoid);
             spec.tolerances_given = true;
         }
         if (top.has("limits")) {

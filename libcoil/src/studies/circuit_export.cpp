@@ -33,6 +33,7 @@ CircuitExport circuit_export(const Analysis& a, const CircuitExportRequest& q) {
     out.from = q.from.value_or(a.self_resonance_as_mounted / 1000);
     out.to = q.to.value_or(2.5 * a.self_resonance_as_mounted);
     require_positive("from", out.from);
+    require_frequency("to", out.to);
     if (!(out.to > out.from)) throw InputError("to", format_quantity(out.to, Dimension::frequency) + " is not above from");
     if (q.points < 20 || q.points > 5000) throw InputError("points", std::to_string(q.points) + "; expected 20 .. 5000");
     if (q.order && (*q.order < 1 || *q.order > 30)) throw InputError("order", std::to_string(*q.order) + " pole pairs; expected 1 .. 30");

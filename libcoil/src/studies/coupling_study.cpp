@@ -60,10 +60,12 @@ CouplingStudy study_coupling(const CoilSpec& a, const CoilSpec& b, Arrangement a
         frequencies.insert(frequencies.end(), b.operating.frequencies.begin(), b.operating.frequencies.end());
         std::sort(frequencies.begin(), frequencies.end());
         frequencies.erase(std::unique(frequencies.begin(), frequencies.end()), frequencies.end());
-        frequencies.erase(std::remove_if(frequencies.begin(), frequencies.end(), [](double f) { return !(f > 0); }), frequencies.end());
         if (frequencies.empty()) s.notes.push_back("no frequency given, nor operating.frequencies in a spec: no crosstalk figures");
+    } else if (frequencies.size() > max_operating_frequencies) {  // each one runs both coils' loss solvers
+        throw InputError("frequencies", std::to_string(frequencies.size()) + " frequencies; expected at most " +
+                                            std::to_string(max_operating_frequencies));
     }
-    for (double f : frequencies) require_positive("frequencies", f);
+    for (double f : frequencies) require_frequency("frequencies", f);
     const Analysis ma = mounted(a, frequencies), mb = mounted(b, frequencies);
     const CoilImpedance za = coil_impedance(ma), zb = coil_impedance(mb);
     s.mounted_inductance_a = za.nominal_inductance();

@@ -31,8 +31,8 @@ std::optional<double> rising_zero(const std::vector<double>& f, const std::vecto
 }
 
 void check_fixture(const Fixture& fx, MeasurementArrangement arrangement, double z0) {
-    require_finite("fixture.series_inductance", fx.series_inductance);
-    require_non_negative("fixture.shunt_capacitance", fx.shunt_capacitance);
+    require_non_negative("fixture_inductance", fx.series_inductance);
+    require_non_negative("fixture_capacitance", fx.shunt_capacitance);
     if (!fx.network) return;
     const NetworkData& x = *fx.network;
     if (arrangement != MeasurementArrangement::reflection) {

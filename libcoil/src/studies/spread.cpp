@@ -65,12 +65,9 @@ Spread tolerance_spread(const Solenoid& coil, double target, double tolerance, c
                         std::uint64_t seed) {
     require_positive("target", target);
     require_positive("tolerance", tolerance);
-    require_non_negative("tolerances.form_diameter", t.form_diameter);
-    require_non_negative("tolerances.pitch", t.pitch);
-    require_non_negative("tolerances.wire_diameter", t.wire_diameter);
-    require_non_negative("tolerances.turns", t.turns);
     if (samples < 10 || samples > 10'000'000) throw InputError("samples", std::to_string(samples) + "; expected 10 .. 10000000");
     const Inputs nominal{coil.form_diameter(), coil.pitch(), coil.wire().bare_diameter, coil.turns()};
+    validate_tolerances(t, coil);
     const Figures f0 = evaluate(coil, nominal, former, surroundings);
 
     Spread out;
@@ -98,6 +95,10 @@ Spread tolerance_spread(const Solenoid& coil, double target, double tolerance, c
         }
     }
     out.samples = ls.size();
+    if (ls.empty()) {
+        throw InputError("tolerances", "every one of the " + std::to_string(samples) +
+                                           " samples was left out (overlapping turns and the like); expected tolerances the coil can be built to");
+    }
     out.inductance = statistics(ls, f0.inductance);
     out.self_resonance = statistics(fs, f0.self_resonance);
     out.within_tolerance = ls.empty() ? 0 : static_cast<double>(within) / static_cast<double>(ls.size());

@@ -15,7 +15,7 @@ std::vector<double> frequency_grid(double from, double to, int points, Spacing s
         const char *from = "from", *to = "to", *points = "points";
     } n;
     require_non_negative(n.from, from);
-    require_positive(n.to, to);
+    require_frequency(n.to, to);
     if (!(to > from)) {
         throw InputError(n.to, format_quantity(to, Dimension::frequency) + " is not above the first frequency (" +
                                    format_quantity(from, Dimension::frequency) + ")");
@@ -54,6 +54,7 @@ Sweep sweep_study(const Analysis& a, const SweepRequest& q) {
         if (f.size() > 10000000) throw InputError("frequencies", std::to_string(f.size()) + " frequencies; expected at most 10000000");
         for (std::size_t i = 0; i < f.size(); ++i) {
             require_non_negative("frequencies", f[i]);
+            if (f[i] > 0) require_frequency("frequencies", f[i]);
             if (i > 0 && !(f[i] > f[i - 1])) throw InputError("frequencies", "not in ascending order at index " + std::to_string(i));
         }
     }

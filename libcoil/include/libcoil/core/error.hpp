@@ -66,6 +66,17 @@ inline double require_at_least(std::string_view field, double value, double mini
     if (value < minimum) detail::throw_below(field, value, minimum, why);
     return value;
 }
+// The bounds past which no model of the library means anything (common practice, no source): frequencies to
+// 100 GHz, wire temperatures to 1000 degC (past every enamel, short of copper's melting at 1085 degC),
+// currents to 10 kA.
+inline constexpr double max_model_frequency = 100e9;     // Hz
+inline constexpr double max_model_temperature = 1273.15;  // K
+inline constexpr double max_model_current = 10e3;        // A
+// Finite, above zero and within max_model_frequency; InputError naming `field` otherwise.
+double require_frequency(std::string_view field, double hz);
+// Finite, above absolute zero and within max_model_temperature; InputError naming `field` otherwise.
+double require_temperature(std::string_view field, double kelvin);
+
 // A model's result must be finite: inputs that are each valid can still overflow (a 1e200 m coil).
 // Throws DomainError naming the model when it is not.
 inline double finite_result(std::string_view model, double value) {

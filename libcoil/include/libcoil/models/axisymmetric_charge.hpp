@@ -56,7 +56,7 @@ using Circle = std::optional<std::array<double, 3>>;
 struct DielectricBody {
     Outline outline;
     double relative_permittivity = 1;  // inside; outside is the scene's background
-    Circle circle;
+    Circle circle{};
 };
 
 struct ConductorBody {
@@ -64,7 +64,7 @@ struct ConductorBody {
     bool closed = true;   // false: an open sheet (a thin shield's wall), its two faces' charge together
     int group = -1;       // conductors of one group share a potential; -1: grounded
     double embedding_permittivity = 0;  // the dielectric touching its surface (0: the background)
-    Circle circle;
+    Circle circle{};
 };
 
 struct ChargeScene {

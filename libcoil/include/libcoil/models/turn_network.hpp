@@ -76,7 +76,7 @@ struct TurnNetworkOptions {
     // diameter inwards, `former_ends` longer than the winding at each end; ribs as a tube of their
     // circumference-averaged permittivity 1 + (eps - 1) x fill (an equivalent). Its polarisation charge by
     // axisymmetric_charge.hpp.
-    FormerDielectric former;
+    FormerDielectric former{};
     double former_ends = 5e-3;        // m
     TurnCapacitance capacitance = TurnCapacitance::near_field_corrected;
     double enamel_permittivity = 3.5; // wire_surface only (polyurethane or polyester-imide enamel, from memory)
@@ -85,7 +85,7 @@ struct TurnNetworkOptions {
     // A coaxial shield: its wall (and end discs) a grounded conductor for the capacitances, and the
     // perfect conductor's change to the partial inductances (shield.hpp). With a shield, one end grounded
     // means one end to the shield: the shield is the ground, no plane.
-    std::optional<ShieldSpec> shield;
+    std::optional<ShieldSpec> shield{};
 };
 
 class TurnNetwork {

@@ -13,6 +13,9 @@
 
 namespace libcoil {
 
+// The most operating frequencies a spec may list: each one runs the loss solver.
+inline constexpr std::size_t max_operating_frequencies = 100;
+
 // Where and how the coil runs.
 struct Operating {
     std::vector<double> frequencies;  // Hz
@@ -105,6 +108,9 @@ struct BuildTolerances {
     double wire_diameter = 0.005;   // fraction of the bare diameter
     double turns = 0.1;             // turns
 };
+
+// Each deviation finite, not negative and at most a quarter of its nominal; InputError naming the field.
+void validate_tolerances(const BuildTolerances& t, const Solenoid& coil);
 
 // The SRF margin applied when a band names no criterion: common practice, no source.
 inline constexpr double default_srf_margin = 2.0;
