@@ -188,6 +188,10 @@ void bind_studies(py::module_& m) {
             source = py::str(py::module_::import("os").attr("fspath")(measurement));
             m = libcoil::measured_impedance(libcoil::read_network_file(source), how, fx);
         } else {  // a read_measurement record (or anything with frequency, impedance and weight)
+            if (!py::hasattr(measurement, "frequency") || !py::hasattr(measurement, "impedance")) {
+                throw py::type_error("measurement: expected a path or a read_measurement() record (frequency, impedance), got " +
+                                     std::string(py::str(py::type::of(measurement).attr("__name__"))));
+            }
             m.frequency = measurement.attr("frequency").cast<std::vector<double>>();
             m.impedance = measurement.attr("impedance").cast<std::vector<std::complex<double>>>();
             m.weight = py::hasattr(measurement, "weight") ? measurement.attr("weight").cast<std::vector<double>>()
@@ -223,6 +227,9 @@ void bind_studies(py::module_& m) {
                         std::optional<double> to, std::optional<int> points) {
         libcoil::FixtureSpec fx = [&] {
             if (py::hasattr(fixture, "__fspath__")) return libcoil::load_fixture(py::str(py::module_::import("os").attr("fspath")(fixture)).cast<std::string>());
+            if (!py::isinstance<py::str>(fixture)) {
+                throw py::type_error("fixture: expected a path or the fixture's YAML text, got " + std::string(py::str(py::type::of(fixture).attr("__name__"))));
+            }
             const std::string text = fixture.cast<std::string>();
             if (text.find('\n') == std::string::npos && text.find(':') == std::string::npos) return libcoil::load_fixture(text);
             return libcoil::parse_fixture(text, "fixture");

@@ -221,3 +221,14 @@ def test_a_comma_inside_a_flow_a_quote_or_an_indented_line_reaches_the_parser(te
     # The check above refuses only what yaml-cpp loops on: these are read (and then refused for the unknown key).
     with pytest.raises(libcoil.InputError, match="unknown key"):
         libcoil.parse_coil_spec(text, "python")
+
+
+def test_python_studies_name_a_wrong_argument_instead_of_failing_inside():
+    # Found by a sweep of every function over odd arguments: compare() with a spec for the measurement raised
+    # AttributeError, fixture() with a spec or a number raised pybind11's RuntimeError.
+    s = libcoil.load_coil_spec(libcoil_source() / SPEC)
+    with pytest.raises(TypeError, match="measurement"):
+        libcoil.compare(s, s)
+    for wrong in (s, 1.0, None):
+        with pytest.raises(TypeError, match="fixture"):
+            libcoil.fixture(wrong)
