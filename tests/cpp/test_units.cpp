@@ -70,3 +70,17 @@ TEST(Units, EngineeringFormat) {
     EXPECT_EQ(libcoil::format_quantity(298.15, Dimension::temperature), "25 \u00b0C");
     EXPECT_EQ(libcoil::format_quantity(0.0, Dimension::length), "0.000 m");
 }
+
+TEST(Units, QuotedTextIsPrintableUtf8) {
+    // A message quotes the user's text: control bytes and bytes that are not UTF-8 escaped (a byte 0xff from a
+    // measurement file reached the terminal raw and left Python's InputError empty), UTF-8 kept, 60 characters.
+    const auto quoted = [](std::string_view t) { return libcoil::quoted(t); };  // not std::quoted, which ADL finds
+    EXPECT_EQ(quoted("2 mm"), "\"2 mm\"");
+    EXPECT_EQ(quoted("a\x1b[31m"), "\"a\\x1b[31m\"");
+    EXPECT_EQ(quoted("2\xff"), "\"2\\xff\"");
+    EXPECT_EQ(quoted("\xc3("), "\"\\xc3(\"");              // a cut two-byte sequence
+    EXPECT_EQ(quoted("\xed\xa0\x80"), "\"\\xed\\xa0\\x80\"");  // a surrogate
+    EXPECT_EQ(quoted("20 \xc2\xb5H"), "\"20 \xc2\xb5H\"");    // µ kept
+    EXPECT_EQ(quoted(std::string(70, 'x')), "\"" + std::string(60, 'x') + "...\"");
+    EXPECT_EQ(quoted(std::string(70, '\xff')).size(), 2 + 60 * 4 + 3);
+}

@@ -232,3 +232,13 @@ def test_python_studies_name_a_wrong_argument_instead_of_failing_inside():
     for wrong in (s, 1.0, None):
         with pytest.raises(TypeError, match="fixture"):
             libcoil.fixture(wrong)
+
+
+def test_bytes_that_are_not_utf8_are_escaped_in_messages(run_coil, source_dir, tmp_path):
+    # Found in this review: a measurement value holding a byte that is not UTF-8 reached the terminal
+    # raw, and the Python InputError's message came out empty (it could not be decoded).
+    path = tmp_path / "v.s1p"
+    path.write_bytes(b"# Hz Z RI R 50\n1e6 1 2\xff\n")
+    expect_error(run_coil("compare", source_dir / SPEC, path), "v.s1p:2:7", '"2\\xff"')
+    with pytest.raises(libcoil.InputError, match=r'"2\\xff"'):
+        libcoil.read_measurement(str(path))

@@ -3,6 +3,8 @@
 #include <cmath>
 #include <cstdio>
 
+#include "core/utf8.hpp"
+
 namespace libcoil {
 
 namespace {
@@ -31,24 +33,25 @@ std::string format_value(double value) {
 }
 
 std::string quoted(std::string_view text) {
-    constexpr std::size_t longest = 60;
+    constexpr std::size_t longest = 60;  // characters
     std::string o = "\"";
     std::size_t shown = 0;
-    for (const char ch : text) {
-        const auto u = static_cast<unsigned char>(ch);
-        const bool continuation = (u & 0xC0) == 0x80;  // within a UTF-8 character
-        if (shown == longest && !continuation) {
+    for (std::size_t i = 0; i < text.size(); ++shown) {
+        if (shown == longest) {
             o += "...";
             break;
         }
-        if (u < 0x20 || u == 0x7f) {
+        const auto u = static_cast<unsigned char>(text[i]);
+        const std::size_t n = detail::utf8_length(text, i);
+        if (n == 0 || u < 0x20 || u == 0x7f) {  // control bytes and bytes that are not UTF-8, escaped
             char buf[8];
             std::snprintf(buf, sizeof buf, "\\x%02x", u);
             o += buf;
+            ++i;
         } else {
-            o += ch;
+            o.append(text.substr(i, n));
+            i += n;
         }
-        if (!continuation) ++shown;
     }
     return o + "\"";
 }

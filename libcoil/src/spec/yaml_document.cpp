@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "libcoil/core/error.hpp"
+#include "core/utf8.hpp"
 #include "spec/spec_sections.hpp"
 
 namespace libcoil::detail {
@@ -43,20 +44,9 @@ void check_text(std::string_view text, std::string_view source) {
             ++i;
             continue;
         }
-        const int n = c >= 0xf0 && c <= 0xf4 ? 3 : c >= 0xe0 ? 2 : c >= 0xc2 && c <= 0xdf ? 1 : -1;
-        // n continuation bytes 10xxxxxx must follow
-        bool ok = n > 0 && i + static_cast<std::size_t>(n) < text.size();
-        for (int k = 1; ok && k <= n; ++k) ok = (static_cast<unsigned char>(text[i + static_cast<std::size_t>(k)]) & 0xc0) == 0x80;
-        if (ok && n == 2) {  // three-byte forms: no overlong ones, no surrogates
-            const auto c1 = static_cast<unsigned char>(text[i + 1]);
-            ok = !(c == 0xe0 && c1 < 0xa0) && !(c == 0xed && c1 >= 0xa0);
-        }
-        if (ok && n == 3) {  // four-byte forms: no overlong ones, nothing past U+10FFFF
-            const auto c1 = static_cast<unsigned char>(text[i + 1]);
-            ok = !(c == 0xf0 && c1 < 0x90) && !(c == 0xf4 && c1 >= 0x90);
-        }
-        if (!ok) throw InputError(place(text, i, source), "not valid UTF-8 (byte " + std::to_string(c) + "); save the file as UTF-8");
-        i += static_cast<std::size_t>(n) + 1;
+        const std::size_t n = utf8_length(text, i);
+        if (n == 0) throw InputError(place(text, i, source), "not valid UTF-8 (byte " + std::to_string(c) + "); save the file as UTF-8");
+        i += n;
     }
 }
 

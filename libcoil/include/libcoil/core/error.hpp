@@ -36,7 +36,8 @@ public:
 
 // Formats a double for messages with up to 6 significant digits ("nan", "inf" spelled out).
 std::string format_value(double value);
-// The user's text for a message, in double quotes: control bytes escaped (\x1b), cut to 60 characters.
+// The user's text for a message, in double quotes: control bytes and bytes that are not UTF-8 escaped
+// (\x1b, \xff), cut to 60 characters.
 std::string quoted(std::string_view text);
 
 namespace detail {
