@@ -65,13 +65,17 @@ def test_a_kill_at_any_moment_leaves_the_whole_set_or_nothing(source_dir, tmp_pa
     coil = os.environ.get("LIBCOIL_COIL", str(source_dir / "build/bin/coil"))
     args, names = verbs(source_dir)[verb]
     reference = tmp_path / "reference"
-    t0 = time.monotonic()
+    took = []
+    for i in range(3):  # as the kills will see it: a started process to its end, on this machine now
+        t0 = time.monotonic()
+        subprocess.run([coil, *fill(args, tmp_path / f"timing-{i}")], check=True, capture_output=True)
+        took.append(time.monotonic() - t0)
+    took = sorted(took)[1]
     subprocess.run([coil, *fill(args, reference)], check=True, capture_output=True)
-    took = time.monotonic() - t0
     whole = {n: (reference / n).read_bytes() for n in names}
     rng = random.Random(21)
     # Into a new directory: the set appears all at once or not at all.
-    delays = [rng.uniform(0, 1.2 * took) for _ in range(20)]
+    delays = [rng.uniform(0, 2 * took) for _ in range(20)]
     finished = 0
     for i, _ in enumerate(kill_at_random([coil, *fill(args, tmp_path / "new")], delays, tmp_path)):
         out = tmp_path / "new"
@@ -94,7 +98,7 @@ def test_a_kill_at_any_moment_leaves_the_whole_set_or_nothing(source_dir, tmp_pa
     subprocess.run([coil, *fill(args, tmp_path / "new")], check=True, capture_output=True)
     assert sorted(p.name for p in out.iterdir()) == sorted(names)
     assert not [p for p in tmp_path.iterdir() if ".tmp." in p.name]
-    assert 0 < finished < len(delays) or took < 0.05  # the kills fell both before and after the end
+    assert finished < len(delays), (finished, took)  # kills fell before the end, not only after it
 
 
 def test_two_runs_into_one_directory_each_land_whole(source_dir, tmp_path):
