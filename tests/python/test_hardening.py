@@ -242,3 +242,14 @@ def test_bytes_that_are_not_utf8_are_escaped_in_messages(run_coil, source_dir, t
     expect_error(run_coil("compare", source_dir / SPEC, path), "v.s1p:2:7", '"2\\xff"')
     with pytest.raises(libcoil.InputError, match=r'"2\\xff"'):
         libcoil.read_measurement(str(path))
+
+
+@pytest.mark.parametrize("escaped", ["a\\e[31mred", "a\\x1b", "\\x7f", "a\\x00b"])
+def test_a_control_character_written_as_a_yaml_escape_is_refused(run_coil, source_dir, tmp_path, escaped):
+    # Found by tests/fuzz (fuzz_spec): "\e" in a quoted name passed the raw text's check, reached the spec's
+    # write-back (which then did not read back) and would reach a terminal.
+    path = tmp_path / "s.yaml"
+    path.write_text(f'name: "{escaped}"\n' + body(source_dir))
+    expect_error(run_coil("analyze", path), "name: a control character")
+    with pytest.raises(libcoil.InputError, match="control character"):
+        libcoil.parse_coil_spec(path.read_text())
