@@ -155,7 +155,8 @@ def test_a_former_of_very_many_turns_is_refused_before_meshing(run_coil, source_
 
 @pytest.mark.parametrize("args,words", [
     (["wire", "--diameter", "1 km"], ["--diameter", "beyond 20 mm"]),  # it blamed --enamel
-    (["wire", "--gauge", "AWG 18", "--temperature", "-300 degC"], ["--temperature", "degC", "absolute zero"]),  # it said -26.85
+    (["wire", "--gauge", "AWG 18", "--temperature", "-300 degC"], ["--temperature: at or below absolute zero: -26.85 K (-300 degC)"]),  # it said -26.85 alone
+    (["wire", "--gauge", "AWG 18", "--temperature", "5000 degC"], ["--temperature: beyond 1000 degC (copper melts at 1085 degC): 5273.15 K (5000 degC)"]),
 ])
 def test_messages_name_what_the_user_typed(run_coil, args, words):
     expect_error(run_coil(*args), *words)

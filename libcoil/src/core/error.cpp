@@ -1,5 +1,7 @@
 #include "libcoil/core/error.hpp"
 
+#include "libcoil/core/constants.hpp"
+
 #include <cmath>
 #include <cstdio>
 
@@ -83,11 +85,11 @@ double require_frequency(std::string_view field, double hz) {
 double require_temperature(std::string_view field, double kelvin) {
     require_finite(field, kelvin);
     if (!(kelvin > 0)) {
-        throw InputError(std::string(field), format_value(kelvin) + " K (" + format_value(kelvin - 273.15) + " degC) is at or below absolute zero");
+        throw InputError(std::string(field), "at or below absolute zero: " + format_value(kelvin) + " K (" + format_value(kelvin - zero_celsius) + " degC)");
     }
     if (kelvin > max_model_temperature) {
-        throw InputError(std::string(field), format_value(kelvin) + " K (" + format_value(kelvin - 273.15) +
-                                                 " degC) is beyond 1000 degC (copper melts at 1085 degC)");
+        throw InputError(std::string(field), "beyond 1000 degC (copper melts at 1085 degC): " + format_value(kelvin) + " K (" +
+                                                 format_value(kelvin - zero_celsius) + " degC)");
     }
     return kelvin;
 }

@@ -23,11 +23,7 @@
 namespace libcoil {
 
 double Conductor::resistivity_at(double temperature_kelvin) const {
-    require_finite("temperature", temperature_kelvin);
-    if (!(temperature_kelvin > 0)) {
-        throw InputError("temperature", format_value(temperature_kelvin) + " K (" + format_value(temperature_kelvin - zero_celsius) +
-                                            " degC) is at or below absolute zero");
-    }
+    require_temperature("temperature", temperature_kelvin);
     const double rho = resistivity_20 * (1 + temperature_coefficient * (temperature_kelvin - (zero_celsius + 20)));
     if (!(rho > 0)) {
         throw InputError("temperature", format_value(temperature_kelvin - zero_celsius) +

@@ -62,8 +62,7 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
         for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
             if (!(op.frequencies[i] > 0)) {
                 throw InputError(m.path_of("frequencies") + "[" + std::to_string(i) + "]",
-                                 "\"" + (op.frequencies[i] == 0 ? "0 Hz" : format_quantity(op.frequencies[i], Dimension::frequency)) +
-                                     "\" must be greater than zero (the DC resistance is reported anyway)");
+                                 "\"" + format_value(op.frequencies[i]) + " Hz\" must be greater than zero (the DC resistance is reported anyway)");
             }
         }
     }
