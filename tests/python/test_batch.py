@@ -92,6 +92,11 @@ def test_broadcasting_and_shapes():
     one = libcoil.evaluate(20e-3, 10, 2e-3, 1e-3, frequency=1e6)
     assert np.ndim(one["inductance"]) == 0
     assert r["inductance"][1, 1] == one["inductance"]
+    # The figures share one block of memory, each its own row: writing one leaves the others.
+    resistance = r["resistance"].copy()
+    r["q_factor"][...] = -1
+    assert np.array_equal(r["resistance"], resistance) and np.all(r["inductance"] > 0)
+    assert all(r[k].flags["C_CONTIGUOUS"] and r[k].flags["WRITEABLE"] for k in ("inductance", "resistance", "self_resonance"))
     # A conductor per element, by name.
     both = libcoil.evaluate(20e-3, 10, 2e-3, 1e-3, frequency=1e6, conductor=["copper", "aluminium"])
     assert both["dc_resistance"][1] > 1.5 * both["dc_resistance"][0]
