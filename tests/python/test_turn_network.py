@@ -126,8 +126,14 @@ def test_network_sweep_holds_the_shield(source_dir):
     assert a.shield.by_network
     f = np.linspace(0.8 * a.shield.self_resonance, 1.2 * a.shield.self_resonance, 4001)
     s = libcoil.sweep(a, f, model="network")
-    peak = f[np.argmax(np.abs(s.impedance))]
-    assert abs(peak - a.shield.self_resonance) <= f[1] - f[0]
+    # The peak by the parabola through the grid's three highest points. The lossy |Z| peaks a little above
+    # the lossless natural frequency: 1.06e-4 of it here (measured, and the same on a grid ten times finer),
+    # about a step of this grid, so a peak read off the grid alone lands a step away or two.
+    z = np.abs(s.impedance)
+    i = int(np.argmax(z))
+    y0, y1, y2 = z[i - 1], z[i], z[i + 1]
+    peak = f[i] + 0.5 * (y0 - y2) / (y0 - 2 * y1 + y2) * (f[1] - f[0])
+    assert 0 < peak / a.shield.self_resonance - 1 < 2e-4
     low = libcoil.sweep(a, [1e6], model="network")
     assert low.apparent_inductance[0] == pytest.approx(a.shield.inductance, rel=0.03)
 

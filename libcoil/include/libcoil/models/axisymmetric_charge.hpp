@@ -89,6 +89,12 @@ std::vector<double> ring_potential_reaction(const std::vector<ChargeRing>& rings
 // charge on each group with 1 V on one group and 0 on the others (and on every grounded conductor).
 std::vector<double> group_capacitance(const ChargeScene& scene, int groups, int* panels = nullptr);
 
+// The same for a row of `cells` equal cells in free space: the cell's bodies (its conductors all of group
+// 0) repeated `period` apart along the axis, cell k's conductors group k. A block of the system depends only
+// on the offset between its two cells, so 2 cells - 1 blocks are integrated instead of cells^2 (the turn
+// network's near-field section: 13 of 49).
+std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cells, double period, int* panels = nullptr);
+
 // Outlines for the common bodies, counter-clockwise. A tube from z0 to z1 between the radii (inner 0: a
 // solid rod), and a circle (a wire's cross-section) of `sides` straight sides, finer where `refine_near`
 // points (other wires' centres with their radii) come close.
