@@ -106,6 +106,28 @@ def test_broadcasting_and_shapes():
     assert all(np.array_equal(a[k], b[k], equal_nan=True) for k in a)
 
 
+def test_large_outputs_own_their_memory():
+    # From 1 MiB of output the block is mapped apart and, once freed, kept for the next call: an array still
+    # held (a row, or a slice of one) must keep its numbers through later calls, and a reused block must
+    # carry the new call's numbers only.
+    c = random_coils(30000, 5)
+    first = libcoil.evaluate(**c)
+    held_l, held_q = first["inductance"], first["q_factor"][::7]
+    expected_l, expected_q = held_l.copy(), held_q.copy()
+    del first
+    other = dict(c, turns=c["turns"] + 1)
+    for _ in range(3):
+        again = libcoil.evaluate(**other)
+        assert np.array_equal(held_l, expected_l) and np.array_equal(held_q, expected_q)
+        del again
+    del held_l, held_q
+    fresh = libcoil.evaluate(**c, chain="light")
+    reused = libcoil.evaluate(**c, chain="light")  # the block `fresh` did not free is not handed out twice
+    assert np.array_equal(fresh["inductance"], reused["inductance"], equal_nan=True)
+    assert np.array_equal(fresh["status"], reused["status"])
+    assert fresh["inductance"].ctypes.data != reused["inductance"].ctypes.data
+
+
 def test_a_bad_batch_raises():
     with pytest.raises(libcoil.InputError, match="conductor"):
         libcoil.evaluate(20e-3, 10, 2e-3, 1e-3, conductor="unobtainium")
