@@ -158,6 +158,8 @@ TEST(AxisymmetricCharge, PeriodicRowIsTheWholeSceneSolvedOnce) {
     EXPECT_THROW(periodic_group_capacitance(two, cells, pitch), InputError);
     EXPECT_THROW(periodic_group_capacitance(cell, 0, pitch), InputError);
     EXPECT_THROW(periodic_group_capacitance(cell, cells, 0), InputError);
+    EXPECT_THROW(periodic_group_capacitance(cell, cells, 1.9 * coat), InputError);  // the copies would overlap
+    EXPECT_NO_THROW(periodic_group_capacitance(cell, 2, 2 * coat));                  // they may touch
 }
 
 TEST(AxisymmetricCharge, BadInputNamesTheField) {

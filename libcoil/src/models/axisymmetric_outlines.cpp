@@ -1,5 +1,5 @@
-// The outlines of the common bodies for the charge solver (axisymmetric_charge.hpp): a tube, and a wire's
-// circle with its sides refined towards its neighbours.
+// The outlines of the common bodies for the charge solver (axisymmetric_charge.hpp): a tube, a wire's
+// circle with its sides refined towards its neighbours, and whether a point lies inside an outline.
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -40,6 +40,17 @@ Outline circle_outline(double cr, double cz, double radius, int sides, const std
         o.push_back({cr + radius * std::cos(t), cz + radius * std::sin(t)});
     }
     return o;
+}
+
+// Whether (rho, z) lies inside the closed outline (ray casting across the half-plane, the axis closing it).
+bool inside(const Outline& o, double rho, double z) {
+    bool in = false;
+    for (std::size_t i = 0, j = o.size() - 1; i < o.size(); j = i++) {
+        const auto& p = o[i];
+        const auto& q = o[j];
+        if ((p[1] > z) != (q[1] > z) && rho < (q[0] - p[0]) * (z - p[1]) / (q[1] - p[1]) + p[0]) in = !in;
+    }
+    return in;
 }
 
 }  // namespace libcoil

@@ -101,5 +101,7 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
 Outline tube_outline(double inner_radius, double outer_radius, double z0, double z1);
 Outline circle_outline(double centre_rho, double centre_z, double radius, int sides,
                        const std::vector<std::array<double, 3>>& refine_near = {});
+// Whether (rho, z) lies inside the closed outline (ray casting across the half-plane, the axis closing it).
+bool inside(const Outline& outline, double rho, double z);
 
 }  // namespace libcoil
