@@ -9,6 +9,7 @@
 
 #include <cstdint>
 #include <map>
+#include <memory>
 #include <new>
 #include <string>
 #include <utility>
@@ -69,7 +70,15 @@ void output_block(std::size_t n, py::array_t<double>& figures, py::array_t<std::
 #ifdef MADV_HUGEPAGE
     if (bytes >= (std::size_t{1} << 20)) {
         const Mapping m = map_block(bytes);
-        const py::capsule owner(new Mapping(m), release_block);
+        auto held = std::make_unique<Mapping>(m);
+        py::capsule owner;
+        try {
+            owner = py::capsule(held.get(), release_block);
+        } catch (...) {  // no capsule, so nothing will release the block
+            munmap(m.start, m.length);
+            throw;
+        }
+        held.release();  // the capsule's now
         const auto row = static_cast<py::ssize_t>(n * sizeof(double));
         figures = py::array_t<double>({py::ssize_t{5}, static_cast<py::ssize_t>(n)}, {row, py::ssize_t{sizeof(double)}},
                                       reinterpret_cast<double*>(m.data), owner);
