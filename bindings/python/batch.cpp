@@ -5,7 +5,9 @@
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
 
-#include <sys/mman.h>
+#if __has_include(<sys/mman.h>)
+#include <sys/mman.h>  // mmap and MADV_HUGEPAGE where the system has them (output_block)
+#endif
 
 #include <cstdint>
 #include <map>
