@@ -140,12 +140,11 @@ TEST(AxisymmetricCharge, PeriodicRowIsTheWholeSceneSolvedOnce) {
     const auto w = group_capacitance(whole, cells, &p_whole);
     EXPECT_EQ(p_periodic, p_whole);
     for (int i = 0; i < cells * cells; ++i) EXPECT_NEAR(c[i], w[i], 1e-11 * w[0]) << i;
-    // Reciprocal, and mirror-symmetric along the row (turn i to j as turn n-1-i to n-1-j) to the panels'
-    // asymmetry (a circle's panels are not mirror images about its middle: 1.5e-3 on an end turn's own
-    // capacitance, measured).
+    // Mirror-symmetric along the row (turn i to j as turn n-1-i to n-1-j) to the panels' asymmetry (a
+    // circle's panels are not mirror images about its middle: 1.5e-3 on an end turn's own capacitance,
+    // measured). (Reciprocity is no check here: both solvers symmetrise their result.)
     for (int i = 0; i < cells; ++i) {
         for (int j = 0; j < cells; ++j) {
-            EXPECT_EQ(c[i * cells + j], c[j * cells + i]);
             EXPECT_NEAR(c[i * cells + j], c[(cells - 1 - i) * cells + (cells - 1 - j)], 3e-3 * c[0]);
         }
     }

@@ -351,13 +351,14 @@ Panel shifted(Panel p, double dz) {
     return p;
 }
 
-// The free charge on the conductor groups from the panels' solved densities (rows of sigma), symmetrised.
-std::vector<double> charge_matrix(const std::vector<Panel>& panels, const Matrix& sigma, int groups, const std::vector<int>& group_of) {
+// The free charge on the conductor groups (each panel's `group`) from the panels' solved densities (rows of
+// sigma), symmetrised.
+std::vector<double> charge_matrix(const std::vector<Panel>& panels, const Matrix& sigma, int groups) {
     Matrix c = Matrix::Zero(groups, groups);
     for (std::size_t i = 0; i < panels.size(); ++i) {
         const Panel& p = panels[i];
-        if (p.dielectric || group_of[i] < 0) continue;
-        c.row(group_of[i]) += p.charge_scale * piece_integral_area(p) * sigma.row(static_cast<Eigen::Index>(i));
+        if (p.dielectric || p.group < 0) continue;
+        c.row(p.group) += p.charge_scale * piece_integral_area(p) * sigma.row(static_cast<Eigen::Index>(i));
     }
     c = (0.5 * (c + c.transpose())).eval();
     std::vector<double> out(static_cast<std::size_t>(groups * groups));
@@ -433,9 +434,7 @@ std::vector<double> group_capacitance(const ChargeScene& scene, int groups, int*
         if (!seen[static_cast<std::size_t>(g)]) throw InputError("conductors.group", std::to_string(g) + " has no conductor");
     }
     const Matrix sigma = system_matrix(panels, scene.ground_plane).partialPivLu().solve(rhs);
-    std::vector<int> group_of;
-    for (const Panel& p : panels) group_of.push_back(p.group);
-    return charge_matrix(panels, sigma, groups, group_of);
+    return charge_matrix(panels, sigma, groups);
 }
 
 std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cells, double period, int* count) {
@@ -475,19 +474,18 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
         }
         for (int k = std::max(0, -d); k < cells && k + d < cells; ++k) a.block(k * p, (k + d) * p, p, p) = block;
     }
-    std::vector<Panel> panels;
-    std::vector<int> group_of;
+    std::vector<Panel> panels;  // the whole row, cell k's conductors group k
     Matrix rhs = Matrix::Zero(m, cells);
     for (int k = 0; k < cells; ++k) {
-        for (Eigen::Index i = 0; i < p; ++i) {
-            const Panel& q = one[static_cast<std::size_t>(i)];
-            if (!q.dielectric) rhs(k * p + i, k) = 4 * pi * eps0;  // 1 V on cell k
-            panels.push_back(shifted(q, k * period));
-            group_of.push_back(q.dielectric ? -1 : k);
+        for (const Panel& q : one) {
+            Panel& copy = panels.emplace_back(shifted(q, k * period));
+            if (q.dielectric) continue;
+            copy.group = k;
+            rhs(static_cast<Eigen::Index>(panels.size()) - 1, k) = 4 * pi * eps0;  // 1 V on cell k
         }
     }
     const Matrix sigma = a.partialPivLu().solve(rhs);
-    return charge_matrix(panels, sigma, cells, group_of);
+    return charge_matrix(panels, sigma, cells);
 }
 
 }  // namespace libcoil

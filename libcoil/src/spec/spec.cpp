@@ -52,18 +52,12 @@ Operating read_operating(const detail::YamlMap& m, std::vector<std::string>& not
     m.allow_only({"frequencies", "temperature", "current", "current_frequency", "ambient", "supply_voltage", "rf_power"});
     Operating op;
     if (m.has("frequencies")) {
-        op.frequencies = m.quantity_list("frequencies", Dimension::frequency);
+        op.frequencies = m.positive_quantity_list("frequencies", Dimension::frequency, "(the DC resistance is reported anyway)");
         // Each operating frequency runs the loss solver (seconds apiece for the cross-section solver); a
         // frequency response is the sweep's work.
         if (op.frequencies.size() > max_operating_frequencies) {
             throw InputError(m.path_of("frequencies"), std::to_string(op.frequencies.size()) + " frequencies; expected at most " +
                                                            std::to_string(max_operating_frequencies) + " (a sweep gives the response over a range)");
-        }
-        for (std::size_t i = 0; i < op.frequencies.size(); ++i) {
-            if (!(op.frequencies[i] > 0)) {
-                throw InputError(m.path_of("frequencies") + "[" + std::to_string(i) + "]",
-                                 "\"" + format_value(op.frequencies[i]) + " Hz\" must be greater than zero (the DC resistance is reported anyway)");
-            }
         }
     }
     if (m.has("current")) op.current = m.non_negative_quantity("current", Dimension::current);

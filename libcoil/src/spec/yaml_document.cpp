@@ -32,13 +32,17 @@ std::string place(const YAML::Mark& mark, std::string_view source) {
     return where.str();
 }
 
+// A control character a value may not hold: any but tab and line feed (the raw text may also hold carriage
+// returns, which end its lines).
+bool control_character(unsigned char c) { return (c < 0x20 && c != '\t' && c != '\n') || c == 0x7f; }
+
 // The text must be UTF-8 without control characters other than tab, line feed and carriage return: names
 // and descriptions reach reports, JSON and terminals.
 void check_text(std::string_view text, std::string_view source) {
     for (std::size_t i = 0; i < text.size();) {
         const auto c = static_cast<unsigned char>(text[i]);
         if (c < 0x80) {
-            if ((c < 0x20 && c != '\t' && c != '\n' && c != '\r') || c == 0x7f) {
+            if (c != '\r' && control_character(c)) {
                 throw InputError(place(text, i, source), "a control character (byte " + std::to_string(c) + ") in the text; expected printable UTF-8");
             }
             ++i;
@@ -113,7 +117,7 @@ void check_keys(const YAML::Node& node, const std::string& path, int depth) {
         for (std::size_t i = 0; i < v.size();) {
             const auto c = static_cast<unsigned char>(v[i]);
             const std::size_t n = utf8_length(v, i);
-            if (n == 0 || (c < 0x20 && c != '\t' && c != '\n') || c == 0x7f) {
+            if (n == 0 || control_character(c)) {
                 throw InputError(path.empty() ? "spec" : path, "a control character or a byte that is not UTF-8 (byte " + std::to_string(c) +
                                                                    ", from an escape); expected printable text");
             }

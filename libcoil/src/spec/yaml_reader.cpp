@@ -124,6 +124,18 @@ std::optional<std::size_t> YamlMap::optional_choice(std::string_view key,
     throw InputError(path_of(key), "\"" + *t + "\"; expected " + expected);
 }
 
+std::vector<double> YamlMap::positive_quantity_list(std::string_view key, Dimension d, std::string_view why) const {
+    std::vector<double> out = quantity_list(key, d);
+    const YAML::Node n = node_[std::string(key)];
+    for (std::size_t i = 0; i < out.size(); ++i) {
+        if (out[i] > 0) continue;
+        const bool list = n.IsSequence();
+        throw InputError(list ? path_of(key) + "[" + std::to_string(i) + "]" : path_of(key),
+                         "\"" + (list ? n[i].Scalar() : n.Scalar()) + "\" must be greater than zero" + (why.empty() ? "" : " " + std::string(why)));
+    }
+    return out;
+}
+
 double YamlMap::positive_quantity(std::string_view key, Dimension d) const {
     const double v = quantity(key, d);
     if (!(v > 0)) throw InputError(path_of(key), "\"" + text(key) + "\" must be greater than zero");

@@ -38,6 +38,8 @@ public:
     double positive_quantity(std::string_view key, Dimension d) const;
     // A list of quantities (a single value counts as a list of one); errors name the element, key[i].
     std::vector<double> quantity_list(std::string_view key, Dimension d) const;
+    // The same, each > 0; the error quotes the element as written, followed by `why` where given.
+    std::vector<double> positive_quantity_list(std::string_view key, Dimension d, std::string_view why = {}) const;
     double non_negative_quantity(std::string_view key, Dimension d) const;
     // An optional word from a fixed list: its index, or nullopt when the key is absent. Any other word is
     // an InputError listing the choices.
