@@ -4,7 +4,7 @@
 #include <complex>
 #include <vector>
 
-#include "models/elliptic.hpp"
+#include "models/ring_field.hpp"
 #include "libcoil/core/constants.hpp"
 #include "libcoil/models/dc_resistance.hpp"
 #include "libcoil/core/error.hpp"
@@ -18,46 +18,6 @@ namespace libcoil {
 namespace {
 
 using cd = std::complex<double>;
-
-// Field per ampere of a ring of radius b at a point of the same radius, axial distance z != 0
-// (Smythe, "Static and Dynamic Electricity" (1950) 7.10; Jackson 5.37):
-//   H_z = 1 / (2 pi sqrt(4 b^2 + z^2)) [K - E],
-//   H_r = z / (2 pi b sqrt(4 b^2 + z^2)) [-K + (2 b^2 + z^2) / z^2 E],  k^2 = 4 b^2 / (4 b^2 + z^2),
-// for `lanes` spacings z[j] at once (elliptic.hpp: their AGMs interleave).
-template <std::size_t lanes>
-void ring_fields(double b, const double* z, const double* inv_z2, double* hz, double* hr) {
-    // Written to spare divisions, which cost more here than the square roots: two per ring (the caller
-    // gives 1/z^2).
-    const double b2 = b * b, inv_4b2 = 1 / (4 * b2), inv_2pi = 1 / (2 * pi), inv_2pib = inv_2pi / b;
-    double inv_root[lanes], kc[lanes], m[lanes], inv_m[lanes];
-    for (std::size_t j = 0; j < lanes; ++j) {
-        const double s = 4 * b2 + z[j] * z[j];
-        inv_root[j] = 1 / std::sqrt(s);
-        m[j] = 4 * b2 * inv_root[j] * inv_root[j];  // k^2
-        inv_m[j] = s * inv_4b2;
-        kc[j] = z[j] * inv_root[j];  // k'
-    }
-    detail::EllipticPair e[lanes];
-    detail::elliptic_pairs<lanes>(kc, m, e, inv_m);
-    for (std::size_t j = 0; j < lanes; ++j) {
-        const double kme = m[j] * e[j].k_minus_e_over_m;  // K - E
-        const double E = e[j].k - kme;
-        hz[j] = kme * inv_root[j] * inv_2pi;
-        hr[j] = z[j] * inv_root[j] * inv_2pib * (-e[j].k + (1 + 2 * b2 * inv_z2[j]) * E);
-    }
-}
-
-// 1/k^2 for the first offsets, so that the ring fields take 1/z^2 = (1/p^2)(1/k^2) without a division.
-constexpr long reciprocal_squares = 1024;
-struct ReciprocalSquares {
-    double v[reciprocal_squares];
-};
-constexpr ReciprocalSquares make_reciprocal_squares() {
-    ReciprocalSquares r{};
-    for (long k = 1; k < reciprocal_squares; ++k) r.v[k] = 1.0 / (static_cast<double>(k) * static_cast<double>(k));
-    return r;
-}
-constexpr ReciprocalSquares inv_k2 = make_reciprocal_squares();
 
 constexpr double own_field_constant = 1.75;
 
@@ -94,35 +54,44 @@ double detail::proximity_loss_from(const ScaledBesselPair& s, double x) {
 double mean_square_field_per_ampere(const Solenoid& c) {
     const long n = std::max(1L, std::lround(c.turns()));
     if (n > 10'000'000) throw InputError("turns", "too many turns for the proximity field sum");
-    const double b = c.mean_radius(), p = c.pitch();
-    // Prefix sums over offsets k = 1 .. n-1 of the field of one turn at another (in buffers each thread
-    // keeps, so that a search does not allocate for every coil).
+    const double b = c.mean_radius(), sigma = c.pitch() / (2 * b);  // offset k is at s = k sigma (ring_field.hpp)
+    // Prefix sums over offsets k = 1 .. n-1 of the field of one turn at another, in units of 1 / b (in
+    // buffers each thread keeps, so that a search does not allocate for every coil).
     thread_local std::vector<double> sz, sr;
-    sz.assign(n, 0.0);
-    sr.assign(n, 0.0);
-    constexpr long lanes = 8;
-    const double inv_p2 = 1 / (p * p);
+    if (sz.size() < static_cast<std::size_t>(n)) {
+        sz.resize(n);
+        sr.resize(n);
+    }
+    sz[0] = sr[0] = 0;
     double run_z = 0, run_r = 0;  // the prefix sums so far, kept in registers
-    for (long k = 1; k < n; k += lanes) {
-        double z[lanes], inv_z2[lanes], hz[lanes], hr[lanes];
-        const long count = std::min(lanes, n - k);
-        for (long j = 0; j < lanes; ++j) {
-            const long kj = k + std::min(j, count - 1);
-            z[j] = static_cast<double>(kj) * p;
-            inv_z2[j] = kj < reciprocal_squares ? inv_p2 * inv_k2.v[kj] : 1 / (z[j] * z[j]);
-        }
-        ring_fields<lanes>(b, z, inv_z2, hz, hr);
+    // Turns closer than the tables begin (a thousandth of the radius) by the elliptic integrals themselves.
+    long first_tabled = static_cast<long>(std::min(static_cast<double>(n), std::ceil(detail::ring_table_low / sigma)));
+    while (first_tabled < n && static_cast<double>(first_tabled) * sigma < detail::ring_table_low) ++first_tabled;  // rounding
+    constexpr long lanes = 8;
+    for (long k = 1; k < first_tabled; k += lanes) {
+        double s[lanes];
+        detail::RingField h[lanes];
+        const long count = std::min(lanes, first_tabled - k);
+        for (long j = 0; j < lanes; ++j) s[j] = static_cast<double>(k + std::min(j, count - 1)) * sigma;
+        detail::ring_fields_exact<lanes>(s, h);
         for (long j = 0; j < count; ++j) {
-            run_z += hz[j];
-            run_r += hr[j];
+            run_z += h[j].z;
+            run_r += h[j].r;
             sz[k + j] = run_z;
             sr[k + j] = run_r;
         }
     }
-    // The turn's own curvature field, uniform over its wire: (1 / (4 pi a)) (ln(8 a / r) - c). Averaging the
+    for (long k = std::max(1L, first_tabled); k < n; ++k) {
+        const detail::RingField h = detail::ring_field(static_cast<double>(k) * sigma);
+        run_z += h.z;
+        run_r += h.r;
+        sz[k] = run_z;
+        sr[k] = run_r;
+    }
+    // The turn's own curvature field, uniform over its wire: (1 / (4 pi b)) (ln(8 b / r) - c). Averaging the
     // ring's exact field over its own cross-section gives c = 0; c = 1.75 is fitted to the cross-section
     // solver (docs/models.md), which the uniform-field picture otherwise overestimates for spaced turns.
-    const double own = (std::log(8 * b / c.wire().radius()) - own_field_constant) / (4 * pi * b);
+    const double own = (std::log(8 * b / c.wire().radius()) - own_field_constant) / (4 * pi);
     // Turn i and turn n-1-i see the same |H| (mirror images): the first half, twice, and the middle once.
     double sum = 0;
     for (long i = 0; i < n / 2; ++i) {
@@ -135,7 +104,7 @@ double mean_square_field_per_ampere(const Solenoid& c) {
         const double hz = own + 2 * sz[n / 2];
         sum += hz * hz;
     }
-    return sum / static_cast<double>(n);
+    return sum / (static_cast<double>(n) * b * b);
 }
 
 AcResistance ac_resistance(const Solenoid& c, const Conductor& cond, double temperature, double frequency) {

@@ -4,6 +4,7 @@
 // reference the tests compare with (skin_ratios_series, proximity_loss_function_series).
 #pragma once
 
+#include "models/polynomial.hpp"
 #include "models/skin_tables.hpp"
 
 namespace libcoil::detail {
@@ -13,25 +14,6 @@ struct WireKernels {
     double internal_inductance = 1;  // L_int(f) / L_int(0)
     double proximity = 0;            // G(x), proximity.hpp
 };
-
-// A polynomial by Estrin's scheme (lowest power first): pairs c[2i] + c[2i+1] w, then pairs of those with
-// w^2, and so on; a dependency chain of about log2(N) steps instead of Horner's N (the generator measures
-// the tables with this same order of operations).
-template <int N>
-inline double estrin(const double (&c)[N], double w) {  // NOLINT(misc-no-recursion): depth log2(N)
-    if constexpr (N == 1) {
-        return c[0];
-    } else {
-        // One level: the pairs, then the same on them with w^2 (unrolled: GCC at -O2 left this a loop through
-        // the stack, which cost the table half its speed).
-        constexpr int M = (N + 1) / 2;
-        double v[M];
-#pragma GCC unroll 16
-        for (int i = 0; i < N / 2; ++i) v[i] = c[2 * i] + c[2 * i + 1] * w;
-        if constexpr (N % 2 == 1) v[M - 1] = c[N - 1];
-        return estrin(v, w * w);
-    }
-}
 
 // Where x falls: a part of the table and w in [-1, 1] on it, or a part of the tail (t = x_table / x).
 struct TablePlace {

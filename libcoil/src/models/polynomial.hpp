@@ -1,0 +1,69 @@
+// Internal: a polynomial of a table part by Estrin's scheme, shared by the tabulated kernels (wire_kernels.hpp,
+// ring_field.hpp), whose generators measure their tables with this same order of operations.
+#pragma once
+
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
+
+namespace libcoil::detail {
+
+// Lowest power first: pairs c[2i] + c[2i+1] w, then pairs of those with w^2, and so on; a dependency chain
+// of about log2(N) steps instead of Horner's N.
+template <int N>
+inline double estrin(const double (&c)[N], double w) {  // NOLINT(misc-no-recursion): depth log2(N)
+    if constexpr (N == 1) {
+        return c[0];
+    } else {
+        // One level: the pairs, then the same on them with w^2 (unrolled: GCC at -O2 left this a loop through
+        // the stack, which cost the table half its speed).
+        constexpr int M = (N + 1) / 2;
+        double v[M];
+#pragma GCC unroll 16
+        for (int i = 0; i < N / 2; ++i) v[i] = c[2 * i] + c[2 * i + 1] * w;
+        if constexpr (N % 2 == 1) v[M - 1] = c[N - 1];
+        return estrin(v, w * w);
+    }
+}
+
+// Two polynomials of the same degree in the same w at once, their coefficients side by side (c[i][0] of the
+// first, c[i][1] of the second): one SSE2 instruction does each step of both, in the same order as estrin, so
+// the results are estrin's to the bit.
+struct PolynomialPair {
+    double first, second;
+};
+#if defined(__SSE2__)
+template <int N>
+inline __m128d estrin_sse2(const __m128d (&c)[N], __m128d w) {  // NOLINT(misc-no-recursion): depth log2(N)
+    if constexpr (N == 1) {
+        return c[0];
+    } else {
+        constexpr int M = (N + 1) / 2;
+        __m128d v[M];
+#pragma GCC unroll 16
+        for (int i = 0; i < N / 2; ++i) v[i] = _mm_add_pd(c[2 * i], _mm_mul_pd(c[2 * i + 1], w));
+        if constexpr (N % 2 == 1) v[M - 1] = c[N - 1];
+        return estrin_sse2(v, _mm_mul_pd(w, w));
+    }
+}
+#endif
+
+template <int N>
+inline PolynomialPair estrin_pair(const double (&c)[N][2], double w) {
+#if defined(__SSE2__)
+    __m128d v[N];
+#pragma GCC unroll 16
+    for (int i = 0; i < N; ++i) v[i] = _mm_loadu_pd(c[i]);
+    const __m128d r = estrin_sse2(v, _mm_set1_pd(w));
+    return {_mm_cvtsd_f64(r), _mm_cvtsd_f64(_mm_unpackhi_pd(r, r))};
+#else
+    double a[N], b[N];
+    for (int i = 0; i < N; ++i) {
+        a[i] = c[i][0];
+        b[i] = c[i][1];
+    }
+    return {estrin(a, w), estrin(b, w)};
+#endif
+}
+
+}  // namespace libcoil::detail
