@@ -5,11 +5,14 @@
 #include <cstdint>
 #include <limits>
 #include <numbers>
+#include <optional>
 
 #include <boost/math/special_functions/bessel.hpp>
 #include <boost/math/tools/roots.hpp>
 
 #include "models/bessel_ik.hpp"
+#include "models/helix_tables.hpp"
+#include "models/polynomial.hpp"
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "models/monotone_root.hpp"
@@ -79,6 +82,38 @@ double root_between(F f, double lo, double hi, double f_lo, double f_hi) {
     }
 }
 
+// In a uniform medium (e1 = e2) the dispersion reads x^2 (1 + tan^2(psi) Q(x)) = (beta a)^2 with
+// Q = I0 K0 / (I1 K1) and x = a sqrt(beta^2 - e k^2): one function of one variable, which helix_tables.hpp
+// holds with its slope (tools/helix_tables.py, within 3.9e-16 of mpmath on [2^-10, 64)). x^2 Q(x) rises from 0
+// (Q ~ 2 ln(2 / x) at small x) and Q falls towards 1, so there is one root in (0, beta a); Newton's steps reach
+// it from x = beta a in two or three steps (tan^2(psi) is small). Returns (x, Q(x)), or
+// nothing where x leaves the tables (the caller solves the general dispersion there).
+constexpr double q_table_low = 1.0 / static_cast<double>(1L << -detail::helix_tables::low_octave);
+constexpr double q_table_high = static_cast<double>(1L << detail::helix_tables::high_octave);
+
+detail::PolynomialPair q_and_slope(double x) {  // q_table_low <= x < q_table_high
+    namespace t = detail::helix_tables;
+    const detail::OctavePlace at = detail::octave_place<t::low_octave, t::parts>(x);
+    return detail::estrin_pair(t::body[at.index], at.w);
+}
+
+std::optional<std::pair<double, double>> uniform_medium_root(double big_x, double tan2) {
+    const auto in_tables = [](double x) { return x >= q_table_low && x < q_table_high; };
+    double x = big_x;  // the first step lands within (tan^2(psi) Q)^2 / 8 or so of the root
+    for (int i = 0; i < 40; ++i) {
+        if (!in_tables(x)) return std::nullopt;
+        const detail::PolynomialPair q = q_and_slope(x);
+        const double lift = 1 + tan2 * q.first;
+        const double step = (x * x * lift - big_x * big_x) / (2 * x * lift + tan2 * x * x * q.second);
+        x -= step;
+        // Newton's error squares with each step (relative to x, with a factor near 1/2 here: the dispersion is
+        // x^2 times a slowly varying function), so a step below 1e-9 x leaves the root within 1e-18 x; Q moves
+        // to first order with it.
+        if (std::fabs(step) <= 1e-9 * x) return std::pair{x, q.first - q.second * step};
+    }
+    return std::nullopt;
+}
+
 }  // namespace
 
 SheathHelix::SheathHelix(double radius, double pitch_angle, HelixMedium medium)
@@ -122,7 +157,7 @@ double SheathHelix::slow_wave_estimate(double beta) const {
     return std::sqrt(tan2_ * (1 / ri + 1 / rk) / (m_.inner * ri + m_.outer * rk)) * x / a_;
 }
 
-double SheathHelix::wavenumber_for(double beta) const { return wavenumber_for(beta, slow_wave_estimate(beta)); }
+double SheathHelix::wavenumber_for(double beta) const { return wavenumber_for(beta, 0); }
 
 double SheathHelix::full_bracket(double beta) const {
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
@@ -140,9 +175,17 @@ double SheathHelix::full_bracket(double beta) const {
 double SheathHelix::wavenumber_for(double beta, double guess, double tolerance) const {
     require_positive("beta", beta);
     if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) throw InputError("tolerance", format_value(tolerance) + "; expected 1e-15 .. 1e-3");
+    if (m_.inner == m_.outer) {
+        // One permittivity: the tabulated dispersion, solved to rounding whatever the tolerance asked. k a
+        // from e (k a)^2 = (beta a)^2 - x^2 = tan^2(psi) x^2 Q(x), which does not cancel.
+        if (const auto root = uniform_medium_root(beta * a_, tan2_)) {
+            return finite_result("sheath helix", root->first * std::sqrt(tan2_ * root->second / m_.inner) / a_);
+        }
+    }
     const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);
-    if (guess > 0 && guess < k_max) {
+    if (!(guess > 0)) guess = slow_wave_estimate(beta);
+    if (guess < k_max) {
         // Newton's steps from the guess, kept in the bracket (the dispersion falls through the root).
         const auto k = detail::monotone_root_newton([&](double x) { return dispersion_and_slope(beta, x); }, false,
                                                     guess, {k_max * 1e-12, k_max}, bits);

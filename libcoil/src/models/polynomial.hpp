@@ -1,6 +1,10 @@
-// Internal: a polynomial of a table part by Estrin's scheme, shared by the tabulated kernels (wire_kernels.hpp,
-// ring_field.hpp), whose generators measure their tables with this same order of operations.
+// Internal: a polynomial of a table part by Estrin's scheme, and the place of a number in a table over octaves,
+// shared by the tabulated kernels (wire_kernels.hpp, ring_field.hpp, helical_line.cpp), whose generators measure
+// their tables with this same order of operations.
 #pragma once
+
+#include <bit>
+#include <cstdint>
 
 #if defined(__SSE2__)
 #include <emmintrin.h>
@@ -64,6 +68,24 @@ inline PolynomialPair estrin_pair(const double (&c)[N][2], double w) {
     }
     return {estrin(a, w), estrin(b, w)};
 #endif
+}
+
+// Tables over octaves (tools/octave_tables.py): each octave [2^e, 2^(e+1)) from 2^low_octave up is cut into
+// `parts` equal parts (a power of two). For s = 2^e (1 + y), y in [0, 1), the part's index and w in [-1, 1] on
+// it come from the bits of s, all exactly. s must be a normal number at or above 2^low_octave (not checked).
+struct OctavePlace {
+    int index;
+    double w;
+};
+template <int low_octave, int parts>
+inline OctavePlace octave_place(double s) {
+    static_assert(parts > 0 && (parts & (parts - 1)) == 0, "parts come in a power of two");
+    const auto bits = std::bit_cast<std::uint64_t>(s);
+    const int e = static_cast<int>(bits >> 52) - 1023;
+    constexpr std::uint64_t mantissa = (std::uint64_t{1} << 52) - 1, one = std::bit_cast<std::uint64_t>(1.0);
+    const double y = std::bit_cast<double>((bits & mantissa) | one) - 1;
+    const int part = static_cast<int>(y * parts);
+    return {(e - low_octave) * parts + part, y * (2 * parts) - (2 * part + 1)};
 }
 
 }  // namespace libcoil::detail

@@ -10,10 +10,8 @@
 // the tables' reference in the tests (tests/cpp/test_numerics.cpp).
 #pragma once
 
-#include <bit>
 #include <cmath>
 #include <cstddef>
-#include <cstdint>
 
 #include "libcoil/core/constants.hpp"
 #include "models/elliptic.hpp"
@@ -34,14 +32,8 @@ inline constexpr double ring_table_high = static_cast<double>(1L << ring_field_t
 inline RingField ring_field(double s) {
     namespace t = ring_field_tables;
     if (s < ring_table_high) {
-        // s = 2^e (1 + y), y in [0, 1), from the bits: the octave, its part and w on the part, all exact.
-        const auto bits = std::bit_cast<std::uint64_t>(s);
-        const int e = static_cast<int>(bits >> 52) - 1023;
-        constexpr std::uint64_t mantissa = (std::uint64_t{1} << 52) - 1, one = std::bit_cast<std::uint64_t>(1.0);
-        const double y = std::bit_cast<double>((bits & mantissa) | one) - 1;
-        const int part = static_cast<int>(y * t::parts);
-        const double w = y * (2 * t::parts) - (2 * part + 1);
-        const PolynomialPair v = estrin_pair(t::body[(e - t::low_octave) * t::parts + part], w);
+        const OctavePlace at = octave_place<t::low_octave, t::parts>(s);
+        const PolynomialPair v = estrin_pair(t::body[at.index], at.w);
         return {v.first, v.second};
     }
     // The tail: the dipole forms times polynomials in t = (2^high / s)^2.

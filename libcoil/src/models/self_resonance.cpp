@@ -72,7 +72,7 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
     double k = 0;
     if (rise == 0) {
         const SheathHelix helix(a, psi, r.medium);
-        k = helix.wavenumber_for(beta, helix.slow_wave_estimate(beta), tolerance);
+        k = helix.wavenumber_for(beta, 0, tolerance);
     } else {
         // The former shell enters the inner permittivity by its share of the mode's inner field energy,
         // which itself depends on the mode: the fixed point e = T(e). T is a weak contraction; secant
@@ -81,7 +81,7 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
         const auto share = [&](double gamma) { return sheath_inner_energy_share(a, shell_in, form_radius, gamma, beta); };
         const auto solve_wavenumber = [&](double e) {  // the mode's k at inner permittivity e
             const SheathHelix helix(a, psi, {e, eps_out});
-            k = helix.wavenumber_for(beta, k > 0 ? k : helix.slow_wave_estimate(beta), tolerance);
+            k = helix.wavenumber_for(beta, k, tolerance);
         };
         const auto excess = [&](double e) {  // T(e) - e, leaving the mode's k behind
             solve_wavenumber(e);

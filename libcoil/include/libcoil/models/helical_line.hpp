@@ -44,8 +44,10 @@ public:
     // Free-space wavenumber k (rad/m) at which the slow wave has axial wavenumber beta (rad/m).
     // Throws DomainError when no slow wave exists there.
     double wavenumber_for(double beta) const;
-    // The same, starting from a nearby solution `guess` (a warm start; falls back to the full bracket),
-    // to a relative `tolerance` (the default is the one wavenumber_for(beta) uses).
+    // The same, starting from a nearby solution `guess` (a warm start; 0 for none, when the slow-wave estimate
+    // serves; falls back to the full bracket), to a relative `tolerance` (the default is the one
+    // wavenumber_for(beta) uses). In a uniform medium (inner = outer) both solve the tabulated dispersion to
+    // rounding instead, whatever the guess and tolerance, where x = a sqrt(beta^2 - e k^2) lies in 2^-10 .. 64.
     double wavenumber_for(double beta, double guess, double tolerance = default_tolerance) const;
 
     static constexpr double default_tolerance = 5.7e-14;  // 2^-44
