@@ -10,7 +10,7 @@ m = k^2 = 1 / (1 + s^2):
 proximity field sum (proximity.cpp) needs both at s = k p / (2 b) for every turn offset k.
 
 On [2^LOW, 2^HIGH) each octave [2^e, 2^(e+1)) is cut into PARTS equal parts; on each, both functions are
-polynomials of degree DEGREE in w in [-1, 1], interpolating at the Chebyshev points (mpmath's chebyfit). An
+polynomials of degree DEGREE in w in [-1, 1], interpolating at the Chebyshev points (tools/octave_tables.py). An
 octave and its part come straight from the bits of s. From 2^HIGH on, in t = (2^HIGH / s)^2 in (0, 1], the
 far-field forms 16 s^3 b H_z and (64 / 3) s^4 b H_r (a magnetic dipole's field, which they tend to at t = 0)
 are polynomials of degree TAIL_DEGREE. Below 2^LOW (turns closer than a thousandth of the radius) the caller
@@ -20,13 +20,18 @@ on [2^LOW, 1e6] and writes the worst errors into the header.
 Run:  /usr/bin/python3 tools/ring_field_tables.py > libcoil/src/models/ring_field_tables.hpp   (about a minute)
 """
 import math
+import os
+import sys
 
 import mpmath as mp
 
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import octave_tables  # noqa: E402  (tools/octave_tables.py: the fitting and the layout, shared)
+
 mp.mp.dps = 40
 LOW, HIGH = -10, 6
-PARTS = 8
-DEGREE = 12
+PARTS = 16
+DEGREE = 9
 TAIL_DEGREE = 12
 
 
@@ -50,47 +55,21 @@ def far_scaled(t):
     return 16 * s**3 * hz, mp.mpf(64) / 3 * s**4 * hr
 
 
-def fit(f, a, w, degree):
-    poly = mp.chebyfit(lambda v: f(a + w * (v + 1) / 2), [-1, 1], degree + 1)
-    return [float(c) for c in reversed(poly)]  # lowest power first
-
-
-def evaluate(c, w):  # in double, by Estrin's scheme in the same order as the C++ (wire_kernels.hpp)
-    v, x = list(c), w
-    while len(v) > 1:
-        v = [v[2 * i] + v[2 * i + 1] * x if 2 * i + 1 < len(v) else v[2 * i] for i in range((len(v) + 1) // 2)]
-        x = x * x
-    return v[0]
-
-
 def tables():
-    body = []  # [octave * PARTS + part] -> (z coefficients, r coefficients)
-    for e in range(LOW, HIGH):
-        for p in range(PARTS):
-            a, w = mp.mpf(2) ** e * (1 + mp.mpf(p) / PARTS), mp.mpf(2) ** e / PARTS
-            body.append(tuple(fit(lambda x, j=j: fields(x)[j], a, w, DEGREE) for j in range(2)))
-    tail = tuple(fit(lambda t, j=j: far_scaled(t)[j], 0, 1, TAIL_DEGREE) for j in range(2))
+    body = octave_tables.fit_octaves(fields, LOW, HIGH, PARTS, DEGREE)
+    tail = tuple(octave_tables.fit(lambda t, j=j: far_scaled(t)[j], 0, 1, TAIL_DEGREE) for j in range(2))
     return body, tail
-
-
-def place(s):
-    """As the C++ finds it from the bits: (segment, w) in the body, or None for the tail."""
-    mantissa, e = math.frexp(s)  # s = mantissa 2^e, mantissa in [0.5, 1)
-    e -= 1
-    y = mantissa * 2 - 1  # s = 2^e (1 + y), exact
-    part = int(y * PARTS)
-    return (e - LOW) * PARTS + part, y * (2 * PARTS) - (2 * part + 1)
 
 
 def table_value(t, s):
     body, tail = t
     if s < 2.0**HIGH:
-        i, w = place(s)
-        return evaluate(body[i][0], w), evaluate(body[i][1], w)
+        return octave_tables.body_value(body, s, LOW, PARTS)
     q = 2.0**HIGH / s
     tt = q * q
     inv_s3 = q * tt / 2.0 ** (3 * HIGH)  # 1 / s^3
-    return evaluate(tail[0], 2 * tt - 1) * inv_s3 / 16, evaluate(tail[1], 2 * tt - 1) * inv_s3 / s * 3 / 64
+    z, r = octave_tables.evaluate(tail[0], 2 * tt - 1), octave_tables.evaluate(tail[1], 2 * tt - 1)
+    return z * inv_s3 / 16, r * inv_s3 / s * 3 / 64
 
 
 def measure(t):
@@ -125,12 +104,11 @@ def main():
     o.append(f"inline constexpr int low_octave = {LOW}, high_octave = {HIGH}, parts = {PARTS}, degree = {DEGREE}, "
              f"tail_degree = {TAIL_DEGREE};")
     o.append("// [octave * parts + part][power of w, lowest first][0: b H_z, 1: b H_r], the pairs side by side for SIMD")
-    pairs = lambda z, r: "{" + ", ".join("{" + repr(a) + ", " + repr(b) + "}" for a, b in zip(z, r)) + "}"
     o.append(f"inline constexpr double body[{len(body)}][degree + 1][2] = {{")
     for z, r in body:
-        o.append("    " + pairs(z, r) + ",")
+        o.append("    " + octave_tables.pairs_initialiser(z, r) + ",")
     o.append("};")
-    o.append("inline constexpr double tail[tail_degree + 1][2] = " + pairs(*tail) + ";")
+    o.append("inline constexpr double tail[tail_degree + 1][2] = " + octave_tables.pairs_initialiser(*tail) + ";")
     o.append("")
     o.append("}  // namespace libcoil::detail::ring_field_tables")
     print("\n".join(o))
