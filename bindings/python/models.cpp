@@ -316,7 +316,10 @@ void bind_models(py::module_& m) {
              }),
              "radius"_a, "pitch_angle"_a, "inner_permittivity"_a = 1.0, "outer_permittivity"_a = 1.0)
         .def("dispersion", &libcoil::SheathHelix::dispersion, "beta"_a, "k"_a)
-        .def("wavenumber_for", py::overload_cast<double>(&libcoil::SheathHelix::wavenumber_for, py::const_), "beta"_a)
+        .def("wavenumber_for", py::overload_cast<double, double, double>(&libcoil::SheathHelix::wavenumber_for, py::const_), "beta"_a,
+             "guess"_a = 0.0, "tolerance"_a = libcoil::SheathHelix::default_tolerance,
+             "Free-space wavenumber k (rad/m) of the slow wave with axial wavenumber beta, to a relative tolerance; "
+             "guess 0 for none.")
         .def("axial_wavenumber", &libcoil::SheathHelix::axial_wavenumber, "k"_a)
         .def("phase_velocity", &libcoil::SheathHelix::phase_velocity, "beta"_a);
     m.def("sheath_inner_energy_share", &libcoil::sheath_inner_energy_share, "a"_a, "r_in"_a, "r_out"_a, "gamma"_a,

@@ -86,7 +86,7 @@ double root_between(F f, double lo, double hi, double f_lo, double f_hi) {
 // Q = I0 K0 / (I1 K1) and x = a sqrt(beta^2 - e k^2): one function of one variable, which helix_tables.hpp
 // holds with its slope (tools/helix_tables.py, within 3.9e-16 of mpmath on [2^-10, 64)). x^2 Q(x) rises from 0
 // (Q ~ 2 ln(2 / x) at small x) and Q falls towards 1, so there is one root in (0, beta a); Newton's steps reach
-// it from x = beta a in two or three steps (tan^2(psi) is small). Returns (x, Q(x)), or
+// it from x = beta a in two or three steps (tan^2(psi) is small), to a relative `tolerance`. Returns (x, Q(x)), or
 // nothing where x leaves the tables (the caller solves the general dispersion there).
 constexpr double q_table_low = 1.0 / static_cast<double>(1L << -detail::helix_tables::low_octave);
 constexpr double q_table_high = static_cast<double>(1L << detail::helix_tables::high_octave);
@@ -97,19 +97,20 @@ detail::PolynomialPair q_and_slope(double x) {  // q_table_low <= x < q_table_hi
     return detail::estrin_pair(t::body[at.index], at.w);
 }
 
-std::optional<std::pair<double, double>> uniform_medium_root(double big_x, double tan2) {
+std::optional<std::pair<double, double>> uniform_medium_root(double big_x, double tan2, double tolerance) {
     const auto in_tables = [](double x) { return x >= q_table_low && x < q_table_high; };
-    double x = big_x;  // the first step lands within (tan^2(psi) Q)^2 / 8 or so of the root
+    double x = big_x;  // the first step lands within about (tan^2(psi) Q)^2 / 8 of the root
     for (int i = 0; i < 40; ++i) {
         if (!in_tables(x)) return std::nullopt;
         const detail::PolynomialPair q = q_and_slope(x);
         const double lift = 1 + tan2 * q.first;
         const double step = (x * x * lift - big_x * big_x) / (2 * x * lift + tan2 * x * x * q.second);
         x -= step;
-        // Newton's error squares with each step (relative to x, with a factor near 1/2 here: the dispersion is
-        // x^2 times a slowly varying function), so a step below 1e-9 x leaves the root within 1e-18 x; Q moves
-        // to first order with it.
-        if (std::fabs(step) <= 1e-9 * x) return std::pair{x, q.first - q.second * step};
+        // Newton's relative error squares and halves with each step here (the dispersion is x^2 times a slowly
+        // varying function), so after a step of relative size r the root lies within about r^2 / 2: a step
+        // with r^2 <= tolerance / 4 leaves it within the tolerance. Q moves to first order with it.
+        const double r = step / x;
+        if (r * r <= 0.25 * tolerance) return std::pair{x, q.first - q.second * step};
     }
     return std::nullopt;
 }
@@ -117,12 +118,18 @@ std::optional<std::pair<double, double>> uniform_medium_root(double big_x, doubl
 }  // namespace
 
 SheathHelix::SheathHelix(double radius, double pitch_angle, HelixMedium medium)
-    : a_(require_positive("radius", radius)), psi_(require_positive("pitch_angle", pitch_angle)), m_(medium) {
+    : SheathHelix(radius, std::tan(require_positive("pitch_angle", pitch_angle)), medium, 0) {
     if (!(pitch_angle < pi / 2)) throw InputError("pitch_angle", format_value(pitch_angle) + " rad; expected below pi/2");
+}
+
+SheathHelix::SheathHelix(double radius, double tangent, HelixMedium medium, int)
+    : a_(require_positive("radius", radius)), tan_(tangent), tan2_(tangent * tangent), m_(medium) {
     require_at_least("medium.inner", require_finite("medium.inner", m_.inner), 1.0, "a relative permittivity");
     require_at_least("medium.outer", require_finite("medium.outer", m_.outer), 1.0, "a relative permittivity");
-    const double t = std::tan(psi_);
-    tan2_ = t * t;
+}
+
+SheathHelix SheathHelix::with_pitch_tangent(double radius, double tangent, HelixMedium medium) {
+    return {radius, require_positive("tangent", require_finite("tangent", tangent)), medium, 0};
 }
 
 double SheathHelix::dispersion(double beta, double k) const {
@@ -165,7 +172,7 @@ double SheathHelix::full_bracket(double beta) const {
     // At k -> 0 the function is tan^2(psi) (x/rI + x/rK) > 0; at the light line it is negative for a slow wave.
     const double lo = k_max * 1e-12, g_lo = g(lo), g_hi = g(k_max);
     if (!(g_hi < 0)) {
-        throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(psi_ * 180 / pi) +
+        throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(pitch_angle() * 180 / pi) +
                           " deg) and permittivity; the helical-line model does not hold");
     }
     if (!(g_lo > 0)) throw DomainError("sheath helix: the pitch angle is too small to resolve the wave");
@@ -176,9 +183,9 @@ double SheathHelix::wavenumber_for(double beta, double guess, double tolerance) 
     require_positive("beta", beta);
     if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) throw InputError("tolerance", format_value(tolerance) + "; expected 1e-15 .. 1e-3");
     if (m_.inner == m_.outer) {
-        // One permittivity: the tabulated dispersion, solved to rounding whatever the tolerance asked. k a
-        // from e (k a)^2 = (beta a)^2 - x^2 = tan^2(psi) x^2 Q(x), which does not cancel.
-        if (const auto root = uniform_medium_root(beta * a_, tan2_)) {
+        // One permittivity: the tabulated dispersion. k a from e (k a)^2 = (beta a)^2 - x^2 = tan^2(psi) x^2 Q(x),
+        // which does not cancel.
+        if (const auto root = uniform_medium_root(beta * a_, tan2_, tolerance)) {
             return finite_result("sheath helix", root->first * std::sqrt(tan2_ * root->second / m_.inner) / a_);
         }
     }
@@ -200,7 +207,7 @@ double SheathHelix::axial_wavenumber(double k) const {
     const auto g = [&](double beta) { return dispersion(beta, k); };
     const double g_lo = g(lo);
     if (!(g_lo < 0)) {
-        throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(psi_ * 180 / pi) +
+        throw DomainError("sheath helix: no slow wave at this pitch angle (" + format_value(pitch_angle() * 180 / pi) +
                           " deg) and permittivity; the helical-line model does not hold");
     }
     double hi = 2 * lo, g_hi = g(hi);

@@ -81,13 +81,7 @@ double mean_square_field_per_ampere(const Solenoid& c) {
             sr[k + j] = run_r;
         }
     }
-    for (long k = std::max(1L, first_tabled); k < n; ++k) {
-        const detail::RingField h = detail::ring_field(static_cast<double>(k) * sigma);
-        run_z += h.z;
-        run_r += h.r;
-        sz[k] = run_z;
-        sr[k] = run_r;
-    }
+    detail::ring_field_running_sums(sigma, std::max(1L, first_tabled), n, run_z, run_r, sz.data(), sr.data());
     // The turn's own curvature field, uniform over its wire: (1 / (4 pi b)) (ln(8 b / r) - c). Averaging the
     // ring's exact field over its own cross-section gives c = 0; c = 1.75 is fitted to the cross-section
     // solver (docs/models.md), which the uniform-field picture otherwise overestimates for spaced turns.

@@ -43,6 +43,12 @@ inline RingField ring_field(double s) {
     return {v.first * inv_s3 / 16, v.second * inv_s3 / s * 3 / 64};
 }
 
+// The fields of the turns at offsets k = first .. n-1 (all at s = k sigma >= ring_table_low) from the
+// tables, as running sums continued from (run_z, run_r) and stored in sz[k], sr[k]. Two offsets to an AVX
+// instruction where the processor has AVX (ring_field.cpp), one otherwise: the same operations lane by lane,
+// so the same bits on every x86-64 (tests/cpp/test_numerics.cpp compares the two).
+void ring_field_running_sums(double sigma, long first, long n, double& run_z, double& run_r, double* sz, double* sr);
+
 // The same by the elliptic integrals, for `lanes` offsets s[j] > 0 at once (their AGMs interleave). Written
 // to spare divisions, which cost more here than the square roots.
 template <std::size_t lanes>

@@ -65,13 +65,13 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
                                             const Surroundings& surroundings, double tolerance) {
     const double eps_out = check_media(former, surroundings);
     const double beta = 2 * pi / (resonance_waves(surroundings.mounting) * s.winding_length());
-    const double a = s.mean_radius(), psi = s.pitch_angle();
+    const double a = s.mean_radius(), tangent = s.pitch() / (pi * s.mean_diameter());  // tan(psi)
     HelicalLineResonance r;
     r.medium = {eps_out, eps_out};
     const double rise = former.wall > 0 ? (former.relative_permittivity - eps_out) * former.fill : 0.0;
     double k = 0;
     if (rise == 0) {
-        const SheathHelix helix(a, psi, r.medium);
+        const SheathHelix helix = SheathHelix::with_pitch_tangent(a, tangent, r.medium);
         k = helix.wavenumber_for(beta, 0, tolerance);
     } else {
         // The former shell enters the inner permittivity by its share of the mode's inner field energy,
@@ -80,7 +80,7 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
         const double form_radius = s.form_diameter() / 2, shell_in = std::max(0.0, form_radius - former.wall);
         const auto share = [&](double gamma) { return sheath_inner_energy_share(a, shell_in, form_radius, gamma, beta); };
         const auto solve_wavenumber = [&](double e) {  // the mode's k at inner permittivity e
-            const SheathHelix helix(a, psi, {e, eps_out});
+            const SheathHelix helix = SheathHelix::with_pitch_tangent(a, tangent, {e, eps_out});
             k = helix.wavenumber_for(beta, k, tolerance);
         };
         const auto excess = [&](double e) {  // T(e) - e, leaving the mode's k behind

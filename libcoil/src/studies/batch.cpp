@@ -28,6 +28,17 @@ struct Figures {
 // Element i of an array of length n or 1.
 inline double at(std::span<const double> a, std::size_t i) { return a.size() == 1 ? a[0] : a[i]; }
 
+// self_resonance's fast path (cross_checks false): the helical line's frequency where it holds. Asked first
+// here, it spares the full record (strings and lists) of every element; where it has no slow wave,
+// self_resonance itself decides (Medhurst's capacitance, or a DomainError).
+double fast_self_resonance(const Solenoid& s, double inductance) {
+    try {
+        return helical_line_resonance(s, {}, {}, search_tolerance).frequency;
+    } catch (const DomainError&) {
+        return self_resonance(s, inductance, {}, {}, false).frequency;
+    }
+}
+
 // One element; throws InputError or DomainError as the models do.
 Figures element(const BatchInput& in, std::size_t i, BatchChain chain) {
     const Conductor& c = in.conductors[in.conductor.empty() ? 0 : in.conductor.size() == 1 ? in.conductor[0] : in.conductor[i]];
@@ -47,7 +58,7 @@ Figures element(const BatchInput& in, std::size_t i, BatchChain chain) {
     } else {
         out.inductance = recommended_inductance(s);
         out.resistance = ac_resistance(s, c, t, f).resistance;
-        out.self_resonance = self_resonance(s, out.inductance, {}, {}, false).frequency;
+        out.self_resonance = fast_self_resonance(s, out.inductance);
     }
     out.q_factor = 2 * pi * f * out.inductance / out.resistance;
     for (double v : {out.inductance, out.dc_resistance, out.resistance, out.q_factor, out.self_resonance}) finite_result("batch figure", v);

@@ -25,6 +25,7 @@
 //          follows tan(psi) sqrt(2 (ln(2 / (beta a)) - gamma_E)) (tests/cpp/test_self_capacitance.cpp).
 #pragma once
 
+#include <cmath>
 #include <utility>
 
 namespace libcoil {
@@ -38,6 +39,8 @@ class SheathHelix {
 public:
     // radius a (m, to the wire centre), pitch angle psi (rad, 0 < psi < pi/2). Throws InputError.
     SheathHelix(double radius, double pitch_angle, HelixMedium medium = {});
+    // The same from tan(psi) = p / (pi D), which a coil has without trigonometry. Throws InputError.
+    static SheathHelix with_pitch_tangent(double radius, double tangent, HelixMedium medium = {});
 
     // The dispersion function; zero on the mode. Requires beta > k sqrt(e) in both regions.
     double dispersion(double beta, double k) const;
@@ -46,8 +49,8 @@ public:
     double wavenumber_for(double beta) const;
     // The same, starting from a nearby solution `guess` (a warm start; 0 for none, when the slow-wave estimate
     // serves; falls back to the full bracket), to a relative `tolerance` (the default is the one
-    // wavenumber_for(beta) uses). In a uniform medium (inner = outer) both solve the tabulated dispersion to
-    // rounding instead, whatever the guess and tolerance, where x = a sqrt(beta^2 - e k^2) lies in 2^-10 .. 64.
+    // wavenumber_for(beta) uses). In a uniform medium (inner = outer) both solve the tabulated dispersion
+    // instead (no guess needed), where x = a sqrt(beta^2 - e k^2) lies in 2^-10 .. 64.
     double wavenumber_for(double beta, double guess, double tolerance = default_tolerance) const;
 
     static constexpr double default_tolerance = 5.7e-14;  // 2^-44
@@ -59,14 +62,15 @@ public:
     double phase_velocity(double beta) const;
 
     double radius() const { return a_; }
-    double pitch_angle() const { return psi_; }
+    double pitch_angle() const { return std::atan(tan_); }
     const HelixMedium& medium() const { return m_; }
 
 private:
     double full_bracket(double beta) const;
     // The dispersion and its derivative with respect to k, for Newton's steps.
     std::pair<double, double> dispersion_and_slope(double beta, double k) const;
-    double a_, psi_, tan2_;
+    SheathHelix(double radius, double tangent, HelixMedium medium, int);  // tan(psi) given, checked by the callers
+    double a_, tan_, tan2_;
     HelixMedium m_;
 };
 
