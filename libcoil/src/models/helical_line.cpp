@@ -108,9 +108,9 @@ std::optional<std::pair<double, double>> uniform_medium_root(double big_x, doubl
         x -= step;
         // Newton's relative error squares and halves with each step here (the dispersion is x^2 times a slowly
         // varying function), so after a step of relative size r the root lies within about r^2 / 2: a step
-        // with r^2 <= tolerance / 4 leaves it within the tolerance. Q moves to first order with it.
-        const double r = step / x;
-        if (r * r <= 0.25 * tolerance) return std::pair{x, q.first - q.second * step};
+        // with r^2 <= tolerance / 4 leaves it within the tolerance (compared as squares, without a division).
+        // Q moves to first order with it.
+        if (step * step <= 0.25 * tolerance * (x * x)) return std::pair{x, q.first - q.second * step};
     }
     return std::nullopt;
 }

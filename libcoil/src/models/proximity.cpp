@@ -87,13 +87,14 @@ double mean_square_field_per_ampere(const Solenoid& c) {
     // solver (docs/models.md), which the uniform-field picture otherwise overestimates for spaced turns.
     const double own = (std::log(8 * b / c.wire().radius()) - own_field_constant) / (4 * pi);
     // Turn i and turn n-1-i see the same |H| (mirror images): the first half, twice, and the middle once.
-    double sum = 0;
+    double sum_z = 0, sum_r = 0;  // two sums, so that the additions do not wait on each other
     for (long i = 0; i < n / 2; ++i) {
         const double hz = own + sz[i] + sz[n - 1 - i];  // turns below and above add axially
         const double hr = sr[i] - sr[n - 1 - i];  // and oppose radially
-        sum += hz * hz + hr * hr;
+        sum_z += hz * hz;
+        sum_r += hr * hr;
     }
-    sum *= 2;
+    double sum = 2 * (sum_z + sum_r);
     if (n % 2 == 1) {
         const double hz = own + 2 * sz[n / 2];
         sum += hz * hz;

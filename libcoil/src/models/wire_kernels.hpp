@@ -31,18 +31,38 @@ inline TablePlace table_place(double x) {
     return {tail, i, 2 * (s - i) - 1};
 }
 
+// The resistance ratio and G side by side, for estrin_pair (one SSE2 instruction does a step of both): built
+// at compile time from the generated tables.
+template <int parts, int terms>
+struct InterleavedPairs {
+    double c[parts][terms][2];
+};
+template <int parts, int terms>
+constexpr InterleavedPairs<parts, terms> interleave(const double (&a)[parts][terms], const double (&b)[parts][terms]) {
+    InterleavedPairs<parts, terms> out{};
+    for (int i = 0; i < parts; ++i) {
+        for (int j = 0; j < terms; ++j) {
+            out.c[i][j][0] = a[i][j];
+            out.c[i][j][1] = b[i][j];
+        }
+    }
+    return out;
+}
+inline constexpr auto resistance_and_proximity = interleave(skin_tables::resistance, skin_tables::proximity);
+inline constexpr auto resistance_and_proximity_tail = interleave(skin_tables::resistance_tail, skin_tables::proximity_tail);
+
 // x = sqrt(2) r / delta >= 0 (not checked: the callers check their inputs).
 inline WireKernels wire_kernels(double x) {
     namespace t = skin_tables;
     const TablePlace p = table_place(x);
     if (!p.tail) {
-        double g = estrin(t::proximity[p.part], p.w);
-        if (p.part == 0) g *= (x * x) * (x * x);
-        return {estrin(t::resistance[p.part], p.w), estrin(t::internal_inductance[p.part], p.w), g};
+        const PolynomialPair rg = estrin_pair(resistance_and_proximity.c[p.part], p.w);
+        const double g = p.part == 0 ? rg.second * ((x * x) * (x * x)) : rg.second;
+        return {rg.first, estrin(t::internal_inductance[p.part], p.w), g};
     }
     const double up = x / t::x_table;
-    return {estrin(t::resistance_tail[p.part], p.w) * up, estrin(t::internal_inductance_tail[p.part], p.w) / up,
-            estrin(t::proximity_tail[p.part], p.w) * up};
+    const PolynomialPair rg = estrin_pair(resistance_and_proximity_tail.c[p.part], p.w);
+    return {rg.first * up, estrin(t::internal_inductance_tail[p.part], p.w) / up, rg.second * up};
 }
 
 // R_ac / R_dc alone (one polynomial instead of three).

@@ -47,8 +47,8 @@ Figures element(const BatchInput& in, std::size_t i, BatchChain chain) {
     require_non_negative("frequency", f);
     const double rho = c.resistivity_at(t), r = s.wire().radius();
     Figures out{};
-    out.dc_resistance = rho * resistance_per_resistivity(s.wire().bare_diameter, s.wire_length());
     if (chain == BatchChain::light) {
+        out.dc_resistance = rho * resistance_per_resistivity(s.wire().bare_diameter, s.wire_length());
         out.inductance = rosa_inductance(s.mean_diameter(), s.turns(), s.pitch(), s.wire().bare_diameter);
         // x = sqrt(2) r / delta, delta = sqrt(rho / (pi f mu0 mu_r)) (skin_effect.hpp), by its tables.
         const double x = r * std::sqrt(2 * pi * f * mu0 * c.relative_permeability / rho);
@@ -57,7 +57,9 @@ Figures element(const BatchInput& in, std::size_t i, BatchChain chain) {
         out.self_resonance = 1 / (2 * pi * std::sqrt(out.inductance * c_self));
     } else {
         out.inductance = recommended_inductance(s);
-        out.resistance = ac_resistance(s, c, t, f).resistance;
+        const AcResistance ac = ac_resistance(s, c, t, f);
+        out.dc_resistance = ac.dc;
+        out.resistance = ac.resistance;
         out.self_resonance = fast_self_resonance(s, out.inductance);
     }
     out.q_factor = 2 * pi * f * out.inductance / out.resistance;
