@@ -190,7 +190,9 @@ void bind_batch(py::module_& m) {
         "Many coils at once (arrays broadcast as numpy does; SI): inductance, dc_resistance, resistance, q_factor, "
         "self_resonance and status (0 ok, 1 bad input, 2 outside the models' domain; NaN figures there), with "
         "messages={flat index: text} of the bad elements when asked. chain 'full': the recommended L, R_ac with skin "
-        "and proximity effect, the recommended SRF's fast path; 'light': Rosa's L, R_dc x the skin ratio, Medhurst's "
+        "and proximity effect, the SRF's fast path (the sheath helix, +16 .. +47 % above NEC2 for free-standing coils: "
+        "a screen, not the verdict; analyze() gives the recommended SRF, the turn network); 'light': Rosa's L, R_dc x "
+        "the skin ratio, Medhurst's "
         "SRF. Runs without the GIL, on every core by default. The five figures are rows of one block of memory; "
         "from 1 MiB up that block is kept, once freed, for the next call (one block, at most 256 MiB).");
 }

@@ -6,8 +6,11 @@
 //          R: the closed-form R_ac with skin and proximity effect (proximity.hpp's ac_resistance, no leads),
 //          everywhere: `coil analyze` takes the cross-section solver instead for close-wound turns at x > 3,
 //          where the closed form spreads from -22 % to +12 % (proximity.hpp);
-//          SRF: the recommended self-resonance's fast path (self_resonance.hpp with cross_checks false: the
-//          sheath helix, solved to search_tolerance, Medhurst where it does not hold);
+//          SRF: the self-resonance's fast path (self_resonance.hpp with cross_checks false: the sheath helix,
+//          solved to search_tolerance, Medhurst where it does not hold). It is not the analysis's recommended
+//          SRF, the turn network (within 2 % of NEC2 on its set, about 1 ms a coil): the sheath helix reads
+//          +16 .. +47 % above NEC2 for free-standing coils and -12 .. +18 % with one end grounded, so a
+//          verdict against a band ceiling belongs to `coil analyze` or the band check;
 //   light  L: Rosa's form; R: R_dc times the exact skin ratio (skin_effect.hpp's tables); SRF: Medhurst's
 //          empirical formula for the capacitance (medhurst.hpp) with that L.
 // Q = w L / R (0 at f = 0). A bad element gets a status and NaN figures, never an exception; its message is
