@@ -13,7 +13,7 @@ On [2^LOW, 2^HIGH) each octave [2^e, 2^(e+1)) is cut into PARTS equal parts; on 
 polynomials of degree DEGREE in w in [-1, 1], interpolating at the Chebyshev points (tools/octave_tables.py). An
 octave and its part come straight from the bits of s. From 2^HIGH on, in t = (2^HIGH / s)^2 in (0, 1], the
 far-field forms 16 s^3 b H_z and (64 / 3) s^4 b H_r (a magnetic dipole's field, which they tend to at t = 0)
-are polynomials of degree TAIL_DEGREE. Below 2^LOW (turns closer than a thousandth of the radius) the caller
+are polynomials of degree TAIL_DEGREE. Below 2^LOW (turns closer than a thousandth of the diameter) the caller
 takes the elliptic integrals themselves. The script measures the tables in double arithmetic against mpmath
 on [2^LOW, 1e6] and writes the worst errors into the header.
 

@@ -64,7 +64,7 @@ double mean_square_field_per_ampere(const Solenoid& c) {
     }
     sz[0] = sr[0] = 0;
     double run_z = 0, run_r = 0;  // the prefix sums so far, kept in registers
-    // Turns closer than the tables begin (a thousandth of the radius) by the elliptic integrals themselves.
+    // Turns closer than the tables begin (s = 2^-10: a thousandth of the diameter) by the elliptic integrals.
     long first_tabled = static_cast<long>(std::min(static_cast<double>(n), std::ceil(detail::ring_table_low / sigma)));
     while (first_tabled < n && static_cast<double>(first_tabled) * sigma < detail::ring_table_low) ++first_tabled;  // rounding
     constexpr long lanes = 8;
