@@ -1,6 +1,6 @@
 // The library's internal numerical kernels, tested on their own: the elliptic pair against Boost.Math's
-// Carlson forms, the tabulated ring field against the elliptic integrals, the Bessel series against Boost.Math, and the bracketed root finder against roots known
-// in closed form.
+// Carlson forms, the tabulated ring field against the elliptic integrals, the Bessel series against
+// Boost.Math, and the bracketed root finder against roots known in closed form.
 #include <gtest/gtest.h>
 
 #include <algorithm>
@@ -168,7 +168,7 @@ TEST(Numerics, RingFieldTablesAgainstTheEllipticIntegrals) {
 TEST(Numerics, RingFieldRunningSumsAreTheTableBitForBit) {
     // ring_field_running_sums takes two offsets to an AVX instruction where the processor has AVX; lane by lane
     // it does ring_field's operations, so its sums must be those of ring_field one offset at a time, to the bit
-    // (no fused multiply-add on either path). Offsets from below the first octave's joints into the tail.
+    // (no fused multiply-add on either path). Offsets from just above the tables' start into their tail.
     for (const double sigma : {0.00098, 0.0137, 0.21, 0.9, 3.3}) {
         const long first = static_cast<long>(std::ceil(libcoil::detail::ring_table_low / sigma)) + 1, n = first + 101;
         std::vector<double> sz(n, 0.0), sr(n, 0.0);

@@ -88,8 +88,8 @@ double root_between(F f, double lo, double hi, double f_lo, double f_hi) {
 // (Q ~ 2 ln(2 / x) at small x) and Q falls towards 1, so there is one root in (0, beta a); Newton's steps reach
 // it from x = beta a in two or three steps (tan^2(psi) is small), to a relative `tolerance`. Returns (x, Q(x)), or
 // nothing where x leaves the tables (the caller solves the general dispersion there).
-constexpr double q_table_low = 1.0 / static_cast<double>(1L << -detail::helix_tables::low_octave);
-constexpr double q_table_high = static_cast<double>(1L << detail::helix_tables::high_octave);
+constexpr double q_table_low = detail::power_of_two(detail::helix_tables::low_octave);
+constexpr double q_table_high = detail::power_of_two(detail::helix_tables::high_octave);
 
 detail::PolynomialPair q_and_slope(double x) {  // q_table_low <= x < q_table_high
     namespace t = detail::helix_tables;
@@ -108,9 +108,10 @@ std::optional<std::pair<double, double>> uniform_medium_root(double big_x, doubl
         x -= step;
         // Newton's relative error squares and halves with each step here (the dispersion is x^2 times a slowly
         // varying function), so after a step of relative size r the root lies within about r^2 / 2; Q moves to
-        // first order with it, which leaves Q within Q'' (r x)^2 / 2 and k within (x^2 Q'' / (4 Q)) r^2 <= r^2 / 2
-        // (x^2 Q'' < 2 and Q > 1 on the tables). A step with r^2 <= tolerance / 2 leaves k within the tolerance
-        // (compared as squares, without a division; measured in test_self_resonance.py).
+        // first order with it, which leaves Q within Q'' (r x)^2 / 2 and k within (x^2 Q'' / (4 Q)) r^2 <= 0.51 r^2
+        // (x^2 Q'' below 2.04 and Q above 1 on the tables, by mpmath). A step with r^2 <= tolerance / 2 leaves k
+        // within about the tolerance (compared as squares, without a division; measured within 0.245 of it in
+        // test_self_resonance.py).
         if (step * step <= 0.5 * tolerance * (x * x)) return std::pair{x, q.first - q.second * step};
     }
     return std::nullopt;

@@ -65,6 +65,11 @@ inline PolynomialPair estrin_pair(const double (&c)[N][2], double w) {
 #endif
 }
 
+// 2^e exactly, for the bounds of a table over octaves (|e| < 63).
+constexpr double power_of_two(int e) {
+    return e >= 0 ? static_cast<double>(std::uint64_t{1} << e) : 1.0 / static_cast<double>(std::uint64_t{1} << -e);
+}
+
 // Tables over octaves (tools/octave_tables.py): each octave [2^e, 2^(e+1)) from 2^low_octave up is cut into
 // `parts` equal parts (a power of two). For s = 2^e (1 + y), y in [0, 1), the part's index and w in [-1, 1] on
 // it come from the bits of s, all exactly. s must be a normal number at or above 2^low_octave (not checked).

@@ -25,8 +25,8 @@ struct RingField {
 };
 
 // Where the tables begin and where their far-field tail begins.
-inline constexpr double ring_table_low = 1.0 / static_cast<double>(1L << -ring_field_tables::low_octave);
-inline constexpr double ring_table_high = static_cast<double>(1L << ring_field_tables::high_octave);
+inline constexpr double ring_table_low = power_of_two(ring_field_tables::low_octave);
+inline constexpr double ring_table_high = power_of_two(ring_field_tables::high_octave);
 
 // s >= ring_table_low (not checked: the caller sorts its offsets).
 inline RingField ring_field(double s) {
