@@ -240,9 +240,11 @@ Matrix turn_capacitance_matrix(const Solenoid& coil, const TurnNetworkOptions& o
         if (o.capacitance == TurnCapacitance::near_field_corrected) {
             // Each turn takes the section's row of the turn in the same place: the first and last turns
             // the section's ends, the others its middle; offsets beyond the section's reach are left out.
-            // A coil of up to 7 turns is its own section.
+            // A coil of up to 7 turns is its own section. The section's wires lie at the coil's pitch: the
+            // rings of a fractional N lie closer (N / ceil N of it), where wires of the insulated diameter
+            // would overlap, and the crowding between neighbours is the true winding's.
             const int m = std::min(n, section_turns), half = m / 2;
-            const Matrix d = near_field_correction(a, r, coat, pitch, o, m);
+            const Matrix d = near_field_correction(a, r, coat, coil.pitch(), o, m);
             Matrix add = Matrix::Zero(n, n);
             for (int i = 0; i < n; ++i) {
                 const int si = i < half ? i : (i >= n - half ? i - (n - m) : half);
