@@ -3,44 +3,87 @@
 
 The design search screens its candidates with the sheath helix's SRF (fast) and confirms the designs it keeps
 with the turn network's (the recommended one, a thousand times dearer). The screen may reject a candidate only
-where the network's SRF is sure to miss the margin too, so it needs a bound: network <= envelope x screen. This
+where the network's SRF is sure to miss the margin too, so it needs a bound: network <= bound x screen. This
 script measures the ratio network / screen on random bare coils of the search's domain (no former: a former
 only lowers the network's SRF, tests/cpp/test_turn_network.cpp, so the bare network bounds it, and the search
-takes the bare screen's SRF for it). The ratio is binned by the turns' spacing p / d (bare d, as
-Solenoid::pitch_to_wire) and the winding's length over its diameter l / D, for either mounting; a bin's bound is
-the largest ratio in it and its neighbours along p / d, times 1.05. The bounds are measured maxima, not proven
-ones: the test (tests/python/test_design_screen.py) draws fresh coils with other seeds and finds none above them.
-(The same envelope taken with a former on both sides did not hold on fresh coils: up to 1.16 of its bound on
-long grounded coils, where the network takes the former's shift from the sheath helix.)
+takes the bare screen's SRF for it), for either mounting, and writes two bounds:
 
-The domain: wire 0.3 .. 2 mm bare, bare or with 0.03 mm enamel; mean diameter 8 .. 58 mm; p / d 1.01 .. 6
-(log-uniform); 2 .. 62 turns (more of them short).
+- the envelope: the ratio binned by the turns' spacing p / d (bare d, as Solenoid::pitch_to_wire) and the
+  winding's length over its diameter l / D; a bin's bound is the largest ratio in it and its neighbours along
+  p / d, times 1.05. It holds wherever the screen's SRF is defined, and it is loose: the ratio moves by a
+  quarter inside a bin (the enamel, the gap between the turns, the turns' count);
+- the fit: log(network / screen) as a cubic polynomial in five features (the enamel over d, log l/D, log D/d,
+  1/N, log of the insulated gap over the insulated d), least squares on the sample, each scaled to
+  [-1, 1] over the sample's range; plus, per (N, p / d, l / D) bin, the largest residual in it and its
+  neighbours along p / d, plus log 1.02. It holds inside the sample's range of every feature and where the
+  screen's SRF is the sheath helix's (as in every sampled coil); there the search takes the lesser of the two.
+  Its residuals: rms 1.7 % floating, 1.5 % grounded; on close-wound coils of 8 turns or more and l/D 0.5 .. 2
+  the bound sits 5.6 % above the network at the median, where the envelope sat 18 % above (up to 53 %);
+- the former's fit: a former lowers the network's SRF less than the sheath helix's (the wires' field between
+  neighbours runs mostly outside it): r = (network on the former / bare) / (helix on the former / bare) lies
+  0.96 .. 1.29. log r as a cubic in eight features (the five and the former's permittivity, log of its wall over
+  D, its fill), with offsets as above, from a second sample of coils on random formers in air. The search
+  bounds the network on a former by the bare bound times the lesser of 1 and the helix's own ratio times r's
+  bound.
+
+The bounds are measured maxima, not proven ones: the test (tests/python/test_design_screen.py) draws fresh
+coils with other seeds and finds none above them. (The same envelope taken with a former on both sides did
+not hold on fresh coils: up to 1.16 of its bound on long grounded coils, where the network takes the former's
+shift from the sheath helix.)
+
+The domain: wire 0.3 .. 2 mm bare, bare (two in five) or with an enamel of up to 8 % of d each side; mean
+diameter 8 .. 58 mm; insulated p / d 1.01 .. 6 (log-uniform); 2 .. 62 turns in quarters (more of them short).
+Formers: permittivity 2 .. 5, wall 0.5 .. 5 mm (at most 0.45 of the form's diameter), a tube (three in five) or
+ribs filling 0.1 .. 0.6 of the circumference.
 
 Run:  PYTHONPATH=build/python /usr/bin/python3 tools/srf_screen_envelope.py > libcoil/src/studies/srf_screen_envelope.hpp
-      (half a minute)
-      ... tools/srf_screen_envelope.py --sample SEED COUNT   (prints the ratios of COUNT coils as JSON, for the test)
+      (about three minutes on two cores)
+      ... tools/srf_screen_envelope.py --sample SEED COUNT [former]   (prints the rows of COUNT coils as JSON)
 """
+import itertools
 import json
 import math
+import multiprocessing
 import random
+import re
 import sys
+
+import numpy as np
 
 import libcoil
 
 SPACING_EDGES = (1.1, 1.25, 1.5, 2, 3, 4.5)  # p / d; the last bin is open above
 LENGTH_EDGES = (0.3, 1, 3)                  # l / D; the last bin is open above
-MARGIN = 1.05
+TURNS_EDGES = (4, 8, 16)                    # N, the fit's offsets only; the last bin is open above
+MARGIN = 1.05                               # the envelope's, on its bins' peaks
+FIT_MARGIN = 1.02                           # the fit's, on its bins' largest residuals
+MIN_NEAR = 100                              # the fewest samples in a bin's neighbourhood for the fit to be taken there
+NO_FIT = 9.0                                # the offset of a bin without them: e^9, never below the envelope
+DEGREE = 3
 MOUNTINGS = ("floating", "grounded-end")
+# (Not log p/d as well: with the enamel and the gap it fixes p / d, and the cubic's columns in all six were
+# nearly dependent, condition 1e8 and coefficients of 1e4; without it, 3e4 and 25.)
+FEATURES = ("enamel/d", "log l/D", "log D/d", "1/N", "log gap")
+FORMER_FEATURES = FEATURES + ("permittivity", "log wall/D", "fill")
+SAMPLE_SEED, SAMPLE_COUNT = 11, 40000
+FORMER_SEED, FORMER_COUNT = 7, 16000
+CHECK_ROWS = 12  # rows of the sample whose bounds the header carries, for the C++ test
 
 
 def draw(rng):
     d = 0.3e-3 + 1.7e-3 * rng.random()
-    enamel = 0.0 if rng.random() < 0.5 else 0.03e-3
+    enamel = 0.0 if rng.random() < 0.4 else d * 0.08 * rng.random()
     mean = 8e-3 + 50e-3 * rng.random()
     pitch = (d + 2 * enamel) * math.exp(math.log(1.01) + rng.random() * (math.log(6) - math.log(1.01)))
-    turns = round(2 + 60 * rng.random() * rng.random())
+    turns = max(2.0, round(4 * (2 + 60 * rng.random() * rng.random())) / 4)
     mounting = MOUNTINGS[rng.random() < 0.5]
     return d, enamel, mean, pitch, turns, mounting
+
+
+def draw_former(rng):
+    """A coil and a former under it: (coil, permittivity, wall, fill)."""
+    coil = draw(rng)
+    return coil, 2 + 3 * rng.random(), (0.5 + 4.5 * rng.random()) * 1e-3, 1.0 if rng.random() < 0.6 else 0.1 + 0.5 * rng.random()
 
 
 def screen_frequency(r):
@@ -48,31 +91,81 @@ def screen_frequency(r):
     return (r.helical_line if r.helical_line.available else r.medhurst).frequency
 
 
-def ratios(coil):
-    """(p / d, l / D, mounting, network / screen), bare, or None."""
-    d, enamel, mean, pitch, turns, mounting = coil
+def solenoid(coil):
+    d, enamel, mean, pitch, turns, _ = coil
     try:
-        s = libcoil.Solenoid(mean_diameter=mean, turns=turns, pitch=pitch, wire=libcoil.Wire(diameter=d, insulation=enamel))
+        return libcoil.Solenoid(mean_diameter=mean, turns=turns, pitch=pitch, wire=libcoil.Wire(diameter=d, insulation=enamel))
     except libcoil.InputError:
+        return None
+
+
+def ratios(coil):
+    """(p / d, enamel / d, l / D, D / d, N, mounting, by the helix, network / screen), bare, or None."""
+    d, enamel, mean, pitch, turns, mounting = coil
+    s = solenoid(coil)
+    if s is None:
         return None
     bare = libcoil.self_resonance(s, libcoil.inductance(s).recommended, mounting=mounting)
     if bare.network is None:
         return None
-    return pitch / d, s.winding_length / mean, mounting, bare.network.frequency / screen_frequency(bare)
+    return (pitch / d, enamel / d, s.winding_length / mean, mean / d, turns, mounting, bool(bare.helical_line.available),
+            bare.network.frequency / screen_frequency(bare))
+
+
+def former_ratios(job):
+    """As ratios(), with r = (network on the former / bare) / (helix on the former / bare) for the ratio, and
+    the former's permittivity, wall / D and fill after it; or None where either model is missing."""
+    coil, permittivity, wall, fill = job
+    d, enamel, mean, pitch, turns, mounting = coil
+    s = solenoid(coil)
+    if s is None:
+        return None
+    wall = min(wall, 0.45 * s.form_diameter)
+    inductance = libcoil.inductance(s).recommended
+    bare = libcoil.self_resonance(s, inductance, mounting=mounting)
+    on = libcoil.self_resonance(s, inductance, former_permittivity=permittivity, former_wall=wall, former_fill=fill, mounting=mounting)
+    if bare.network is None or on.network is None or not bare.helical_line.available or not on.helical_line.available:
+        return None
+    r = (on.network.frequency / bare.network.frequency) / (on.helical_line.frequency / bare.helical_line.frequency)
+    return (pitch / d, enamel / d, s.winding_length / mean, mean / d, turns, mounting, True, r, permittivity, wall / mean, fill)
 
 
 def bin_of(value, edges):
     return sum(value >= e for e in edges)
 
 
-def sample(seed, count):
+def sample(seed, count, processes=1, former=False):
     rng = random.Random(seed)
     out = []
+    pool = multiprocessing.Pool(processes) if processes > 1 else None  # (a test loads this file by path: no pool)
     while len(out) < count:
-        r = ratios(draw(rng))
-        if r is not None:
-            out.append(r)
+        jobs = [(draw_former if former else draw)(rng) for _ in range(count - len(out))]
+        work = former_ratios if former else ratios
+        out += [r for r in (pool.map(work, jobs, chunksize=32) if pool else map(work, jobs)) if r is not None]
+    if pool:
+        pool.close()
     return out
+
+
+def features(row):
+    """The bare fit's features of a row (FEATURES), and the former's after them where the row has them."""
+    spacing, coat, length, diameter, turns = row[:5]
+    x = (coat, math.log(length), math.log(diameter), 1 / turns, math.log(spacing / (1 + 2 * coat) - 1))
+    return x + (row[8], math.log(row[9]), row[10]) if len(row) > 8 else x
+
+
+def powers(count):
+    """The monomials of total degree <= DEGREE in `count` features, as exponent tuples (the header's order)."""
+    out = []
+    for k in range(DEGREE + 1):
+        for combo in itertools.combinations_with_replacement(range(count), k):
+            out.append(tuple(combo.count(f) for f in range(count)))
+    return out
+
+
+def monomials(x, low, high):
+    scaled = [(2 * v - lo - hi) / (hi - lo) for v, lo, hi in zip(x, low, high)]
+    return [math.prod(s**e for s, e in zip(scaled, p)) for p in powers(len(x))]
 
 
 def envelope(rows):
@@ -81,10 +174,10 @@ def envelope(rows):
     table = {}
     for m in MOUNTINGS:
         peak = [[0.0] * n_l for _ in range(n_s)]
-        for spacing, length, mounting, ratio in rows:
-            if mounting == m:
-                i, j = bin_of(spacing, SPACING_EDGES), bin_of(length, LENGTH_EDGES)
-                peak[i][j] = max(peak[i][j], ratio)
+        for row in rows:
+            if row[5] == m:
+                i, j = bin_of(row[0], SPACING_EDGES), bin_of(row[2], LENGTH_EDGES)
+                peak[i][j] = max(peak[i][j], row[7])
         bound = [[0.0] * n_l for _ in range(n_s)]
         for j in range(n_l):
             column_peak = max(peak[i][j] for i in range(n_s))
@@ -96,26 +189,136 @@ def envelope(rows):
     return table
 
 
-def main():
-    if len(sys.argv) == 4 and sys.argv[1] == "--sample":
-        print(json.dumps(sample(int(sys.argv[2]), int(sys.argv[3]))))
-        return
-    rows = sample(11, 12000)
-    table = envelope(rows)
-
-    def cxx(bound):
-        return "{{" + "},\n     {".join(", ".join(f"{v:.3f}" for v in row) for row in bound) + "}}"
-
-    print("// Generated by tools/srf_screen_envelope.py; do not edit. The turn network's SRF over the design screen's")
-    print("// (the sheath helix's, else Medhurst's), bare coils, at most: measured on 12000 random coils of the search's")
-    print("// domain, a bin's largest ratio and its neighbours' along p / d, times 1.05 (the script says how).")
-    print("#pragma once\n\nnamespace libcoil::detail::srf_screen_envelope {\n")
-    print(f"inline constexpr int spacing_bins = {len(SPACING_EDGES) + 1}, length_bins = {len(LENGTH_EDGES) + 1};")
-    print("inline constexpr double spacing_edges[spacing_bins - 1] = {" + ", ".join(f"{e:g}" for e in SPACING_EDGES) + "};  // p / d")
-    print("inline constexpr double length_edges[length_bins - 1] = {" + ", ".join(f"{e:g}" for e in LENGTH_EDGES) + "};  // l / D")
+def fit(rows):
+    """(low, high, {mounting: (coefficients, offset[turns bin][spacing bin][length bin])}): log ratio <= poly + offset."""
+    x = np.array([features(r) for r in rows])
+    low, high = x.min(axis=0).tolist(), x.max(axis=0).tolist()
+    n_t, n_s, n_l = len(TURNS_EDGES) + 1, len(SPACING_EDGES) + 1, len(LENGTH_EDGES) + 1
+    out = {}
     for m in MOUNTINGS:
-        print(f"// {m}: [p / d bin][l / D bin]")
-        print(f"inline constexpr double {m.replace('-end', '')}[spacing_bins][length_bins] = {cxx(table[m])};")
+        mine = [r for r in rows if r[5] == m]
+        a = np.array([monomials(features(r), low, high) for r in mine])
+        y = np.log([r[7] for r in mine])
+        coefficients = np.linalg.lstsq(a, y, rcond=None)[0]
+        residual = y - a @ coefficients
+        peak = np.full((n_t, n_s, n_l), -np.inf)
+        count = np.zeros((n_t, n_s, n_l), dtype=int)
+        for r, e in zip(mine, residual):
+            k, i, j = bin_of(r[4], TURNS_EDGES), bin_of(r[0], SPACING_EDGES), bin_of(r[2], LENGTH_EDGES)
+            peak[k, i, j] = max(peak[k, i, j], e)
+            count[k, i, j] += 1
+        offset = [[[NO_FIT] * n_l for _ in range(n_s)] for _ in range(n_t)]
+        for k in range(n_t):
+            for i in range(n_s):
+                for j in range(n_l):
+                    near = slice(max(0, i - 1), i + 2)
+                    if count[k, near, j].sum() >= MIN_NEAR:
+                        offset[k][i][j] = round(float(peak[k, near, j].max()) + math.log(FIT_MARGIN), 4)
+        out[m] = (coefficients.tolist(), offset)
+    return low, high, out
+
+
+def read_header(text):
+    """The header's numbers, for the test: {name: list of numbers (flattened)}."""
+    out = {}
+    for name, body in re.findall(r"double (\w+)(?:\[\w+(?: - 1)?\])+ = \{(.*?)\};", text, re.S):
+        out[name] = [float(v) for v in re.findall(r"[-+]?\d[\d.]*(?:e[-+]?\d+)?", body)]
+    return out
+
+
+def fitted(name, kind, row, header):
+    """exp(the fit `kind` of mounting `name` at a row, plus its bin's offset), or None outside its range."""
+    x = features(row)
+    low, high = header[kind + "_low"], header[kind + "_high"]
+    if not all(lo <= v <= hi for v, lo, hi in zip(x, low, high)):
+        return None
+    n_s, n_l = len(SPACING_EDGES) + 1, len(LENGTH_EDGES) + 1
+    cell = (bin_of(row[4], TURNS_EDGES) * n_s + bin_of(row[0], SPACING_EDGES)) * n_l + bin_of(row[2], LENGTH_EDGES)
+    poly = sum(c * t for c, t in zip(header[f"{name}_{kind}_fit"], monomials(x, low, high)))
+    return math.exp(poly + header[f"{name}_{kind}_offset"][cell])
+
+
+def bound(row, header):
+    """The bound on network / screen the search takes for a bare row (read_header's numbers): the envelope,
+    or the lesser of it and the fit's inside the fit's range, where the screen is the sheath helix."""
+    name = "grounded" if row[5] == "grounded-end" else "floating"
+    b = header[name][bin_of(row[0], SPACING_EDGES) * (len(LENGTH_EDGES) + 1) + bin_of(row[2], LENGTH_EDGES)]
+    f = fitted(name, "bare", row, header) if row[6] else None
+    return b if f is None else min(b, f)
+
+
+def former_bound(row, header):
+    """The bound on r for a former row, or None outside the former fit's range."""
+    return fitted("grounded" if row[5] == "grounded-end" else "floating", "former", row, header)
+
+
+def cxx(values, fmt, indent="     "):
+    """A C++ initialiser of nested lists, the innermost on a line each."""
+    if not isinstance(values[0], (list, tuple)):
+        return "{" + ", ".join(fmt(v) for v in values) + "}"
+    return "{" + (",\n" + indent).join(cxx(v, fmt, indent + " ") for v in values) + "}"
+
+
+def cxx_list(values, fmt, per_line=3):
+    """A long C++ list, per_line values a line."""
+    return "{" + ",\n     ".join(", ".join(fmt(v) for v in values[i:i + per_line]) for i in range(0, len(values), per_line)) + "}"
+
+
+def header_text(table, fits):
+    g = lambda v: f"{v:.17g}"
+    out = ["// Generated by tools/srf_screen_envelope.py; do not edit. The turn network's SRF over the design screen's",
+           f"// (the sheath helix's, else Medhurst's), at most: measured on {SAMPLE_COUNT} random bare coils of the search's",
+           "// domain. The envelope: a bin's largest ratio and its neighbours' along p / d, times 1.05. The bare fit:",
+           "// log(ratio) as a cubic in five scaled features, plus the largest residual in a bin (by N, p / d and l / D) and",
+           "// its neighbours' along p / d, plus log 1.02; inside the sample's range, where the screen is the sheath helix.",
+           f"// The former's fit: the same for r, the former's shift of the network over the helix's ({FORMER_COUNT} coils on",
+           "// random formers). The script says how.",
+           "#pragma once", "", "namespace libcoil::detail::srf_screen_envelope {", "",
+           f"inline constexpr int spacing_bins = {len(SPACING_EDGES) + 1}, length_bins = {len(LENGTH_EDGES) + 1}, turns_bins = {len(TURNS_EDGES) + 1};",
+           "inline constexpr double spacing_edges[spacing_bins - 1] = {" + ", ".join(f"{e:g}" for e in SPACING_EDGES) + "};  // p / d",
+           "inline constexpr double length_edges[length_bins - 1] = {" + ", ".join(f"{e:g}" for e in LENGTH_EDGES) + "};  // l / D",
+           "inline constexpr double turns_edges[turns_bins - 1] = {" + ", ".join(f"{e:g}" for e in TURNS_EDGES) + "};  // N"]
+    for m in MOUNTINGS:
+        out.append(f"// {m}: [p / d bin][l / D bin]")
+        out.append(f"inline constexpr double {m.replace('-end', '')}[spacing_bins][length_bins] = {cxx(table[m], lambda v: f'{v:.3f}')};")
+    for kind, names in (("bare", FEATURES), ("former", FORMER_FEATURES)):
+        low, high, per_mounting = fits[kind]
+        terms = powers(len(names))
+        out += ["", f"// The {kind} fit's features: {', '.join(names)} (gap: p over the insulated d, less 1);",
+                "// each scaled to [-1, 1] over low .. high, the sample's range, outside which the fit is not taken.",
+                f"inline constexpr int {kind}_features = {len(names)}, {kind}_terms = {len(terms)};",
+                f"inline constexpr double {kind}_low[{kind}_features] = {cxx_list(low, g)};",
+                f"inline constexpr double {kind}_high[{kind}_features] = {cxx_list(high, g)};",
+                "// The monomials' powers of the scaled features, in the order of the coefficients.",
+                f"inline constexpr unsigned char {kind}_powers[{kind}_terms][{kind}_features] = {cxx_list(terms, lambda t: cxx(t, str), 8)};"]
+        for m in MOUNTINGS:
+            name = m.replace("-end", "")
+            coefficients, offset = per_mounting[m]
+            out.append(f"// {m}: the coefficients, and the offsets [N bin][p / d bin][l / D bin] added to the polynomial")
+            out.append(f"// ({NO_FIT:g}: fewer than {MIN_NEAR} samples near, the fit not taken)")
+            out.append(f"inline constexpr double {name}_{kind}_fit[{kind}_terms] = {cxx_list(coefficients, g, 4)};")
+            out.append(f"inline constexpr double {name}_{kind}_offset[turns_bins][spacing_bins][length_bins] = {cxx(offset, lambda v: f'{v:.4f}')};")
+    return "\n".join(out)
+
+
+def main():
+    if len(sys.argv) in (4, 5) and sys.argv[1] == "--sample":
+        print(json.dumps(sample(int(sys.argv[2]), int(sys.argv[3]), former=len(sys.argv) == 5)))
+        return
+    rows = sample(SAMPLE_SEED, SAMPLE_COUNT, processes=2)
+    former_rows = sample(FORMER_SEED, FORMER_COUNT, processes=2, former=True)
+    text = header_text(envelope(rows), {"bare": fit(rows), "former": fit(former_rows)})
+    # A few rows' bounds as this script computes them from the numbers above, for the C++ test to reproduce.
+    header = read_header(text)
+    g = lambda v: f"{v:.17g}"
+    checks = [[*r[:5], float(r[5] == "grounded-end"), float(r[6]), bound(r, header)] for r in rows[:CHECK_ROWS]]
+    former_checks = [[*r[:5], float(r[5] == "grounded-end"), *r[8:], former_bound(r, header) or 0.0] for r in former_rows[:CHECK_ROWS]]
+    print(text)
+    print("\n// Checks: p / d, enamel / d, l / D, D / d, N, grounded, by the helix, and the bound this script computes;")
+    print("// for the former: p / d, enamel / d, l / D, D / d, N, grounded, permittivity, wall / D, fill, and r's bound (0: none).")
+    print(f"inline constexpr int check_rows = {CHECK_ROWS};")
+    print(f"inline constexpr double checks[check_rows][8] = {cxx(checks, g)};")
+    print(f"inline constexpr double former_checks[check_rows][10] = {cxx(former_checks, g)};")
     print("\n}  // namespace libcoil::detail::srf_screen_envelope")
 
 

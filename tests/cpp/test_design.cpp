@@ -12,6 +12,8 @@
 #include "libcoil/models/rosa.hpp"
 
 #include "libcoil/models/losses.hpp"
+#include "studies/srf_screen_bound.hpp"
+#include "studies/srf_screen_envelope.hpp"
 
 using namespace libcoil;
 
@@ -235,4 +237,28 @@ TEST(Design, FixedTurnsAndFixedFormDiameterNarrowTheSearch) {
         EXPECT_EQ(d.form_diameter, 25e-3);
         EXPECT_NEAR(d.inductance_at_target / q.inductance, 1.0, 1e-6);
     }
+}
+
+// The screen's bounds read the generated tables as tools/srf_screen_envelope.py does: the header carries a few
+// rows of the script's samples with the bounds the script computed from the same numbers.
+TEST(DesignScreen, BoundsReadTheTablesAsTheScriptDoes) {
+    namespace e = detail::srf_screen_envelope;
+    for (const auto& r : e::checks) {
+        const detail::ScreenedCoil c{r[0], r[1], r[2], r[3], r[4], r[5] > 0};
+        EXPECT_NEAR(detail::network_over_screen_bound(c, r[6] > 0) / r[7], 1.0, 1e-13) << r[0] << " " << r[2] << " " << r[4];
+    }
+    for (const auto& r : e::former_checks) {
+        const detail::ScreenedCoil c{r[0], r[1], r[2], r[3], r[4], r[5] > 0};
+        const double b = detail::former_shift_bound(c, r[6], r[7], r[8]);
+        if (r[9] == 0) {
+            EXPECT_EQ(b, 0);
+        } else {
+            EXPECT_NEAR(b / r[9], 1.0, 1e-13) << r[0] << " " << r[2] << " " << r[4];
+        }
+    }
+    // Outside the fits' range: the envelope alone, and no former bound (a gap below zero, a NaN feature).
+    const detail::ScreenedCoil touching{1.0, 0.0, 0.8, 20.0, 10.0, false};
+    EXPECT_EQ(detail::network_over_screen_bound(touching, true), e::floating[0][1]);
+    EXPECT_EQ(detail::former_shift_bound(touching, 3.0, 0.1, 1.0), 0);
+    EXPECT_EQ(detail::network_over_screen_bound(detail::ScreenedCoil{1.5, 0.0, 0.8, 20.0, 10.0, true}, false), e::grounded[2][1]);
 }

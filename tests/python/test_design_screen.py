@@ -1,12 +1,13 @@
-"""The design screen's bound on the turn network's SRF (libcoil/src/studies/srf_screen_envelope.hpp, written by
-tools/srf_screen_envelope.py from 3000 random bare coils): on coils the generator never saw (other seeds), the
-network's SRF never exceeds the envelope times the screen's, floating or grounded. The envelope is a measured
-bound; this is the check that it holds beyond its own sample. (A former only lowers the network's SRF:
-tests/cpp/test_turn_network.cpp.)"""
+"""The design screen's bounds on the turn network's SRF (libcoil/src/studies/srf_screen_envelope.hpp, written by
+tools/srf_screen_envelope.py from 40 000 random bare coils and 16 000 on random formers): on coils the generator
+never saw (other seeds), the network's SRF never exceeds the bound times the screen's, floating or grounded, and
+on a former the network's shift over the sheath helix's never exceeds its bound. They are measured bounds; this is
+the check that they hold beyond their own samples. (A former only lowers the network's SRF:
+tests/cpp/test_turn_network.cpp. The C++ reading of the tables against the script's: tests/cpp/test_design.cpp.)"""
 import importlib.util
 import os
 import pathlib
-import re
+import statistics
 
 import pytest
 
@@ -20,25 +21,40 @@ def generator():
     return module
 
 
-def tables():
-    text = (ROOT / "libcoil" / "src" / "studies" / "srf_screen_envelope.hpp").read_text()
-    out = {}
-    for name, body in re.findall(r"double (\w+)\[spacing_bins\]\[length_bins\] = \{(.*?)\};", text, re.S):
-        out[name] = [[float(v) for v in row.split(",")] for row in re.findall(r"\{([^{}]*)\}", body)]
-    return out
+def header(g):
+    return g.read_header((ROOT / "libcoil" / "src" / "studies" / "srf_screen_envelope.hpp").read_text())
 
 
 @pytest.mark.parametrize("seed", [29, 31, 37])
-def test_envelope_holds_on_fresh_coils(seed):
+def test_bound_holds_on_fresh_coils(seed):
     g = generator()
-    t = tables()
-    assert set(t) == {"floating", "grounded"}
-    worst = 0.0
-    for spacing, length, mounting, ratio in g.sample(seed, 400):
-        i, j = g.bin_of(spacing, g.SPACING_EDGES), g.bin_of(length, g.LENGTH_EDGES)
-        worst = max(worst, ratio / t["grounded" if mounting == "grounded-end" else "floating"][i][j])
-    # Measured on these samples: at most 0.956, 0.951 and 0.949 of the bound (seeds 41 and 43: 0.952, 0.951).
+    h = header(g)
+    rows = g.sample(seed, 400)
+    worst = max(row[7] / g.bound(row, h) for row in rows)
+    # Measured: at most 0.993 of the bound on 12000 fresh coils (seed 29); a test sample of 400 stays below that.
     assert worst <= 1.0
+
+
+@pytest.mark.parametrize("seed", [41, 43])
+def test_former_bound_holds_on_fresh_coils(seed):
+    g = generator()
+    h = header(g)
+    rows = [row for row in g.sample(seed, 300, former=True)]
+    bounded = [(row[7], g.former_bound(row, h)) for row in rows]
+    bounded = [(r, b) for r, b in bounded if b is not None]
+    assert len(bounded) > 250  # the fit's range covers nearly all of its domain
+    assert max(r / b for r, b in bounded) <= 1.0
+
+
+def test_fit_is_tight_where_the_search_works():
+    # Close-wound coils of 8 turns or more, l / D 0.5 .. 2 (the dense grid's designs): the fitted bound sits a
+    # few per cent above the network (the bins' envelope alone sat 17 % above at the median, measured), so
+    # that the screen lets through few designs the network then rejects.
+    g = generator()
+    h = header(g)
+    rows = [row for row in g.sample(53, 3000) if 1.05 < row[0] < 1.6 and 0.5 < row[2] < 2 and row[4] >= 8]
+    assert len(rows) > 60
+    assert statistics.median(g.bound(row, h) / row[7] for row in rows) < 1.07
 
 
 def test_bins_follow_the_solenoids_spacing():
@@ -54,6 +70,7 @@ def test_bins_follow_the_solenoids_spacing():
         if enamel > 0 and row is not None:
             break
     assert row[0] == pytest.approx(pitch / d, rel=1e-15)
+    assert row[1] == pytest.approx(enamel / d, rel=1e-15)
     assert row[0] > pitch / (d + 2 * enamel) * 1.01
     assert g.bin_of(1.0, g.SPACING_EDGES) == 0
     assert g.bin_of(100.0, g.SPACING_EDGES) == len(g.SPACING_EDGES)

@@ -279,7 +279,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     // sheath helix's, an upper bound): confirmed in rank order until `top` pass; one whose band fails
     // with it leaves the list and counts under its reason. The network costs milliseconds for each new
     // geometry (the near-field section and the former's charge; docs/models.md), so only the ranked
-    // designs pay it, and the screen's bound (network_srf_edge) keeps out those it surely rejects.
+    // designs pay it, and the screen's bound (network_srf_bound) keeps out those it surely rejects.
     out.front_size = front.size();
     const std::size_t wanted = std::max<std::size_t>(options.top, 1);
     std::size_t dropped = 0;

@@ -7,38 +7,32 @@
 #include "libcoil/models/self_resonance.hpp"
 #include "libcoil/models/shield.hpp"
 #include "studies/design_search.hpp"
-#include "studies/srf_screen_envelope.hpp"
+#include "studies/srf_screen_bound.hpp"
 
 namespace libcoil::detail {
 
-namespace {
-
-// The envelope's bound for a coil of spacing p / d and length l / D (srf_screen_envelope.hpp).
-double envelope(const double (&table)[srf_screen_envelope::spacing_bins][srf_screen_envelope::length_bins], double spacing, double length) {
-    namespace e = srf_screen_envelope;
-    int i = 0, j = 0;
-    while (i < e::spacing_bins - 1 && spacing >= e::spacing_edges[i]) ++i;
-    while (j < e::length_bins - 1 && length >= e::length_edges[j]) ++j;
-    return table[i][j];
-}
-
-}  // namespace
-
-double Evaluator::network_srf_edge(const Solenoid& s, double inductance, double screen_srf, const FormerDielectric& fd) const {
-    // The bare coil's turn network resonates at most the envelope times the bare screen's SRF (measured,
-    // srf_screen_envelope.hpp), and a former only lowers the network's resonances (tests/cpp/
-    // test_turn_network.cpp), so that bounds it with a former too, at the cost of a second sheath-helix
-    // solve. The band's low edge sits below the bound by the network's error and the close-wound allowance
-    // (srf_band).
-    namespace e = srf_screen_envelope;
-    const double spacing = s.pitch_to_wire(), length = s.winding_length() / s.mean_diameter();
+double Evaluator::network_srf_bound(const Solenoid& s, double inductance, const SelfResonance& screen, const FormerDielectric& fd) const {
+    // The bare coil's turn network resonates at most a measured bound times the bare screen's SRF
+    // (srf_screen_bound.hpp). A former only lowers the network's resonances (tests/cpp/test_turn_network.cpp),
+    // so that bounds it on a former too, at the cost of a second sheath-helix solve; and in air, where the
+    // former's fit holds, the network falls at least by the sheath helix's own fall divided by that fit's
+    // bound on how much less the network falls.
     const bool former = fd.wall > 0 && fd.relative_permittivity > q_.surroundings.relative_permittivity;
-    const double bare = former ? self_resonance(s, inductance, FormerDielectric{}, q_.surroundings, false).frequency : screen_srf;
-    const double bound = envelope(q_.surroundings.mounting == Mounting::grounded_end ? e::grounded : e::floating, spacing, length) * bare;
-    return srf_band(bound, "network", q_.surroundings.mounting, spacing, fd, 1.0).low;
+    std::optional<SelfResonance> own;
+    if (former) own = self_resonance(s, inductance, FormerDielectric{}, q_.surroundings, false);
+    const SelfResonance& bare = former ? *own : screen;
+    const Wire& w = s.wire();
+    const ScreenedCoil c{s.pitch_to_wire(), w.insulation / w.bare_diameter, s.winding_length() / s.mean_diameter(),
+                         s.mean_diameter() / w.bare_diameter, s.turns(), q_.surroundings.mounting == Mounting::grounded_end};
+    double bound = bare.frequency * network_over_screen_bound(c, bare.helical_line.available);
+    if (former && q_.surroundings.relative_permittivity == 1 && bare.helical_line.available && screen.helical_line.available) {
+        const double r = former_shift_bound(c, fd.relative_permittivity, fd.wall / s.mean_diameter(), fd.fill);
+        if (r > 0) bound *= std::fmin(1.0, r * screen.helical_line.frequency / bare.helical_line.frequency);
+    }
+    return bound;
 }
 
-// The search screens with a bound on the turn network's SRF (network_srf_edge above); a design it keeps is
+// The search screens with a bound on the turn network's SRF (network_srf_bound above); a design it keeps is
 // confirmed here with the turn network's SRF, the recommended one (in its shield where it has one), and the
 // band screened again on the coil as mounted.
 std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {

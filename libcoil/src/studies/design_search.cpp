@@ -417,19 +417,40 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
     std::optional<ShieldLoad> shield;
     if (q_.shield) shield = ShieldLoad{ShieldTable::perfect(g.shielded_change), c_t, d.self_resonance, d.inductance};
     std::optional<BandMiss> miss;
+    double network_bound = 0;  // the highest SRF the turn network can have (network_srf_bound), and its band
+    SrfBand network{};
     if (q_.band) {
         d.srf_margin = d.self_resonance / q_.band->ceiling;
-        // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band
-        // (network_srf_edge), as mounted: a shield lowers the edge further; bounding without that is safe.
-        miss = screen_srf_margin(*q_.band, as_mounted(network_srf_edge(s, g.bare_inductance, sr.frequency, fd)));
+        // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band,
+        // as mounted: a shield lowers the edge further; bounding without that is safe.
+        network_bound = network_srf_bound(s, g.bare_inductance, sr, fd);
+        network = srf_band(network_bound, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0);
+        miss = screen_srf_margin(*q_.band, as_mounted(network.low));
     }
     // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
     const bool band_z = q_.band && (q_.band->max_deviation || q_.band->min_impedance);
     if (!miss && (band_z || fixture_)) {
-        const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield));
-        field = z.mean_square_field();
-        if (band_z) miss = libcoil::screen_band(*q_.band, z, screen_points);
-        if (!miss && fixture_) miss = screen_fixture(z);
+        if (band_z) {
+            // The band's |Z| as confirm() will judge it, with the line resonating at the turn network's SRF,
+            // here at the most that can be: |Z|'s rise towards resonance only grows as the SRF falls, so a
+            // deviation missed here is missed there too. (The sheath helix's own SRF, above the network's by
+            // up to half, let through designs that confirm() then dropped, at milliseconds each.) In a shield
+            // the screen keeps the sheath helix's: the shielded network's SRF is not bounded here.
+            SelfResonance judged = sr;
+            if (!q_.shield) {
+                judged.frequency = network_bound;
+                judged.frequency_low = network.low;
+                judged.frequency_high = network.high;
+            }
+            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, judged, shield);
+            field = z.mean_square_field();
+            miss = libcoil::screen_band(*q_.band, z, screen_points);
+        }
+        if (!miss && fixture_) {
+            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield));
+            field = z.mean_square_field();
+            miss = screen_fixture(z);
+        }
     }
     if (!miss) return true;
     const std::string key = miss->criterion;

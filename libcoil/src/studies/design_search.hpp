@@ -132,9 +132,9 @@ public:
     // A kept design with the turn network's SRF (recommended): its figures updated, and the band's first
     // miss, if any, on the coil as mounted.
     std::optional<BandMiss> confirm(DesignFigures& d) const;
-    // For the screen: the low edge of the turn network's SRF band at the highest SRF the network can have for
-    // this coil, from the screen's `screen_srf` (the sheath helix's, on the former fd).
-    double network_srf_edge(const Solenoid& s, double inductance, double screen_srf, const FormerDielectric& fd) const;
+    // For the screen: the highest SRF the turn network can have for this coil, from the screen's self-resonance
+    // `screen` (the sheath helix's, on the former fd).
+    double network_srf_bound(const Solenoid& s, double inductance, const SelfResonance& screen, const FormerDielectric& fd) const;
     // A kept design trimmed (its pitch, the turns kept) so that the wire-harmonic solver's L at the target
     // frequency meets the target; its figures recomputed. False if no pitch of its candidate does.
     bool retarget(DesignFigures& d) const;

@@ -1,0 +1,88 @@
+#include "studies/srf_screen_bound.hpp"
+
+#include <cmath>
+
+#include "studies/srf_screen_envelope.hpp"
+
+namespace libcoil::detail {
+
+namespace {
+
+namespace e = srf_screen_envelope;
+
+int bin_of(double value, const double* edges, int bins) {
+    int i = 0;
+    while (i < bins - 1 && value >= edges[i]) ++i;
+    return i;
+}
+
+// One of the generated fits: its features' range, the monomials' powers, and a mounting's coefficients
+// and offsets.
+template <int features, int terms>
+struct Fit {
+    const double (&low)[features];
+    const double (&high)[features];
+    const unsigned char (&powers)[terms][features];
+    const double (&coefficients)[terms];
+    const double (&offset)[e::turns_bins][e::spacing_bins][e::length_bins];
+
+    // exp(the polynomial in the scaled features plus the bin's offset), or 0 outside the range (a NaN too).
+    double bound(const double (&x)[features], const ScreenedCoil& c) const {
+        double power[features][4];
+        for (int k = 0; k < features; ++k) {
+            if (!(x[k] >= low[k] && x[k] <= high[k])) return 0;
+            const double s = (2 * x[k] - low[k] - high[k]) / (high[k] - low[k]);
+            power[k][0] = 1;
+            power[k][1] = s;
+            power[k][2] = s * s;
+            power[k][3] = s * s * s;
+        }
+        double sum = 0;
+        for (int t = 0; t < terms; ++t) {
+            double term = coefficients[t];
+            for (int k = 0; k < features; ++k) term *= power[k][powers[t][k]];
+            sum += term;
+        }
+        const int n = bin_of(c.turns, e::turns_edges, e::turns_bins), i = bin_of(c.spacing, e::spacing_edges, e::spacing_bins),
+                  j = bin_of(c.length, e::length_edges, e::length_bins);
+        return std::exp(sum + offset[n][i][j]);
+    }
+};
+
+// The bare fit's features (the script's FEATURES), the former's three after them.
+void bare_features(const ScreenedCoil& c, double* x) {
+    x[0] = c.coat;
+    x[1] = std::log(c.length);
+    x[2] = std::log(c.diameter);
+    x[3] = 1 / c.turns;
+    x[4] = std::log(c.spacing / (1 + 2 * c.coat) - 1);
+}
+
+}  // namespace
+
+double network_over_screen_bound(const ScreenedCoil& c, bool by_helix) {
+    const int i = bin_of(c.spacing, e::spacing_edges, e::spacing_bins), j = bin_of(c.length, e::length_edges, e::length_bins);
+    const double envelope = (c.grounded ? e::grounded : e::floating)[i][j];
+    if (!by_helix) return envelope;
+    double x[e::bare_features];
+    bare_features(c, x);
+    const Fit<e::bare_features, e::bare_terms> fit{e::bare_low, e::bare_high, e::bare_powers,
+                                                   c.grounded ? e::grounded_bare_fit : e::floating_bare_fit,
+                                                   c.grounded ? e::grounded_bare_offset : e::floating_bare_offset};
+    const double fitted = fit.bound(x, c);
+    return fitted > 0 ? std::fmin(envelope, fitted) : envelope;
+}
+
+double former_shift_bound(const ScreenedCoil& c, double permittivity, double wall, double fill) {
+    double x[e::former_features];
+    bare_features(c, x);
+    x[5] = permittivity;
+    x[6] = std::log(wall);
+    x[7] = fill;
+    const Fit<e::former_features, e::former_terms> fit{e::former_low, e::former_high, e::former_powers,
+                                                       c.grounded ? e::grounded_former_fit : e::floating_former_fit,
+                                                       c.grounded ? e::grounded_former_offset : e::floating_former_offset};
+    return fit.bound(x, c);
+}
+
+}  // namespace libcoil::detail
