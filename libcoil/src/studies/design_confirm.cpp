@@ -11,25 +11,35 @@
 
 namespace libcoil::detail {
 
+namespace {
+
+ScreenedCoil screened(const Solenoid& s, Mounting mounting) {
+    const Wire& w = s.wire();
+    return {s.pitch_to_wire(), w.insulation / w.bare_diameter, s.winding_length() / s.mean_diameter(), s.mean_diameter() / w.bare_diameter,
+            s.turns(), mounting == Mounting::grounded_end};
+}
+
+}  // namespace
+
+double Evaluator::former_fall_bound(const Solenoid& s, const FormerDielectric& fd, const SelfResonance& on, const SelfResonance& bare) const {
+    // A former lowers the network's SRF less than the sheath helix's (srf_screen_bound.hpp): at most r's
+    // bound times the helix's own fall; measured in air only.
+    if (q_.surroundings.relative_permittivity != 1 || !on.helical_line.available || !bare.helical_line.available) return 1;
+    const double r = former_shift_bound(screened(s, q_.surroundings.mounting), fd.relative_permittivity, fd.wall / s.mean_diameter(), fd.fill);
+    return r > 0 ? std::fmin(1.0, r * on.helical_line.frequency / bare.helical_line.frequency) : 1;
+}
+
 double Evaluator::network_srf_bound(const Solenoid& s, double inductance, const SelfResonance& screen, const FormerDielectric& fd) const {
     // The bare coil's turn network resonates at most a measured bound times the bare screen's SRF
     // (srf_screen_bound.hpp). A former only lowers the network's resonances (tests/cpp/test_turn_network.cpp),
-    // so that bounds it on a former too, at the cost of a second sheath-helix solve; and in air, where the
-    // former's fit holds, the network falls at least by the sheath helix's own fall divided by that fit's
-    // bound on how much less the network falls.
+    // so that bounds it on a former too, at the cost of a second sheath-helix solve, and former_fall_bound
+    // bounds by how much.
     const bool former = fd.wall > 0 && fd.relative_permittivity > q_.surroundings.relative_permittivity;
     std::optional<SelfResonance> own;
     if (former) own = self_resonance(s, inductance, FormerDielectric{}, q_.surroundings, false);
     const SelfResonance& bare = former ? *own : screen;
-    const Wire& w = s.wire();
-    const ScreenedCoil c{s.pitch_to_wire(), w.insulation / w.bare_diameter, s.winding_length() / s.mean_diameter(),
-                         s.mean_diameter() / w.bare_diameter, s.turns(), q_.surroundings.mounting == Mounting::grounded_end};
-    double bound = bare.frequency * network_over_screen_bound(c, bare.helical_line.available);
-    if (former && q_.surroundings.relative_permittivity == 1 && bare.helical_line.available && screen.helical_line.available) {
-        const double r = former_shift_bound(c, fd.relative_permittivity, fd.wall / s.mean_diameter(), fd.fill);
-        if (r > 0) bound *= std::fmin(1.0, r * screen.helical_line.frequency / bare.helical_line.frequency);
-    }
-    return bound;
+    const double bound = bare.frequency * network_over_screen_bound(screened(s, q_.surroundings.mounting), bare.helical_line.available);
+    return former ? bound * former_fall_bound(s, fd, screen, bare) : bound;
 }
 
 // The search screens with a bound on the turn network's SRF (network_srf_bound above); a design it keeps is
@@ -43,16 +53,31 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
     // given potentials grows with the permittivity), and in the network's charge formulation the
     // resonances fall as the capacitance grows; the former's network read at most 0.997 of the bare one on
     // 460 random coils (tests/cpp/test_turn_network.cpp checks 120), the 1 % allowed here only spares
-    // numerical doubt. Where even that bound's low edge misses the SRF margin, the full confirmation below
-    // would too. Not in a shield, whose shift moves the edge both ways.
-    if (q_.band && !q_.shield && fd.wall > 0) {
-        if (const auto bare = network_resonance(s, FormerDielectric{}, q_.surroundings)) {
-            const double edge = srf_band(bare->frequency * 1.01, "network", q_.surroundings.mounting, s.pitch_to_wire(), FormerDielectric{}, 1.0).low;
-            if (auto miss = screen_srf_margin(*q_.band, edge)) return miss;
-        }
-    }
+    // numerical doubt; and it falls by at least former_fall_bound's share. Where even that bound's low edge
+    // misses the SRF margin, or |Z| at it the deviation limit, the full confirmation below would too. Not
+    // in a shield, whose shift moves the edge both ways.
     SelfResonance sr = self_resonance(s, d.inductance - (q_.shield ? shield_change(d.mean_diameter, d.wire_index, d.turns, d.pitch) : 0),
                                       fd, q_.surroundings, false);
+    if (q_.band && !q_.shield && fd.wall > 0) {
+        if (const auto bare = network_resonance(s, FormerDielectric{}, q_.surroundings)) {
+            const SelfResonance helix = self_resonance(s, sr.inductance, FormerDielectric{}, q_.surroundings, false);
+            const double most = bare->frequency * std::fmin(1.01, former_fall_bound(s, fd, sr, helix));
+            const SrfBand band = srf_band(most, "network", q_.surroundings.mounting, s.pitch_to_wire(), FormerDielectric{}, 1.0);
+            if (auto miss = screen_srf_margin(*q_.band, band.low)) return miss;
+            // And |Z|'s deviation with the line resonating there, which only grows as the SRF falls (not the
+            // least |Z|, which falls with the SRF's rise: the full check below takes it).
+            if (q_.band->max_deviation) {
+                SelfResonance at_most = sr;
+                at_most.frequency = most;
+                at_most.frequency_low = band.low;
+                at_most.frequency_high = band.high;
+                BandSpec deviation = *q_.band;
+                deviation.min_impedance.reset();
+                const CoilImpedance z(s, q_.conductor, d.temperature, sr.inductance, at_most, std::nullopt);
+                if (auto miss = libcoil::screen_band(deviation, z, screen_points)) return miss;
+            }
+        }
+    }
     const double bare_l = sr.inductance;
     double former_ratio = 1;
     if (const auto n = network_resonance(s, fd, q_.surroundings)) {

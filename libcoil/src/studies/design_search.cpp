@@ -434,8 +434,10 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
             // The band's |Z| as confirm() will judge it, with the line resonating at the turn network's SRF,
             // here at the most that can be: |Z|'s rise towards resonance only grows as the SRF falls, so a
             // deviation missed here is missed there too. (The sheath helix's own SRF, above the network's by
-            // up to half, let through designs that confirm() then dropped, at milliseconds each.) In a shield
-            // the screen keeps the sheath helix's: the shielded network's SRF is not bounded here.
+            // up to half, let through designs that confirm() then dropped, at milliseconds each.) The least
+            // |Z| errs the other way, by (f / SRF)^2 at the band's low end where it binds: less than with the
+            // sheath helix's SRF before. In a shield the screen keeps the sheath helix's: the shielded
+            // network's SRF is not bounded here.
             SelfResonance judged = sr;
             if (!q_.shield) {
                 judged.frequency = network_bound;

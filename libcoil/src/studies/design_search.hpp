@@ -135,6 +135,9 @@ public:
     // For the screen: the highest SRF the turn network can have for this coil, from the screen's self-resonance
     // `screen` (the sheath helix's, on the former fd).
     double network_srf_bound(const Solenoid& s, double inductance, const SelfResonance& screen, const FormerDielectric& fd) const;
+    // The turn network's SRF on the former fd over its bare one, at most, from the sheath helix's on it (`on`)
+    // and bare (`bare`); 1 where the former's fit does not hold.
+    double former_fall_bound(const Solenoid& s, const FormerDielectric& fd, const SelfResonance& on, const SelfResonance& bare) const;
     // A kept design trimmed (its pitch, the turns kept) so that the wire-harmonic solver's L at the target
     // frequency meets the target; its figures recomputed. False if no pitch of its candidate does.
     bool retarget(DesignFigures& d) const;
