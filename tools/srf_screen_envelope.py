@@ -6,7 +6,7 @@ with the turn network's (the recommended one, a thousand times dearer). The scre
 where the network's SRF is sure to miss the margin too, so it needs a bound: network <= bound x screen. This
 script measures the ratio network / screen on random bare coils of the search's domain (no former: a former
 only lowers the network's SRF, tests/cpp/test_turn_network.cpp, so the bare network bounds it, and the search
-takes the bare screen's SRF for it), for either mounting, and writes two bounds:
+takes the bare screen's SRF for it), for either mounting, and writes three bounds:
 
 - the envelope: the ratio binned by the turns' spacing p / d (bare d, as Solenoid::pitch_to_wire) and the
   winding's length over its diameter l / D; a bin's bound is the largest ratio in it and its neighbours along
@@ -27,7 +27,9 @@ takes the bare screen's SRF for it), for either mounting, and writes two bounds:
   bound.
 
 The bounds are measured maxima, not proven ones: the test (tests/python/test_design_screen.py) draws fresh
-coils with other seeds and finds none above them. (The same envelope taken with a former on both sides did
+coils with other seeds and finds none above them (measured: on 15 800 fresh bare coils at most 0.987 of the
+bound, on 3000 fresh coils on formers at most 0.995 of r's). A coil above its bound would make the search pass
+over a design the network accepts: a worse design, never a wrong verdict, since every kept design is confirmed. (The same envelope taken with a former on both sides did
 not hold on fresh coils: up to 1.16 of its bound on long grounded coils, where the network takes the former's
 shift from the sheath helix.)
 
