@@ -31,7 +31,9 @@ def test_bound_holds_on_fresh_coils(seed):
     h = header(g)
     rows = g.sample(seed, 400)
     worst = max(row[7] / g.bound(row, h) for row in rows)
-    # Measured: at most 0.993 of the bound on 12000 fresh coils (seed 29); a test sample of 400 stays below that.
+    # Measured (the generator's own evaluation, this header): at most 0.987 of the bound on 15 800 fresh coils
+    # (seeds 29, 31, 37, 53); one fresh coil of a first version reached 1.012, and the bins were then made to
+    # need 100 samples near.
     assert worst <= 1.0
 
 
@@ -39,17 +41,17 @@ def test_bound_holds_on_fresh_coils(seed):
 def test_former_bound_holds_on_fresh_coils(seed):
     g = generator()
     h = header(g)
-    rows = [row for row in g.sample(seed, 300, former=True)]
-    bounded = [(row[7], g.former_bound(row, h)) for row in rows]
+    bounded = [(row[7], g.former_bound(row, h)) for row in g.sample(seed, 300, former=True)]
     bounded = [(r, b) for r, b in bounded if b is not None]
-    assert len(bounded) > 250  # the fit's range covers nearly all of its domain
+    assert len(bounded) > 250  # the fit's range covers nearly all of its domain (2994 of 3000, seed 9)
+    # Measured: at most 0.995 of the bound on 3000 fresh coils (seed 9).
     assert max(r / b for r, b in bounded) <= 1.0
 
 
 def test_fit_is_tight_where_the_search_works():
     # Close-wound coils of 8 turns or more, l / D 0.5 .. 2 (the dense grid's designs): the fitted bound sits a
-    # few per cent above the network (the bins' envelope alone sat 17 % above at the median, measured), so
-    # that the screen lets through few designs the network then rejects.
+    # few per cent above the network (measured: 5.6 % at the median on 1242 such fresh coils of seeds 29 .. 53,
+    # the bins' envelope alone 18 %), so that the screen lets through few designs the network then rejects.
     g = generator()
     h = header(g)
     rows = [row for row in g.sample(53, 3000) if 1.05 < row[0] < 1.6 and 0.5 < row[2] < 2 and row[4] >= 8]

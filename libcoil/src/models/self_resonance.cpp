@@ -65,7 +65,7 @@ HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDiele
                                             const Surroundings& surroundings, double tolerance) {
     const double eps_out = check_media(former, surroundings);
     const double beta = 2 * pi / (resonance_waves(surroundings.mounting) * s.winding_length());
-    const double a = s.mean_radius(), tangent = s.pitch() / (pi * s.mean_diameter());  // tan(psi)
+    const double a = s.mean_radius(), tangent = s.pitch_tangent();
     HelicalLineResonance r;
     r.medium = {eps_out, eps_out};
     const double rise = former.wall > 0 ? (former.relative_permittivity - eps_out) * former.fill : 0.0;

@@ -45,7 +45,8 @@ Solenoid Solenoid::on_form(double form_diameter, double turns, double pitch, con
     return Solenoid(Params{form_diameter + wire.insulated_diameter(), turns, pitch, wire, lead_length});
 }
 
-double Solenoid::pitch_angle() const { return std::atan(p_.pitch / (pi * p_.mean_diameter)); }
+double Solenoid::pitch_tangent() const { return p_.pitch / (pi * p_.mean_diameter); }
+double Solenoid::pitch_angle() const { return std::atan(pitch_tangent()); }
 
 // A plain root of the sum of squares: the figures are a few metres at most, far from overflow, and
 // std::hypot's care for that costs a design search more than the rest of this.

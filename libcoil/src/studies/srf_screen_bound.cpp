@@ -49,6 +49,17 @@ struct Fit {
     }
 };
 
+// The fits are cubics (the script's DEGREE): Fit::bound keeps each feature's powers up to the third.
+constexpr bool cubic(const auto& powers) {
+    for (const auto& term : powers) {
+        for (unsigned char e : term) {
+            if (e > 3) return false;
+        }
+    }
+    return true;
+}
+static_assert(cubic(e::bare_powers) && cubic(e::former_powers), "srf_screen_envelope.hpp: a fit of degree above 3");
+
 // The bare fit's features (the script's FEATURES), the former's three after them.
 void bare_features(const ScreenedCoil& c, double* x) {
     x[0] = c.coat;

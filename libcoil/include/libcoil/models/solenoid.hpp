@@ -43,6 +43,7 @@ public:
     double diameter_to_length() const { return p_.mean_diameter / winding_length(); }
     double pitch_to_wire() const { return p_.pitch / p_.wire.bare_diameter; }
     double pitch_angle() const;   // rad, atan(p / (pi D))
+    double pitch_tangent() const; // p / (pi D), tan of the pitch angle
     double helix_length() const;  // m, N * sqrt((pi D)^2 + p^2)
     double wire_length() const { return helix_length() + p_.lead_length; }
 
