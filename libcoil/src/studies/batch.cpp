@@ -1,8 +1,10 @@
 #include "libcoil/studies/batch.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
+#include <optional>
 #include <thread>
 
 #include "libcoil/core/constants.hpp"
@@ -40,32 +42,78 @@ double fast_self_resonance(const Solenoid& s, double inductance) {
     }
 }
 
-// One element; throws InputError or DomainError as the models do.
-Figures element(const BatchInput& in, std::size_t i, BatchChain chain) {
-    const Conductor& c = in.conductors[in.conductor.empty() ? 0 : in.conductor.size() == 1 ? in.conductor[0] : in.conductor[i]];
-    const Solenoid s(Solenoid::Params{at(in.mean_diameter, i), at(in.turns, i), at(in.pitch, i), Wire{at(in.wire_diameter, i), at(in.insulation, i), {}}, 0});
-    const double t = at(in.temperature, i), f = at(in.frequency, i);
-    require_non_negative("frequency", f);
-    const double rho = c.resistivity_at(t), r = s.wire().radius();
+// A few coils at a time, stage by stage: every coil's geometry, then every coil's L, its R, its SRF. Each stage
+// is a chain of dependent operations (a table lookup, a division, another lookup) that one coil alone leaves
+// mostly waiting; consecutive calls of one stage are independent, so the processor overlaps them. One coil
+// after another, whole, each chain waited on the last.
+constexpr std::size_t group = 8;
+
+struct Slot {
+    std::optional<Solenoid> coil;
+    const Conductor* conductor = nullptr;
+    double temperature = 0, frequency = 0;
     Figures out{};
-    if (chain == BatchChain::light) {
-        out.dc_resistance = rho * resistance_per_resistivity(s.wire().bare_diameter, s.wire_length());
-        out.inductance = rosa_inductance(s.mean_diameter(), s.turns(), s.pitch(), s.wire().bare_diameter);
-        // x = sqrt(2) r / delta, delta = sqrt(rho / (pi f mu0 mu_r)) (skin_effect.hpp), by its tables.
-        const double x = r * std::sqrt(2 * pi * f * mu0 * c.relative_permeability / rho);
-        out.resistance = out.dc_resistance * detail::wire_skin_resistance(x);
-        const double c_self = medhurst_capacitance_formula(s.mean_diameter(), s.winding_length());
-        out.self_resonance = 1 / (2 * pi * std::sqrt(out.inductance * c_self));
-    } else {
-        out.inductance = recommended_inductance(s);
-        const AcResistance ac = ac_resistance(s, c, t, f);
-        out.dc_resistance = ac.dc;
-        out.resistance = ac.resistance;
-        out.self_resonance = fast_self_resonance(s, out.inductance);
+    BatchStatus status = BatchStatus::ok;
+    std::string* message = nullptr;  // where the failure's text goes, when asked for
+};
+
+// Runs `step` on every slot still ok; an exception marks its slot (and keeps its message when asked).
+template <class Step>
+void stage(std::span<Slot> slots, const Step& step) {
+    for (Slot& slot : slots) {
+        if (slot.status != BatchStatus::ok) continue;
+        try {
+            step(slot);
+        } catch (const InputError& e) {
+            slot.status = BatchStatus::bad_input;
+            if (slot.message) *slot.message = e.what();
+        } catch (const std::exception& e) {  // DomainError, and anything a model lets through
+            slot.status = BatchStatus::outside_domain;
+            if (slot.message) *slot.message = e.what();
+        }
     }
-    out.q_factor = 2 * pi * f * out.inductance / out.resistance;
-    for (double v : {out.inductance, out.dc_resistance, out.resistance, out.q_factor, out.self_resonance}) finite_result("batch figure", v);
-    return out;
+}
+
+// Elements begin .. begin + slots.size(), as the models compute them (InputError or DomainError per slot).
+void evaluate_group(const BatchInput& in, std::size_t begin, std::span<Slot> slots, BatchChain chain) {
+    for (std::size_t j = 0; j < slots.size(); ++j) {
+        const std::size_t i = begin + j;
+        Slot& slot = slots[j];
+        slot.status = BatchStatus::ok;
+        slot.conductor = &in.conductors[in.conductor.empty() ? 0 : in.conductor.size() == 1 ? in.conductor[0] : in.conductor[i]];
+        slot.temperature = at(in.temperature, i);
+        slot.frequency = at(in.frequency, i);
+        slot.coil.reset();
+        stage(slots.subspan(j, 1), [&](Slot& x) {
+            x.coil.emplace(Solenoid::Params{at(in.mean_diameter, i), at(in.turns, i), at(in.pitch, i), Wire{at(in.wire_diameter, i), at(in.insulation, i), {}}, 0});
+            require_non_negative("frequency", x.frequency);
+        });
+    }
+    if (chain == BatchChain::light) {
+        stage(slots, [](Slot& x) {
+            const Solenoid& s = *x.coil;
+            const double rho = x.conductor->resistivity_at(x.temperature);
+            x.out.dc_resistance = rho * resistance_per_resistivity(s.wire().bare_diameter, s.wire_length());
+            x.out.inductance = rosa_inductance(s.mean_diameter(), s.turns(), s.pitch(), s.wire().bare_diameter);
+            // x = sqrt(2) r / delta, delta = sqrt(rho / (pi f mu0 mu_r)) (skin_effect.hpp), by its tables.
+            const double xs = s.wire().radius() * std::sqrt(2 * pi * x.frequency * mu0 * x.conductor->relative_permeability / rho);
+            x.out.resistance = x.out.dc_resistance * detail::wire_skin_resistance(xs);
+            const double c_self = medhurst_capacitance_formula(s.mean_diameter(), s.winding_length());
+            x.out.self_resonance = 1 / (2 * pi * std::sqrt(x.out.inductance * c_self));
+        });
+    } else {
+        stage(slots, [](Slot& x) { x.out.inductance = recommended_inductance(*x.coil); });
+        stage(slots, [](Slot& x) {
+            const AcResistance ac = ac_resistance(*x.coil, *x.conductor, x.temperature, x.frequency);
+            x.out.dc_resistance = ac.dc;
+            x.out.resistance = ac.resistance;
+        });
+        stage(slots, [](Slot& x) { x.out.self_resonance = fast_self_resonance(*x.coil, x.out.inductance); });
+    }
+    stage(slots, [](Slot& x) {
+        x.out.q_factor = 2 * pi * x.frequency * x.out.inductance / x.out.resistance;
+        for (double v : {x.out.inductance, x.out.dc_resistance, x.out.resistance, x.out.q_factor, x.out.self_resonance}) finite_result("batch figure", v);
+    });
 }
 
 }  // namespace
@@ -112,22 +160,22 @@ void evaluate_batch(const BatchInput& in, const BatchOutputView& out, BatchChain
         if (m != n) throw InputError("batch", "an output of " + std::to_string(m) + " elements for " + std::to_string(n));
     }
     const double nan = std::numeric_limits<double>::quiet_NaN();
-    const auto work = [&](std::size_t i, char /*state*/) {
-        try {
-            const Figures f = element(in, i, chain);
-            out.inductance[i] = f.inductance;
-            out.dc_resistance[i] = f.dc_resistance;
-            out.resistance[i] = f.resistance;
-            out.q_factor[i] = f.q_factor;
-            out.self_resonance[i] = f.self_resonance;
-            out.status[i] = BatchStatus::ok;
-        } catch (const InputError&) {
-            out.status[i] = BatchStatus::bad_input;
-        } catch (const std::exception&) {  // DomainError, and anything a model lets through
-            out.status[i] = BatchStatus::outside_domain;
-        }
-        if (out.status[i] != BatchStatus::ok) {
-            for (auto* v : {&out.inductance, &out.dc_resistance, &out.resistance, &out.q_factor, &out.self_resonance}) (*v)[i] = nan;
+    constexpr std::size_t chunk_size = 512;
+    const auto work = [&](std::size_t chunk, char /*state*/) {
+        std::array<Slot, group> slots;
+        for (std::size_t begin = chunk * chunk_size, end = std::min(n, begin + chunk_size); begin < end; begin += group) {
+            const std::span<Slot> g(slots.data(), std::min(group, end - begin));
+            evaluate_group(in, begin, g, chain);
+            for (std::size_t j = 0; j < g.size(); ++j) {
+                const std::size_t i = begin + j;
+                const bool ok = g[j].status == BatchStatus::ok;
+                out.status[i] = g[j].status;
+                out.inductance[i] = ok ? g[j].out.inductance : nan;
+                out.dc_resistance[i] = ok ? g[j].out.dc_resistance : nan;
+                out.resistance[i] = ok ? g[j].out.resistance : nan;
+                out.q_factor[i] = ok ? g[j].out.q_factor : nan;
+                out.self_resonance[i] = ok ? g[j].out.self_resonance : nan;
+            }
         }
     };
     // The core count once: glibc reads it from sysfs on every call (10 us on this VM, half of a one-coil call).
@@ -137,18 +185,17 @@ void evaluate_batch(const BatchInput& in, const BatchOutputView& out, BatchChain
     // Chunks of 512 coils (about 0.1 ms) from a shared counter: a core that runs slower, as a VM's second
     // core often does, takes fewer of them, where halves fixed in advance left the faster one waiting.
     std::vector<char> state(k);
-    detail::parallel_chunks(n, state, work, {}, 512);
+    detail::parallel_chunks((n + chunk_size - 1) / chunk_size, state, work, {}, 1);
 }
 
 std::string batch_message(const BatchInput& in, std::size_t i, BatchChain chain) {
     check_batch(in);
     if (i >= in.size()) throw InputError("index", std::to_string(i) + " is past the batch");
-    try {
-        element(in, i, chain);
-    } catch (const std::exception& e) {
-        return e.what();
-    }
-    return "";
+    std::string message;
+    Slot slot;
+    slot.message = &message;
+    evaluate_group(in, i, std::span<Slot>(&slot, 1), chain);
+    return message;
 }
 
 }  // namespace libcoil

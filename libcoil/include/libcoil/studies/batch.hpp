@@ -14,7 +14,8 @@
 //   light  L: Rosa's form; R: R_dc times the exact skin ratio (skin_effect.hpp's tables); SRF: Medhurst's
 //          empirical formula for the capacitance (medhurst.hpp) with that L.
 // Q = w L / R (0 at f = 0). A bad element gets a status and NaN figures, never an exception; its message is
-// available from batch_message. Elements are split over threads in contiguous blocks.
+// available from batch_message. Threads take chunks of 512 elements from a shared counter; within a chunk,
+// eight coils at a time go through each model in turn (batch.cpp).
 //
 // Accuracy: the full chain is the analysis's own functions, so it agrees with `coil analyze` (its
 // closed-form loss solver) to rounding, and its SRF with the analysis's sheath-helix figure to the search
