@@ -5,6 +5,7 @@
 
 #include <cmath>
 #include <numbers>
+#include <vector>
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
@@ -296,4 +297,38 @@ TEST(SelfResonance, OutsideTheSheathHelixTheNetworkHolds) {
     EXPECT_TRUE(r.medhurst.available);  // the cross-check stays
     const CoilImpedance z(s, conductor("copper"), 293.15, L, r);
     EXPECT_TRUE(std::isfinite(std::abs(z.at(0.5 * r.frequency).impedance)));
+}
+
+TEST(SelfResonance, SideBySideSolvesAreTheOneByOneFiguresBitForBit) {
+    // bare_helical_line_frequencies runs up to eight coils' Newton steps in lockstep, each lane taking the steps
+    // it would take alone (a lane that has stopped waits): its figures must be helical_line_resonance's to
+    // the bit. Coils from short and fat to long and thin, close-wound and spaced (one, two and three steps),
+    // 13 of them so that a block is left part full, one slot empty.
+    std::vector<Solenoid> coils;
+    for (int i = 0; i < 13; ++i) {
+        const double d = 0.4e-3 + 0.1e-3 * i, mean = 8e-3 + 3e-3 * i, pitch = d * (1.05 + 0.4 * (i % 5));
+        coils.emplace_back(Solenoid::Params{mean, 3.0 + 4.5 * i, pitch, Wire{d, 0, {}}, 0});
+    }
+    std::vector<const Solenoid*> at;
+    for (const Solenoid& s : coils) at.push_back(&s);
+    at[5] = nullptr;
+    std::vector<double> f(at.size());
+    for (const double tolerance : {search_tolerance, 1e-12}) {
+        bare_helical_line_frequencies(at, tolerance, f);
+        for (std::size_t i = 0; i < at.size(); ++i) {
+            if (!at[i]) {
+                EXPECT_TRUE(std::isnan(f[i]));
+                continue;
+            }
+            EXPECT_EQ(f[i], helical_line_resonance(*at[i], {}, {}, tolerance).frequency) << i << " " << tolerance;
+        }
+    }
+    // A medium of two permittivities is not the tabulated dispersion's: NaN, for the caller to solve.
+    const SheathHelix two = SheathHelix::with_pitch_tangent(0.01, 0.05, {2.0, 1.0});
+    double k = 0;
+    SheathHelix::tabulated_wavenumbers(std::span(&two, 1), std::span<const double>(std::vector<double>{50.0}), 1e-9, std::span(&k, 1));
+    EXPECT_TRUE(std::isnan(k));
+    const SheathHelix one = SheathHelix::with_pitch_tangent(0.01, 0.05, {2.0, 2.0});
+    SheathHelix::tabulated_wavenumbers(std::span(&one, 1), std::span<const double>(std::vector<double>{50.0}), 1e-9, std::span(&k, 1));
+    EXPECT_EQ(k, one.wavenumber_for(50.0, 0, 1e-9));
 }

@@ -1,6 +1,7 @@
 #include "libcoil/models/helical_line.hpp"
 
 #include <algorithm>
+#include <bit>
 #include <cmath>
 #include <cstdint>
 #include <limits>
@@ -97,24 +98,67 @@ detail::PolynomialPair q_and_slope(double x) {  // q_table_low <= x < q_table_hi
     return detail::estrin_pair(t::body[at.index], at.w);
 }
 
-std::optional<std::pair<double, double>> uniform_medium_root(double big_x, double tan2, double tolerance) {
-    const auto in_tables = [](double x) { return x >= q_table_low && x < q_table_high; };
-    double x = big_x;  // the first step lands within about (tan^2(psi) Q)^2 / 8 of the root
-    for (int i = 0; i < 40; ++i) {
-        if (!in_tables(x)) return std::nullopt;
-        const detail::PolynomialPair q = q_and_slope(x);
-        const double lift = 1 + tan2 * q.first;
-        const double step = (x * x * lift - big_x * big_x) / (2 * x * lift + tan2 * x * x * q.second);
-        x -= step;
-        // Newton's relative error squares and halves with each step here (the dispersion is x^2 times a slowly
-        // varying function), so after a step of relative size r the root lies within about r^2 / 2; Q moves to
-        // first order with it, which leaves Q within Q'' (r x)^2 / 2 and k within (x^2 Q'' / (4 Q)) r^2 <= 0.51 r^2
-        // (x^2 Q'' below 2.04 and Q above 1 on the tables, by mpmath). A step with r^2 <= tolerance / 2 leaves k
-        // within about the tolerance (compared as squares, without a division; measured within 0.245 of it in
-        // test_self_resonance.py).
-        if (step * step <= 0.5 * tolerance * (x * x)) return std::pair{x, q.first - q.second * step};
+// a where c holds, else b, without a branch (the lanes below must not wait on one another's tests).
+inline double pick(bool c, double a, double b) {
+    const std::uint64_t m = std::uint64_t{0} - static_cast<std::uint64_t>(c);
+    return std::bit_cast<double>((std::bit_cast<std::uint64_t>(a) & m) | (std::bit_cast<std::uint64_t>(b) & ~m));
+}
+
+struct UniformRoot {
+    double x = 0, q = 0;
+    bool found = false;
+};
+
+// The root for up to `max_lanes` helices at once, in lockstep: each lane takes exactly the steps it would take
+// alone, and one that has stopped (or left the tables, found = false) waits for the rest. Alone, one helix's
+// steps are a single chain of lookups and divisions that the processor can only wait on; side by side, the
+// chains of several overlap. So no lane's test may branch: a lane that waits steps on at a point kept inside
+// the tables, and its result is kept by selection.
+constexpr std::size_t max_lanes = 8;
+
+void uniform_medium_roots(const double* big_x, const double* tan2, double tolerance, std::size_t count, UniformRoot* out) {
+    const double top = std::nextafter(q_table_high, 0.0);
+    double x[max_lanes];
+    bool running[max_lanes];
+    std::size_t left = 0;
+    for (std::size_t j = 0; j < count; ++j) {
+        x[j] = big_x[j];
+        running[j] = true;
+        out[j] = {};
+        ++left;
     }
-    return std::nullopt;
+    for (int i = 0; i < 40 && left > 0; ++i) {
+        for (std::size_t j = 0; j < count; ++j) {
+            const bool inside = x[j] >= q_table_low && x[j] < q_table_high;
+            const bool stepping = running[j] && inside;
+            const double at = std::clamp(x[j], q_table_low, top);
+            const detail::PolynomialPair q = q_and_slope(at);
+            const double lift = 1 + tan2[j] * q.first;
+            const double step = (at * at * lift - big_x[j] * big_x[j]) / (2 * at * lift + tan2[j] * at * at * q.second);
+            const double next = at - step;
+            // Newton's relative error squares and halves with each step here (the dispersion is x^2 times a
+            // slowly varying function), so after a step of relative size r the root lies within about r^2 / 2;
+            // Q moves to first order with it, which leaves Q within Q'' (r x)^2 / 2 and k within
+            // (x^2 Q'' / (4 Q)) r^2 <= 0.51 r^2 (x^2 Q'' below 2.04 and Q above 1 on the tables, by mpmath). A
+            // step with r^2 <= tolerance / 2 leaves k within about the tolerance (compared as squares, without
+            // a division; measured within 0.245 of it in test_self_resonance.py).
+            const bool stops = stepping && step * step <= 0.5 * tolerance * (next * next);
+            out[j].x = pick(stops, next, out[j].x);
+            out[j].q = pick(stops, q.first - q.second * step, out[j].q);
+            out[j].found = out[j].found || stops;
+            x[j] = pick(stepping, next, x[j]);
+            left -= static_cast<std::size_t>(running[j] && !(stepping && !stops));
+            running[j] = stepping && !stops;
+        }
+    }
+}
+
+// One helix alone (see above): (x, Q(x)), or nothing where x leaves the tables.
+std::optional<std::pair<double, double>> uniform_medium_root(double big_x, double tan2, double tolerance) {
+    UniformRoot r;
+    uniform_medium_roots(&big_x, &tan2, tolerance, 1, &r);
+    if (!r.found) return std::nullopt;
+    return std::pair{r.x, r.q};
 }
 
 }  // namespace
@@ -181,15 +225,44 @@ double SheathHelix::full_bracket(double beta) const {
     return finite_result("sheath helix", root_between(g, lo, k_max, g_lo, g_hi));
 }
 
+static void check_tolerance(double tolerance) {
+    if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) throw InputError("tolerance", format_value(tolerance) + "; expected 1e-15 .. 1e-3");
+}
+
+// One permittivity: the tabulated dispersion. k a from e (k a)^2 = (beta a)^2 - x^2 = tan^2(psi) x^2 Q(x), which
+// does not cancel.
+double SheathHelix::uniform_wavenumber(double x, double q) const {
+    return finite_result("sheath helix", x * std::sqrt(tan2_ * q / m_.inner) / a_);  // tabulated_wavenumbers too
+}
+
+void SheathHelix::tabulated_wavenumbers(std::span<const SheathHelix> helices, std::span<const double> beta, double tolerance, std::span<double> k) {
+    check_tolerance(tolerance);
+    if (beta.size() != helices.size() || k.size() != helices.size()) throw InputError("beta", "arrays of different lengths");
+    for (std::size_t begin = 0; begin < helices.size(); begin += max_lanes) {
+        const std::size_t count = std::min(max_lanes, helices.size() - begin);
+        double big_x[max_lanes], tan2[max_lanes];
+        for (std::size_t j = 0; j < count; ++j) {
+            const SheathHelix& h = helices[begin + j];
+            const double b = beta[begin + j];
+            big_x[j] = b > 0 && std::isfinite(b) ? b * h.a_ : 0.0;  // 0 lies below the tables: not found
+            tan2[j] = h.tan2_;
+        }
+        UniformRoot roots[max_lanes];
+        uniform_medium_roots(big_x, tan2, tolerance, count, roots);
+        for (std::size_t j = 0; j < count; ++j) {
+            const SheathHelix& h = helices[begin + j];
+            const double v = roots[j].x * std::sqrt(h.tan2_ * roots[j].q / h.m_.inner) / h.a_;  // as uniform_wavenumber
+            const bool fits = h.m_.inner == h.m_.outer && roots[j].found && std::isfinite(v);
+            k[begin + j] = fits ? v : std::numeric_limits<double>::quiet_NaN();
+        }
+    }
+}
+
 double SheathHelix::wavenumber_for(double beta, double guess, double tolerance) const {
     require_positive("beta", beta);
-    if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) throw InputError("tolerance", format_value(tolerance) + "; expected 1e-15 .. 1e-3");
+    check_tolerance(tolerance);
     if (m_.inner == m_.outer) {
-        // One permittivity: the tabulated dispersion. k a from e (k a)^2 = (beta a)^2 - x^2 = tan^2(psi) x^2 Q(x),
-        // which does not cancel.
-        if (const auto root = uniform_medium_root(beta * a_, tan2_, tolerance)) {
-            return finite_result("sheath helix", root->first * std::sqrt(tan2_ * root->second / m_.inner) / a_);
-        }
+        if (const auto root = uniform_medium_root(beta * a_, tan2_, tolerance)) return uniform_wavenumber(root->first, root->second);
     }
     const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);

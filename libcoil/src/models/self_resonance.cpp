@@ -6,6 +6,8 @@
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
+#include <limits>
+#include <vector>
 
 #include <boost/math/tools/roots.hpp>
 
@@ -59,12 +61,42 @@ double check_media(const FormerDielectric& former, const Surroundings& surroundi
 
 double resonance_waves(Mounting m) { return m == Mounting::floating ? 2.0 : 4.0; }  // l = lambda / 2 or / 4
 
+// The axial wavenumber of the first resonance: l = lambda / 2 or / 4.
+double resonance_beta(const Solenoid& s, Mounting m) { return 2 * pi / (resonance_waves(m) * s.winding_length()); }
+
 }  // namespace
+
+void bare_helical_line_frequencies(std::span<const Solenoid* const> coils, double tolerance, std::span<double> frequency) {
+    if (frequency.size() != coils.size()) throw InputError("frequency", "an output of another length than the coils");
+    constexpr std::size_t block = 8;
+    for (std::size_t begin = 0; begin < coils.size(); begin += block) {
+        const std::size_t count = std::min(block, coils.size() - begin);
+        thread_local std::vector<SheathHelix> helices;  // kept, so that no block allocates
+        helices.clear();
+        double beta[block], k[block];
+        std::size_t lane_of[block];
+        for (std::size_t j = 0; j < count; ++j) {
+            const Solenoid* s = coils[begin + j];
+            frequency[begin + j] = std::numeric_limits<double>::quiet_NaN();
+            if (!s) continue;
+            const double tangent = s->pitch_tangent();
+            if (!(tangent > 0 && std::isfinite(tangent))) continue;  // with_pitch_tangent's checks: left to the caller
+            lane_of[helices.size()] = j;
+            beta[helices.size()] = resonance_beta(*s, Mounting::floating);
+            helices.push_back(SheathHelix::with_pitch_tangent(s->mean_radius(), tangent, {1.0, 1.0}));
+        }
+        SheathHelix::tabulated_wavenumbers(helices, std::span(beta, helices.size()), tolerance, std::span(k, helices.size()));
+        for (std::size_t m = 0; m < helices.size(); ++m) {
+            const double f = speed_of_light * k[m] / (2 * pi);  // as helical_line_resonance; NaN stays NaN
+            if (std::isfinite(f)) frequency[begin + lane_of[m]] = f;
+        }
+    }
+}
 
 HelicalLineResonance helical_line_resonance(const Solenoid& s, const FormerDielectric& former,
                                             const Surroundings& surroundings, double tolerance) {
     const double eps_out = check_media(former, surroundings);
-    const double beta = 2 * pi / (resonance_waves(surroundings.mounting) * s.winding_length());
+    const double beta = resonance_beta(s, surroundings.mounting);
     const double a = s.mean_radius(), tangent = s.pitch_tangent();
     HelicalLineResonance r;
     r.medium = {eps_out, eps_out};

@@ -108,7 +108,15 @@ void evaluate_group(const BatchInput& in, std::size_t begin, std::span<Slot> slo
             x.out.dc_resistance = ac.dc;
             x.out.resistance = ac.resistance;
         });
-        stage(slots, [](Slot& x) { x.out.self_resonance = fast_self_resonance(*x.coil, x.out.inductance); });
+        // The SRFs side by side where the tabulated helical line holds, the rest one by one.
+        std::array<const Solenoid*, group> coils{};
+        std::array<double, group> srf{};
+        for (std::size_t j = 0; j < slots.size(); ++j) coils[j] = slots[j].status == BatchStatus::ok ? &*slots[j].coil : nullptr;
+        bare_helical_line_frequencies(std::span(coils.data(), slots.size()), search_tolerance, std::span(srf.data(), slots.size()));
+        stage(slots, [&](Slot& x) {
+            const double f = srf[static_cast<std::size_t>(&x - slots.data())];
+            x.out.self_resonance = std::isnan(f) ? fast_self_resonance(*x.coil, x.out.inductance) : f;
+        });
     }
     stage(slots, [](Slot& x) {
         x.out.q_factor = 2 * pi * x.frequency * x.out.inductance / x.out.resistance;

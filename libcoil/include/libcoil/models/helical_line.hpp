@@ -26,6 +26,7 @@
 #pragma once
 
 #include <cmath>
+#include <span>
 #include <utility>
 
 namespace libcoil {
@@ -52,6 +53,12 @@ public:
     // wavenumber_for(beta) uses). In a uniform medium (inner = outer) both solve the tabulated dispersion
     // instead (no guess needed), where x = a sqrt(beta^2 - e k^2) lies in 2^-10 .. 64.
     double wavenumber_for(double beta, double guess, double tolerance = default_tolerance) const;
+    // Several helices at once, each at its own beta: k where the tabulated dispersion of a uniform medium
+    // finds it, the value wavenumber_for gives, to the bit; NaN elsewhere (a medium of two permittivities, a
+    // root off the tables, a beta or k out of range), where the caller asks wavenumber_for, which says why.
+    // Their Newton steps run side by side. InputError only for a bad tolerance or arrays of other lengths.
+    static void tabulated_wavenumbers(std::span<const SheathHelix> helices, std::span<const double> beta, double tolerance,
+                                      std::span<double> k);
 
     static constexpr double default_tolerance = 5.7e-14;  // 2^-44
     // The explicit estimate of k for beta with gamma = beta in both regions; its error is O((v/c)^2).
@@ -67,6 +74,7 @@ public:
 
 private:
     double full_bracket(double beta) const;
+    double uniform_wavenumber(double x, double q) const;
     // The dispersion and its derivative with respect to k, for Newton's steps.
     std::pair<double, double> dispersion_and_slope(double beta, double k) const;
     SheathHelix(double radius, double tangent, HelixMedium medium, int);  // tan(psi) given, checked by the callers

@@ -25,6 +25,7 @@
 #pragma once
 
 #include <optional>
+#include <span>
 #include <string>
 #include <vector>
 
@@ -80,6 +81,10 @@ struct HelicalLineResonance {
 // `tolerance`: relative, on the wavenumber and on the former's fixed point.
 HelicalLineResonance helical_line_resonance(const Solenoid& coil, const FormerDielectric& former = {},
                                             const Surroundings& surroundings = {}, double tolerance = 1e-12);
+// Its frequency for bare coils floating in free air, several at once (their solves run side by side):
+// helical_line_resonance's figure, to the bit, where the tabulated dispersion holds, NaN where it does not
+// and for a null coil (the caller asks helical_line_resonance for those).
+void bare_helical_line_frequencies(std::span<const Solenoid* const> coils, double tolerance, std::span<double> frequency);
 
 // The turn network's first resonance (turn_network.hpp) for the coil in its surroundings: free space or
 // one end grounded, a uniform medium, the former's polarisation charge (a tube, or a rod where its wall
