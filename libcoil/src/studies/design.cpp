@@ -294,8 +294,8 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         try {
             // The search met the target with a quick estimate of L's fall at the target frequency: a design
             // the turn network confirms is trimmed to meet it by the wire-harmonic solver and confirmed again.
-            c.miss = ev.confirm(c.design);
-            if (!c.miss) c.miss = ev.retarget(c.design) ? ev.confirm(c.design) : BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
+            c.miss = ev.confirm(c.design, false);
+            if (!c.miss) c.miss = ev.retarget(c.design) ? ev.confirm(c.design, true) : BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
         } catch (const std::exception&) {
             c.miss = BandMiss{"model_domain", 10, 0, 0};
         }
@@ -335,7 +335,8 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     }
     if (dropped > 0) {
         out.notes.push_back(std::to_string(dropped) + " of the best-ranked designs (screened with an upper bound on the turn network's SRF "
-                            "from the sheath helix's" + std::string(q.fixture ? ", and the fixture's port at 25 points" : "") + ") failed the band with the turn network's SRF" +
+                            "from the sheath helix's" + std::string(q.fixture ? ", and the fixture's port at 25 points" : "") +
+                            ") failed the band with the turn network's SRF and its band (the model's error and the build's spread)" +
                             std::string(q.fixture ? " or the full fixture study" : "") + " and were dropped");
     }
     if (out.pareto.empty()) {

@@ -45,7 +45,7 @@ double Evaluator::network_srf_bound(const Solenoid& s, double inductance, const 
 // The search screens with a bound on the turn network's SRF (network_srf_bound above); a design it keeps is
 // confirmed here with the turn network's SRF, the recommended one (in its shield where it has one), and the
 // band screened again on the coil as mounted.
-std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
+std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spread) const {
     const Solenoid s(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length});
     const FormerDielectric fd = q_.former ? q_.former->dielectric(d.form_diameter) : FormerDielectric{};
     // First a bound without the former's charge solve: the network without the former (its near-field
@@ -105,13 +105,25 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d) const {
         shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance, by_network};
     }
     if (!q_.band && !fixture_) return std::nullopt;
-    const CoilImpedance z(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield));
     std::optional<BandMiss> miss;
     if (q_.band) {
         d.srf_margin = d.self_resonance / q_.band->ceiling;
-        miss = libcoil::screen_band(*q_.band, z, screen_points);
+        miss = libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, shield), screen_points);
+        // The build's spread joins the band as the analysis adds it (analysis.cpp's add_self_resonance): two
+        // standard deviations off each edge, by the same model (the network, four more solves), so that a design
+        // the search keeps passes the analysis's band check too. Without it the first designs of a search could
+        // sit in the last two per cent above the SRF margin and all fail there. Only for a design that passes
+        // without it, and only where its figures are final.
+        if (!miss && with_build_spread) {
+            const double spread = srf_build_spread(s, fd, q_.surroundings, q_.tolerances, nullptr);
+            if (spread > 0) {
+                sr.frequency_low *= 1 - 2 * spread;
+                sr.frequency_high *= 1 + 2 * spread;
+                miss = libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, shield), screen_points);
+            }
+        }
     }
-    if (!miss && fixture_) miss = screen_fixture(z);
+    if (!miss && fixture_) miss = screen_fixture(CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield)));
     return miss;
 }
 

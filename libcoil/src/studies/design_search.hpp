@@ -130,8 +130,9 @@ public:
     // rejects that candidate under the models' domain; it never stops the search or its thread.
     void evaluate(const Candidate& c, Tally& t) const;
     // A kept design with the turn network's SRF (recommended): its figures updated, and the band's first
-    // miss, if any, on the coil as mounted.
-    std::optional<BandMiss> confirm(DesignFigures& d) const;
+    // miss, if any, on the coil as mounted; with the build's spread in the SRF's band, as the analysis has it,
+    // where `with_build_spread`.
+    std::optional<BandMiss> confirm(DesignFigures& d, bool with_build_spread) const;
     // For the screen: the highest SRF the turn network can have for this coil, from the screen's self-resonance
     // `screen` (the sheath helix's, on the former fd).
     double network_srf_bound(const Solenoid& s, double inductance, const SelfResonance& screen, const FormerDielectric& fd) const;
