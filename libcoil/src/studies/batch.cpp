@@ -49,6 +49,7 @@ double fast_self_resonance(const Solenoid& s, double inductance) {
 constexpr std::size_t group = 8;
 
 struct Slot {
+    Solenoid::Params params;
     std::optional<Solenoid> coil;
     const Conductor* conductor = nullptr;
     double temperature = 0, frequency = 0;
@@ -84,11 +85,19 @@ void evaluate_group(const BatchInput& in, std::size_t begin, std::span<Slot> slo
         slot.temperature = at(in.temperature, i);
         slot.frequency = at(in.frequency, i);
         slot.coil.reset();
-        stage(slots.subspan(j, 1), [&](Slot& x) {
-            x.coil.emplace(Solenoid::Params{at(in.mean_diameter, i), at(in.turns, i), at(in.pitch, i), Wire{at(in.wire_diameter, i), at(in.insulation, i), {}}, 0});
-            require_non_negative("frequency", x.frequency);
-        });
+        Solenoid::Params& p = slot.params;
+        p.mean_diameter = at(in.mean_diameter, i);
+        p.turns = at(in.turns, i);
+        p.pitch = at(in.pitch, i);
+        p.wire.bare_diameter = at(in.wire_diameter, i);
+        p.wire.insulation = at(in.insulation, i);
     }
+    // The coils in a loop of their own: read straight after the figures were written, one by one, the
+    // Solenoid's copy of them waited on the stores.
+    stage(slots, [](Slot& x) {
+        x.coil.emplace(x.params);
+        require_non_negative("frequency", x.frequency);
+    });
     if (chain == BatchChain::light) {
         stage(slots, [](Slot& x) {
             const Solenoid& s = *x.coil;
