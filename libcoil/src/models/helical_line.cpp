@@ -119,18 +119,18 @@ constexpr std::size_t max_lanes = 8;
 void uniform_medium_roots(const double* big_x, const double* tan2, double tolerance, std::size_t count, UniformRoot* out) {
     const double top = std::nextafter(q_table_high, 0.0);
     double x[max_lanes];
-    bool running[max_lanes];
-    std::size_t left = 0;
+    std::size_t active[max_lanes];  // the lanes still stepping, listed afresh after each round
+    std::size_t left = count;
     for (std::size_t j = 0; j < count; ++j) {
         x[j] = big_x[j];
-        running[j] = true;
+        active[j] = j;
         out[j] = {};
-        ++left;
     }
     for (int i = 0; i < 40 && left > 0; ++i) {
-        for (std::size_t j = 0; j < count; ++j) {
+        std::size_t still = 0;
+        for (std::size_t m = 0; m < left; ++m) {
+            const std::size_t j = active[m];
             const bool inside = x[j] >= q_table_low && x[j] < q_table_high;
-            const bool stepping = running[j] && inside;
             const double at = std::clamp(x[j], q_table_low, top);
             const detail::PolynomialPair q = q_and_slope(at);
             const double lift = 1 + tan2[j] * q.first;
@@ -142,14 +142,15 @@ void uniform_medium_roots(const double* big_x, const double* tan2, double tolera
             // (x^2 Q'' / (4 Q)) r^2 <= 0.51 r^2 (x^2 Q'' below 2.04 and Q above 1 on the tables, by mpmath). A
             // step with r^2 <= tolerance / 2 leaves k within about the tolerance (compared as squares, without
             // a division; measured within 0.245 of it in test_self_resonance.py).
-            const bool stops = stepping && step * step <= 0.5 * tolerance * (next * next);
+            const bool stops = inside && step * step <= 0.5 * tolerance * (next * next);
             out[j].x = pick(stops, next, out[j].x);
             out[j].q = pick(stops, q.first - q.second * step, out[j].q);
-            out[j].found = out[j].found || stops;
-            x[j] = pick(stepping, next, x[j]);
-            left -= static_cast<std::size_t>(running[j] && !(stepping && !stops));
-            running[j] = stepping && !stops;
+            out[j].found = stops;
+            x[j] = next;  // read again only while the lane steps on
+            active[still] = j;  // kept where it steps on: written always, counted only then
+            still += static_cast<std::size_t>(inside && !stops);
         }
+        left = still;
     }
 }
 
