@@ -121,7 +121,11 @@ void evaluate_group(const BatchInput& in, std::size_t begin, std::span<Slot> slo
         std::array<const Solenoid*, group> coils{};
         std::array<double, group> srf{};
         for (std::size_t j = 0; j < slots.size(); ++j) coils[j] = slots[j].status == BatchStatus::ok ? &*slots[j].coil : nullptr;
-        bare_helical_line_frequencies(std::span(coils.data(), slots.size()), search_tolerance, std::span(srf.data(), slots.size()));
+        try {
+            bare_helical_line_frequencies(std::span(coils.data(), slots.size()), search_tolerance, std::span(srf.data(), slots.size()));
+        } catch (const std::exception&) {  // nothing it should raise; if it does, each coil goes its own way and says why
+            srf.fill(std::numeric_limits<double>::quiet_NaN());
+        }
         stage(slots, [&](Slot& x) {
             const double f = srf[static_cast<std::size_t>(&x - slots.data())];
             x.out.self_resonance = std::isnan(f) ? fast_self_resonance(*x.coil, x.out.inductance) : f;
