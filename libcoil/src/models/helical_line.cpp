@@ -110,10 +110,11 @@ struct UniformRoot {
 };
 
 // The root for up to `max_lanes` helices at once, in lockstep: each lane takes exactly the steps it would take
-// alone, and one that has stopped (or left the tables, found = false) waits for the rest. Alone, one helix's
-// steps are a single chain of lookups and divisions that the processor can only wait on; side by side, the
-// chains of several overlap. So no lane's test may branch: a lane that waits steps on at a point kept inside
-// the tables, and its result is kept by selection.
+// alone, and one that has stopped (or left the tables, found = false) leaves the rounds to the rest. Alone, one
+// helix's steps are a single chain of lookups and divisions that the processor can only wait on; side by side,
+// the chains of several overlap. So no lane's test may branch: a round steps every lane on its list (a lane
+// that has left the tables at a point clamped into them, its step discarded), keeps each result by selection,
+// and lists afresh the lanes that go on.
 constexpr std::size_t max_lanes = 8;
 
 void uniform_medium_roots(const double* big_x, const double* tan2, double tolerance, std::size_t count, UniformRoot* out) {
