@@ -301,9 +301,10 @@ TEST(SelfResonance, OutsideTheSheathHelixTheNetworkHolds) {
 
 TEST(SelfResonance, SideBySideSolvesAreTheOneByOneFiguresBitForBit) {
     // bare_helical_line_frequencies runs up to eight coils' Newton steps in lockstep, each lane taking the steps
-    // it would take alone (a lane that has stopped waits): its figures must be helical_line_resonance's to
-    // the bit. Coils from short and fat to long and thin, close-wound and spaced (one, two and three steps),
-    // 13 of them so that a block is left part full, one slot empty.
+    // it would take alone (a lane that has stopped leaves the rounds): its figures must be helical_line_resonance's
+    // to the bit. Coils from short and fat to long and thin, close-wound and spaced, 13 of them so that a block is
+    // left part full, one slot empty. Lanes stop at different rounds: 1 or 2 steps at the search tolerance, 2 or
+    // 3 at 1e-12 (counted by a scipy replica of the iteration).
     std::vector<Solenoid> coils;
     for (int i = 0; i < 13; ++i) {
         const double d = 0.4e-3 + 0.1e-3 * i, mean = 8e-3 + 3e-3 * i, pitch = d * (1.05 + 0.4 * (i % 5));

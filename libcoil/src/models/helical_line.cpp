@@ -233,9 +233,7 @@ static void check_tolerance(double tolerance) {
 
 // One permittivity: the tabulated dispersion. k a from e (k a)^2 = (beta a)^2 - x^2 = tan^2(psi) x^2 Q(x), which
 // does not cancel.
-double SheathHelix::uniform_wavenumber(double x, double q) const {
-    return finite_result("sheath helix", x * std::sqrt(tan2_ * q / m_.inner) / a_);  // tabulated_wavenumbers too
-}
+double SheathHelix::uniform_wavenumber(double x, double q) const { return x * std::sqrt(tan2_ * q / m_.inner) / a_; }
 
 void SheathHelix::tabulated_wavenumbers(std::span<const SheathHelix> helices, std::span<const double> beta, double tolerance, std::span<double> k) {
     check_tolerance(tolerance);
@@ -253,7 +251,7 @@ void SheathHelix::tabulated_wavenumbers(std::span<const SheathHelix> helices, st
         uniform_medium_roots(big_x, tan2, tolerance, count, roots);
         for (std::size_t j = 0; j < count; ++j) {
             const SheathHelix& h = helices[begin + j];
-            const double v = roots[j].x * std::sqrt(h.tan2_ * roots[j].q / h.m_.inner) / h.a_;  // as uniform_wavenumber
+            const double v = h.uniform_wavenumber(roots[j].x, roots[j].q);
             const bool fits = h.m_.inner == h.m_.outer && roots[j].found && std::isfinite(v);
             k[begin + j] = fits ? v : std::numeric_limits<double>::quiet_NaN();
         }
@@ -264,7 +262,9 @@ double SheathHelix::wavenumber_for(double beta, double guess, double tolerance) 
     require_positive("beta", beta);
     check_tolerance(tolerance);
     if (m_.inner == m_.outer) {
-        if (const auto root = uniform_medium_root(beta * a_, tan2_, tolerance)) return uniform_wavenumber(root->first, root->second);
+        if (const auto root = uniform_medium_root(beta * a_, tan2_, tolerance)) {
+            return finite_result("sheath helix", uniform_wavenumber(root->first, root->second));
+        }
     }
     const int bits = 1 - static_cast<int>(std::floor(std::log2(tolerance)));
     const double k_max = beta / std::sqrt(std::max(m_.inner, m_.outer)) * (1 - 1e-13);

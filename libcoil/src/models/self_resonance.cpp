@@ -319,7 +319,7 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
     r.radius = s.mean_radius();
     r.half_wave_wire_frequency = speed_of_light / (2 * s.helix_length());
     const double waves = resonance_waves(surroundings.mounting);
-    r.resonance_wavenumber = 2 * pi / (waves * r.winding_length);
+    r.resonance_wavenumber = resonance_beta(s, surroundings.mounting);
     const double eps_out = surroundings.relative_permittivity;
     HelixMedium medium{eps_out, eps_out};
     std::string line_failure;

@@ -112,7 +112,7 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
         // The build's spread joins the band as the analysis adds it (analysis.cpp's add_self_resonance): two
         // standard deviations off each edge, by the same model (the network, four more solves), so that a design
         // the search keeps passes the analysis's band check too. Without it the first designs of a search could
-        // sit in the last two per cent above the SRF margin and all fail there. Only for a design that passes
+        // sit within the spread (about 2 %) above the SRF margin and all fail there. Only for a design that passes
         // without it, and only where its figures are final.
         if (!miss && with_build_spread) {
             const double spread = srf_build_spread(s, fd, q_.surroundings, q_.tolerances, nullptr);

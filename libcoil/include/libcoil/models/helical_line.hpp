@@ -74,7 +74,7 @@ public:
 
 private:
     double full_bracket(double beta) const;
-    double uniform_wavenumber(double x, double q) const;
+    double uniform_wavenumber(double x, double q) const;  // k from the tabulated root (x, Q(x)), unchecked
     // The dispersion and its derivative with respect to k, for Newton's steps.
     std::pair<double, double> dispersion_and_slope(double beta, double k) const;
     SheathHelix(double radius, double tangent, HelixMedium medium, int);  // tan(psi) given, checked by the callers
