@@ -5,6 +5,7 @@
 #include <vector>
 
 #include "libcoil/models/turn_network.hpp"
+#include "libcoil/models/wire.hpp"
 
 namespace {
 
@@ -31,5 +32,23 @@ void BM_TurnNetworkResonance(benchmark::State& s) {
     for (auto _ : s) benchmark::DoNotOptimize(libcoil::TurnNetwork(coil).resonances(1));
 }
 BENCHMARK(BM_TurnNetworkResonance)->Arg(10)->Arg(50)->Arg(200)->ArgName("turns")->Unit(benchmark::kMillisecond);
+
+}  // namespace
+
+namespace {
+
+// A design search's confirmation of a new geometry: the first resonance of a turn network whose near-field
+// section is not yet remembered (the pitch moves by a nanometre each time). The coil is one the dense grid's
+// search confirms (benchmarks/bench_design.cpp): 23.75 mm, 19.25 turns at 1.494 mm of 1.25 mm wire.
+void BM_TurnNetworkNewGeometry(benchmark::State& s) {
+    const libcoil::Wire wire{1.25e-3, libcoil::enamel_build(1.25e-3, 2), "1.25 mm grade 2"};
+    double pitch = 1.494e-3;
+    for (auto _ : s) {
+        pitch += 1e-9;
+        const libcoil::Solenoid coil(libcoil::Solenoid::Params{23.75e-3, 19.25, pitch, wire, 0});
+        benchmark::DoNotOptimize(libcoil::TurnNetwork(coil).resonances(1));
+    }
+}
+BENCHMARK(BM_TurnNetworkNewGeometry)->Unit(benchmark::kMillisecond);
 
 }  // namespace

@@ -10,6 +10,7 @@
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
 #include "models/elliptic.hpp"
+#include "models/solve_in_place.hpp"
 
 namespace libcoil {
 
@@ -329,15 +330,15 @@ double system_entry(const Panel& t, const Panel& s, bool own, const std::optiona
     return t.dielectric ? (own ? 1.0 : 0.0) - t.lambda / (2 * pi) * k.e_n : k.phi;
 }
 
-Matrix system_matrix(const std::vector<Panel>& panels, const std::optional<double>& plane) {
+Matrix solve_system(const std::vector<Panel>& panels, const std::optional<double>& plane, const Matrix& rhs) {
     const auto m = static_cast<Eigen::Index>(panels.size());
-    Matrix a(m, m);
-    for (Eigen::Index i = 0; i < m; ++i) {
-        for (Eigen::Index j = 0; j < m; ++j) {
-            a(i, j) = system_entry(panels[static_cast<std::size_t>(i)], panels[static_cast<std::size_t>(j)], i == j, plane);
+    return detail::solve_in_place(m, rhs, [&](Eigen::Map<Matrix>& a) {
+        for (Eigen::Index i = 0; i < m; ++i) {
+            for (Eigen::Index j = 0; j < m; ++j) {
+                a(i, j) = system_entry(panels[static_cast<std::size_t>(i)], panels[static_cast<std::size_t>(j)], i == j, plane);
+            }
         }
-    }
-    return a;
+    });
 }
 
 // The panel moved by dz along the axis.
@@ -407,7 +408,7 @@ std::vector<double> ring_potential_reaction(const std::vector<ChargeRing>& rings
             back(k, i) = panel_integral(t, r.radius, r.z, 0, 0, plane, false).phi;
         }
     }
-    const Matrix sigma = system_matrix(panels, plane).partialPivLu().solve(rhs);
+    const Matrix sigma = solve_system(panels, plane, rhs);
     Matrix reaction = back * sigma / (4 * pi * eps0 * scene.background_permittivity);
     reaction = (0.5 * (reaction + reaction.transpose())).eval();  // reciprocal up to the discretisation
     for (Eigen::Index i = 0; i < n; ++i) {
@@ -433,7 +434,7 @@ std::vector<double> group_capacitance(const ChargeScene& scene, int groups, int*
     for (int g = 0; g < groups; ++g) {
         if (!seen[static_cast<std::size_t>(g)]) throw InputError("conductors.group", std::to_string(g) + " has no conductor");
     }
-    const Matrix sigma = system_matrix(panels, scene.ground_plane).partialPivLu().solve(rhs);
+    const Matrix sigma = solve_system(panels, scene.ground_plane, rhs);
     return charge_matrix(panels, sigma, groups);
 }
 
@@ -462,19 +463,8 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
     const auto p = static_cast<Eigen::Index>(one.size()), m = p * cells;
     if (m > 20000) throw InputError("panels", std::to_string(m) + "; the charge solver takes at most 20000");
     if (count) *count = static_cast<int>(m);
-    // Cell k's row against cell k + d's column: the cell's panels against its own moved by d periods.
-    Matrix a(m, m), block(p, p);
-    std::vector<Panel> moved(one.size());
-    for (int d = 1 - cells; d < cells; ++d) {
-        for (std::size_t j = 0; j < one.size(); ++j) moved[j] = shifted(one[j], d * period);
-        for (Eigen::Index i = 0; i < p; ++i) {
-            for (Eigen::Index j = 0; j < p; ++j) {
-                block(i, j) = system_entry(one[static_cast<std::size_t>(i)], moved[static_cast<std::size_t>(j)], d == 0 && i == j, std::nullopt);
-            }
-        }
-        for (int k = std::max(0, -d); k < cells && k + d < cells; ++k) a.block(k * p, (k + d) * p, p, p) = block;
-    }
     std::vector<Panel> panels;  // the whole row, cell k's conductors group k
+    panels.reserve(static_cast<std::size_t>(m));
     Matrix rhs = Matrix::Zero(m, cells);
     for (int k = 0; k < cells; ++k) {
         for (const Panel& q : one) {
@@ -484,7 +474,20 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
             rhs(static_cast<Eigen::Index>(panels.size()) - 1, k) = 4 * pi * eps0;  // 1 V on cell k
         }
     }
-    const Matrix sigma = a.partialPivLu().solve(rhs);
+    // Cell k's row against cell k + d's column: the cell's panels against its own moved by d periods.
+    const Matrix sigma = detail::solve_in_place(m, rhs, [&](Eigen::Map<Matrix>& a) {
+        Matrix block(p, p);
+        std::vector<Panel> moved(one.size());
+        for (int d = 1 - cells; d < cells; ++d) {
+            for (std::size_t j = 0; j < one.size(); ++j) moved[j] = shifted(one[j], d * period);
+            for (Eigen::Index i = 0; i < p; ++i) {
+                for (Eigen::Index j = 0; j < p; ++j) {
+                    block(i, j) = system_entry(one[static_cast<std::size_t>(i)], moved[static_cast<std::size_t>(j)], d == 0 && i == j, std::nullopt);
+                }
+            }
+            for (int k = std::max(0, -d); k < cells && k + d < cells; ++k) a.block(k * p, (k + d) * p, p, p) = block;
+        }
+    });
     return charge_matrix(panels, sigma, cells);
 }
 

@@ -12,6 +12,7 @@
 #include "libcoil/models/coaxial_mutual.hpp"
 #include "libcoil/models/shield.hpp"
 #include "libcoil/models/skin_effect.hpp"
+#include "models/solve_in_place.hpp"
 
 namespace libcoil {
 
@@ -146,7 +147,10 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
     const int U = B + 1;
     const int H = static_cast<int>(reps.size());
     const Eigen::Index n = static_cast<Eigen::Index>(H) * U;
-    Eigen::MatrixXcd A = Eigen::MatrixXcd::Zero(n, n);
+    struct System {};  // solve_in_place.hpp's storage, kept for this thread's next solve
+    std::vector<cd> once;
+    Eigen::Map<Eigen::MatrixXcd> A = detail::kept_matrix<cd, System>(n, once);
+    A.setZero();
     Eigen::VectorXcd rhs = Eigen::VectorXcd::Zero(n);
     const cd jw(0, omega);
     Eigen::MatrixXcd F(Q, U), S(Q, U);
@@ -241,7 +245,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
             rhs(row + 2 * m) = 0.0;
         }
     }
-    const auto lu = A.partialPivLu();
+    const Eigen::PartialPivLU<Eigen::Ref<Eigen::MatrixXcd>> lu(A);  // in place
     Eigen::VectorXcd x = lu.solve(wall.empty() ? rhs : Eigen::VectorXcd(rhs + wall_rhs(wall)));
     const std::vector<WallRingCurrent> wall_by_filaments = wall;
     // Then with the wall driven by the turns' dipoles too: the proximity currents shift each turn's current
