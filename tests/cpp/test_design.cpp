@@ -1,7 +1,10 @@
 // Design synthesis: the requirement, the search, and the designs it returns.
 #include <gtest/gtest.h>
 
+#include <chrono>
 #include <cmath>
+#include <thread>
+#include <vector>
 
 #include "libcoil/studies/analysis.hpp"
 #include "libcoil/studies/cautions.hpp"
@@ -12,6 +15,7 @@
 #include "libcoil/models/rosa.hpp"
 
 #include "libcoil/models/losses.hpp"
+#include "studies/parallel.hpp"
 #include "studies/srf_screen_bound.hpp"
 #include "studies/srf_screen_envelope.hpp"
 
@@ -150,6 +154,32 @@ TEST(Design, ThreadsDoNotChangeTheAnswer) {
     ASSERT_TRUE(a.chosen && b.chosen);
     EXPECT_EQ(a.pareto[*a.chosen].turns, b.pareto[*b.chosen].turns);
     EXPECT_EQ(a.pareto[*a.chosen].pitch, b.pareto[*b.chosen].pitch);
+}
+
+TEST(Design, RankedChecksAreTakenInOrderWhateverTheThreads) {
+    // The confirmation loop (parallel.hpp's in_order_until): items finish out of order (the odd ones
+    // late), yet they are taken strictly in order, and none past the one that ends the loop. The loop ends at
+    // the third multiple of 7 (index 14), as one thread would end it. The library's own contract; no source.
+    for (unsigned threads : {1u, 2u, 4u}) {
+        std::vector<std::size_t> taken;
+        int passes = 0;
+        detail::in_order_until<std::size_t>(200, threads, [](std::size_t i) {
+                if (i % 2) std::this_thread::sleep_for(std::chrono::microseconds(200));
+                return i;
+            }, [&](std::size_t i, std::size_t&& r) {
+                EXPECT_EQ(i, r);
+                taken.push_back(i);
+                return (r % 7 == 0 ? ++passes : passes) < 3;
+            });
+        ASSERT_EQ(taken.size(), 15u) << threads << " threads";
+        for (std::size_t i = 0; i < taken.size(); ++i) EXPECT_EQ(taken[i], i) << threads << " threads";
+        std::size_t all = 0;  // never stopped: every item, in order
+        detail::in_order_until<std::size_t>(50, threads, [](std::size_t i) { return i; }, [&](std::size_t i, std::size_t&&) {
+            EXPECT_EQ(i, all++);
+            return true;
+        });
+        EXPECT_EQ(all, 50u);
+    }
 }
 
 TEST(Design, LongestWindingFallsWithThePitch) {

@@ -312,27 +312,19 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         }
         return c;
     };
-    // In rank order, `threads` designs at a time: a batch is checked side by side and taken in order until
-    // `top` have passed; the checks past that point are discarded, so the outcome is the one-thread one.
-    for (std::size_t start = 0; start < front.size() && out.pareto.size() < wanted; start += threads) {
-        const std::size_t count = std::min<std::size_t>(threads, front.size() - start);
-        std::vector<Checked> batch(count);
-        std::vector<std::thread> helpers;
-        for (std::size_t j = 1; j < count; ++j) helpers.emplace_back([&, j] { batch[j] = check(front[start + j]); });
-        batch[0] = check(front[start]);
-        for (auto& h : helpers) h.join();
-        for (Checked& c : batch) {
-            if (out.pareto.size() == wanted) break;
-            if (!c.miss) {
-                out.pareto.push_back(std::move(c.design));
-                fixture_checks.push_back(std::move(c.fixture));
-                continue;
-            }
+    // In rank order on `threads` threads, each taking the next design; the checks are taken in rank order
+    // until `top` have passed, and those past that point are discarded: the outcome is the one-thread one.
+    detail::in_order_until<Checked>(front.size(), threads, [&](std::size_t i) { return check(front[i]); }, [&](std::size_t, Checked&& c) {
+        if (!c.miss) {
+            out.pareto.push_back(std::move(c.design));
+            fixture_checks.push_back(std::move(c.fixture));
+        } else {
             ++dropped;
             --out.feasible;
             ++out.rejected_by_reason[c.miss->criterion];
         }
-    }
+        return out.pareto.size() < wanted;
+    });
     if (dropped > 0) {
         out.notes.push_back(std::to_string(dropped) + " of the best-ranked designs (screened with an upper bound on the turn network's SRF "
                             "from the sheath helix's" + std::string(q.fixture ? ", and the fixture's port at 25 points" : "") +

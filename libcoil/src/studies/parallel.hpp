@@ -1,6 +1,7 @@
-// Internal: a loop over [0, total) on several threads. Workers take chunks from a shared counter; the
-// calling thread works too and alone reports progress. Each worker k gets its own state (state[k]), so
-// that nothing is shared while it runs.
+// Internal: loops on several threads.
+// parallel_chunks: a loop over [0, total). Workers take chunks from a shared counter; the calling thread
+// works too and alone reports progress. Each worker k gets its own state (state[k]), so that nothing is
+// shared while it runs.
 #pragma once
 
 #include <algorithm>
@@ -8,6 +9,8 @@
 #include <chrono>
 #include <cstddef>
 #include <functional>
+#include <mutex>
+#include <optional>
 #include <thread>
 #include <vector>
 
@@ -34,6 +37,34 @@ void parallel_chunks(std::size_t total, std::vector<State>& state, const Work& w
     run(0, static_cast<bool>(progress));
     for (auto& t : pool) t.join();
     if (progress) progress(total, total);
+}
+
+// Items [0, total) on `threads` threads (the calling one too), taken in order from a shared counter, their
+// results handed to take(i, result) strictly in the order of i, one at a time, until take returns false.
+// Work already begun past that point is finished and discarded, so the outcome is the one-thread one. The
+// threads live for the whole loop: what they keep for their next item (solve_in_place.hpp) stays warm.
+template <class Result, class Work, class Take>
+void in_order_until(std::size_t total, unsigned threads, const Work& work, const Take& take) {
+    std::vector<std::optional<Result>> results(total);
+    std::atomic<std::size_t> next{0};
+    std::atomic<bool> stop{false};
+    std::mutex taking;
+    std::size_t taken = 0;  // under `taking`
+    const auto run = [&] {
+        for (std::size_t i; !stop.load() && (i = next.fetch_add(1)) < total;) {
+            Result r = work(i);
+            const std::lock_guard<std::mutex> lock(taking);
+            results[i] = std::move(r);
+            for (; !stop.load() && taken < total && results[taken]; ++taken) {
+                if (!take(taken, std::move(*results[taken]))) stop = true;
+                results[taken].reset();
+            }
+        }
+    };
+    std::vector<std::thread> pool;
+    for (unsigned k = 1; k < threads; ++k) pool.emplace_back(run);
+    run();
+    for (auto& t : pool) t.join();
 }
 
 }  // namespace libcoil::detail
