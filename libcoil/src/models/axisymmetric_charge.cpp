@@ -163,6 +163,31 @@ Kernel far_integral(const Panel& p, double rho, double z, double nr, double nz, 
     return quadrature_sum<4>(p.far_r.data(), p.far_z.data(), w, rho, z, nr, nz, plane);
 }
 
+// far_integral for two panels at once, without a ground plane: their eight points' elliptic integrals
+// interleave (twice the square roots in flight of four), each sum in far_integral's order.
+std::array<Kernel, 2> far_integral_pair(const Panel& p, const Panel& q, double rho, double z, double nr, double nz) {
+    double a[8], zs[8], w[8];
+    for (std::size_t g = 0; g < 4; ++g) {
+        a[g] = p.far_r[g], zs[g] = p.far_z[g], w[g] = far_w[g] * 0.5 * p.length;
+        a[g + 4] = q.far_r[g], zs[g + 4] = q.far_z[g], w[g + 4] = far_w[g] * 0.5 * q.length;
+    }
+    RingField f[8];
+    ring_fields<8>(a, zs, rho, z, f);
+    std::array<Kernel, 2> k;
+    for (int g = 0; g < 8; ++g) {
+        const double weight = w[g] * 2 * pi * a[g];
+        k[g / 4].phi += weight * f[g].phi;
+        k[g / 4].e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
+    }
+    return k;
+}
+
+// Whether panel_integral takes far_integral for the point (rho, z).
+bool is_far(const Panel& p, double rho, double z) {
+    // A plain root of the sum of squares (std::hypot's care for overflow cost 6 % of a design search here).
+    return std::sqrt((rho - p.rc) * (rho - p.rc) + (z - p.zc) * (z - p.zc)) > 3 * p.length;
+}
+
 // The same over a whole panel: split in four where the point is near, in halves about the middle on the
 // panel itself (the potential's logarithm taken out and integrated exactly there).
 Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane,
@@ -192,9 +217,8 @@ Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz
         }
         return k;
     }
-    // A plain root of the sum of squares (std::hypot's care for overflow cost 6 % of a design search here).
+    if (is_far(p, rho, z)) return far_integral(p, rho, z, nr, nz, plane);
     const double dist = std::sqrt((rho - p.rc) * (rho - p.rc) + (z - p.zc) * (z - p.zc));
-    if (dist > 3 * p.length) return far_integral(p, rho, z, nr, nz, plane);
     if (dist > 1.5 * p.length) return piece_integral(p, 0, 1, rho, z, nr, nz, plane);
     Kernel k;
     for (int s = 0; s < 4; ++s) {
@@ -325,18 +349,36 @@ std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeR
 
 // An entry of the system's matrix, panel `t`'s row and panel `s`'s column: conductor rows give the
 // potential (times 4 pi eps0), dielectric rows sigma - (lambda / 2 pi) E_n (times 4 pi eps0).
-double system_entry(const Panel& t, const Panel& s, bool own, const std::optional<double>& plane) {
-    const Kernel k = panel_integral(s, t.rc, t.zc, t.nr, t.nz, plane, own);
+double entry_of(const Panel& t, const Kernel& k, bool own) {
     return t.dielectric ? (own ? 1.0 : 0.0) - t.lambda / (2 * pi) * k.e_n : k.phi;
+}
+
+double system_entry(const Panel& t, const Panel& s, bool own, const std::optional<double>& plane) {
+    return entry_of(t, panel_integral(s, t.rc, t.zc, t.nr, t.nz, plane, own), own);
+}
+
+// Panel t's row against the panels s[0 .. n) (s[own] t itself, if own < n): system_entry's figures, two far
+// panels at a time where there is no ground plane.
+template <class Row>
+void system_row(const Panel& t, const Panel* s, Eigen::Index n, Eigen::Index own, const std::optional<double>& plane, Row&& row) {
+    for (Eigen::Index j = 0; j < n;) {
+        if (!plane && j + 1 < n && j != own && j + 1 != own && is_far(s[j], t.rc, t.zc) && is_far(s[j + 1], t.rc, t.zc)) {
+            const std::array<Kernel, 2> k = far_integral_pair(s[j], s[j + 1], t.rc, t.zc, t.nr, t.nz);
+            row(j) = entry_of(t, k[0], false);
+            row(j + 1) = entry_of(t, k[1], false);
+            j += 2;
+        } else {
+            row(j) = system_entry(t, s[j], j == own, plane);
+            ++j;
+        }
+    }
 }
 
 Matrix solve_system(const std::vector<Panel>& panels, const std::optional<double>& plane, const Matrix& rhs) {
     const auto m = static_cast<Eigen::Index>(panels.size());
     return detail::solve_in_place(m, rhs, [&](Eigen::Map<Matrix>& a) {
         for (Eigen::Index i = 0; i < m; ++i) {
-            for (Eigen::Index j = 0; j < m; ++j) {
-                a(i, j) = system_entry(panels[static_cast<std::size_t>(i)], panels[static_cast<std::size_t>(j)], i == j, plane);
-            }
+            system_row(panels[static_cast<std::size_t>(i)], panels.data(), m, i, plane, [&](Eigen::Index j) -> double& { return a(i, j); });
         }
     });
 }
@@ -481,9 +523,8 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
         for (int d = 1 - cells; d < cells; ++d) {
             for (std::size_t j = 0; j < one.size(); ++j) moved[j] = shifted(one[j], d * period);
             for (Eigen::Index i = 0; i < p; ++i) {
-                for (Eigen::Index j = 0; j < p; ++j) {
-                    block(i, j) = system_entry(one[static_cast<std::size_t>(i)], moved[static_cast<std::size_t>(j)], d == 0 && i == j, std::nullopt);
-                }
+                system_row(one[static_cast<std::size_t>(i)], moved.data(), p, d == 0 ? i : p, std::nullopt,
+                           [&](Eigen::Index j) -> double& { return block(i, j); });
             }
             for (int k = std::max(0, -d); k < cells && k + d < cells; ++k) a.block(k * p, (k + d) * p, p, p) = block;
         }
