@@ -9,6 +9,7 @@
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
+#include "models/axisymmetric_panels.hpp"
 #include "models/elliptic.hpp"
 #include "models/solve_in_place.hpp"
 
@@ -17,6 +18,7 @@ namespace libcoil {
 namespace {
 
 using Matrix = Eigen::MatrixXd;
+using detail::Panel, detail::panels_of, detail::shifted, detail::gauss_x, detail::gauss_w, detail::far_w;
 
 // The potential and field at (rho, z) of a unit charge spread round a ring of radius a at height zs, times
 // 4 pi eps0 (the header's formulas).
@@ -67,38 +69,6 @@ void ring_fields(const double* a, const double* zs, double rho, double z, RingFi
                            : 0;
     }
 }
-
-// A panel: a straight piece of an outline, or an arc of a circle (centre (cr, cz), radius R, angles t0 .. t1)
-// where the outline traces one: the charge lies on the true surface, so that a smooth face's curvature is
-// not lost between panels (with chords, the normal field converges only as the panel length).
-struct Panel {
-    double r0, z0, r1, z1;  // ends (straight)
-    bool arc = false;
-    double cr = 0, cz = 0, radius = 0, t0 = 0, t1 = 0;
-    double length, rc, zc, nr, nz;  // length; the middle and the outward normal there
-    bool dielectric;
-    double lambda;   // dielectric faces
-    int group;       // conductors
-    double charge_scale;  // conductors: free charge per total charge (the permittivity touching it)
-    std::array<double, 8> gauss_r{}, gauss_z{};  // the whole panel's Gauss-Legendre points (piece_integral's)
-    std::array<double, 4> far_r{}, far_z{};      // and far_integral's
-
-    // The point at u in [0, 1] along the panel.
-    std::array<double, 2> at(double u) const {
-        if (arc) {
-            const double t = t0 + u * (t1 - t0);
-            return {cr + radius * std::cos(t), cz + radius * std::sin(t)};
-        }
-        return {r0 + u * (r1 - r0), z0 + u * (z1 - z0)};
-    }
-};
-
-constexpr double gauss_x[] = {-0.9602898564975363, -0.7966664774136267, -0.5255324099163290, -0.1834346424956498,
-                              0.1834346424956498,  0.5255324099163290,  0.7966664774136267,  0.9602898564975363};
-constexpr double gauss_w[] = {0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.3626837833783620,
-                              0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
-constexpr double far_x[] = {-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526};
-constexpr double far_w[] = {0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538};
 
 struct Kernel {
     double phi = 0, e_n = 0;
@@ -236,117 +206,6 @@ double piece_integral_area(const Panel& p) {
     return 2 * pi * 0.5 * p.length * sum;
 }
 
-double distance_to_rings(double rho, double z, const std::vector<ChargeRing>& rings) {
-    double d = std::numeric_limits<double>::infinity();
-    for (const ChargeRing& r : rings) d = std::min(d, std::max(0.0, std::hypot(rho - r.radius, z - r.z) - r.wire_radius));
-    return d;
-}
-
-void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<std::array<double, 3>>& circle, bool closed,
-                 bool dielectric, double lambda, int group, double charge_scale, const ChargeScene& scene,
-                 const std::vector<ChargeRing>& rings) {
-    const std::size_t pieces = closed ? o.size() : o.size() - 1;
-    for (std::size_t i = 0; i < pieces; ++i) {
-        const auto& a = o[i];
-        const auto& b = o[(i + 1) % o.size()];
-        if (a[0] <= 0 && b[0] <= 0) continue;  // along the axis: no surface
-        // On the ground plane a dielectric's face meets its own image: inside the pair, no face.
-        if (scene.ground_plane && a[1] == *scene.ground_plane && b[1] == *scene.ground_plane) continue;
-        Panel whole;
-        if (circle) {
-            const auto [cr, cz, radius] = *circle;
-            whole.arc = true;
-            whole.cr = cr;
-            whole.cz = cz;
-            whole.radius = radius;
-            whole.t0 = std::atan2(a[1] - cz, a[0] - cr);
-            whole.t1 = std::atan2(b[1] - cz, b[0] - cr);
-            while (whole.t1 <= whole.t0) whole.t1 += 2 * pi;  // counter-clockwise
-            whole.length = radius * (whole.t1 - whole.t0);
-        } else {
-            whole.r0 = a[0];
-            whole.z0 = a[1];
-            whole.r1 = b[0];
-            whole.z1 = b[1];
-            whole.length = std::hypot(b[0] - a[0], b[1] - a[1]);
-        }
-        const double length = whole.length;
-        if (!(length > 0)) continue;
-        std::vector<double> cuts{0};
-        while (cuts.back() < length) {
-            const auto x = whole.at(cuts.back() / length);
-            // A circle's own vertices set its panels (circle_outline refines them); other bodies are graded.
-            const double h = circle ? scene.max_panel : std::clamp(0.5 * distance_to_rings(x[0], x[1], rings), scene.min_panel, scene.max_panel);
-            cuts.push_back(std::min(length, cuts.back() + h));
-        }
-        if (cuts.size() > 2 && cuts[cuts.size() - 1] - cuts[cuts.size() - 2] < 0.3 * (cuts[cuts.size() - 2] - cuts[cuts.size() - 3])) {
-            cuts.erase(cuts.end() - 2);  // no sliver at the end
-        }
-        for (std::size_t c = 0; c + 1 < cuts.size(); ++c) {
-            Panel p = whole;
-            const double u0 = cuts[c] / length, u1 = cuts[c + 1] / length;
-            const auto e0 = whole.at(u0), e1 = whole.at(u1), mid = whole.at(0.5 * (u0 + u1));
-            p.r0 = e0[0];
-            p.z0 = e0[1];
-            p.r1 = e1[0];
-            p.z1 = e1[1];
-            if (p.arc) {
-                p.t0 = whole.t0 + u0 * (whole.t1 - whole.t0);
-                p.t1 = whole.t0 + u1 * (whole.t1 - whole.t0);
-                p.length = p.radius * (p.t1 - p.t0);
-                const double t = 0.5 * (p.t0 + p.t1);
-                p.nr = std::cos(t);
-                p.nz = std::sin(t);
-            } else {
-                p.length = std::hypot(p.r1 - p.r0, p.z1 - p.z0);
-                p.nr = (p.z1 - p.z0) / p.length;
-                p.nz = -(p.r1 - p.r0) / p.length;
-            }
-            p.rc = mid[0];
-            p.zc = mid[1];
-            p.dielectric = dielectric;
-            p.lambda = lambda;
-            p.group = group;
-            p.charge_scale = charge_scale;
-            for (std::size_t g = 0; g < 8; ++g) {
-                const auto x = p.at(0.5 * (1 + gauss_x[g]));
-                p.gauss_r[g] = x[0];
-                p.gauss_z[g] = x[1];
-            }
-            for (std::size_t g = 0; g < 4; ++g) {
-                const auto x = p.at(0.5 * (1 + far_x[g]));
-                p.far_r[g] = x[0];
-                p.far_z[g] = x[1];
-            }
-            out.push_back(p);
-        }
-    }
-}
-
-std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeRing>& rings) {
-    require_positive("min_panel", scene.min_panel);
-    require_positive("max_panel", scene.max_panel);
-    require_at_least("background_permittivity", scene.background_permittivity, 1.0, "a relative permittivity");
-    const double eb = scene.background_permittivity;
-    // Grading: towards the thin rings, and towards the wires of circular section among the conductors.
-    std::vector<ChargeRing> near = rings;
-    for (const ConductorBody& c : scene.conductors) {
-        if (c.circle) near.push_back({(*c.circle)[0], (*c.circle)[1], (*c.circle)[2]});
-    }
-    std::vector<Panel> panels;
-    for (const DielectricBody& d : scene.dielectrics) {
-        require_at_least("relative_permittivity", d.relative_permittivity, 1.0, "a relative permittivity");
-        const double lambda = (d.relative_permittivity - eb) / (d.relative_permittivity + eb);
-        if (lambda != 0) add_outline(panels, d.outline, d.circle, true, true, lambda, -1, 1, scene, near);
-    }
-    for (const ConductorBody& c : scene.conductors) {
-        const double embed = c.embedding_permittivity > 0 ? c.embedding_permittivity : eb;
-        add_outline(panels, c.outline, c.circle, c.closed, false, 0, c.group, embed, scene, near);
-    }
-    if (panels.size() > 20000) throw InputError("panels", std::to_string(panels.size()) + "; the charge solver takes at most 20000");
-    return panels;
-}
-
 // An entry of the system's matrix, panel `t`'s row and panel `s`'s column: conductor rows give the
 // potential (times 4 pi eps0), dielectric rows sigma - (lambda / 2 pi) E_n (times 4 pi eps0).
 double entry_of(const Panel& t, const Kernel& k, bool own) {
@@ -381,17 +240,6 @@ Matrix solve_system(const std::vector<Panel>& panels, const std::optional<double
             system_row(panels[static_cast<std::size_t>(i)], panels.data(), m, i, plane, [&](Eigen::Index j) -> double& { return a(i, j); });
         }
     });
-}
-
-// The panel moved by dz along the axis.
-Panel shifted(Panel p, double dz) {
-    p.z0 += dz;
-    p.z1 += dz;
-    p.cz += dz;
-    p.zc += dz;
-    for (double& z : p.gauss_z) z += dz;
-    for (double& z : p.far_z) z += dz;
-    return p;
 }
 
 // The free charge on the conductor groups (each panel's `group`) from the panels' solved densities (rows of

@@ -1,0 +1,62 @@
+// Internal: the charge solver's panels (axisymmetric_charge.hpp): each outline of a scene cut into straight
+// panels or circular arcs, graded towards thin rings and wires, with the Gauss-Legendre points their
+// integrals take kept on each. The integrals and the system are axisymmetric_charge.cpp's.
+#pragma once
+
+#include <array>
+#include <cmath>
+#include <vector>
+
+#include "libcoil/models/axisymmetric_charge.hpp"
+
+namespace libcoil::detail {
+
+// A panel: a straight piece of an outline, or an arc of a circle (centre (cr, cz), radius R, angles t0 .. t1)
+// where the outline traces one: the charge lies on the true surface, so that a smooth face's curvature is
+// not lost between panels (with chords, the normal field converges only as the panel length).
+struct Panel {
+    double r0, z0, r1, z1;  // ends (straight)
+    bool arc = false;
+    double cr = 0, cz = 0, radius = 0, t0 = 0, t1 = 0;
+    double length, rc, zc, nr, nz;  // length; the middle and the outward normal there
+    bool dielectric;
+    double lambda;   // dielectric faces
+    int group;       // conductors
+    double charge_scale;  // conductors: free charge per total charge (the permittivity touching it)
+    std::array<double, 8> gauss_r{}, gauss_z{};  // the whole panel's Gauss-Legendre points (piece_integral's)
+    std::array<double, 4> far_r{}, far_z{};      // and far_integral's
+
+    // The point at u in [0, 1] along the panel.
+    std::array<double, 2> at(double u) const {
+        if (arc) {
+            const double t = t0 + u * (t1 - t0);
+            return {cr + radius * std::cos(t), cz + radius * std::sin(t)};
+        }
+        return {r0 + u * (r1 - r0), z0 + u * (z1 - z0)};
+    }
+};
+
+// The eight-point Gauss-Legendre rule on [-1, 1] (piece_integral) and the four-point one (far_integral).
+inline constexpr double gauss_x[] = {-0.9602898564975363, -0.7966664774136267, -0.5255324099163290, -0.1834346424956498,
+                                     0.1834346424956498,  0.5255324099163290,  0.7966664774136267,  0.9602898564975363};
+inline constexpr double gauss_w[] = {0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.3626837833783620,
+                                     0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
+inline constexpr double far_x[] = {-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526};
+inline constexpr double far_w[] = {0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538};
+
+// The panels of a scene, its dielectrics' faces first, then its conductors'; grading towards `rings` and the
+// conductors' wire circles. InputError beyond 20000 panels.
+std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeRing>& rings);
+
+// The panel moved by dz along the axis.
+inline Panel shifted(Panel p, double dz) {
+    p.z0 += dz;
+    p.z1 += dz;
+    p.cz += dz;
+    p.zc += dz;
+    for (double& z : p.gauss_z) z += dz;
+    for (double& z : p.far_z) z += dz;
+    return p;
+}
+
+}  // namespace libcoil::detail
