@@ -1,6 +1,8 @@
 #include "studies/srf_screen_bound.hpp"
 
+#include <array>
 #include <cmath>
+#include <cstddef>
 
 #include "studies/srf_screen_envelope.hpp"
 
@@ -16,49 +18,66 @@ int bin_of(double value, const double* edges, int bins) {
     return i;
 }
 
-// One of the generated fits: its features' range, the monomials' powers, and a mounting's coefficients
-// and offsets.
+// The fits are cubics (the script's DEGREE): each term a product of at most three powers of the features.
+constexpr bool cubic(const auto& powers) {
+    for (const auto& term : powers) {
+        int degree = 0;
+        for (unsigned char e : term) degree += e;
+        if (degree > 3) return false;
+    }
+    return true;
+}
+static_assert(cubic(e::bare_powers) && cubic(e::former_powers), "srf_screen_envelope.hpp: a fit of degree above 3");
+
+// Each term's factors as places in Fit::bound's table of powers (feature k's e-th power at 4 k + e), in the
+// order of the features, three to a term, the missing ones place 0 (feature 0's zeroth power, 1: exact).
+// A term so takes three products where one per feature took eight (a design search screens with a former
+// fit of 165 terms for each candidate that reaches its SRF check), and the same products in the same order.
+template <int features, int terms>
+constexpr std::array<std::array<unsigned char, 3>, terms> factor_places(const unsigned char (&powers)[terms][features]) {
+    std::array<std::array<unsigned char, 3>, terms> out{};
+    for (int t = 0; t < terms; ++t) {
+        int slot = 0;
+        for (int k = 0; k < features; ++k) {
+            if (powers[t][k] > 0) out[static_cast<std::size_t>(t)][static_cast<std::size_t>(slot++)] = static_cast<unsigned char>(4 * k + powers[t][k]);
+        }
+    }
+    return out;
+}
+constexpr auto bare_factors = factor_places(e::bare_powers);
+constexpr auto former_factors = factor_places(e::former_powers);
+
+// One of the generated fits: its features' range, its terms' factors, and a mounting's coefficients and
+// offsets.
 template <int features, int terms>
 struct Fit {
     const double (&low)[features];
     const double (&high)[features];
-    const unsigned char (&powers)[terms][features];
+    const std::array<std::array<unsigned char, 3>, terms>& factors;
     const double (&coefficients)[terms];
     const double (&offset)[e::turns_bins][e::spacing_bins][e::length_bins];
 
     // exp(the polynomial in the scaled features plus the bin's offset), or 0 outside the range (a NaN too).
     double bound(const double (&x)[features], const ScreenedCoil& c) const {
-        double power[features][4];
+        double power[4 * features];
         for (int k = 0; k < features; ++k) {
             if (!(x[k] >= low[k] && x[k] <= high[k])) return 0;
             const double s = (2 * x[k] - low[k] - high[k]) / (high[k] - low[k]);
-            power[k][0] = 1;
-            power[k][1] = s;
-            power[k][2] = s * s;
-            power[k][3] = s * s * s;
+            power[4 * k] = 1;
+            power[4 * k + 1] = s;
+            power[4 * k + 2] = s * s;
+            power[4 * k + 3] = s * s * s;
         }
         double sum = 0;
         for (int t = 0; t < terms; ++t) {
-            double term = coefficients[t];
-            for (int k = 0; k < features; ++k) term *= power[k][powers[t][k]];
-            sum += term;
+            const auto& f = factors[static_cast<std::size_t>(t)];
+            sum += coefficients[t] * power[f[0]] * power[f[1]] * power[f[2]];
         }
         const int n = bin_of(c.turns, e::turns_edges, e::turns_bins), i = bin_of(c.spacing, e::spacing_edges, e::spacing_bins),
                   j = bin_of(c.length, e::length_edges, e::length_bins);
         return std::exp(sum + offset[n][i][j]);
     }
 };
-
-// The fits are cubics (the script's DEGREE): Fit::bound keeps each feature's powers up to the third.
-constexpr bool cubic(const auto& powers) {
-    for (const auto& term : powers) {
-        for (unsigned char e : term) {
-            if (e > 3) return false;
-        }
-    }
-    return true;
-}
-static_assert(cubic(e::bare_powers) && cubic(e::former_powers), "srf_screen_envelope.hpp: a fit of degree above 3");
 
 // The bare fit's features (the script's FEATURES), the former's three after them.
 void bare_features(const ScreenedCoil& c, double* x) {
@@ -77,7 +96,7 @@ double network_over_screen_bound(const ScreenedCoil& c, bool by_helix) {
     if (!by_helix) return envelope;
     double x[e::bare_features];
     bare_features(c, x);
-    const Fit<e::bare_features, e::bare_terms> fit{e::bare_low, e::bare_high, e::bare_powers,
+    const Fit<e::bare_features, e::bare_terms> fit{e::bare_low, e::bare_high, bare_factors,
                                                    c.grounded ? e::grounded_bare_fit : e::floating_bare_fit,
                                                    c.grounded ? e::grounded_bare_offset : e::floating_bare_offset};
     const double fitted = fit.bound(x, c);
@@ -90,7 +109,7 @@ double former_shift_bound(const ScreenedCoil& c, double permittivity, double wal
     x[5] = permittivity;
     x[6] = std::log(wall);
     x[7] = fill;
-    const Fit<e::former_features, e::former_terms> fit{e::former_low, e::former_high, e::former_powers,
+    const Fit<e::former_features, e::former_terms> fit{e::former_low, e::former_high, former_factors,
                                                        c.grounded ? e::grounded_former_fit : e::floating_former_fit,
                                                        c.grounded ? e::grounded_former_offset : e::floating_former_offset};
     return fit.bound(x, c);
