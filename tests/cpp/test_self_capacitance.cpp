@@ -265,6 +265,25 @@ TEST(SelfResonance, SearchToleranceAgreesWithTheFullSolve) {
     EXPECT_LE(worst, search_tolerance);
 }
 
+TEST(SelfResonance, TheSearchesFastPathWritesNoWords) {
+    // The fast path (cross_checks false) writes no notes and no band reasons (their formatting cost the
+    // design screen a tenth of its time), and srf_band's edges are the same with and without its words. The
+    // library's own contract, no source.
+    const Solenoid s(Solenoid::Params{20e-3, 12, 1.3e-3, Wire{1e-3, 0.04e-3, "1 mm"}, 0.0});
+    const FormerDielectric former{3.0, 2e-3, 1.0};
+    const SelfResonance fast = self_resonance(s, 1e-6, former, {}, false), full = self_resonance(s, 1e-6, former, {}, true);
+    EXPECT_TRUE(fast.band_reasons.empty());
+    EXPECT_TRUE(fast.notes.empty());
+    EXPECT_FALSE(full.band_reasons.empty());
+    EXPECT_FALSE(full.notes.empty());
+    const SrfBand quiet = srf_band(100e6, "network", Mounting::floating, s.pitch_to_wire(), former, 1.0, false);
+    const SrfBand told = srf_band(100e6, "network", Mounting::floating, s.pitch_to_wire(), former, 1.0, true);
+    EXPECT_TRUE(quiet.reasons.empty());
+    EXPECT_EQ(told.reasons.size(), 3u);  // the network's error, the close turns, the former's charge
+    EXPECT_EQ(quiet.low, told.low);
+    EXPECT_EQ(quiet.high, told.high);
+}
+
 TEST(SelfResonance, FormersAndSurroundingsLowerTheSrf) {
     // A dielectric near the winding raises the capacitance and lowers the SRF; a solid tube more than ribs
     // of the same material, and a uniform medium by exactly 1/sqrt(e) (see UniformDielectricScales...).

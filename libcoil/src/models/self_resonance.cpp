@@ -175,37 +175,45 @@ void set_error(SelfResonanceMethod& m, const MeasuredError& e, Mounting mounting
 }  // namespace
 
 SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, const FormerDielectric& former,
-                 double former_ratio) {
+                 double former_ratio, bool with_reasons) {
     require_positive("frequency", f);
     const bool grounded = mounting == Mounting::grounded_end;
     constexpr double nec_residual = 0.005;
     double err_lo = 0, err_hi = 0;  // the model's error f / f_true - 1, measured
     SrfBand b;
+    // Each reason's words only where asked for (`why` makes them).
+    const auto explain = [&](const auto& why) {
+        if (with_reasons) b.reasons.push_back(why());
+    };
     const bool solid_former = former.wall > 0 && former.relative_permittivity > 1 && !(former.fill > 0 && former.fill < 1);
     if (method == "network") {
         err_lo = grounded ? network_error.grounded_low : network_error.floating_low;
         err_hi = grounded ? network_error.grounded_high : network_error.floating_high;
-        b.reasons.push_back(std::string("the turn network's error against NEC2, ") + (grounded ? "-1.76 .. -0.45 %" : "-1.28 .. +1.34 %") +
-                            ", and 0.5 % for NEC's own convergence");
+        explain([&] {
+            return std::string("the turn network's error against NEC2, ") + (grounded ? "-1.76 .. -0.45 %" : "-1.28 .. +1.34 %") +
+                   ", and 0.5 % for NEC's own convergence";
+        });
         if (pitch_to_wire < 3) {
             err_lo += near_field_error_low;
             err_hi += near_field_error_high;
-            b.reasons.push_back("turns " + detail::significant(pitch_to_wire, 3) +
-                                " wire diameters apart: the near-field correction against the wire-surface reference, -2.7 .. +0.4 %");
+            explain([&] {
+                return "turns " + detail::significant(pitch_to_wire, 3) +
+                       " wire diameters apart: the near-field correction against the wire-surface reference, -2.7 .. +0.4 %";
+            });
         }
         if (solid_former && former_ratio == 1) {
             err_lo -= former_discretisation;
             err_hi += former_discretisation;
-            b.reasons.push_back("the former's polarisation charge, 0.3 % (its discretisation)");
+            explain([] { return std::string("the former's polarisation charge, 0.3 % (its discretisation)"); });
         }
     } else if (method == "helical_line") {
         err_lo = grounded ? helical_line_error.grounded_low : helical_line_error.floating_low;
         err_hi = grounded ? helical_line_error.grounded_high : helical_line_error.floating_high;
-        b.reasons.push_back(std::string("the sheath helix's error against NEC2, ") + (grounded ? "-12 .. +18 %" : "+16 .. +47 %"));
+        explain([&] { return std::string("the sheath helix's error against NEC2, ") + (grounded ? "-12 .. +18 %" : "+16 .. +47 %"); });
     } else {
         err_lo = -0.25;
         err_hi = 0.25;
-        b.reasons.push_back("Medhurst's table, taken as good to 25 % outside his arrangement (an assumption)");
+        explain([] { return std::string("Medhurst's table, taken as good to 25 % outside his arrangement (an assumption)"); });
     }
     b.low = f / (1 + err_hi + nec_residual);
     b.high = f / (1 + err_lo - nec_residual);
@@ -214,9 +222,11 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
         b.low *= 1 - half_shift;
         b.high *= 1 + half_shift;
         const bool ribs = former.fill > 0 && former.fill < 1;
-        b.reasons.push_back(std::string(method == "network" && ribs ? "the ribs taken as a tube of their averaged permittivity"
-                                                                    : "the former's dielectric by the sheath helix's share of the field") +
-                            " (" + detail::significant(100 * (1 - former_ratio), 2) + " % lower), not checked: half that shift either side");
+        explain([&] {
+            return std::string(method == "network" && ribs ? "the ribs taken as a tube of their averaged permittivity"
+                                                           : "the former's dielectric by the sheath helix's share of the field") +
+                   " (" + detail::significant(100 * (1 - former_ratio), 2) + " % lower), not checked: half that shift either side";
+        });
     }
     return b;
 }
@@ -410,16 +420,16 @@ SelfResonance self_resonance(const Solenoid& s, double inductance, const FormerD
         if (r.method != "network" && former.wall > 0 && former.relative_permittivity != eps_out && r.helical_line.available) {
             former_ratio = sheath_helix_former_ratio(s, former, surroundings);
         }
-        const SrfBand b = srf_band(r.frequency, r.method, surroundings.mounting, s.pitch_to_wire(), former, former_ratio);
+        const SrfBand b = srf_band(r.frequency, r.method, surroundings.mounting, s.pitch_to_wire(), former, former_ratio, cross_checks);
         r.frequency_low = b.low;
         r.frequency_high = b.high;
         r.band_reasons = b.reasons;
     }
-    if (former.wall > 0 && former.relative_permittivity != eps_out) {
+    if (cross_checks && former.wall > 0 && former.relative_permittivity != eps_out) {
         r.notes.push_back("the former raises the inner permittivity the helical line sees to " +
                           detail::significant(medium.inner, 3) + " (its share of the inner field energy)");
     }
-    if (s.pitch_to_wire() < 1.5 && r.method != "network") {
+    if (cross_checks && s.pitch_to_wire() < 1.5 && r.method != "network") {
         r.notes.push_back("close-wound turns: the turn-to-turn capacitance, which only the turn network holds, lowers the "
                           "self-resonance further");
     }

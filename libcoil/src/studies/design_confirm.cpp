@@ -62,7 +62,7 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
         if (const auto bare = network_resonance(s, FormerDielectric{}, q_.surroundings)) {
             const SelfResonance helix = self_resonance(s, sr.inductance, FormerDielectric{}, q_.surroundings, false);
             const double most = bare->frequency * std::fmin(1.01, former_fall_bound(s, fd, sr, helix));
-            const SrfBand band = srf_band(most, "network", q_.surroundings.mounting, s.pitch_to_wire(), FormerDielectric{}, 1.0);
+            const SrfBand band = srf_band(most, "network", q_.surroundings.mounting, s.pitch_to_wire(), FormerDielectric{}, 1.0, false);
             if (auto miss = screen_srf_margin(*q_.band, band.low)) return miss;
             // And |Z|'s deviation with the line resonating there, which only grows as the SRF falls (not the
             // least |Z|, which falls with the SRF's rise: the full check below takes it).
@@ -87,7 +87,7 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
     } else if (fd.wall > 0 && fd.relative_permittivity != q_.surroundings.relative_permittivity) {
         former_ratio = sheath_helix_former_ratio(s, fd, q_.surroundings);
     }
-    const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), fd, former_ratio);
+    const SrfBand band = srf_band(sr.frequency, sr.method, q_.surroundings.mounting, s.pitch_to_wire(), fd, former_ratio, false);
     sr.frequency_low = band.low;
     sr.frequency_high = band.high;
     std::optional<ShieldLoad> shield;

@@ -424,7 +424,7 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
         // The SRF margin on a bound of what confirm() will judge, the lower edge of the turn network's band,
         // as mounted: a shield lowers the edge further; bounding without that is safe.
         network_bound = network_srf_bound(s, g.bare_inductance, sr, fd);
-        network = srf_band(network_bound, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0);
+        network = srf_band(network_bound, "network", q_.surroundings.mounting, s.pitch_to_wire(), fd, 1.0, false);
         miss = screen_srf_margin(*q_.band, as_mounted(network.low));
     }
     // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.

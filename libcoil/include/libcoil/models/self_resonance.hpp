@@ -121,8 +121,9 @@ struct SrfBand {
     double low = 0, high = 0;  // Hz
     std::vector<std::string> reasons;
 };
+// `with_reasons` false leaves `reasons` empty (the searches' fast path: the words cost more than the numbers).
 SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, const FormerDielectric& former,
-                 double former_ratio);
+                 double former_ratio, bool with_reasons = true);
 
 // The SRF's spread from the build (one standard deviation, relative): first order, each tolerance in turn
 // moved by one standard deviation (form diameter, pitch, bare wire diameter at a fixed form, turns) and the
@@ -138,7 +139,8 @@ double srf_build_spread(const Solenoid& coil, const FormerDielectric& former, co
 inline constexpr double search_tolerance = 1e-7;
 
 // `cross_checks` false is the fast path for searches, which need only the recommended SRF: it leaves out
-// Kandoian & Sichak, and Medhurst except as the fallback, writes no notes, and solves to search_tolerance.
+// Kandoian & Sichak, and Medhurst except as the fallback, writes no notes and no band reasons, and solves to
+// search_tolerance.
 SelfResonance self_resonance(const Solenoid& coil, double inductance, const FormerDielectric& former = {},
                              const Surroundings& surroundings = {}, bool cross_checks = true);
 
