@@ -49,14 +49,21 @@ bool Evaluator::retarget(DesignFigures& d) const {
     const bool heated = q_.current > 0 && q_.current_frequency && *q_.current_frequency > 0 &&
                         loss_solver(Solenoid(Solenoid::Params{d.mean_diameter, d.turns, d.pitch, unlabelled_[d.wire_index], q_.lead_length})) !=
                             LossSolver::closed_form;
+    // The solver's L at the target frequency and R_ac / R_dc of `cur`, kept while they are cur's (`fresh`):
+    // where the loop settles, the coil returned is the one they were computed for.
+    double at_target = 0;
+    std::optional<double> ratio;
+    bool fresh = false;
     for (int k = 0; k < 8; ++k) {
-        const double fall = inductance_at_target(cur) - cur.inductance;  // against the (shielded) nominal L
+        at_target = inductance_at_target(cur);
+        const double fall = at_target - cur.inductance;  // against the (shielded) nominal L
         // The winding heats with the solver's R_ac / R_dc too, as the analysis heats it.
-        std::optional<double> ratio;
+        ratio.reset();
         if (heated) {
             const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
             ratio = ac_ratio_by(loss_solver(s), s, q_.conductor, q_.ambient, *q_.current_frequency);
         }
+        fresh = true;
         const bool settled = e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance &&
                              (!heated || std::fabs(*e.fixed_ac_ratio_ / *ratio - 1) <= 1e-10);
         if (settled) break;
@@ -66,13 +73,14 @@ bool Evaluator::retarget(DesignFigures& d) const {
         e.check(c, t);
         if (t.front.designs().size() != 1) return false;
         cur = t.front.designs().front();
+        fresh = false;
     }
     // The figures at the coil returned (the trim may end between two snapped turn counts): the solver's
     // L there, and the winding heated with the solver's R_ac / R_dc of this coil.
-    cur.inductance_at_target = inductance_at_target(cur);
+    cur.inductance_at_target = fresh ? at_target : inductance_at_target(cur);
     if (heated) {
         const Solenoid s(Solenoid::Params{cur.mean_diameter, cur.turns, cur.pitch, unlabelled_[cur.wire_index], q_.lead_length});
-        e.fixed_ac_ratio_ = ac_ratio_by(loss_solver(s), s, q_.conductor, q_.ambient, *q_.current_frequency);
+        e.fixed_ac_ratio_ = fresh ? ratio : ac_ratio_by(loss_solver(s), s, q_.conductor, q_.ambient, *q_.current_frequency);
         Tally t;
         if (!e.screen_thermal(c, s, cur, t)) return false;
         e.loss_at_reference(s, cur, std::nullopt);
