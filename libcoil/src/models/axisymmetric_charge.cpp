@@ -74,11 +74,12 @@ struct Kernel {
     double phi = 0, e_n = 0;
 };
 
-// The kernel summed over n source points of a panel, w[g] the weight of point g along it (its length
-// included): the fields of the rings there, less their images in the ground plane where there is one.
-template <int n>
-Kernel quadrature_sum(const double* a, const double* zs, const double* w, double rho, double z, double nr, double nz,
-                      const std::optional<double>& plane) {
+// The kernel summed over the n source points of `panels` panels (n / panels points each, in order), w[g] the
+// weight of point g along its panel (its length included): the fields of the rings there, less their images
+// in the ground plane where there is one. All n points' elliptic integrals interleave (ring_fields).
+template <int n, int panels = 1>
+std::array<Kernel, panels> quadrature_sums(const double* a, const double* zs, const double* w, double rho, double z, double nr,
+                                           double nz, const std::optional<double>& plane) {
     RingField f[n];
     ring_fields<n>(a, zs, rho, z, f);
     if (plane) {
@@ -92,11 +93,12 @@ Kernel quadrature_sum(const double* a, const double* zs, const double* w, double
             f[g].e_z -= i[g].e_z;
         }
     }
-    Kernel k;
+    std::array<Kernel, panels> k;
     for (int g = 0; g < n; ++g) {
         const double weight = w[g] * 2 * pi * a[g];
-        k.phi += weight * f[g].phi;
-        k.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
+        Kernel& sum = k[static_cast<std::size_t>(g / (n / panels))];
+        sum.phi += weight * f[g].phi;
+        sum.e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
     }
     return k;
 }
@@ -121,7 +123,7 @@ Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z
     }
     double w[8];
     for (int g = 0; g < 8; ++g) w[g] = gauss_w[g] * half;
-    return quadrature_sum<8>(a, zs, w, rho, z, nr, nz, plane);
+    return quadrature_sums<8>(a, zs, w, rho, z, nr, nz, plane)[0];
 }
 
 // The whole panel from a point beyond three panel lengths: four Gauss-Legendre points. The n-point rule's
@@ -130,7 +132,7 @@ Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z
 Kernel far_integral(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane) {
     double w[4];
     for (int g = 0; g < 4; ++g) w[g] = far_w[g] * 0.5 * p.length;
-    return quadrature_sum<4>(p.far_r.data(), p.far_z.data(), w, rho, z, nr, nz, plane);
+    return quadrature_sums<4>(p.far_r.data(), p.far_z.data(), w, rho, z, nr, nz, plane)[0];
 }
 
 // far_integral for two panels at once, without a ground plane: their eight points' elliptic integrals
@@ -141,22 +143,15 @@ std::array<Kernel, 2> far_integral_pair(const Panel& p, const Panel& q, double r
         a[g] = p.far_r[g], zs[g] = p.far_z[g], w[g] = far_w[g] * 0.5 * p.length;
         a[g + 4] = q.far_r[g], zs[g + 4] = q.far_z[g], w[g + 4] = far_w[g] * 0.5 * q.length;
     }
-    RingField f[8];
-    ring_fields<8>(a, zs, rho, z, f);
-    std::array<Kernel, 2> k;
-    for (int g = 0; g < 8; ++g) {
-        const double weight = w[g] * 2 * pi * a[g];
-        k[g / 4].phi += weight * f[g].phi;
-        k[g / 4].e_n += weight * (f[g].e_rho * nr + f[g].e_z * nz);
-    }
-    return k;
+    return quadrature_sums<8, 2>(a, zs, w, rho, z, nr, nz, std::nullopt);
 }
 
+// The distance from a panel's middle to the point (rho, z): a plain root of the sum of squares (std::hypot's
+// care for overflow cost 6 % of a design search here).
+double distance(const Panel& p, double rho, double z) { return std::sqrt((rho - p.rc) * (rho - p.rc) + (z - p.zc) * (z - p.zc)); }
+
 // Whether panel_integral takes far_integral for the point (rho, z).
-bool is_far(const Panel& p, double rho, double z) {
-    // A plain root of the sum of squares (std::hypot's care for overflow cost 6 % of a design search here).
-    return std::sqrt((rho - p.rc) * (rho - p.rc) + (z - p.zc) * (z - p.zc)) > 3 * p.length;
-}
+bool is_far(const Panel& p, double rho, double z) { return distance(p, rho, z) > 3 * p.length; }
 
 // The same over a whole panel: split in four where the point is near, in halves about the middle on the
 // panel itself (the potential's logarithm taken out and integrated exactly there).
@@ -188,8 +183,7 @@ Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz
         return k;
     }
     if (is_far(p, rho, z)) return far_integral(p, rho, z, nr, nz, plane);
-    const double dist = std::sqrt((rho - p.rc) * (rho - p.rc) + (z - p.zc) * (z - p.zc));
-    if (dist > 1.5 * p.length) return piece_integral(p, 0, 1, rho, z, nr, nz, plane);
+    if (distance(p, rho, z) > 1.5 * p.length) return piece_integral(p, 0, 1, rho, z, nr, nz, plane);
     Kernel k;
     for (int s = 0; s < 4; ++s) {
         const Kernel ks = piece_integral(p, s / 4.0, (s + 1) / 4.0, rho, z, nr, nz, plane);
