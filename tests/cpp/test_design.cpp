@@ -286,9 +286,18 @@ TEST(DesignScreen, BoundsReadTheTablesAsTheScriptDoes) {
             EXPECT_NEAR(b / r[9], 1.0, 1e-13) << r[0] << " " << r[2] << " " << r[4];
         }
     }
-    // Outside the fits' range: the envelope alone, and no former bound (a gap below zero, a NaN feature).
+    for (const auto& r : e::mounted_checks) {
+        const detail::ScreenedCoil c{r[0], r[1], r[2], r[3], r[4], r[5] > 0};
+        EXPECT_NEAR(detail::network_over_mounted_bound(c, r[6], r[7], r[8]) / r[9], 1.0, 1e-13) << r[0] << " " << r[2] << " " << r[4];
+    }
+    // Outside the fits' range: the envelope alone, and no former bound (a gap below zero, a NaN feature); the
+    // mounted fit not below its interior's six turns or 3 % gap either.
     const detail::ScreenedCoil touching{1.0, 0.0, 0.8, 20.0, 10.0, false};
     EXPECT_EQ(detail::network_over_screen_bound(touching, true), e::floating[0][1]);
     EXPECT_EQ(detail::former_shift_bound(touching, 3.0, 0.1, 1.0), 0);
+    EXPECT_EQ(detail::network_over_mounted_bound(touching, 3.0, 0.1, 1.0), 0);
+    EXPECT_EQ(detail::network_over_mounted_bound(detail::ScreenedCoil{1.2, 0.0, 0.8, 20.0, 5.0, false}, 3.0, 0.1, 1.0), 0);
+    EXPECT_EQ(detail::network_over_mounted_bound(detail::ScreenedCoil{1.02, 0.0, 0.8, 20.0, 10.0, false}, 3.0, 0.1, 1.0), 0);
+    EXPECT_GT(detail::network_over_mounted_bound(detail::ScreenedCoil{1.2, 0.0, 0.8, 20.0, 10.0, false}, 3.0, 0.1, 1.0), 0);
     EXPECT_EQ(detail::network_over_screen_bound(detail::ScreenedCoil{1.5, 0.0, 0.8, 20.0, 10.0, true}, false), e::grounded[2][1]);
 }

@@ -237,7 +237,9 @@ INFEASIBLE = [
     ([("  srf_margin: 2.5\n", "  srf_margin: 4.5\n")], "band.srf_margin"),
     ([("  max_wire_length: 3 m\n", "  max_wire_length: 0.9 m\n")], "limits.max_wire_length"),
     ([("  max_length: 60 mm\n", "  max_length: 45 mm\n")], "limits.max_length"),
-    ([("  current: 6 A\n", "  current: 13 A\n"), ("  max_length: 60 mm\n", "  max_length: 150 mm\n")], "operating.current"),
+    # (At 13 A the closest misses of the thermal limit and of band.max_deviation lie within 0.01 % of each other,
+    # and either change works; at 14 A the current alone binds.)
+    ([("  current: 6 A\n", "  current: 14 A\n"), ("  max_length: 60 mm\n", "  max_length: 150 mm\n")], "operating.current"),
     ([("  max_deviation: 10 %\n", "  max_deviation: 10 %\n  min_impedance: 4.9 ohm\n")], "band.min_impedance"),
 ]
 

@@ -1,7 +1,8 @@
 """The design screen's bounds on the turn network's SRF (libcoil/src/studies/srf_screen_envelope.hpp, written by
-tools/srf_screen_envelope.py from 40 000 random bare coils and 16 000 on random formers): on coils the generator
-never saw (other seeds), the network's SRF never exceeds the bound times the screen's, floating or grounded, and
-on a former the network's shift over the sheath helix's never exceeds its bound. They are measured bounds; this is
+tools/srf_screen_envelope.py from 40 000 random bare coils, 16 000 on random formers and about 35 000 more on
+formers in the mounted fit's interior): on coils the generator never saw (other seeds), the network's SRF never
+exceeds the bound times the screen's, floating or grounded; on a former the network's shift over the sheath
+helix's never exceeds its bound, nor the network's SRF on it the mounted bound times the helix's. They are measured bounds; this is
 the check that they hold beyond their own samples. (A former only lowers the network's SRF:
 tests/cpp/test_turn_network.cpp. The C++ reading of the tables against the script's: tests/cpp/test_design.cpp.)"""
 import importlib.util
@@ -46,6 +47,30 @@ def test_former_bound_holds_on_fresh_coils(seed):
     assert len(bounded) > 250  # the fit's range covers nearly all of its domain (2994 of 3000, seed 9)
     # Measured: at most 0.995 of the bound on 3000 fresh coils (seed 9).
     assert max(r / b for r, b in bounded) <= 1.0
+
+
+@pytest.mark.parametrize("seed", [47, 59])
+def test_mounted_bound_holds_on_fresh_coils(seed):
+    g = generator()
+    h = header(g)
+    bounded = [(row[7], g.mounted_bound(row, h)) for row in g.sample(seed, 300, mounted=True) if g.interior(row)]
+    bounded = [(r, b) for r, b in bounded if b is not None]
+    assert len(bounded) > 180  # the interior holds about three in four of the domain's coils
+    # Measured: at most 0.987 of the bound on 25 800 fresh coils in the fit's range (seeds 7 and 8 of the
+    # generator's draws, the interior's); fitted on the whole domain instead, one reached 1.03 of it.
+    assert max(r / b for r, b in bounded) <= 1.0
+
+
+def test_mounted_fit_is_tight_where_the_search_works():
+    # Close-wound coils of 8 turns or more, l / D 0.4 .. 2, on formers (the dense grid's designs are such): the
+    # mounted bound sits about 4 % above the network at the median (measured on 2600 fresh coils), where the
+    # bare bound times the former's sat 9 ... 11 % above it on the dense grid's designs (their 110 drops).
+    g = generator()
+    h = header(g)
+    rows = [row for row in g.sample(61, 1500, mounted=True) if 1.05 < row[0] < 2.2 and 0.4 < row[2] < 2 and row[4] >= 8]
+    ratios = [b / row[7] for row in rows if (b := g.mounted_bound(row, h)) is not None]
+    assert len(ratios) > 60
+    assert statistics.median(ratios) < 1.05
 
 
 def test_fit_is_tight_where_the_search_works():

@@ -27,7 +27,7 @@ constexpr bool cubic(const auto& powers) {
     }
     return true;
 }
-static_assert(cubic(e::bare_powers) && cubic(e::former_powers), "srf_screen_envelope.hpp: a fit of degree above 3");
+static_assert(cubic(e::bare_powers) && cubic(e::former_powers) && cubic(e::mounted_powers), "srf_screen_envelope.hpp: a fit of degree above 3");
 
 // Each term's factors as places in Fit::bound's table of powers (feature k's e-th power at 4 k + e), in the
 // order of the features, three to a term, the missing ones place 0 (feature 0's zeroth power, 1: exact).
@@ -46,6 +46,7 @@ constexpr std::array<std::array<unsigned char, 3>, terms> factor_places(const un
 }
 constexpr auto bare_factors = factor_places(e::bare_powers);
 constexpr auto former_factors = factor_places(e::former_powers);
+constexpr auto mounted_factors = factor_places(e::mounted_powers);
 
 // One of the generated fits: its features' range, its terms' factors, and a mounting's coefficients and
 // offsets.
@@ -88,6 +89,14 @@ void bare_features(const ScreenedCoil& c, double* x) {
     x[4] = std::log(c.spacing / (1 + 2 * c.coat) - 1);
 }
 
+// The former fits' features: the bare fit's five, then the former's permittivity, log wall / D and fill.
+void former_features(const ScreenedCoil& c, double permittivity, double wall, double fill, double* x) {
+    bare_features(c, x);
+    x[5] = permittivity;
+    x[6] = std::log(wall);
+    x[7] = fill;
+}
+
 }  // namespace
 
 double network_over_screen_bound(const ScreenedCoil& c, bool by_helix) {
@@ -105,13 +114,20 @@ double network_over_screen_bound(const ScreenedCoil& c, bool by_helix) {
 
 double former_shift_bound(const ScreenedCoil& c, double permittivity, double wall, double fill) {
     double x[e::former_features];
-    bare_features(c, x);
-    x[5] = permittivity;
-    x[6] = std::log(wall);
-    x[7] = fill;
+    former_features(c, permittivity, wall, fill, x);
     const Fit<e::former_features, e::former_terms> fit{e::former_low, e::former_high, former_factors,
                                                        c.grounded ? e::grounded_former_fit : e::floating_former_fit,
                                                        c.grounded ? e::grounded_former_offset : e::floating_former_offset};
+    return fit.bound(x, c);
+}
+
+double network_over_mounted_bound(const ScreenedCoil& c, double permittivity, double wall, double fill) {
+    static_assert(e::mounted_features == e::former_features, "the mounted fit takes the former's features");
+    double x[e::mounted_features];
+    former_features(c, permittivity, wall, fill, x);
+    const Fit<e::mounted_features, e::mounted_terms> fit{e::mounted_low, e::mounted_high, mounted_factors,
+                                                         c.grounded ? e::grounded_mounted_fit : e::floating_mounted_fit,
+                                                         c.grounded ? e::grounded_mounted_offset : e::floating_mounted_offset};
     return fit.bound(x, c);
 }
 

@@ -23,4 +23,9 @@ double network_over_screen_bound(const ScreenedCoil& c, bool by_helix);
 // range (no bound).
 double former_shift_bound(const ScreenedCoil& c, double permittivity, double wall, double fill);
 
+// On such a former: the network's SRF over the sheath helix's, both on the former, at most; 0 outside the
+// fit's range (the interior of the domain: the insulated gap 3 % of the insulated d or more, six turns or
+// more, l / D 0.15 or more). Where it holds, one bound in place of the bare bound times the former's.
+double network_over_mounted_bound(const ScreenedCoil& c, double permittivity, double wall, double fill);
+
 }  // namespace libcoil::detail
