@@ -36,7 +36,7 @@ takes the bare screen's SRF for it), for either mounting, and writes three bound
 
 The bounds are measured maxima, not proven ones: the test (tests/python/test_design_screen.py) draws fresh
 coils with other seeds and finds none above them (measured: on 15 800 fresh bare coils at most 0.987 of the
-bound, on 3000 fresh coils on formers at most 0.995 of r's, on 25 800 fresh mounted coils in the fit's range
+bound, on 3000 fresh coils on formers at most 0.995 of r's, on 23 700 fresh mounted coils in the fit's range
 at most 0.987 of the mounted bound). A coil above its bound would make the search pass
 over a design the network accepts: a worse design, never a wrong verdict, since every kept design is confirmed. (The same envelope taken with a former on both sides did
 not hold on fresh coils: up to 1.16 of its bound on long grounded coils, where the network takes the former's
