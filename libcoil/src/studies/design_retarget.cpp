@@ -1,6 +1,7 @@
 // The design search's last step for a kept design: the target met at the target frequency by the
 // analysis's loss model (the wire-harmonic solver, or for fat wire the cross-section solver;
 // design_search.hpp's Evaluator::retarget).
+#include <algorithm>
 #include <cmath>
 
 #include "libcoil/core/constants.hpp"
@@ -54,6 +55,11 @@ bool Evaluator::retarget(DesignFigures& d) const {
     double at_target = 0;
     std::optional<double> ratio;
     bool fresh = false;
+    // The offset each round's coil was trimmed with (the screen's estimate for d), its residual (the solver's
+    // fall there less it), and the turns, for the secant step and to see the snapped turns flip back.
+    double offset = d.inductance_at_target - d.inductance;
+    std::optional<std::pair<double, double>> before;  // the previous round's offset and residual, on the same turns
+    std::vector<double> turns_tried{cur.turns};
     for (int k = 0; k < 8; ++k) {
         at_target = inductance_at_target(cur);
         const double fall = at_target - cur.inductance;  // against the (shielded) nominal L
@@ -67,12 +73,29 @@ bool Evaluator::retarget(DesignFigures& d) const {
         const bool settled = e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance &&
                              (!heated || std::fabs(*e.fixed_ac_ratio_ / *ratio - 1) <= 1e-10);
         if (settled) break;
-        e.fixed_offset_ = fall;
+        // The snapped turns back at a count an earlier round left: the trim sits where the turns flip, and the
+        // rounds would alternate (until the eighth, at ten milliseconds each). This coil, its L fresh, is kept;
+        // the check below judges whether it meets the target.
+        if (std::count(turns_tried.begin(), turns_tried.end() - 1, cur.turns) > 0 && turns_tried.end()[-2] != cur.turns) break;
+        // The next offset: the fall found (a fixed point's step, which shrinks the residual by the fall's slope
+        // in the offset, a few hundredths), or on the same turns the secant through the last two rounds'
+        // residuals, which reaches the settled offset in one or two rounds fewer.
+        const double residual = fall - offset;
+        double next = fall;
+        if (before && before->second != residual) {
+            const double secant = offset - residual * (offset - before->first) / (residual - before->second);
+            if (std::isfinite(secant) && std::fabs(secant - fall) < 0.5 * std::fabs(residual)) next = secant;
+        }
+        before = std::pair{offset, residual};
+        offset = next;
+        e.fixed_offset_ = next;
         e.fixed_ac_ratio_ = ratio;
         Tally t;
         e.check(c, t);
         if (t.front.designs().size() != 1) return false;
+        if (t.front.designs().front().turns != cur.turns) before.reset();
         cur = t.front.designs().front();
+        turns_tried.push_back(cur.turns);
         fresh = false;
     }
     // The figures at the coil returned (the trim may end between two snapped turn counts): the solver's
