@@ -111,6 +111,31 @@ TEST(WireHarmonics, MirrorSymmetryChangesNothing) {
     EXPECT_NEAR(a.inductance / b.inductance, 1.0, 1e-6);
 }
 
+TEST(WireHarmonics, ManyFrequenciesAtOnceGiveEachSolveToTheBit) {
+    // solve(frequencies) shares the kernel's geometric terms between the frequencies of one harmonic count; the
+    // figures must be those of one solve each, bit for bit (DC, repeated counts, a count met again later), in a
+    // shield too (its wall currents stay per frequency).
+    const Solenoid c(Solenoid::Params{20e-3, 9, 1.4e-3, Wire{.bare_diameter = 1e-3}});
+    const std::vector<double> fs{0.0, 1e5, 2e5, 1e6, 3e6, 3.1e6, 3e7, 2e5};
+    ShieldSpec can;
+    can.inner_diameter = 40e-3;
+    can.length = 40e-3;
+    can.thickness = 0.5e-3;
+    can.material = conductor("copper");
+    for (const auto& shield : {std::optional<ShieldSpec>{}, std::optional<ShieldSpec>{can}}) {
+        const WireHarmonicSolver solver(c, rho, 0, shield);
+        const auto all = solver.solve(fs);
+        ASSERT_EQ(all.size(), fs.size());
+        for (std::size_t i = 0; i < fs.size(); ++i) {
+            const auto one = solver.solve(fs[i]);
+            EXPECT_EQ(all[i].resistance, one.resistance) << fs[i];
+            EXPECT_EQ(all[i].inductance, one.inductance) << fs[i];
+            EXPECT_EQ(all[i].wall_resistance, one.wall_resistance) << fs[i];
+            EXPECT_EQ(all[i].wall_inductance, one.wall_inductance) << fs[i];
+        }
+    }
+}
+
 TEST(WireHarmonics, ProximityRaisesResistanceAndFallsWithPitch) {
     // Butterworth (1926): the closer the turns, the more the loss, and every coil above the isolated wire.
     const double r = 0.5e-3, f = frequency_for_d_over_delta(r, 10);

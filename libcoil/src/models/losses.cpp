@@ -120,14 +120,21 @@ std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& c, con
     if (cond.relative_permeability != 1) throw DomainError("the wire-harmonic solver takes non-magnetic wire only");
     const double rho = cond.resistivity_at(temperature);
     const WireHarmonicSolver solver(c, rho, 0, shield ? std::optional<ShieldSpec>(*shield) : std::nullopt);
-    const RingImpedance dc = solver.solve(0);
+    // DC first, then every frequency, in one call that shares the kernel's geometry between them.
+    std::vector<double> solved{0.0};
+    for (double f : fs) {
+        if (f > 0) solved.push_back(f);
+    }
+    const std::vector<RingImpedance> zs = solver.solve(solved);
+    const RingImpedance& dc = zs.front();
     // The rings' R relative to their DC value, applied to the helix's DC resistance (so that f = 0 gives the
     // DC resistance exactly; the torus's own curvature changes its DC R by (r / R)^2 / 8, 3e-4 at R / r = 20).
     const double per_m = dc_resistance_per_length(cond, c.wire().bare_diameter, temperature);
     const double helix_dc = per_m * c.helix_length();
     std::vector<CoilAtFrequency> out;
+    std::size_t next = 1;
     for (double f : fs) {
-        const RingImpedance z = f > 0 ? solver.solve(f) : dc;
+        const RingImpedance& z = f > 0 ? zs[next++] : dc;
         const double skin = f > 0 ? wire_skin_ratios(c.wire().radius(), rho, f, cond.relative_permeability).resistance : 1.0;
         CoilAtFrequency p;
         p.frequency = f;

@@ -102,7 +102,65 @@ WireHarmonicSolver::WireHarmonicSolver(std::vector<std::pair<double, double>> ri
     else mirror_ = true;
 }
 
+// For each solved turn i (a representative), each turn j and each collocation point q on i's circle: Maxwell's
+// M(r, R_j, z - z_j) a^2, the offset a / (x - x_j) as a complex number, and the gradient of the kernel's smooth
+// part at j's centre; index (i * N + j) * Q + q.
+struct WireHarmonicSolver::Kernel {
+    int points = 0;
+    std::vector<double> mutual, grad_r, grad_z;
+    std::vector<cd> offset;
+};
+
+const WireHarmonicSolver::Kernel& WireHarmonicSolver::kernel(int points, std::vector<Kernel>& kept, const std::vector<int>& reps) const {
+    for (const Kernel& k : kept) {
+        if (k.points == points) return k;
+    }
+    const double a = wire_radius_, h = 1e-4 * a;
+    const int Q = points, N = static_cast<int>(rings_.size());
+    // f(k) + ln|x - x'|: the smooth part of Maxwell's kernel M = mu0 sqrt(r r') f(k).
+    const auto smooth = [](double r, double z, double rs, double zs) {
+        return coaxial_mutual_inductance(r, rs, z - zs) / (mu0 * std::sqrt(r * rs)) + 0.5 * std::log((r - rs) * (r - rs) + (z - zs) * (z - zs));
+    };
+    Kernel k;
+    k.points = Q;
+    const std::size_t size = reps.size() * static_cast<std::size_t>(N) * static_cast<std::size_t>(Q);
+    k.mutual.resize(size);
+    k.grad_r.resize(size);
+    k.grad_z.resize(size);
+    k.offset.resize(size);
+    std::size_t at = 0;
+    for (const int i : reps) {
+        const auto [Ri, zi] = rings_[static_cast<std::size_t>(i)];
+        for (int j = 0; j < N; ++j) {
+            const auto [Rj, zj] = rings_[static_cast<std::size_t>(j)];
+            for (int q = 0; q < Q; ++q, ++at) {
+                const double th = 2 * pi * q / Q;
+                const double r = Ri + a * std::cos(th), z = zi + a * std::sin(th);
+                k.mutual[at] = coaxial_mutual_inductance(r, Rj, z - zj) * a * a;
+                k.offset[at] = a / cd(r - Rj, z - zj);
+                k.grad_r[at] = (smooth(r, z, Rj + h, zj) - smooth(r, z, Rj - h, zj)) / (2 * h);
+                k.grad_z[at] = (smooth(r, z, Rj, zj + h) - smooth(r, z, Rj, zj - h)) / (2 * h);
+            }
+        }
+    }
+    kept.push_back(std::move(k));
+    return kept.back();
+}
+
 RingImpedance WireHarmonicSolver::solve(double frequency) const {
+    std::vector<Kernel> kept;
+    return solve(frequency, kept);
+}
+
+std::vector<RingImpedance> WireHarmonicSolver::solve(const std::vector<double>& frequencies) const {
+    std::vector<Kernel> kept;
+    std::vector<RingImpedance> out;
+    out.reserve(frequencies.size());
+    for (const double f : frequencies) out.push_back(solve(f, kept));
+    return out;
+}
+
+RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& kept) const {
     require_non_negative("frequency", frequency);
     const double a = wire_radius_, sigma = 1 / resistivity_;
     // DC as the limit: a frequency whose skin depth is 30 wire radii (R within 1e-7 of DC).
@@ -156,11 +214,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
     Eigen::MatrixXcd F(Q, U), S(Q, U);
     Eigen::VectorXd g(Q);
     const Eigen::MatrixXcd Pc = P.cast<cd>();
-    // f(k) + ln|x - x'|: the smooth part of Maxwell's kernel M = mu0 sqrt(r r') f(k).
-    const auto smooth = [](double r, double z, double rs, double zs) {
-        return coaxial_mutual_inductance(r, rs, z - zs) / (mu0 * std::sqrt(r * rs)) + 0.5 * std::log((r - rs) * (r - rs) + (z - zs) * (z - zs));
-    };
-    const double h = 1e-4 * a;
+    const Kernel& kern = kernel(Q, kept, reps);
     // A shield's wall currents, driven by the turns' net currents (the harmonics' own fields reach the
     // wall as multipoles of order (wire radius / distance)^m and are left out).
     std::vector<WallRingCurrent> wall;
@@ -206,12 +260,13 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
         if (M >= 2) A(row + B, row + 4) = e2 * pi / 2 * std::pow(a, 4) * s[2];
         rhs(row + B) = 1.0;
         for (int j = 0; j < N; ++j) {
-            const auto [Rj, zj] = rings_[static_cast<std::size_t>(j)];
+            const double Rj = rings_[static_cast<std::size_t>(j)].first;
+            const std::size_t at = (static_cast<std::size_t>(ri) * static_cast<std::size_t>(N) + static_cast<std::size_t>(j)) * static_cast<std::size_t>(Q);
             F.setZero();
             for (int q = 0; q < Q; ++q) {
-                const double r = Ri + a * cth[q], z = zi + a * sth[q];
-                F(q, 1) = coaxial_mutual_inductance(r, Rj, z - zj) * a * a * s[0] / r;
-                const cd u = a / cd(r - Rj, z - zj);
+                const double r = Ri + a * cth[q];
+                F(q, 1) = kern.mutual[at + static_cast<std::size_t>(q)] * s[0] / r;
+                const cd u = kern.offset[at + static_cast<std::size_t>(q)];
                 const double curv = std::sqrt(Rj / r);
                 cd um = 1;
                 for (int m = 1; m <= M; ++m) {
@@ -221,11 +276,9 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
                     F(q, 2 * m + 1) = -strength * um.imag();
                 }
                 // The dipoles' curvature term: the smooth kernel's gradient at the source centre.
-                const double dr = (smooth(r, z, Rj + h, zj) - smooth(r, z, Rj - h, zj)) / (2 * h);
-                const double dz = (smooth(r, z, Rj, zj + h) - smooth(r, z, Rj, zj - h)) / (2 * h);
                 const cd dip = mu0 / (2 * pi) * curv * pi * a * a * a * s[1];
-                F(q, 2) += dip * dr;
-                F(q, 3) += dip * dz;
+                F(q, 2) += dip * kern.grad_r[at + static_cast<std::size_t>(q)];
+                F(q, 3) += dip * kern.grad_z[at + static_cast<std::size_t>(q)];
             }
             if (reps[static_cast<std::size_t>(reduced[static_cast<std::size_t>(j)])] != j) {
                 for (int m = 1; m <= M; ++m) F.col(2 * m + 1) *= -1.0;  // a mirror partner: its sin harmonics are the negatives

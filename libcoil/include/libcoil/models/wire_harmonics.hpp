@@ -77,10 +77,18 @@ public:
 
     // R and L of the rings in series (L including the internal inductance). f = 0 gives the DC limit.
     RingImpedance solve(double frequency) const;
+    // The same at each of `frequencies`, to the bit: the kernel's terms that depend on the geometry alone
+    // (Maxwell's formula at each wire's collocation points, most of a solve's assembly) are computed once for
+    // all the frequencies that take the same number of harmonics.
+    std::vector<RingImpedance> solve(const std::vector<double>& frequencies) const;
 
     std::size_t turns() const { return rings_.size(); }
 
 private:
+    struct Kernel;  // the geometric terms at one count of collocation points
+    RingImpedance solve(double frequency, std::vector<Kernel>& kept) const;
+    const Kernel& kernel(int points, std::vector<Kernel>& kept, const std::vector<int>& reps) const;
+
     std::vector<std::pair<double, double>> rings_;
     double wire_radius_, resistivity_;
     int harmonics_;
