@@ -322,6 +322,7 @@ def header_text(table, fits):
     for m in MOUNTINGS:
         out.append(f"// {m}: [p / d bin][l / D bin]")
         out.append(f"inline constexpr double {m.replace('-end', '')}[spacing_bins][length_bins] = {cxx(table[m], lambda v: f'{v:.3f}')};")
+    written = {}  # the powers' table of each feature list, written once
     for kind, names in (("bare", FEATURES), ("former", FORMER_FEATURES), ("mounted", FORMER_FEATURES)):
         low, high, per_mounting = fits[kind]
         terms = powers(len(names))
@@ -330,14 +331,18 @@ def header_text(table, fits):
                 f"inline constexpr int {kind}_features = {len(names)}, {kind}_terms = {len(terms)};",
                 f"inline constexpr double {kind}_low[{kind}_features] = {cxx_list(low, g)};",
                 f"inline constexpr double {kind}_high[{kind}_features] = {cxx_list(high, g)};",
-                "// The monomials' powers of the scaled features, in the order of the coefficients.",
-                f"inline constexpr unsigned char {kind}_powers[{kind}_terms][{kind}_features] = {cxx_list(terms, lambda t: cxx(t, str), 8)};"]
+                "// The monomials' powers of the scaled features, in the order of the coefficients."]
+        if names in written:
+            out.append(f"inline constexpr const unsigned char (&{kind}_powers)[{kind}_terms][{kind}_features] = {written[names]}_powers;")
+        else:
+            written[names] = kind
+            out.append(f"inline constexpr unsigned char {kind}_powers[{kind}_terms][{kind}_features] = {cxx_list(terms, lambda t: cxx(t, str), 8)};")
         for m in MOUNTINGS:
             name = m.replace("-end", "")
             coefficients, offset = per_mounting[m]
             out.append(f"// {m}: the coefficients, and the offsets [N bin][p / d bin][l / D bin] added to the polynomial")
             out.append(f"// ({NO_FIT:g}: fewer than {MIN_NEAR} samples near, the fit not taken)")
-            out.append(f"inline constexpr double {name}_{kind}_fit[{kind}_terms] = {cxx_list(coefficients, g, 4)};")
+            out.append(f"inline constexpr double {name}_{kind}_fit[{kind}_terms] = {cxx_list(coefficients, g, 5)};")
             out.append(f"inline constexpr double {name}_{kind}_offset[turns_bins][spacing_bins][length_bins] = {cxx(offset, lambda v: f'{v:.4f}')};")
     return "\n".join(out)
 
