@@ -125,9 +125,10 @@ def ratios(coil):
             bare.network.frequency / screen_frequency(bare))
 
 
-def former_ratios(job):
-    """As ratios(), with r = (network on the former / bare) / (helix on the former / bare) for the ratio, and
-    the former's permittivity, wall / D and fill after it; or None where either model is missing."""
+def on_former(job, ratio, bare_too):
+    """A former row, (p / d, enamel / d, l / D, D / d, N, mounting, True, ratio, permittivity, wall / D, fill), with
+    ratio(bare, on) of the coil's self-resonances without the former (None unless `bare_too`) and with it; None
+    where a model it needs is missing."""
     coil, permittivity, wall, fill = job
     d, enamel, mean, pitch, turns, mounting = coil
     s = solenoid(coil)
@@ -135,28 +136,24 @@ def former_ratios(job):
         return None
     wall = min(wall, 0.45 * s.form_diameter)
     inductance = libcoil.inductance(s).recommended
-    bare = libcoil.self_resonance(s, inductance, mounting=mounting)
+    bare = libcoil.self_resonance(s, inductance, mounting=mounting) if bare_too else None
     on = libcoil.self_resonance(s, inductance, former_permittivity=permittivity, former_wall=wall, former_fill=fill, mounting=mounting)
-    if bare.network is None or on.network is None or not bare.helical_line.available or not on.helical_line.available:
+    if any(r.network is None or not r.helical_line.available for r in (bare, on) if r is not None):
         return None
-    r = (on.network.frequency / bare.network.frequency) / (on.helical_line.frequency / bare.helical_line.frequency)
-    return (pitch / d, enamel / d, s.winding_length / mean, mean / d, turns, mounting, True, r, permittivity, wall / mean, fill)
+    return (pitch / d, enamel / d, s.winding_length / mean, mean / d, turns, mounting, True, ratio(bare, on), permittivity,
+            wall / mean, fill)
+
+
+def former_ratios(job):
+    """As ratios(), with r = (network on the former / bare) / (helix on the former / bare) for the ratio, and
+    the former's permittivity, wall / D and fill after it; or None where either model is missing."""
+    return on_former(job, lambda bare, on: (on.network.frequency / bare.network.frequency) /
+                     (on.helical_line.frequency / bare.helical_line.frequency), True)
 
 
 def mounted_ratios(job):
     """As former_ratios(), with network / helix on the former for the ratio; or None where either is missing."""
-    coil, permittivity, wall, fill = job
-    d, enamel, mean, pitch, turns, mounting = coil
-    s = solenoid(coil)
-    if s is None:
-        return None
-    wall = min(wall, 0.45 * s.form_diameter)
-    on = libcoil.self_resonance(s, libcoil.inductance(s).recommended, former_permittivity=permittivity, former_wall=wall,
-                                former_fill=fill, mounting=mounting)
-    if on.network is None or not on.helical_line.available:
-        return None
-    return (pitch / d, enamel / d, s.winding_length / mean, mean / d, turns, mounting, True,
-            on.network.frequency / on.helical_line.frequency, permittivity, wall / mean, fill)
+    return on_former(job, lambda bare, on: on.network.frequency / on.helical_line.frequency, False)
 
 
 def interior(row):

@@ -48,18 +48,25 @@ constexpr auto bare_factors = factor_places(e::bare_powers);
 constexpr auto former_factors = factor_places(e::former_powers);
 constexpr auto mounted_factors = factor_places(e::mounted_powers);
 
-// One of the generated fits: its features' range, its terms' factors, and a mounting's coefficients and
+using Offsets = double[e::turns_bins][e::spacing_bins][e::length_bins];
+
+// One of the generated fits: its features' range, its terms' factors, and each mounting's coefficients and
 // offsets.
 template <int features, int terms>
 struct Fit {
     const double (&low)[features];
     const double (&high)[features];
     const std::array<std::array<unsigned char, 3>, terms>& factors;
-    const double (&coefficients)[terms];
-    const double (&offset)[e::turns_bins][e::spacing_bins][e::length_bins];
+    const double (&floating)[terms];
+    const Offsets& floating_offset;
+    const double (&grounded)[terms];
+    const Offsets& grounded_offset;
 
-    // exp(the polynomial in the scaled features plus the bin's offset), or 0 outside the range (a NaN too).
+    // exp(the polynomial in the scaled features plus the bin's offset) for the coil's mounting, or 0 outside
+    // the range (a NaN too).
     double bound(const double (&x)[features], const ScreenedCoil& c) const {
+        const double(&coefficients)[terms] = c.grounded ? grounded : floating;
+        const Offsets& offset = c.grounded ? grounded_offset : floating_offset;
         double power[4 * features];
         for (int k = 0; k < features; ++k) {
             if (!(x[k] >= low[k] && x[k] <= high[k])) return 0;
@@ -79,6 +86,14 @@ struct Fit {
         return std::exp(sum + offset[n][i][j]);
     }
 };
+
+constexpr Fit<e::bare_features, e::bare_terms> bare_fit{e::bare_low, e::bare_high, bare_factors, e::floating_bare_fit,
+                                                       e::floating_bare_offset, e::grounded_bare_fit, e::grounded_bare_offset};
+constexpr Fit<e::former_features, e::former_terms> former_fit{e::former_low, e::former_high, former_factors, e::floating_former_fit,
+                                                             e::floating_former_offset, e::grounded_former_fit, e::grounded_former_offset};
+static_assert(e::mounted_features == e::former_features, "the mounted fit takes the former's features");
+constexpr Fit<e::former_features, e::mounted_terms> mounted_fit{e::mounted_low, e::mounted_high, mounted_factors, e::floating_mounted_fit,
+                                                               e::floating_mounted_offset, e::grounded_mounted_fit, e::grounded_mounted_offset};
 
 // The bare fit's features (the script's FEATURES), the former's three after them.
 void bare_features(const ScreenedCoil& c, double* x) {
@@ -105,30 +120,20 @@ double network_over_screen_bound(const ScreenedCoil& c, bool by_helix) {
     if (!by_helix) return envelope;
     double x[e::bare_features];
     bare_features(c, x);
-    const Fit<e::bare_features, e::bare_terms> fit{e::bare_low, e::bare_high, bare_factors,
-                                                   c.grounded ? e::grounded_bare_fit : e::floating_bare_fit,
-                                                   c.grounded ? e::grounded_bare_offset : e::floating_bare_offset};
-    const double fitted = fit.bound(x, c);
+    const double fitted = bare_fit.bound(x, c);
     return fitted > 0 ? std::fmin(envelope, fitted) : envelope;
 }
 
 double former_shift_bound(const ScreenedCoil& c, double permittivity, double wall, double fill) {
     double x[e::former_features];
     former_features(c, permittivity, wall, fill, x);
-    const Fit<e::former_features, e::former_terms> fit{e::former_low, e::former_high, former_factors,
-                                                       c.grounded ? e::grounded_former_fit : e::floating_former_fit,
-                                                       c.grounded ? e::grounded_former_offset : e::floating_former_offset};
-    return fit.bound(x, c);
+    return former_fit.bound(x, c);
 }
 
 double network_over_mounted_bound(const ScreenedCoil& c, double permittivity, double wall, double fill) {
-    static_assert(e::mounted_features == e::former_features, "the mounted fit takes the former's features");
-    double x[e::mounted_features];
+    double x[e::former_features];
     former_features(c, permittivity, wall, fill, x);
-    const Fit<e::mounted_features, e::mounted_terms> fit{e::mounted_low, e::mounted_high, mounted_factors,
-                                                         c.grounded ? e::grounded_mounted_fit : e::floating_mounted_fit,
-                                                         c.grounded ? e::grounded_mounted_offset : e::floating_mounted_offset};
-    return fit.bound(x, c);
+    return mounted_fit.bound(x, c);
 }
 
 }  // namespace libcoil::detail
