@@ -222,6 +222,27 @@ TEST(TurnNetwork, FormerLowersTheSrfAndARodMoreThanATube) {
     EXPECT_NEAR(tube / air, helix_ratio, 0.02);
 }
 
+TEST(TurnNetwork, RememberedFormerReactionsAreReusedOnlyForTheSameScene) {
+    // The network keeps its thread's last few reactions of the bodies on the rings (recent_results.hpp, exact
+    // keys): the same coil on the same former again gives the first network's figures to the bit, even after
+    // other scenes were solved in between; a former that differs in any field is solved afresh.
+    const Solenoid s = coil(25e-3, 12, 2e-3, 1e-3);
+    TurnNetworkOptions o;
+    o.former = FormerDielectric{3.0, 2e-3, 1.0};
+    const TurnNetwork first(s, o);
+    o.former.relative_permittivity = 3.0001;  // a permittivity 3e-5 higher: a new scene, a lower SRF
+    const double nearby = TurnNetwork(s, o).first_resonance();
+    o.former = FormerDielectric{3.0, 2e-3, 0.5};
+    const double ribs = TurnNetwork(s, o).first_resonance();
+    o.former = FormerDielectric{3.0, 2e-3, 1.0};
+    const TurnNetwork again(s, o);
+    EXPECT_EQ(again.first_resonance(), first.first_resonance());
+    EXPECT_EQ(again.turn_capacitance(), first.turn_capacitance());
+    EXPECT_EQ(again.panels(), first.panels());
+    EXPECT_LT(nearby, first.first_resonance());
+    EXPECT_GT(ribs, first.first_resonance());
+}
+
 TEST(TurnNetwork, NoFormerEverRaisesTheSrfTheBoundTheDesignSearchTakes) {
     // The design search rejects a design without the former's charge solve where the network without the
     // former already misses the SRF margin (design_confirm.cpp). That holds because a dielectric only adds

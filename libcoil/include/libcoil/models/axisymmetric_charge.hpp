@@ -43,6 +43,7 @@ struct ChargeRing {
     double radius = 0;  // m
     double z = 0;       // m
     double wire_radius = 0;
+    bool operator==(const ChargeRing&) const = default;
 };
 
 // A closed outline traced counter-clockwise in the (rho, z) half-plane (rho across, z up), so that the
@@ -57,6 +58,7 @@ struct DielectricBody {
     Outline outline;
     double relative_permittivity = 1;  // inside; outside is the scene's background
     Circle circle{};
+    bool operator==(const DielectricBody&) const = default;
 };
 
 struct ConductorBody {
@@ -65,6 +67,7 @@ struct ConductorBody {
     int group = -1;       // conductors of one group share a potential; -1: grounded
     double embedding_permittivity = 0;  // the dielectric touching its surface (0: the background)
     Circle circle{};
+    bool operator==(const ConductorBody&) const = default;
 };
 
 struct ChargeScene {
@@ -75,6 +78,7 @@ struct ChargeScene {
     double background_permittivity = 1;
     double min_panel = 0;  // m; > 0 required
     double max_panel = 0;  // m; > 0 required
+    bool operator==(const ChargeScene&) const = default;
 };
 
 // What bodies do to thin rings (which must lie outside every dielectric: a ring inside one would need its
