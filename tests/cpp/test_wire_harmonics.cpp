@@ -115,7 +115,7 @@ TEST(WireHarmonics, ManyFrequenciesAtOnceGiveEachSolveToTheBit) {
     // solve(frequencies) shares the kernel's geometric terms between the frequencies of one harmonic count; the
     // figures must be those of one solve each, bit for bit (DC, repeated counts, a count met again later), in a
     // shield too (its wall currents stay per frequency).
-    const Solenoid c(Solenoid::Params{20e-3, 9, 1.4e-3, Wire{.bare_diameter = 1e-3}});
+    const Solenoid c(Solenoid::Params{20e-3, 9, 1.4e-3, Wire{1e-3, 0, "1 mm"}});
     const std::vector<double> fs{0.0, 1e5, 2e5, 1e6, 3e6, 3.1e6, 3e7, 2e5};
     ShieldSpec can;
     can.inner_diameter = 40e-3;

@@ -2,8 +2,8 @@
 tools/srf_screen_envelope.py from 40 000 random bare coils, 16 000 on random formers and about 35 000 more on
 formers in the mounted fit's interior): on coils the generator never saw (other seeds), the network's SRF never
 exceeds the bound times the screen's, floating or grounded; on a former the network's shift over the sheath
-helix's never exceeds its bound, nor the network's SRF on it the mounted bound times the helix's. They are measured bounds; this is
-the check that they hold beyond their own samples. (A former only lowers the network's SRF:
+helix's never exceeds its bound, nor the network's SRF on it the mounted bound times the helix's. They are
+measured bounds; this is the check that they hold beyond their own samples. (A former only lowers the network's SRF:
 tests/cpp/test_turn_network.cpp. The C++ reading of the tables against the script's: tests/cpp/test_design.cpp.)"""
 import importlib.util
 import os

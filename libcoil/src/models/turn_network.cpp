@@ -198,7 +198,7 @@ Matrix near_field_correction(double a, double r, double coat, double pitch, cons
 
 // The bodies' reaction on the rings (ring_potential_reaction), remembered: a design search confirms its chosen
 // design on its former, with the build's spread, then analyses it and asks for the same coils on the same
-// former again (2026-12-04: 6 of the dense grid's 70 reactions, 25 ms). A reaction over 1 MB is not kept.
+// former again (2026-12-04: 7 of the dense grid's 70 reactions, about 20 ms). A reaction over 1 MB is not kept.
 std::vector<double> remembered_reaction(const std::vector<ChargeRing>& rings, const ChargeScene& scene, int* panels) {
     using Key = std::pair<std::vector<ChargeRing>, ChargeScene>;
     using Value = std::pair<std::vector<double>, int>;  // the reaction and its panels

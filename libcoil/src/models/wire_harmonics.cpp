@@ -112,12 +112,13 @@ struct WireHarmonicSolver::Kernel {
     std::vector<cd> offset;
 };
 
-const WireHarmonicSolver::Kernel& WireHarmonicSolver::kernel(int points, std::vector<Kernel>& kept, const std::vector<int>& reps) const {
+const WireHarmonicSolver::Kernel& WireHarmonicSolver::kernel(const std::vector<double>& cth, const std::vector<double>& sth,
+                                                             std::vector<Kernel>& kept, const std::vector<int>& reps) const {
+    const int Q = static_cast<int>(cth.size()), N = static_cast<int>(rings_.size());
     for (const Kernel& k : kept) {
-        if (k.points == points) return k;
+        if (k.points == Q) return k;
     }
     const double a = wire_radius_, h = 1e-4 * a;
-    const int Q = points, N = static_cast<int>(rings_.size());
     // f(k) + ln|x - x'|: the smooth part of Maxwell's kernel M = mu0 sqrt(r r') f(k).
     const auto smooth = [](double r, double z, double rs, double zs) {
         return coaxial_mutual_inductance(r, rs, z - zs) / (mu0 * std::sqrt(r * rs)) + 0.5 * std::log((r - rs) * (r - rs) + (z - zs) * (z - zs));
@@ -135,8 +136,7 @@ const WireHarmonicSolver::Kernel& WireHarmonicSolver::kernel(int points, std::ve
         for (int j = 0; j < N; ++j) {
             const auto [Rj, zj] = rings_[static_cast<std::size_t>(j)];
             for (int q = 0; q < Q; ++q, ++at) {
-                const double th = 2 * pi * q / Q;
-                const double r = Ri + a * std::cos(th), z = zi + a * std::sin(th);
+                const double r = Ri + a * cth[static_cast<std::size_t>(q)], z = zi + a * sth[static_cast<std::size_t>(q)];
                 k.mutual[at] = coaxial_mutual_inductance(r, Rj, z - zj) * a * a;
                 k.offset[at] = a / cd(r - Rj, z - zj);
                 k.grad_r[at] = (smooth(r, z, Rj + h, zj) - smooth(r, z, Rj - h, zj)) / (2 * h);
@@ -215,7 +215,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     Eigen::MatrixXcd F(Q, U), S(Q, U);
     Eigen::VectorXd g(Q);
     const Eigen::MatrixXcd Pc = P.cast<cd>();
-    const Kernel& kern = kernel(Q, kept, reps);
+    const Kernel& kern = kernel(cth, sth, kept, reps);
     // A shield's wall currents, driven by the turns' net currents (the harmonics' own fields reach the
     // wall as multipoles of order (wire radius / distance)^m and are left out).
     std::vector<WallRingCurrent> wall;

@@ -87,7 +87,10 @@ public:
 private:
     struct Kernel;  // the geometric terms at one count of collocation points
     RingImpedance solve(double frequency, std::vector<Kernel>& kept) const;
-    const Kernel& kernel(int points, std::vector<Kernel>& kept, const std::vector<int>& reps) const;
+    // The kernel at the collocation points whose angles have these cosines and sines: from `kept`, or computed
+    // and added to it.
+    const Kernel& kernel(const std::vector<double>& cth, const std::vector<double>& sth, std::vector<Kernel>& kept,
+                         const std::vector<int>& reps) const;
 
     std::vector<std::pair<double, double>> rings_;
     double wire_radius_, resistivity_;
