@@ -102,14 +102,35 @@ WireHarmonicSolver::WireHarmonicSolver(std::vector<std::pair<double, double>> ri
     else mirror_ = true;
 }
 
-// For each solved turn i (a representative), each turn j and each collocation point q on i's circle: Maxwell's
-// M(r, R_j, z - z_j) a^2, the offset a / (x - x_j) as a complex number, and the gradient of the kernel's smooth
-// part at j's centre; index (i * N + j) * Q + q. 40 bytes each: at the analysis's largest system (1000
-// unknowns, wire_harmonics_apply) at most about 16 MB, freed when the call returns.
+namespace {
+
+// Projections onto the harmonics on a circle of Q = 4M + 4 collocation points: rows 0, (1c, 1s), (2c, 2s), ...
+Eigen::MatrixXd projections(int Q) {
+    const int M = Q / 4 - 1;
+    Eigen::MatrixXd P(2 * M + 1, Q);
+    for (int q = 0; q < Q; ++q) {
+        const double th = 2 * pi * q / Q;
+        P(0, q) = 1.0 / Q;
+        for (int m = 1; m <= M; ++m) {
+            P(2 * m - 1, q) = 2.0 / Q * std::cos(m * th);
+            P(2 * m, q) = 2.0 / Q * std::sin(m * th);
+        }
+    }
+    return P;
+}
+
+}  // namespace
+
+// For each solved turn i (a representative) and each turn j: the field that j's unknowns (c_0, c_1c, c_1s, ...)
+// produce at i's collocation points, projected onto i's harmonics, without the factors that depend on the
+// frequency (j w and the Bessel ratio s_m of each harmonic's column, applied in the solve). A real B x U block
+// per pair, at index (i * N + j) * B * U: Maxwell's M(r, R_j, z - z_j) a^2 / r for the net current, the
+// multipoles' offsets (a / (x - x_j))^m and the dipoles' curvature term from the smooth kernel's gradient.
+// About 16 bytes per element of the system matrix, as much as the matrix itself: 16 MB at the analysis's
+// largest system (1000 unknowns, wire_harmonics_apply), freed when the call returns.
 struct WireHarmonicSolver::Kernel {
     int points = 0;
-    std::vector<double> mutual, grad_r, grad_z;
-    std::vector<cd> offset;
+    std::vector<double> projected;
 };
 
 const WireHarmonicSolver::Kernel& WireHarmonicSolver::kernel(const std::vector<double>& cth, const std::vector<double>& sth,
@@ -118,30 +139,41 @@ const WireHarmonicSolver::Kernel& WireHarmonicSolver::kernel(const std::vector<d
     for (const Kernel& k : kept) {
         if (k.points == Q) return k;
     }
+    const int M = Q / 4 - 1, B = 2 * M + 1, U = B + 1;
     const double a = wire_radius_, h = 1e-4 * a;
     // f(k) + ln|x - x'|: the smooth part of Maxwell's kernel M = mu0 sqrt(r r') f(k).
     const auto smooth = [](double r, double z, double rs, double zs) {
         return coaxial_mutual_inductance(r, rs, z - zs) / (mu0 * std::sqrt(r * rs)) + 0.5 * std::log((r - rs) * (r - rs) + (z - zs) * (z - zs));
     };
+    const Eigen::MatrixXd P = projections(Q);
+    Eigen::MatrixXd F(Q, U);
     Kernel k;
     k.points = Q;
-    const std::size_t size = reps.size() * static_cast<std::size_t>(N) * static_cast<std::size_t>(Q);
-    k.mutual.resize(size);
-    k.grad_r.resize(size);
-    k.grad_z.resize(size);
-    k.offset.resize(size);
+    k.projected.resize(reps.size() * static_cast<std::size_t>(N) * static_cast<std::size_t>(B * U));
     std::size_t at = 0;
     for (const int i : reps) {
         const auto [Ri, zi] = rings_[static_cast<std::size_t>(i)];
-        for (int j = 0; j < N; ++j) {
+        for (int j = 0; j < N; ++j, at += static_cast<std::size_t>(B * U)) {
             const auto [Rj, zj] = rings_[static_cast<std::size_t>(j)];
-            for (int q = 0; q < Q; ++q, ++at) {
+            F.setZero();
+            for (int q = 0; q < Q; ++q) {
                 const double r = Ri + a * cth[static_cast<std::size_t>(q)], z = zi + a * sth[static_cast<std::size_t>(q)];
-                k.mutual[at] = coaxial_mutual_inductance(r, Rj, z - zj) * a * a;
-                k.offset[at] = a / cd(r - Rj, z - zj);
-                k.grad_r[at] = (smooth(r, z, Rj + h, zj) - smooth(r, z, Rj - h, zj)) / (2 * h);
-                k.grad_z[at] = (smooth(r, z, Rj, zj + h) - smooth(r, z, Rj, zj - h)) / (2 * h);
+                F(q, 1) = coaxial_mutual_inductance(r, Rj, z - zj) * a * a / r;
+                const cd u = a / cd(r - Rj, z - zj);
+                const double curv = std::sqrt(Rj / r);
+                cd um = 1;
+                for (int m = 1; m <= M; ++m) {
+                    um *= u;
+                    const double strength = mu0 * a * a / (2.0 * m) * curv;
+                    F(q, 2 * m) = strength * um.real();
+                    F(q, 2 * m + 1) = -strength * um.imag();
+                }
+                // The dipoles' curvature term: the smooth kernel's gradient at the source centre.
+                const double dip = mu0 / (2 * pi) * curv * pi * a * a * a;
+                F(q, 2) += dip * (smooth(r, z, Rj + h, zj) - smooth(r, z, Rj - h, zj)) / (2 * h);
+                F(q, 3) += dip * (smooth(r, z, Rj, zj + h) - smooth(r, z, Rj, zj - h)) / (2 * h);
             }
+            Eigen::Map<Eigen::MatrixXd>(k.projected.data() + at, B, U).noalias() = P * F;
         }
     }
     kept.push_back(std::move(k));
@@ -176,18 +208,11 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     const cd kappa_a = cd(1, -1) * (a / delta);
     const std::vector<cd> s = bessel_ratios(kappa_a, M);
 
-    // Projections onto the harmonics on a circle: rows 0, (1c, 1s), (2c, 2s), ...
-    Eigen::MatrixXd P(B, Q);
+    const Eigen::MatrixXd P = projections(Q);
     std::vector<double> cth(Q), sth(Q);
     for (int q = 0; q < Q; ++q) {
-        const double th = 2 * pi * q / Q;
-        cth[q] = std::cos(th);
-        sth[q] = std::sin(th);
-        P(0, q) = 1.0 / Q;
-        for (int m = 1; m <= M; ++m) {
-            P(2 * m - 1, q) = 2.0 / Q * std::cos(m * th);
-            P(2 * m, q) = 2.0 / Q * std::sin(m * th);
-        }
+        cth[q] = std::cos(2 * pi * q / Q);
+        sth[q] = std::sin(2 * pi * q / Q);
     }
 
     // Per turn: unknowns V, c_0, c_1c, c_1s, ..., c_Mc, c_Ms; equations: the 2M + 1 surface harmonics and
@@ -212,7 +237,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     A.setZero();
     Eigen::VectorXcd rhs = Eigen::VectorXcd::Zero(n);
     const cd jw(0, omega);
-    Eigen::MatrixXcd F(Q, U), S(Q, U);
+    Eigen::MatrixXd S(Q, U);
     Eigen::VectorXd g(Q);
     const Eigen::MatrixXcd Pc = P.cast<cd>();
     const Kernel& kern = kernel(cth, sth, kept, reps);
@@ -252,7 +277,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
             g(q) = 1 / (2 * pi * r);
         }
         const Eigen::VectorXd pg = P * g;
-        A.block(row, row, B, U) += (Pc * S) / sigma;
+        A.block(row, row, B, U) += (P * S / sigma).cast<cd>();
         for (int k = 0; k < B; ++k) A(row + k, row) = -pg(k);
         // Net current: int sqrt(R / r) u_k dA to second order in (wire radius / ring radius).
         const double e2 = 3.0 / (8 * Ri * Ri);
@@ -261,30 +286,17 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
         if (M >= 2) A(row + B, row + 4) = e2 * pi / 2 * std::pow(a, 4) * s[2];
         rhs(row + B) = 1.0;
         for (int j = 0; j < N; ++j) {
-            const double Rj = rings_[static_cast<std::size_t>(j)].first;
-            const std::size_t at = (static_cast<std::size_t>(ri) * static_cast<std::size_t>(N) + static_cast<std::size_t>(j)) * static_cast<std::size_t>(Q);
-            F.setZero();
-            for (int q = 0; q < Q; ++q) {
-                const double r = Ri + a * cth[q];
-                F(q, 1) = kern.mutual[at + static_cast<std::size_t>(q)] * s[0] / r;
-                const cd u = kern.offset[at + static_cast<std::size_t>(q)];
-                const double curv = std::sqrt(Rj / r);
-                cd um = 1;
-                for (int m = 1; m <= M; ++m) {
-                    um *= u;
-                    const cd strength = mu0 * a * a * s[static_cast<std::size_t>(m)] / (2.0 * m) * curv;
-                    F(q, 2 * m) = strength * um.real();
-                    F(q, 2 * m + 1) = -strength * um.imag();
-                }
-                // The dipoles' curvature term: the smooth kernel's gradient at the source centre.
-                const cd dip = mu0 / (2 * pi) * curv * pi * a * a * a * s[1];
-                F(q, 2) += dip * kern.grad_r[at + static_cast<std::size_t>(q)];
-                F(q, 3) += dip * kern.grad_z[at + static_cast<std::size_t>(q)];
+            const std::size_t at = (static_cast<std::size_t>(ri) * static_cast<std::size_t>(N) + static_cast<std::size_t>(j)) * static_cast<std::size_t>(B * U);
+            const Eigen::Map<const Eigen::MatrixXd> pf(kern.projected.data() + at, B, U);
+            // A mirror partner's sin harmonics are its representative's negated.
+            const double mirrored = reps[static_cast<std::size_t>(reduced[static_cast<std::size_t>(j)])] != j ? -1.0 : 1.0;
+            auto block = A.block(row, static_cast<Eigen::Index>(reduced[static_cast<std::size_t>(j)]) * U, B, U);
+            block.col(1) += (jw * s[0]) * pf.col(1);
+            for (int m = 1; m <= M; ++m) {
+                const cd c = jw * s[static_cast<std::size_t>(m)];
+                block.col(2 * m) += c * pf.col(2 * m);
+                block.col(2 * m + 1) += (mirrored * c) * pf.col(2 * m + 1);
             }
-            if (reps[static_cast<std::size_t>(reduced[static_cast<std::size_t>(j)])] != j) {
-                for (int m = 1; m <= M; ++m) F.col(2 * m + 1) *= -1.0;  // a mirror partner: its sin harmonics are the negatives
-            }
-            A.block(row, static_cast<Eigen::Index>(reduced[static_cast<std::size_t>(j)]) * U, B, U) += jw * (Pc * F);
         }
     }
     // A turn on the mirror plane has no sin harmonics: its sin equations and unknowns are 0 = 0, replaced by c = 0.
