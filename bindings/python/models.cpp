@@ -212,6 +212,8 @@ void bind_models(py::module_& m) {
         .def_property_readonly("filaments", &libcoil::CrossSectionSolver::filaments)
         .def_property_readonly("unknowns", &libcoil::CrossSectionSolver::unknowns);
     m.def("harmonics_for", &libcoil::harmonics_for, "pitch_to_wire"_a, "d_over_delta"_a);
+    m.def("wire_harmonic_unknowns", &libcoil::wire_harmonic_unknowns, "solenoid"_a, "resistivity"_a, "frequency"_a,
+          "The wire-harmonic solver's unknowns for the coil at the frequency (the analysis takes it up to 1000).");
     m.attr("min_harmonic_diameter_ratio") = libcoil::min_harmonic_diameter_ratio;
     py::class_<libcoil::WireHarmonicSolver>(m, "WireHarmonicSolver")
         .def(py::init([shield_of](const libcoil::Solenoid& c, double rho, int harmonics, std::optional<py::dict> shield) {

@@ -236,10 +236,12 @@ INFEASIBLE = [
     # through one criterion.
     ([("  srf_margin: 2.5\n", "  srf_margin: 4.5\n")], "band.srf_margin"),
     ([("  max_wire_length: 3 m\n", "  max_wire_length: 0.9 m\n")], "limits.max_wire_length"),
-    ([("  max_length: 60 mm\n", "  max_length: 45 mm\n")], "limits.max_length"),
-    # (At 13 A the closest misses of the thermal limit and of band.max_deviation lie within 0.01 % of each other,
-    # and either change works; at 14 A the current alone binds.)
-    ([("  current: 6 A\n", "  current: 14 A\n"), ("  max_length: 60 mm\n", "  max_length: 150 mm\n")], "operating.current"),
+    # (At 40 ... 45 mm the kept designs' turn-network SRF sits within 0.4 ... 10 % of the margin: lowering it a
+    # little is the smaller change. At 34 mm the length alone binds.)
+    ([("  max_length: 60 mm\n", "  max_length: 34 mm\n")], "limits.max_length"),
+    # (At 13 A the closest misses of the thermal limit and of band.max_deviation lay within 0.01 % of each other,
+    # and at 14 A the SRF margin's lay closer than the current's; at 15 A the current alone binds.)
+    ([("  current: 6 A\n", "  current: 15 A\n"), ("  max_length: 60 mm\n", "  max_length: 150 mm\n")], "operating.current"),
     ([("  max_deviation: 10 %\n", "  max_deviation: 10 %\n  min_impedance: 4.9 ohm\n")], "band.min_impedance"),
 ]
 
@@ -306,7 +308,10 @@ def test_a_contradiction_is_said_before_the_search(run_coil, source_dir, tmp_pat
 
 
 def test_no_single_change_is_said_so(run_coil, source_dir, tmp_path):
-    text = (source_dir / "data/examples/bench-network-requirement.yaml").read_text().replace("  max_deviation: 10 %\n", "  max_deviation: 2 %\n")
+    # Two limits that bind apart: |Z| within 2 % of wL (which a longer winding alone does not give: the skin and
+    # proximity effects take 2 ... 3 % off L at the band's low end) and 34 mm of length (which alone binds, above).
+    text = (source_dir / "data/examples/bench-network-requirement.yaml").read_text()
+    text = text.replace("  max_deviation: 10 %\n", "  max_deviation: 2 %\n").replace("  max_length: 60 mm\n", "  max_length: 34 mm\n")
     path = tmp_path / "req.yaml"
     path.write_text(text)
     r = run_coil("design", path)

@@ -193,6 +193,17 @@ double interpolate_log(const std::vector<double>& f, const std::vector<double>& 
 
 }  // namespace
 
+WireLossTable::WireLossTable(std::vector<double> frequencies, std::vector<double> resistance_ratio, std::vector<double> inductance_offset)
+    : f_(std::move(frequencies)), ratio_(std::move(resistance_ratio)), offset_(std::move(inductance_offset)) {
+    if (ratio_.size() != f_.size() || offset_.size() != f_.size()) throw InputError("wire loss table", "needs a ratio and an offset at each frequency");
+    for (std::size_t i = 0; i < f_.size(); ++i) {
+        require_positive("wire loss table frequency", f_[i]);
+        if (i > 0 && !(f_[i] > f_[i - 1])) throw InputError("wire loss table frequency", "must rise");
+        require_positive("wire loss table resistance ratio", ratio_[i]);
+        require_finite("wire loss table inductance offset", offset_[i]);
+    }
+}
+
 double WireLossTable::resistance_ratio(double f) const {
     // Below the grid the two agree at DC; the first point's ratio holds down to it.
     return interpolate_log(f_, ratio_, f, 1.0);

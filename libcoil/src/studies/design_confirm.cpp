@@ -81,7 +81,8 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
                 at_most.frequency_high = band.high;
                 BandSpec deviation = *q_.band;
                 deviation.min_impedance.reset();
-                const CoilImpedance z(s, q_.conductor, d.temperature, sr.inductance, at_most, std::nullopt);
+                const CoilImpedance z(s, q_.conductor, d.temperature, sr.inductance, at_most, std::nullopt,
+                                      fitted_wire(d.wire_index, s, d.temperature, sr.inductance));
                 if (auto miss = libcoil::screen_band(deviation, z, screen_points)) return miss;
             }
         }
@@ -113,10 +114,11 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
         shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance, by_network};
     }
     if (!q_.band && !fixture_) return std::nullopt;
+    const WireLossTable wire = fitted_wire(d.wire_index, s, d.temperature, bare_l);  // L(f) as the screen has it
     std::optional<BandMiss> miss;
     if (q_.band) {
         d.srf_margin = d.self_resonance / q_.band->ceiling;
-        miss = libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, shield), screen_points);
+        miss = libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, shield, wire), screen_points);
         // The build's spread joins the band as the analysis adds it (analysis.cpp's add_self_resonance): two
         // standard deviations off each edge, by the same model (the network, four more solves), so that a design
         // the search keeps passes the analysis's band check too. Without it the first designs of a search could
@@ -127,11 +129,11 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
             if (spread > 0) {
                 sr.frequency_low *= 1 - 2 * spread;
                 sr.frequency_high *= 1 + 2 * spread;
-                miss = libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, shield), screen_points);
+                miss = libcoil::screen_band(*q_.band, CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, shield, wire), screen_points);
             }
         }
     }
-    if (!miss && fixture_) miss = screen_fixture(CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield)));
+    if (!miss && fixture_) miss = screen_fixture(CoilImpedance(s, q_.conductor, d.temperature, bare_l, sr, std::move(shield), wire));
     return miss;
 }
 

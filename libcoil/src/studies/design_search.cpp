@@ -90,18 +90,7 @@ Evaluator::Evaluator(const Requirement& q) : q_(q) {
     fewest_turns_ = std::ceil(1 / q.turns_step - 1e-9) * q.turns_step;  // one turn or more, on the step
     limit_ = q.enamel_class;
     target_frequency_ = target_frequency(q);
-    // The screen's estimate of L's fall at the target frequency, per metre of wire: the closed form's (the
-    // internal inductance the skin effect removes), -mu0 / 8 pi (1 - L_int(f) / L_int(0)). The solver's
-    // fall, two to three times this for close-wound turns, is met when a kept design is retargeted.
-    for (const WireOption& wo : q.wires) {
-        double fall = 0;
-        if (target_frequency_ > 0) {
-            const double rho = q.conductor.resistivity_at(293.15);
-            const double x = std::sqrt(2.0) * wo.wire.radius() / skin_depth(rho, target_frequency_, q.conductor.relative_permeability);
-            fall = -mu0 * q.conductor.relative_permeability / (8 * pi) * (1 - skin_ratios(x).internal_inductance);
-        }
-        screen_fall_per_length_.push_back(fall);
-    }
+    prepare_fall();
     if (q.former) limit_ = std::min(limit_, q.former->material.max_service_temperature);
 }
 
@@ -130,8 +119,7 @@ void Evaluator::check(const Candidate& c, Tally& t) const {
     const Solenoid s(Solenoid::Params{g.mean, g.n, g.p, unlabelled_[c.wire], q_.lead_length});
     DesignFigures d = figures(c, g, s);
     if (q_.shield || target_frequency_ > 0) {  // the (shielded) L at the target frequency must meet the target
-        const double fall = fixed_offset_ ? *fixed_offset_ : screen_fall_per_length_[c.wire] * g.n * pi * g.mean;
-        d.inductance_at_target = d.inductance + fall;
+        d.inductance_at_target = d.inductance + screen_fall(c.wire, g.mean, g.n, g.p, g.bare_inductance);
         const double miss = d.inductance_at_target / q_.inductance - 1;
         if (std::fabs(miss) > q_.tolerance) {
             t.reject(q_.shield ? Reason::shield : Reason::inductance_out_of_reach, 1 + std::fabs(miss), [&] {
@@ -212,10 +200,10 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
     // high-frequency limit, shield.hpp), taken at the geometry of the moment and settled after the trim.
     const auto shield_change = [&](double turns, double pitch) { return this->shield_change(mean, c.wire, turns, pitch); };
     // L's fall at the target frequency (negative): the solver's for a design being retargeted, else the
-    // screen's estimate per metre of wire.
-    const auto fall = [&](double turns) { return fixed_offset_ ? *fixed_offset_ : screen_fall_per_length_[c.wire] * turns * pi * mean; };
-    const auto aim = [&](double turns, double pitch) { return q_.inductance - shield_change(turns, pitch) - fall(turns); };
-    double target = q_.inductance - fall(1.0);
+    // screen's estimate.
+    const auto fall = [&](double turns, double pitch) { return screen_fall(c.wire, mean, turns, pitch, std::nullopt); };
+    const auto aim = [&](double turns, double pitch) { return q_.inductance - shield_change(turns, pitch) - fall(turns, pitch); };
+    double target = q_.inductance;
     double n = 0, p = c.ratio * d_ins, n_solved = 0;
     const double p_grid = p;
     // A grooved or ribbed former needs the groove's clearance between turns: no pitch below it.
@@ -324,7 +312,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
                 return false;
             }
         }
-        if (q_.shield || fall(n) != 0) {
+        if (q_.shield || fall(n, p) != 0) {
             // The shield's change and L's fall move with the trimmed pitch and the snapped turns: trim
             // again until they settle (twice or three times; the check after the figures rejects what
             // still misses).
@@ -444,12 +432,12 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
                 judged.frequency_low = network.low;
                 judged.frequency_high = network.high;
             }
-            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, judged, shield);
+            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, judged, shield, fitted_wire(c.wire, s, d.temperature, g.bare_inductance));
             field = z.mean_square_field();
             miss = libcoil::screen_band(*q_.band, z, screen_points);
         }
         if (!miss && fixture_) {
-            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield));
+            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield), fitted_wire(c.wire, s, d.temperature, g.bare_inductance));
             field = z.mean_square_field();
             miss = screen_fixture(z);
         }

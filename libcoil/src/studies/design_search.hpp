@@ -16,6 +16,7 @@
 #include <string>
 #include <vector>
 
+#include "libcoil/models/losses.hpp"
 #include "libcoil/models/nagaoka.hpp"
 #include "libcoil/models/rosa.hpp"
 #include "libcoil/models/solenoid.hpp"
@@ -23,6 +24,7 @@
 #include "libcoil/studies/band_check.hpp"
 #include "libcoil/studies/design.hpp"
 #include "libcoil/studies/fixture_study.hpp"
+#include "studies/inductance_fall_screen.hpp"
 #include "studies/pareto_archive.hpp"
 
 namespace libcoil::detail {
@@ -160,6 +162,19 @@ private:
     void loss_at_reference(const Solenoid& s, DesignFigures& d, const std::optional<double>& field) const;
     std::string what(const Candidate& c) const;
     double shield_change(double mean, std::size_t wire, double turns, double pitch) const;
+    // L at the target frequency less L at DC (H, negative) as the screen estimates it for `turns` of wire
+    // option `wire` at `pitch` on the mean diameter `mean`: retarget()'s offset where it set one, else the
+    // fitted fall (inductance_fall_screen.hpp) where the analysis takes the wire-harmonic solver and the fit
+    // holds, else the closed form's per metre of wire. The fit gives the fall over L_dc: it takes `l_dc` where
+    // given, else (the turns being solved for) the L_dc that meets the target with that fall.
+    double screen_fall(std::size_t wire, double mean, double turns, double pitch, std::optional<double> l_dc) const;
+    // The screen's impedance of a candidate of L_dc `l_dc` with the fitted fall of L at the band's screen points (the closed
+    // forms' L(f) moved onto it; R as the closed forms have it), where screen_fall takes the fit; else none.
+    WireLossTable fitted_wire(std::size_t wire, const Solenoid& s, double temperature, double l_dc) const;
+    // Whether the analysis takes the wire-harmonic solver for `turns` of wire option `wire` at `pitch` (losses.hpp's
+    // default_loss_solver): at most default_max_harmonic_unknowns at the top frequency (D / d is the fit's).
+    bool solver_takes(std::size_t wire, double turns, double pitch) const;
+    void prepare_fall();  // the members below, per wire option (design_fall.cpp)
     template <class F, class Guide>
     bool solve_pitch(double n, double p_min, double room, const F& L, const Guide& guide, double target, double& p,
                      const Point& last) const;
@@ -168,9 +183,15 @@ private:
     std::vector<Wire> unlabelled_;
     double ceiling_ = 0, reference_ = 0, limit_ = 0, fewest_turns_ = 1;
     double target_frequency_ = 0;
-    // H: L(target frequency) - L(DC) that the low-frequency models' target makes up. Screening takes the
-    // closed form's estimate per wire (the internal inductance's change); retarget() the solver's.
-    std::vector<double> screen_fall_per_length_;  // H/m of wire, per wire option
+    // H: L(target frequency) - L(DC) that the low-frequency models' target makes up (screen_fall). Per wire
+    // option: the closed form's per metre of wire (the internal inductance's change), the fit of the solver's
+    // (where no shield is set and the wire is non-magnetic), and d / delta at the analysis's top frequency,
+    // which with the turns decides whether the analysis takes the solver.
+    std::vector<double> screen_fall_per_length_;
+    std::vector<std::optional<InductanceFallFit>> fall_fit_;
+    std::vector<double> top_d_over_delta_;
+    std::vector<double> band_points_;                           // Hz, the band screen's (band_check.hpp's screen_band)
+    std::vector<std::vector<InductanceFallFit>> band_fall_fit_;  // per wire option, at each band point
     std::optional<double> fixed_offset_;          // H, set for one design by retarget()
     std::optional<double> fixed_ac_ratio_;        // the winding's R_ac / R_dc, set for one design by retarget()
     std::shared_ptr<const PortResponse> fixture_; // the fixture's port as the coil varies, at fixture_points

@@ -13,6 +13,7 @@
 #pragma once
 
 #include <functional>
+#include <utility>
 #include <vector>
 
 #include "libcoil/models/cross_section.hpp"
@@ -53,6 +54,9 @@ public:
     WireLossTable() = default;  // no correction: the closed forms as they stand
     WireLossTable(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance, double low,
                   double high, const ShieldSpec* shield = nullptr, int per_decade = 5);
+    // A correction found elsewhere (the design screen's fitted fall of L): R_h / R_closed and L_h - L_closed (H)
+    // at each of the ascending, positive `frequencies`.
+    WireLossTable(std::vector<double> frequencies, std::vector<double> resistance_ratio, std::vector<double> inductance_offset);
     bool empty() const { return f_.empty(); }
     double resistance_ratio(double frequency) const;   // R_h / R_closed
     double inductance_offset(double frequency) const;  // H, L_h - L_closed

@@ -1,0 +1,78 @@
+// The design screen's fall of L from DC to a frequency (design_search.hpp's Evaluator::screen_fall,
+// fitted_wire): the fit of the wire-harmonic solver's (inductance_fall_screen.hpp) where the analysis takes
+// that solver, else the closed form's internal inductance.
+#include <algorithm>
+#include <cmath>
+
+#include "libcoil/core/constants.hpp"
+#include "libcoil/models/skin_effect.hpp"
+#include "libcoil/models/wire_harmonics.hpp"
+#include "studies/design_search.hpp"
+
+namespace libcoil::detail {
+
+// Per wire option, at the ambient temperature (the winding's own, which the analysis takes, is not known
+// before the turns are): the closed form's fall per metre, the fit at the target frequency and at the band's
+// screen points, and d / delta at the top frequency.
+void Evaluator::prepare_fall() {
+    const double rho = q_.conductor.resistivity_at(q_.ambient), mu = q_.conductor.relative_permeability;
+    const bool fitted = !q_.shield && mu == 1;
+    if (q_.band && fitted) {
+        for (int i = 0; i < screen_points; ++i) band_points_.push_back(q_.band->low * std::pow(q_.band->ceiling / q_.band->low, i / (screen_points - 1.0)));
+    }
+    for (const WireOption& wo : q_.wires) {
+        const auto x_at = [&](double f) { return std::sqrt(2.0) * wo.wire.radius() / skin_depth(rho, f, mu); };
+        double fall = 0;
+        std::optional<InductanceFallFit> fit;
+        if (target_frequency_ > 0) {
+            const double x = x_at(target_frequency_), internal = skin_ratios(x).internal_inductance;
+            fall = -mu0 * mu / (8 * pi) * (1 - internal);
+            if (fitted) fit.emplace(x, internal);
+        }
+        screen_fall_per_length_.push_back(fall);
+        fall_fit_.push_back(fit);
+        top_d_over_delta_.push_back(top_frequency() > 0 ? wo.wire.bare_diameter / skin_depth(rho, top_frequency(), mu) : 0.0);
+        std::vector<InductanceFallFit> band;
+        for (const double f : band_points_) band.emplace_back(x_at(f), skin_ratios(x_at(f)).internal_inductance);
+        band_fall_fit_.push_back(std::move(band));
+    }
+}
+
+bool Evaluator::solver_takes(std::size_t wire, double turns, double pitch) const {
+    const double d = unlabelled_[wire].bare_diameter, n = std::max(1.0, std::floor(turns + 0.5));
+    const int m = harmonics_for(n > 1 ? pitch / d : 1e3, top_d_over_delta_[wire]);
+    return std::floor((n + 1) / 2) * (2 * m + 2) <= static_cast<double>(default_max_harmonic_unknowns);
+}
+
+double Evaluator::screen_fall(std::size_t wire, double mean, double turns, double pitch, std::optional<double> l_dc) const {
+    if (fixed_offset_) return *fixed_offset_;
+    if (const auto& fit = fall_fit_[wire]; fit && solver_takes(wire, turns, pitch)) {
+        const double d = unlabelled_[wire].bare_diameter;
+        // (A fall of half of L lies far outside what the sample held: the closed form then.)
+        if (const auto r = fit->ratio(pitch / d, mean / d, turns); r && *r < 0.5) return -*r * (l_dc ? *l_dc : q_.inductance / (1 - *r));
+    }
+    return screen_fall_per_length_[wire] * turns * pi * mean;
+}
+
+WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double temperature, double l_dc) const {
+    if (band_points_.empty() || !fall_fit_[wire] || !solver_takes(wire, s.turns(), s.pitch())) return {};
+    const double d = s.wire().bare_diameter;
+    const auto terms = fall_terms(s.pitch_to_wire(), s.mean_diameter() / d, s.turns());
+    if (!terms) return {};
+    // The closed forms' L(f) at the winding's temperature (losses.hpp's coil_at_frequencies): L_dc less the
+    // internal inductance the skin effect removes; the offset moves it onto L_dc (1 - the fitted ratio).
+    const double rho = q_.conductor.resistivity_at(temperature);
+    std::vector<double> f, ratio, offset;
+    for (std::size_t i = 0; i < band_points_.size(); ++i) {
+        const InductanceFallFit& fit = band_fall_fit_[wire][i];
+        if (!fit.in_range()) continue;
+        const double x = std::sqrt(2.0) * s.wire().radius() / skin_depth(rho, band_points_[i], 1.0);
+        const double closed = mu0 / (8 * pi) * s.helix_length() * (1 - skin_ratios(x).internal_inductance);
+        f.push_back(band_points_[i]);
+        ratio.push_back(1.0);
+        offset.push_back(closed - fit.ratio(*terms, s.mean_diameter() / d) * l_dc);
+    }
+    return f.empty() ? WireLossTable{} : WireLossTable(std::move(f), std::move(ratio), std::move(offset));
+}
+
+}  // namespace libcoil::detail
