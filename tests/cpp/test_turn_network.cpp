@@ -337,6 +337,12 @@ TEST(TurnNetwork, BuildSpreadAddsEachTolerancesShiftInQuadrature) {
     EXPECT_GT(spread, std::fabs(shift) * 0.02 / 0.05 * 0.99);  // at least the typical pitch's share
     EXPECT_LT(spread, 0.05);
     EXPECT_FALSE(largest.empty());
+    // With a threshold below the whole spread the sum stops at the first tolerance that crosses it: above the
+    // threshold, at most the whole; above the whole, the whole itself.
+    const double partial = srf_build_spread(s, {}, {}, typical, nullptr, nullptr, 0.5 * spread);
+    EXPECT_GT(partial, 0.5 * spread);
+    EXPECT_LE(partial, spread);
+    EXPECT_EQ(srf_build_spread(s, {}, {}, typical, nullptr, nullptr, 2 * spread), spread);
     typical.pitch = -1;
     EXPECT_THROW(srf_build_spread(s, {}, {}, typical), InputError);
 }

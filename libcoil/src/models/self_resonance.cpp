@@ -270,7 +270,7 @@ std::optional<NetworkResonance> network_resonance(const Solenoid& s, const Forme
 }
 
 double srf_build_spread(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings,
-                        const BuildTolerances& t, const ShieldSpec* shield, std::string* largest) {
+                        const BuildTolerances& t, const ShieldSpec* shield, std::string* largest, double stop_above) {
     require_non_negative("tolerances.form_diameter", t.form_diameter);
     require_non_negative("tolerances.pitch", t.pitch);
     require_non_negative("tolerances.wire_diameter", t.wire_diameter);
@@ -313,6 +313,7 @@ double srf_build_spread(const Solenoid& s, const FormerDielectric& former, const
             worst = std::fabs(shift);
             if (largest) *largest = st.name;
         }
+        if (std::sqrt(sum) > stop_above) break;
     }
     return finite_result("SRF build spread", std::sqrt(sum));
 }

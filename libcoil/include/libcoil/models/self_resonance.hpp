@@ -24,6 +24,8 @@
 //          low-frequency C is 0.39 .. 0.70 of Medhurst's table for l/D 0.4 .. 50.
 #pragma once
 
+#include <limits>
+
 #include <optional>
 #include <span>
 #include <string>
@@ -128,10 +130,13 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
 // The SRF's spread from the build (one standard deviation, relative): first order, each tolerance in turn
 // moved by one standard deviation (form diameter, pitch, bare wire diameter at a fixed form, turns) and the
 // turn network (the sheath helix over max_spread_network_turns) solved again, the shifts added in
-// quadrature. A shield where given. `largest` receives the largest contributor's name.
+// quadrature. A shield where given. `largest` receives the largest contributor's name. With `stop_above`, the
+// sum stops at the first tolerance that takes it above that (a caller that only asks whether the spread
+// exceeds it: the partial spread returned does, and the whole one would too).
 inline constexpr double max_spread_network_turns = 150;
 double srf_build_spread(const Solenoid& coil, const FormerDielectric& former, const Surroundings& surroundings,
-                        const BuildTolerances& tolerances, const ShieldSpec* shield = nullptr, std::string* largest = nullptr);
+                        const BuildTolerances& tolerances, const ShieldSpec* shield = nullptr, std::string* largest = nullptr,
+                        double stop_above = std::numeric_limits<double>::infinity());
 
 // `inductance` is the low-frequency inductance (inductance().recommended).
 // What the fast paths for searches solve to (relative): a search's figures are shown to four digits and
