@@ -37,15 +37,18 @@ Run:  PYTHONPATH=build/python /usr/bin/python3 tools/inductance_fall_fit.py > li
       (about five minutes on two cores)
       ... tools/inductance_fall_fit.py --sample SEED COUNT   (prints the rows of COUNT coils as JSON)
 """
-import itertools
 import json
 import math
 import multiprocessing
+import pathlib
 import random
 import sys
 
 import numpy as np
 from scipy import special
+
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+import polynomial_fit  # noqa: E402  (tools/, beside this script)
 
 import libcoil
 
@@ -129,18 +132,13 @@ def shapes(row):
     p = transverse_screening(x)
     return [(1 - internal) / diameter, p / diameter, p * p / diameter]
 
+
 def powers(count):
-    """The monomials of total degree <= DEGREE in `count` features, as exponent tuples (the header's order)."""
-    out = []
-    for k in range(DEGREE + 1):
-        for combo in itertools.combinations_with_replacement(range(count), k):
-            out.append(tuple(combo.count(f) for f in range(count)))
-    return out
+    return polynomial_fit.powers(count, DEGREE)
 
 
 def monomials(x, low, high):
-    scaled = [(2 * v - lo - hi) / (hi - lo) for v, lo, hi in zip(x, low, high)]
-    return [math.prod(s**e for s, e in zip(scaled, p)) for p in powers(len(x))]
+    return polynomial_fit.monomials(x, low, high, DEGREE)
 
 
 def estimate(row, low, high, coefficients):

@@ -51,15 +51,18 @@ Run:  PYTHONPATH=build/python /usr/bin/python3 tools/srf_screen_envelope.py > li
       (about six minutes on two cores)
       ... tools/srf_screen_envelope.py --sample SEED COUNT [former|mounted]   (prints the rows of COUNT coils as JSON)
 """
-import itertools
 import json
 import math
 import multiprocessing
+import pathlib
 import random
 import re
 import sys
 
 import numpy as np
+
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+import polynomial_fit  # noqa: E402  (tools/, beside this script)
 
 import libcoil
 
@@ -187,17 +190,11 @@ def features(row):
 
 
 def powers(count):
-    """The monomials of total degree <= DEGREE in `count` features, as exponent tuples (the header's order)."""
-    out = []
-    for k in range(DEGREE + 1):
-        for combo in itertools.combinations_with_replacement(range(count), k):
-            out.append(tuple(combo.count(f) for f in range(count)))
-    return out
+    return polynomial_fit.powers(count, DEGREE)
 
 
 def monomials(x, low, high):
-    scaled = [(2 * v - lo - hi) / (hi - lo) for v, lo, hi in zip(x, low, high)]
-    return [math.prod(s**e for s, e in zip(scaled, p)) for p in powers(len(x))]
+    return polynomial_fit.monomials(x, low, high, DEGREE)
 
 
 def envelope(rows):

@@ -15,6 +15,19 @@ def source_dir():
 
 
 @pytest.fixture(scope="session")
+def tool_script():
+    """A script of tools/ loaded as a module by its name, for its functions (its main() does not run)."""
+    import importlib.util
+
+    def load(name):
+        spec = importlib.util.spec_from_file_location(name, SOURCE_DIR / "tools" / f"{name}.py")
+        module = importlib.util.module_from_spec(spec)
+        spec.loader.exec_module(module)
+        return module
+    return load
+
+
+@pytest.fixture(scope="session")
 def run_coil():
     def run(*args, cwd=None):
         return subprocess.run([COIL, *map(str, args)], capture_output=True, text=True, cwd=cwd, timeout=120)

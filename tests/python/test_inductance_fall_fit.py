@@ -3,7 +3,6 @@ written by tools/inductance_fall_fit.py from 24 000 random coils): on coils the 
 fit stays as close to the wire-harmonic solver (the reference, the analysis's own model) as the header states for its
 held-out half, and far closer than the internal inductance alone, the screen's estimate before. (The C++ reading of
 the table against the script's: tests/cpp/test_design.cpp.)"""
-import importlib.util
 import os
 import pathlib
 import re
@@ -12,13 +11,6 @@ import numpy as np
 import pytest
 
 ROOT = pathlib.Path(os.environ.get("LIBCOIL_SOURCE_DIR", pathlib.Path(__file__).resolve().parents[2]))
-
-
-def generator():
-    spec = importlib.util.spec_from_file_location("inductance_fall_fit", ROOT / "tools" / "inductance_fall_fit.py")
-    module = importlib.util.module_from_spec(spec)
-    spec.loader.exec_module(module)
-    return module
 
 
 def table():
@@ -35,8 +27,8 @@ def table():
 
 
 @pytest.mark.parametrize("seed", [41, 43])
-def test_fit_holds_on_fresh_coils(seed):
-    g = generator()
+def test_fit_holds_on_fresh_coils(seed, tool_script):
+    g = tool_script("inductance_fall_fit")
     low, high, coefficients = table()
     rows = g.sample(seed, 300)
     err = g.errors(rows, low, high, coefficients)
