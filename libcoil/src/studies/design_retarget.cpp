@@ -70,7 +70,9 @@ bool Evaluator::retarget(DesignFigures& d) const {
             ratio = ac_ratio_by(loss_solver(s), s, q_.conductor, q_.ambient, *q_.current_frequency);
         }
         fresh = true;
-        const bool settled = e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-8 * q_.inductance &&
+        // Settled where the trim's offset is the fall to 1e-7 of L (the figures show four digits; the tests ask
+        // 1e-6): with the screen's fitted fall that is the third round, where 1e-8 took a fourth to confirm.
+        const bool settled = e.fixed_offset_ && std::fabs(*e.fixed_offset_ - fall) <= 1e-7 * q_.inductance &&
                              (!heated || std::fabs(*e.fixed_ac_ratio_ / *ratio - 1) <= 1e-10);
         if (settled) break;
         // The snapped turns back at a count an earlier round left: the trim sits where the turns flip, and the
