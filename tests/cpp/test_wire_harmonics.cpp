@@ -204,3 +204,22 @@ TEST(WireHarmonics, BadInputNamesTheField) {
     EXPECT_THROW(WireHarmonicSolver({{10e-3, 0.0}}, 0.5e-3, rho).solve(-1), InputError);
     EXPECT_THROW(harmonics_for(0, 1), InputError);
 }
+
+TEST(WireHarmonics, LossTableFromGivenPoints) {
+    // A correction found elsewhere (the design screen's fitted fall of L): interpolated in log f between its
+    // points, held beyond them (the rule of the solved table above); bad points rejected, naming the field.
+    const WireLossTable t({1e5, 1e7}, {1.0, 2.0}, {-1e-9, -3e-9});
+    EXPECT_DOUBLE_EQ(t.inductance_offset(1e6), -2e-9);  // halfway in log f
+    EXPECT_DOUBLE_EQ(t.resistance_ratio(1e6), 1.5);
+    EXPECT_DOUBLE_EQ(t.inductance_offset(1e3), -1e-9);
+    EXPECT_DOUBLE_EQ(t.inductance_offset(1e9), -3e-9);
+    EXPECT_THROW(WireLossTable({1e5, 1e7}, {1.0}, {0.0, 0.0}), InputError);
+    EXPECT_THROW(WireLossTable({1e7, 1e5}, {1.0, 1.0}, {0.0, 0.0}), InputError);
+    EXPECT_THROW(WireLossTable({1e5}, {0.0}, {0.0}), InputError);
+    try {
+        WireLossTable({1e5}, {1.0}, {NAN});
+        FAIL() << "a NaN offset was taken";
+    } catch (const InputError& e) {
+        EXPECT_NE(std::string(e.what()).find("inductance offset"), std::string::npos) << e.what();
+    }
+}

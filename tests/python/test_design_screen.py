@@ -14,18 +14,13 @@ import pytest
 ROOT = pathlib.Path(os.environ.get("LIBCOIL_SOURCE_DIR", pathlib.Path(__file__).resolve().parents[2]))
 
 
-@pytest.fixture
-def generator(tool_script):
-    return tool_script("srf_screen_envelope")
-
-
 def header(g):
     return g.read_header((ROOT / "libcoil" / "src" / "studies" / "srf_screen_envelope.hpp").read_text())
 
 
 @pytest.mark.parametrize("seed", [29, 31, 37])
-def test_bound_holds_on_fresh_coils(seed, generator):
-    g = generator
+def test_bound_holds_on_fresh_coils(seed, tool_script):
+    g = tool_script("srf_screen_envelope")
     h = header(g)
     rows = g.sample(seed, 400)
     worst = max(row[7] / g.bound(row, h) for row in rows)
@@ -36,8 +31,8 @@ def test_bound_holds_on_fresh_coils(seed, generator):
 
 
 @pytest.mark.parametrize("seed", [41, 43])
-def test_former_bound_holds_on_fresh_coils(seed, generator):
-    g = generator
+def test_former_bound_holds_on_fresh_coils(seed, tool_script):
+    g = tool_script("srf_screen_envelope")
     h = header(g)
     bounded = [(row[7], g.former_bound(row, h)) for row in g.sample(seed, 300, former=True)]
     bounded = [(r, b) for r, b in bounded if b is not None]
@@ -47,8 +42,8 @@ def test_former_bound_holds_on_fresh_coils(seed, generator):
 
 
 @pytest.mark.parametrize("seed", [47, 59])
-def test_mounted_bound_holds_on_fresh_coils(seed, generator):
-    g = generator
+def test_mounted_bound_holds_on_fresh_coils(seed, tool_script):
+    g = tool_script("srf_screen_envelope")
     h = header(g)
     bounded = [(row[7], g.mounted_bound(row, h)) for row in g.sample(seed, 300, mounted=True) if g.interior(row)]
     bounded = [(r, b) for r, b in bounded if b is not None]
@@ -58,12 +53,12 @@ def test_mounted_bound_holds_on_fresh_coils(seed, generator):
     assert max(r / b for r, b in bounded) <= 1.0
 
 
-def test_mounted_fit_is_tight_where_the_search_works(generator):
+def test_mounted_fit_is_tight_where_the_search_works(tool_script):
     # Close-wound coils of 8 turns or more, l / D 0.4 .. 2, on formers (the dense grid's designs are such): the
     # mounted bound sits about 4 % above the network at the median (1.040 on 5160 such fresh coils, seeds 7 and
     # 8), where the bare bound times the former's sat 9 ... 11 % above it on the dense grid's designs (their 110
     # drops).
-    g = generator
+    g = tool_script("srf_screen_envelope")
     h = header(g)
     rows = [row for row in g.sample(61, 1500, mounted=True) if 1.05 < row[0] < 2.2 and 0.4 < row[2] < 2 and row[4] >= 8]
     ratios = [b / row[7] for row in rows if (b := g.mounted_bound(row, h)) is not None]
@@ -71,22 +66,22 @@ def test_mounted_fit_is_tight_where_the_search_works(generator):
     assert statistics.median(ratios) < 1.05
 
 
-def test_fit_is_tight_where_the_search_works(generator):
+def test_fit_is_tight_where_the_search_works(tool_script):
     # Close-wound coils of 8 turns or more, l / D 0.5 .. 2 (the dense grid's designs): the fitted bound sits a
     # few per cent above the network (measured: 5.6 % at the median on 1242 such fresh coils of seeds 29 .. 53,
     # the bins' envelope alone 18 %), so that the screen lets through few designs the network then rejects.
-    g = generator
+    g = tool_script("srf_screen_envelope")
     h = header(g)
     rows = [row for row in g.sample(53, 3000) if 1.05 < row[0] < 1.6 and 0.5 < row[2] < 2 and row[4] >= 8]
     assert len(rows) > 60
     assert statistics.median(g.bound(row, h) / row[7] for row in rows) < 1.07
 
 
-def test_bins_follow_the_solenoids_spacing(generator):
+def test_bins_follow_the_solenoids_spacing(tool_script):
     # The generator bins by p / bare d, as the search does (Solenoid::pitch_to_wire), not by the insulated d.
     import random
 
-    g = generator
+    g = tool_script("srf_screen_envelope")
     rng = random.Random(3)
     while True:
         coil = g.draw(rng)

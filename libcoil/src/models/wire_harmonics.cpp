@@ -254,7 +254,6 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     const cd jw(0, omega);
     Eigen::MatrixXd S(Q, U);
     Eigen::VectorXd g(Q);
-    const Eigen::MatrixXcd Pc = P.cast<cd>();
     const Kernel& kern = kernel(cth, sth, kept, reps);
     // A shield's wall currents, driven by the turns' net currents (the harmonics' own fields reach the
     // wall as multipoles of order (wire radius / distance)^m and are left out).
@@ -271,7 +270,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
                 for (const auto& ring : currents) sum += ring.current * coaxial_mutual_inductance(r, ring.radius, zi + a * sth[q] - ring.z);
                 field(q) = sum / (2 * pi * r);
             }
-            out.segment(static_cast<Eigen::Index>(ri) * U, B) = -jw * (Pc * field);
+            out.segment(static_cast<Eigen::Index>(ri) * U, B) = -jw * (P.cast<cd>() * field);
         }
         return out;
     };

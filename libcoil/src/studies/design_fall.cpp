@@ -26,7 +26,7 @@ void Evaluator::prepare_fall() {
         std::optional<InductanceFallFit> fit;
         if (target_frequency_ > 0) {
             const double x = x_at(target_frequency_), internal = skin_ratios(x).internal_inductance;
-            fall = -mu0 * mu / (8 * pi) * (1 - internal);
+            fall = -dc_internal_inductance_per_length(mu) * (1 - internal);
             if (fitted) fit.emplace(x, internal);
         }
         screen_fall_per_length_.push_back(fall);
@@ -61,13 +61,12 @@ WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double
     if (!terms) return {};
     // The closed forms' L(f) at the winding's temperature (losses.hpp's coil_at_frequencies): L_dc less the
     // internal inductance the skin effect removes; the offset moves it onto L_dc (1 - the fitted ratio).
-    const double rho = q_.conductor.resistivity_at(temperature);
+    const double rho = q_.conductor.resistivity_at(temperature), l_int_dc = dc_internal_inductance_per_length() * s.helix_length();
     std::vector<double> f, ratio, offset;
     for (std::size_t i = 0; i < band_points_.size(); ++i) {
         const InductanceFallFit& fit = band_fall_fit_[wire][i];
         if (!fit.in_range()) continue;
-        const double x = std::sqrt(2.0) * s.wire().radius() / skin_depth(rho, band_points_[i], 1.0);
-        const double closed = mu0 / (8 * pi) * s.helix_length() * (1 - skin_ratios(x).internal_inductance);
+        const double closed = l_int_dc * (1 - wire_skin_ratios(s.wire().radius(), rho, band_points_[i]).internal_inductance);
         f.push_back(band_points_[i]);
         ratio.push_back(1.0);
         offset.push_back(closed - fit.ratio(*terms, s.mean_diameter() / d) * l_dc);
