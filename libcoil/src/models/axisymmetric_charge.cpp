@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <optional>
 #include <string>
 
 #include <Eigen/Dense>
@@ -227,6 +228,67 @@ void system_row(const Panel& t, const Panel* s, Eigen::Index n, Eigen::Index own
     }
 }
 
+// The block of the periodic row's system for cells d apart: the cell's panels (rows) against its own moved
+// by d periods (columns).
+void row_block(const std::vector<Panel>& one, int d, double period, Matrix& block) {
+    const auto p = static_cast<Eigen::Index>(one.size());
+    std::vector<Panel> moved(one.size());
+    for (std::size_t j = 0; j < one.size(); ++j) moved[j] = shifted(one[j], d * period);
+    for (Eigen::Index i = 0; i < p; ++i) {
+        system_row(one[static_cast<std::size_t>(i)], moved.data(), p, d == 0 ? i : p, std::nullopt, [&](Eigen::Index j) -> double& { return block(i, j); });
+    }
+}
+
+// The periodic row's system solved where the cell mirrors about its middle (`image`: each panel's mirror
+// image): the row then mirrors about its own, cell k and panel i onto cell n - 1 - k and panel image[i],
+// and the system commutes with that exchange. Split into the parts even and odd under it, it is two systems
+// of half the size (an eighth of the factoring each), and the blocks for negative offsets are the positive
+// ones' mirror images (half the integration): B_-d(i, j) = B_d(image[i], image[j]).
+Matrix solve_mirrored_row(const std::vector<Panel>& one, const std::vector<std::size_t>& image, int cells, double period, const Matrix& rhs) {
+    const auto p = static_cast<Eigen::Index>(one.size()), m = p * cells, h = m / 2;
+    std::vector<Matrix> blocks(static_cast<std::size_t>(cells), Matrix(p, p));
+    for (int d = 0; d < cells; ++d) row_block(one, d, period, blocks[static_cast<std::size_t>(d)]);
+    const auto cell_of = [&](Eigen::Index u) { return u / p; };
+    const auto panel_of = [&](Eigen::Index u) { return static_cast<std::size_t>(u % p); };
+    const auto mirror = [&](Eigen::Index u) { return (cells - 1 - cell_of(u)) * p + static_cast<Eigen::Index>(image[panel_of(u)]); };
+    const auto entry = [&](Eigen::Index u, Eigen::Index v) {
+        const Eigen::Index d = cell_of(v) - cell_of(u);
+        const Matrix& b = blocks[static_cast<std::size_t>(std::abs(d))];
+        return d >= 0 ? b(static_cast<Eigen::Index>(panel_of(u)), static_cast<Eigen::Index>(panel_of(v)))
+                      : b(static_cast<Eigen::Index>(image[panel_of(u)]), static_cast<Eigen::Index>(image[panel_of(v)]));
+    };
+    // One unknown of each mirror pair (no panel is its own image, so they pair off).
+    std::vector<Eigen::Index> kept;
+    for (Eigen::Index u = 0; u < m; ++u) {
+        if (u < mirror(u)) kept.push_back(u);
+    }
+    std::vector<double> once_even, once_odd;
+    struct Even;
+    struct Odd;
+    Eigen::Map<Matrix> even = detail::kept_matrix<double, Even>(h, once_even), odd = detail::kept_matrix<double, Odd>(h, once_odd);
+    Matrix b_even(h, rhs.cols()), b_odd(h, rhs.cols());
+    for (Eigen::Index a = 0; a < h; ++a) {
+        const Eigen::Index u = kept[static_cast<std::size_t>(a)];
+        for (Eigen::Index b = 0; b < h; ++b) {
+            const Eigen::Index v = kept[static_cast<std::size_t>(b)];
+            const double direct = entry(u, v), across = entry(u, mirror(v));
+            even(a, b) = direct + across;
+            odd(a, b) = direct - across;
+        }
+        b_even.row(a) = rhs.row(u) + rhs.row(mirror(u));
+        b_odd.row(a) = rhs.row(u) - rhs.row(mirror(u));
+    }
+    const Matrix s = Eigen::PartialPivLU<Eigen::Ref<Matrix>>(even).solve(b_even);
+    const Matrix t = Eigen::PartialPivLU<Eigen::Ref<Matrix>>(odd).solve(b_odd);
+    Matrix sigma(m, rhs.cols());
+    for (Eigen::Index a = 0; a < h; ++a) {
+        const Eigen::Index u = kept[static_cast<std::size_t>(a)];
+        sigma.row(u) = 0.5 * (s.row(a) + t.row(a));
+        sigma.row(mirror(u)) = 0.5 * (s.row(a) - t.row(a));
+    }
+    return sigma;
+}
+
 Matrix solve_system(const std::vector<Panel>& panels, const std::optional<double>& plane, const Matrix& rhs) {
     const auto m = static_cast<Eigen::Index>(panels.size());
     return detail::solve_in_place(m, rhs, [&](Eigen::Map<Matrix>& a) {
@@ -358,16 +420,12 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
             rhs(static_cast<Eigen::Index>(panels.size()) - 1, k) = 4 * pi * eps0;  // 1 V on cell k
         }
     }
-    // Cell k's row against cell k + d's column: the cell's panels against its own moved by d periods.
-    const Matrix sigma = detail::solve_in_place(m, rhs, [&](Eigen::Map<Matrix>& a) {
+    const std::optional<std::vector<std::size_t>> image = detail::mirror_images(one);
+    const Matrix sigma = image ? solve_mirrored_row(one, *image, cells, period, rhs) : detail::solve_in_place(m, rhs, [&](Eigen::Map<Matrix>& a) {
+        // Cell k's row against cell k + d's column: the cell's panels against its own moved by d periods.
         Matrix block(p, p);
-        std::vector<Panel> moved(one.size());
         for (int d = 1 - cells; d < cells; ++d) {
-            for (std::size_t j = 0; j < one.size(); ++j) moved[j] = shifted(one[j], d * period);
-            for (Eigen::Index i = 0; i < p; ++i) {
-                system_row(one[static_cast<std::size_t>(i)], moved.data(), p, d == 0 ? i : p, std::nullopt,
-                           [&](Eigen::Index j) -> double& { return block(i, j); });
-            }
+            row_block(one, d, period, block);
             for (int k = std::max(0, -d); k < cells && k + d < cells; ++k) a.block(k * p, (k + d) * p, p, p) = block;
         }
     });

@@ -24,20 +24,40 @@ Outline circle_outline(double cr, double cz, double radius, int sides, const std
     require_positive("radius", radius);
     if (sides < 6) throw InputError("sides", std::to_string(sides) + "; expected 6 or more");
     if (!(cr > radius)) throw InputError("centre_rho", "the circle must clear the axis");
+    // Where the points to refine towards mirror about the circle's middle (a turn between two neighbours),
+    // the lower half mirrors the upper one, vertex for vertex: the panels then mirror too, and a row of such
+    // cells is solved as two systems of half the size (periodic_group_capacitance). Else the march goes round.
+    const auto mirrored = [&](const std::array<double, 3>& c) {
+        const double tol = 1e-12 * (std::fabs(c[0]) + std::fabs(c[1] - cz) + c[2]);
+        return std::any_of(near.begin(), near.end(), [&](const std::array<double, 3>& m) {
+            return std::fabs(m[0] - c[0]) <= tol && std::fabs((m[1] - cz) + (c[1] - cz)) <= tol && std::fabs(m[2] - c[2]) <= tol;
+        });
+    };
+    const bool symmetric = std::all_of(near.begin(), near.end(), mirrored);
+    const double end = symmetric ? pi : 2 * pi;
     const double coarse = 2 * pi / sides, fine = coarse / 64;
     std::vector<double> angles{0};
-    while (angles.back() < 2 * pi) {
+    while (angles.back() < end) {
         const double t = angles.back();
         const double x = cr + radius * std::cos(t), y = cz + radius * std::sin(t);
         double gap = std::numeric_limits<double>::infinity();
         for (const auto& c : near) gap = std::min(gap, std::max(0.0, std::hypot(x - c[0], y - c[1]) - c[2]));
         angles.push_back(t + std::clamp(0.5 * gap / radius, fine, coarse));
     }
-    const double scale = 2 * pi / angles.back();
+    const double scale = end / angles.back();
     Outline o;
     for (std::size_t i = 0; i + 1 < angles.size(); ++i) {
         const double t = angles[i] * scale;
         o.push_back({cr + radius * std::cos(t), cz + radius * std::sin(t)});
+    }
+    if (symmetric) {
+        // The far side on the mirror line exactly, then the upper half's vertices mirrored, in reverse.
+        const std::size_t upper = o.size();
+        o.push_back({cr - radius, cz});
+        for (std::size_t i = upper - 1; i >= 1; --i) {
+            const double t = angles[i] * scale;
+            o.push_back({cr + radius * std::cos(t), cz - radius * std::sin(t)});
+        }
     }
     return o;
 }

@@ -103,6 +103,29 @@ void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<
 
 }  // namespace
 
+std::optional<std::vector<std::size_t>> mirror_images(const std::vector<Panel>& panels) {
+    double extent = 0;
+    for (const Panel& q : panels) extent = std::max({extent, std::fabs(q.rc), std::fabs(q.zc), q.length});
+    const double tol = 1e-9 * extent;
+    const auto images = [&](const Panel& m, const Panel& q) {
+        return m.arc == q.arc && m.dielectric == q.dielectric && m.group == q.group && m.lambda == q.lambda && m.charge_scale == q.charge_scale &&
+               std::fabs(m.rc - q.rc) <= tol && std::fabs(m.zc + q.zc) <= tol && std::fabs(m.length - q.length) <= tol &&
+               std::fabs(m.nr - q.nr) <= 1e-9 && std::fabs(m.nz + q.nz) <= 1e-9 && std::fabs(m.radius - q.radius) <= tol &&
+               std::fabs(m.cr - q.cr) <= tol && std::fabs(m.cz + q.cz) <= tol;
+    };
+    std::vector<std::size_t> image(panels.size(), panels.size());
+    for (std::size_t i = 0; i < panels.size(); ++i) {
+        for (std::size_t j = 0; j < panels.size() && image[i] == panels.size(); ++j) {
+            if (j != i && images(panels[j], panels[i])) image[i] = j;
+        }
+        if (image[i] == panels.size()) return std::nullopt;
+    }
+    for (std::size_t i = 0; i < panels.size(); ++i) {
+        if (image[image[i]] != i) return std::nullopt;
+    }
+    return image;
+}
+
 std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeRing>& rings) {
     require_positive("min_panel", scene.min_panel);
     require_positive("max_panel", scene.max_panel);

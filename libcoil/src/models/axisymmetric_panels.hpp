@@ -5,6 +5,8 @@
 
 #include <array>
 #include <cmath>
+#include <cstddef>
+#include <optional>
 #include <vector>
 
 #include "libcoil/models/axisymmetric_charge.hpp"
@@ -47,6 +49,11 @@ inline constexpr double far_w[] = {0.3478548451374538, 0.6521451548625461, 0.652
 // The panels of a scene, its dielectrics' faces first, then its conductors'; grading towards `rings` and the
 // conductors' wire circles. InputError beyond 20000 panels.
 std::vector<Panel> panels_of(const ChargeScene& scene, const std::vector<ChargeRing>& rings);
+
+// Each panel's mirror image in the plane z = 0 (its index), where every panel has one other than itself and
+// the images pair off (a cell of bodies symmetric about z = 0, their outlines' vertices mirror images:
+// circle_outline's symmetric case); else none. Matched to 1e-9 of the panels' extent.
+std::optional<std::vector<std::size_t>> mirror_images(const std::vector<Panel>& panels);
 
 // The panel moved by dz along the axis.
 inline Panel shifted(Panel p, double dz) {

@@ -96,12 +96,15 @@ std::vector<double> group_capacitance(const ChargeScene& scene, int groups, int*
 // The same for a row of `cells` equal cells in free space: the cell's bodies (its conductors all of group
 // 0) repeated `period` apart along the axis, cell k's conductors group k. A block of the system depends only
 // on the offset between its two cells, so 2 cells - 1 blocks are integrated instead of cells^2 (the turn
-// network's near-field section: 13 of 49).
+// network's near-field section: 13 of 49). Where the cell's panels mirror about z = 0 (circles refined
+// towards neighbours on both sides), the row mirrors too: `cells` blocks, and the system solved as its
+// mirror-even and mirror-odd halves, two systems of half the size (a quarter of the factoring).
 std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cells, double period, int* panels = nullptr);
 
 // Outlines for the common bodies, counter-clockwise. A tube from z0 to z1 between the radii (inner 0: a
 // solid rod), and a circle (a wire's cross-section) of `sides` straight sides, finer where `refine_near`
-// points (other wires' centres with their radii) come close.
+// points (other wires' centres with their radii) come close: from the outermost point round, and where the
+// points mirror about the circle's middle (or there are none), the lower half the upper half's mirror image.
 Outline tube_outline(double inner_radius, double outer_radius, double z0, double z1);
 Outline circle_outline(double centre_rho, double centre_z, double radius, int sides,
                        const std::vector<std::array<double, 3>>& refine_near = {});
