@@ -296,6 +296,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
             // the turn network confirms is trimmed to meet it by the wire-harmonic solver and confirmed again.
             c.miss = ev.confirm(c.design, false);
             if (!c.miss) c.miss = ev.retarget(c.design) ? ev.confirm(c.design, true) : BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
+            if (!c.miss) ev.reference_losses(c.design);
         } catch (const std::exception&) {
             c.miss = BandMiss{"model_domain", 10, 0, 0};
         }

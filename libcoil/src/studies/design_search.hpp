@@ -145,6 +145,8 @@ public:
     // frequency meets the target; its figures recomputed. False if no pitch of its candidate does.
     bool retarget(DesignFigures& d) const;
     double inductance_at_target(const DesignFigures& d) const;
+    // R and Q at the reference frequency by the analysis's loss model, for a design confirmed after its retarget.
+    void reference_losses(DesignFigures& d) const;
     double top_frequency() const;
     LossSolver loss_solver(const Solenoid& s) const;
     // The fixture criterion on a candidate's impedance (design_fixture.cpp): the first port's worst deviation
