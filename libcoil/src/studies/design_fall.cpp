@@ -44,14 +44,14 @@ bool Evaluator::solver_takes(std::size_t wire, double turns, double pitch) const
     return std::floor((n + 1) / 2) * (2 * m + 2) <= static_cast<double>(default_max_harmonic_unknowns);
 }
 
-double Evaluator::screen_fall(std::size_t wire, double mean, double turns, double pitch, std::optional<double> l_dc) const {
-    if (fixed_offset_) return *fixed_offset_;
+FallEstimate Evaluator::screen_fall_estimate(std::size_t wire, double mean, double turns, double pitch) const {
+    if (fixed_offset_) return {*fixed_offset_, 0};
     if (const auto& fit = fall_fit_[wire]; fit && solver_takes(wire, turns, pitch)) {
         const double d = unlabelled_[wire].bare_diameter;
         // (A fall of half of L lies far outside what the sample held: the closed form then.)
-        if (const auto r = fit->ratio(pitch / d, mean / d, turns); r && *r < 0.5) return -*r * (l_dc ? *l_dc : q_.inductance / (1 - *r));
+        if (const auto r = fit->ratio(pitch / d, mean / d, turns); r && *r < 0.5) return {0, *r};
     }
-    return screen_fall_per_length_[wire] * turns * pi * mean;
+    return {screen_fall_per_length_[wire] * turns * pi * mean, 0};
 }
 
 WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double temperature, double l_dc) const {

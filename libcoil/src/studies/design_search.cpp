@@ -119,7 +119,8 @@ void Evaluator::check(const Candidate& c, Tally& t) const {
     const Solenoid s(Solenoid::Params{g.mean, g.n, g.p, unlabelled_[c.wire], q_.lead_length});
     DesignFigures d = figures(c, g, s);
     if (q_.shield || target_frequency_ > 0) {  // the (shielded) L at the target frequency must meet the target
-        d.inductance_at_target = d.inductance + screen_fall(c.wire, g.mean, g.n, g.p, g.bare_inductance);
+        const FallEstimate fall = g.fall ? *g.fall : screen_fall_estimate(c.wire, g.mean, g.n, g.p);
+        d.inductance_at_target = d.inductance + fall.at(g.bare_inductance, q_.inductance);
         const double miss = d.inductance_at_target / q_.inductance - 1;
         if (std::fabs(miss) > q_.tolerance) {
             t.reject(q_.shield ? Reason::shield : Reason::inductance_out_of_reach, 1 + std::fabs(miss), [&] {
@@ -201,7 +202,15 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
     const auto shield_change = [&](double turns, double pitch) { return this->shield_change(mean, c.wire, turns, pitch); };
     // L's fall at the target frequency (negative): the solver's for a design being retargeted, else the
     // screen's estimate.
-    const auto fall = [&](double turns, double pitch) { return screen_fall(c.wire, mean, turns, pitch, std::nullopt); };
+    // The last estimate and where, which the check after the solve takes again where it is (n, p).
+    FallEstimate fall_at_last;
+    double fall_n = -1, fall_p = -1;
+    const auto fall = [&](double turns, double pitch) {
+        fall_at_last = screen_fall_estimate(c.wire, mean, turns, pitch);
+        fall_n = turns;
+        fall_p = pitch;
+        return fall_at_last.at(std::nullopt, q_.inductance);
+    };
     const auto aim = [&](double turns, double pitch) { return q_.inductance - shield_change(turns, pitch) - fall(turns, pitch); };
     double target = q_.inductance;
     double n = 0, p = c.ratio * d_ins, n_solved = 0;
@@ -346,6 +355,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
     g.p_grid = p_grid;
     g.bare_inductance = at(n, p);
     g.shielded_change = q_.shield ? shield_change(n, p) : 0.0;
+    if (fall_n == n && fall_p == p) g.fall = fall_at_last;
     return true;
 }
 

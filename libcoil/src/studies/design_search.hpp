@@ -114,12 +114,21 @@ struct Point {
     RecommendedInductance l;
 };
 
+// The screen's fall of L from DC to the target frequency at one geometry (Evaluator::screen_fall), as a
+// function of L_dc: `constant` (H; the closed form's, or the retarget's offset) less `ratio` times L_dc (the fit's).
+struct FallEstimate {
+    double constant = 0, ratio = 0;
+    // H (negative) for L_dc `l_dc`; without it, for the L_dc that meets `target` with this fall.
+    double at(std::optional<double> l_dc, double target) const { return constant - ratio * (l_dc ? *l_dc : target / (1 - ratio)); }
+};
+
 // What the geometry steps settle for a candidate.
 struct Geometry {
     double d_ins = 0, mean = 0, outer = 0, room = 0;  // m; room: for N p
     double n = 0, p = 0, n_solved = 0, p_grid = 0;    // the turns and pitch found, before snapping and trim
     double bare_inductance = 0;                        // H, unshielded, at (n, p)
     double shielded_change = 0;                        // H, the shield's high-frequency change at (n, p)
+    std::optional<FallEstimate> fall;                  // the screen's fall at (n, p), where the solve took it there
 };
 
 class Evaluator {
@@ -169,7 +178,10 @@ private:
     // fitted fall (inductance_fall_screen.hpp) where the analysis takes the wire-harmonic solver and the fit
     // holds, else the closed form's per metre of wire. The fit gives the fall over L_dc: it takes `l_dc` where
     // given, else (the turns being solved for) the L_dc that meets the target with that fall.
-    double screen_fall(std::size_t wire, double mean, double turns, double pitch, std::optional<double> l_dc) const;
+    double screen_fall(std::size_t wire, double mean, double turns, double pitch, std::optional<double> l_dc) const {
+        return screen_fall_estimate(wire, mean, turns, pitch).at(l_dc, q_.inductance);
+    }
+    FallEstimate screen_fall_estimate(std::size_t wire, double mean, double turns, double pitch) const;
     // The screen's impedance of a candidate of L_dc `l_dc` with the fitted fall of L at the band's screen points (the closed
     // forms' L(f) moved onto it; R as the closed forms have it), where screen_fall takes the fit; else none.
     WireLossTable fitted_wire(std::size_t wire, const Solenoid& s, double temperature, double l_dc) const;
