@@ -216,6 +216,7 @@ TEST(AxisymmetricCharge, CircleOutlineMirrorsWhereItsNeighboursDo) {
             EXPECT_LT(shortest, 2 * pi / 16 / 3);  // refined towards the neighbours (half the gap, 0.1 r, there)
         }
     }
+    EXPECT_EQ(circle_outline(a, 0, r, 7).size(), 7u);  // odd sides: as many as asked, not mirrored
     const Outline one = circle_outline(a, 0, r, 16, {{a, pitch, r}});
     bool mirrors = one.size() % 2 == 0;
     for (std::size_t i = 1; mirrors && i < one.size() / 2; ++i) mirrors = std::fabs(one[one.size() - i][1] + one[i][1]) < 1e-9 * r;

@@ -24,8 +24,8 @@ Outline circle_outline(double cr, double cz, double radius, int sides, const std
     require_positive("radius", radius);
     if (sides < 6) throw InputError("sides", std::to_string(sides) + "; expected 6 or more");
     if (!(cr > radius)) throw InputError("centre_rho", "the circle must clear the axis");
-    // Where the points to refine towards mirror about the circle's middle (a turn between two neighbours),
-    // the lower half mirrors the upper one, vertex for vertex: the panels then mirror too, and a row of such
+    // Where the points to refine towards mirror about the circle's middle (a turn between two neighbours) and
+    // the sides are even, the lower half mirrors the upper one, vertex for vertex: the panels then mirror too, and a row of such
     // cells is solved as two systems of half the size (periodic_group_capacitance). Else the march goes round.
     const auto mirrored = [&](const std::array<double, 3>& c) {
         const double tol = 1e-12 * (std::fabs(c[0]) + std::fabs(c[1] - cz) + c[2]);
@@ -33,7 +33,7 @@ Outline circle_outline(double cr, double cz, double radius, int sides, const std
             return std::fabs(m[0] - c[0]) <= tol && std::fabs((m[1] - cz) + (c[1] - cz)) <= tol && std::fabs(m[2] - c[2]) <= tol;
         });
     };
-    const bool symmetric = std::all_of(near.begin(), near.end(), mirrored);
+    const bool symmetric = sides % 2 == 0 && std::all_of(near.begin(), near.end(), mirrored);  // (odd: as many sides as asked)
     const double end = symmetric ? pi : 2 * pi;
     const double coarse = 2 * pi / sides, fine = coarse / 64;
     std::vector<double> angles{0};

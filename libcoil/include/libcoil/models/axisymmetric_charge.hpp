@@ -104,7 +104,8 @@ std::vector<double> periodic_group_capacitance(const ChargeScene& cell, int cell
 // Outlines for the common bodies, counter-clockwise. A tube from z0 to z1 between the radii (inner 0: a
 // solid rod), and a circle (a wire's cross-section) of `sides` straight sides, finer where `refine_near`
 // points (other wires' centres with their radii) come close: from the outermost point round, and where the
-// points mirror about the circle's middle (or there are none), the lower half the upper half's mirror image.
+// points mirror about the circle's middle (or there are none) and `sides` is even, the lower half the upper
+// half's mirror image.
 Outline tube_outline(double inner_radius, double outer_radius, double z0, double z1);
 Outline circle_outline(double centre_rho, double centre_z, double radius, int sides,
                        const std::vector<std::array<double, 3>>& refine_near = {});
