@@ -31,6 +31,21 @@ def test_bound_holds_on_fresh_coils(seed, tool_script):
     assert worst <= 1.0
 
 
+@pytest.mark.parametrize("spacing, coat, diameter, turns, mounting", [
+    (1.1010498674313105, 0.044549748516396925, 8.607687169218856, 4.5, "grounded-end"),  # 1.034 of that bound
+    (1.331101743420991, 0.0061805098984634025, 172.39318008150804, 4.0, "floating"),     # 1.001
+])
+def test_bound_holds_at_the_corners_a_whole_domain_fit_missed(spacing, coat, diameter, turns, mounting, tool_script):
+    # Two fresh coils of the 16 000 above (seeds 29 and 31), at the domain's corners (a gap of 1.1 %; l / D
+    # 0.03), where the bare fit fitted on the whole domain sat below the network. The fit now keeps to the
+    # interior and these take the envelope. The ratio is scale-free: the coils drawn again at d = 1 mm.
+    g = tool_script("srf_screen_envelope")
+    d = 1e-3
+    row = g.ratios((d, coat * d, diameter * d, spacing * d, turns, mounting))
+    assert not g.interior(row)
+    assert row[7] <= g.bound(row, header(g))
+
+
 @pytest.mark.parametrize("seed", [41, 43])
 def test_former_bound_holds_on_fresh_coils(seed, tool_script):
     g = tool_script("srf_screen_envelope")
