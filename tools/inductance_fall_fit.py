@@ -31,10 +31,10 @@ analysis's loss model is the solver; elsewhere it keeps the internal inductance'
 confirmation trims each kept design with the solver itself: the fit only aims the screen.
 
 The fit is half the sample, the check the other half; the header states both halves' errors, and
-tests/python/test_design_screen.py checks them on fresh coils (the coefficients current with the solver).
+tests/python/test_inductance_fall_fit.py checks them on fresh coils (the coefficients current with the solver).
 
 Run:  PYTHONPATH=build/python /usr/bin/python3 tools/inductance_fall_fit.py > libcoil/src/studies/inductance_fall_fit.hpp
-      (about five minutes on two cores)
+      (about a minute on two cores)
       ... tools/inductance_fall_fit.py --sample SEED COUNT   (prints the rows of COUNT coils as JSON)
 """
 import json
@@ -52,7 +52,7 @@ import polynomial_fit  # noqa: E402  (tools/, beside this script)
 
 import libcoil
 
-MU0 = 4e-7 * math.pi
+MU0 = libcoil.mu0
 RHO = 1.7241e-8  # ohm m; any value does: the fall depends on x, not on the resistivity itself
 D_WIRE = 1e-3
 DEGREE = 4

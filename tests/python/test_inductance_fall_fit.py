@@ -40,4 +40,3 @@ def test_fit_holds_on_fresh_coils(seed, tool_script):
     assert np.percentile(err, 95) < 2e-3
     assert err.max() < 1.5e-2
     assert np.median(before) > 20 * np.median(err)
-

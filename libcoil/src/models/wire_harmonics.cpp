@@ -54,9 +54,12 @@ std::size_t wire_harmonic_unknowns(const Solenoid& coil, double resistivity, dou
     require_positive("resistivity", resistivity);
     require_non_negative("frequency", frequency);
     const double d = coil.wire().bare_diameter;
-    const double dd = frequency > 0 ? d / skin_depth(resistivity, frequency) : 0.0;
-    const long n = std::max(1L, std::lround(coil.turns()));
-    const int m = harmonics_for(n > 1 ? coil.pitch_to_wire() : 1e3, dd);
+    return harmonic_unknowns_for(coil.turns(), coil.pitch_to_wire(), frequency > 0 ? d / skin_depth(resistivity, frequency) : 0.0);
+}
+
+std::size_t harmonic_unknowns_for(double turns, double pitch_to_wire, double d_over_delta) {
+    const long n = std::max(1L, std::lround(turns));
+    const int m = harmonics_for(n > 1 ? pitch_to_wire : 1e3, d_over_delta);
     return static_cast<std::size_t>((n + 1) / 2) * static_cast<std::size_t>(2 * m + 2);
 }
 

@@ -1,4 +1,4 @@
-// The design screen's fall of L from DC to a frequency (design_search.hpp's Evaluator::screen_fall,
+// The design screen's fall of L from DC to a frequency (design_search.hpp's Evaluator::screen_fall_estimate,
 // fitted_wire): the fit of the wire-harmonic solver's (inductance_fall_screen.hpp) where the analysis takes
 // that solver, else the closed form's internal inductance.
 #include <algorithm>
@@ -39,9 +39,7 @@ void Evaluator::prepare_fall() {
 }
 
 bool Evaluator::solver_takes(std::size_t wire, double turns, double pitch) const {
-    const double d = unlabelled_[wire].bare_diameter, n = std::max(1.0, std::floor(turns + 0.5));
-    const int m = harmonics_for(n > 1 ? pitch / d : 1e3, top_d_over_delta_[wire]);
-    return std::floor((n + 1) / 2) * (2 * m + 2) <= static_cast<double>(default_max_harmonic_unknowns);
+    return harmonic_unknowns_for(turns, pitch / unlabelled_[wire].bare_diameter, top_d_over_delta_[wire]) <= default_max_harmonic_unknowns;
 }
 
 FallEstimate Evaluator::screen_fall_estimate(std::size_t wire, double mean, double turns, double pitch) const {

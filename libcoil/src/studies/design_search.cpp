@@ -438,6 +438,7 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
     // The impedance (and its proximity field sum, which the loss below reuses) only where a criterion needs it.
     const bool band_z = q_.band && (q_.band->max_deviation || q_.band->min_impedance);
     if (!miss && (band_z || fixture_)) {
+        const WireLossTable wire = fitted_wire(c.wire, s, d.temperature, g.bare_inductance);  // L(f) with the fitted fall
         if (band_z) {
             // The band's |Z| as confirm() will judge it, with the line resonating at the turn network's SRF,
             // here at the most that can be: |Z|'s rise towards resonance only grows as the SRF falls, so a
@@ -452,12 +453,12 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
                 judged.frequency_low = network.low;
                 judged.frequency_high = network.high;
             }
-            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, judged, shield, fitted_wire(c.wire, s, d.temperature, g.bare_inductance));
+            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, judged, shield, wire);
             field = z.mean_square_field();
             miss = libcoil::screen_band(*q_.band, z, screen_points);
         }
         if (!miss && fixture_) {
-            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield), fitted_wire(c.wire, s, d.temperature, g.bare_inductance));
+            const CoilImpedance z(s, q_.conductor, d.temperature, g.bare_inductance, sr, std::move(shield), wire);
             field = z.mean_square_field();
             miss = screen_fixture(z);
         }

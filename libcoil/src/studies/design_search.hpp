@@ -114,7 +114,7 @@ struct Point {
     RecommendedInductance l;
 };
 
-// The screen's fall of L from DC to the target frequency at one geometry (Evaluator::screen_fall), as a
+// The screen's fall of L from DC to the target frequency at one geometry (Evaluator::screen_fall_estimate), as a
 // function of L_dc: `constant` (H; the closed form's, or the retarget's offset) less `ratio` times L_dc (the fit's).
 struct FallEstimate {
     double constant = 0, ratio = 0;
@@ -176,14 +176,10 @@ private:
     // L at the target frequency less L at DC (H, negative) as the screen estimates it for `turns` of wire
     // option `wire` at `pitch` on the mean diameter `mean`: retarget()'s offset where it set one, else the
     // fitted fall (inductance_fall_screen.hpp) where the analysis takes the wire-harmonic solver and the fit
-    // holds, else the closed form's per metre of wire. The fit gives the fall over L_dc: it takes `l_dc` where
-    // given, else (the turns being solved for) the L_dc that meets the target with that fall.
-    double screen_fall(std::size_t wire, double mean, double turns, double pitch, std::optional<double> l_dc) const {
-        return screen_fall_estimate(wire, mean, turns, pitch).at(l_dc, q_.inductance);
-    }
+    // holds, else the closed form's per metre of wire; as a function of L_dc (FallEstimate).
     FallEstimate screen_fall_estimate(std::size_t wire, double mean, double turns, double pitch) const;
     // The screen's impedance of a candidate of L_dc `l_dc` with the fitted fall of L at the band's screen points (the closed
-    // forms' L(f) moved onto it; R as the closed forms have it), where screen_fall takes the fit; else none.
+    // forms' L(f) moved onto it; R as the closed forms have it), where screen_fall_estimate takes the fit; else none.
     WireLossTable fitted_wire(std::size_t wire, const Solenoid& s, double temperature, double l_dc) const;
     // Whether the analysis takes the wire-harmonic solver for `turns` of wire option `wire` at `pitch` (losses.hpp's
     // default_loss_solver): at most default_max_harmonic_unknowns at the top frequency (D / d is the fit's).
@@ -197,7 +193,7 @@ private:
     std::vector<Wire> unlabelled_;
     double ceiling_ = 0, reference_ = 0, limit_ = 0, fewest_turns_ = 1;
     double target_frequency_ = 0;
-    // H: L(target frequency) - L(DC) that the low-frequency models' target makes up (screen_fall). Per wire
+    // H: L(target frequency) - L(DC) that the low-frequency models' target makes up (screen_fall_estimate). Per wire
     // option: the closed form's per metre of wire (the internal inductance's change), the fit of the solver's
     // (where no shield is set and the wire is non-magnetic), and d / delta at the analysis's top frequency,
     // which with the turns decides whether the analysis takes the solver.

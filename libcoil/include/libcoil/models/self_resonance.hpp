@@ -25,7 +25,6 @@
 #pragma once
 
 #include <limits>
-
 #include <optional>
 #include <span>
 #include <string>

@@ -51,6 +51,8 @@ int harmonics_for(double pitch_to_wire, double d_over_delta);
 // The unknowns the solver takes for `coil` at `frequency` (its cost grows as their cube: 576 take 0.15 s a
 // frequency on one core, 1800 take 2.7 s).
 std::size_t wire_harmonic_unknowns(const Solenoid& coil, double resistivity, double frequency);
+// The same for `turns` (rounded to the whole rings the solver takes) at `pitch_to_wire` and `d_over_delta`.
+std::size_t harmonic_unknowns_for(double turns, double pitch_to_wire, double d_over_delta);
 
 // Where libcoil takes the solver by default: non-magnetic wire, a mean diameter of at least
 // min_harmonic_diameter_ratio wire diameters, and at most `max_unknowns` at the highest frequency asked for
