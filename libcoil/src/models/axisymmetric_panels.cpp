@@ -91,7 +91,7 @@ void add_outline(std::vector<Panel>& out, const Outline& o, const std::optional<
                 p.gauss_r[g] = x[0];
                 p.gauss_z[g] = x[1];
             }
-            for (std::size_t g = 0; g < 4; ++g) {
+            for (std::size_t g = 0; g < p.far_r.size(); ++g) {
                 const auto x = p.at(0.5 * (1 + far_x[g]));
                 p.far_r[g] = x[0];
                 p.far_z[g] = x[1];

@@ -26,7 +26,7 @@ struct Panel {
     int group;       // conductors
     double charge_scale;  // conductors: free charge per total charge (the permittivity touching it)
     std::array<double, 8> gauss_r{}, gauss_z{};  // the whole panel's Gauss-Legendre points (piece_integral's)
-    std::array<double, 4> far_r{}, far_z{};      // and far_integral's
+    std::array<double, 9> far_r{}, far_z{};      // and far_integral's: its three rules' (far_first)
 
     // The point at u in [0, 1] along the panel.
     std::array<double, 2> at(double u) const {
@@ -38,13 +38,19 @@ struct Panel {
     }
 };
 
-// The eight-point Gauss-Legendre rule on [-1, 1] (piece_integral) and the four-point one (far_integral).
+// The eight-point Gauss-Legendre rule on [-1, 1] (piece_integral), and far_integral's four-, three- and
+// two-point rules one after another (the n-point rule's first point at far_first(n)).
 inline constexpr double gauss_x[] = {-0.9602898564975363, -0.7966664774136267, -0.5255324099163290, -0.1834346424956498,
                                      0.1834346424956498,  0.5255324099163290,  0.7966664774136267,  0.9602898564975363};
 inline constexpr double gauss_w[] = {0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.3626837833783620,
                                      0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
-inline constexpr double far_x[] = {-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526};
-inline constexpr double far_w[] = {0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538};
+inline constexpr double far_x[] = {-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526,
+                                   -0.7745966692414834, 0.0, 0.7745966692414834,
+                                   -0.5773502691896258, 0.5773502691896258};
+inline constexpr double far_w[] = {0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538,
+                                   0.5555555555555556, 0.8888888888888888, 0.5555555555555556,
+                                   1.0, 1.0};
+constexpr int far_first(int n) { return n == 4 ? 0 : n == 3 ? 4 : 7; }
 
 // The panels of a scene, its dielectrics' faces first, then its conductors'; grading towards `rings` and the
 // conductors' wire circles. InputError beyond 20000 panels.
