@@ -1,6 +1,7 @@
 // Design synthesis: the requirement, the search, and the designs it returns.
 #include <gtest/gtest.h>
 
+#include <atomic>
 #include <chrono>
 #include <cmath>
 #include <thread>
@@ -180,6 +181,37 @@ TEST(Design, RankedChecksAreTakenInOrderWhateverTheThreads) {
             return true;
         });
         EXPECT_EQ(all, 50u);
+    }
+}
+
+TEST(Design, WorkPastTheStopIsToldAndNeverTaken) {
+    // in_order_until hands work that takes (i, stopped) the loop's stop flag: an item begun past the item
+    // that ends the loop sees it set, and what it returns then is never taken. Item 14 ends the loop; it
+    // waits until item 15 has begun on another thread, and item 15 waits for the flag (each at most 10 s,
+    // so that a broken contract fails here instead of hanging). The library's own contract; no source.
+    for (unsigned threads : {2u, 4u}) {
+        std::atomic<bool> began_15{false}, saw_stop{false};
+        std::vector<std::size_t> taken;
+        const auto wait_for = [](const auto& ready) {
+            for (int k = 0; k < 10000 && !ready(); ++k) std::this_thread::sleep_for(std::chrono::milliseconds(1));
+        };
+        detail::in_order_until<std::size_t>(200, threads, [&](std::size_t i, const std::atomic<bool>& stopped) -> std::size_t {
+                if (i == 14) wait_for([&] { return began_15.load(); });
+                if (i == 15) {
+                    began_15 = true;
+                    wait_for([&] { return stopped.load(); });
+                    saw_stop = stopped.load();
+                    return 1000;  // never to be taken
+                }
+                return i;
+            }, [&](std::size_t i, std::size_t&& r) {
+                EXPECT_EQ(i, r);
+                taken.push_back(r);
+                return r != 14;
+            });
+        EXPECT_TRUE(saw_stop) << threads << " threads";
+        ASSERT_EQ(taken.size(), 15u) << threads << " threads";
+        EXPECT_EQ(taken.back(), 14u);
     }
 }
 

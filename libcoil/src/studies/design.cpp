@@ -1,6 +1,7 @@
 #include "libcoil/studies/design.hpp"
 
 #include <algorithm>
+#include <atomic>
 #include <map>
 #include <cmath>
 #include <sstream>
@@ -289,20 +290,23 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         std::optional<BandMiss> miss;
         std::optional<FixtureResult> fixture;
     };
-    const auto check = [&](DesignFigures d) {
+    // `stopped`: the loop below has its designs, and this check's result will be discarded.
+    const auto check = [&](DesignFigures d, const std::atomic<bool>& stopped) {
         Checked c{std::move(d), std::nullopt, std::nullopt};
         try {
             // The search met the target with a quick estimate of L's fall at the target frequency: a design
             // the turn network confirms is trimmed to meet it by the wire-harmonic solver and confirmed again.
             c.miss = ev.confirm(c.design, false);
+            if (!c.miss && stopped) return c;
             if (!c.miss) c.miss = ev.retarget(c.design) ? ev.confirm(c.design, true) : BandMiss{"inductance_out_of_reach", 1 + q.tolerance, 0, 0};
+            if (!c.miss && stopped) return c;
             if (!c.miss) ev.reference_losses(c.design);
         } catch (const std::exception&) {
             c.miss = BandMiss{"model_domain", 10, 0, 0};
         }
         // In its fixture by the full study (the coil by its full analysis and sweep): the screen's port is the
         // helical-line impedance's at 25 points, which can miss what the turn network shows near resonance.
-        if (!c.miss && q.fixture) {
+        if (!c.miss && q.fixture && !stopped) {
             try {
                 c.fixture = fixture_study(with_coil(*q.fixture, q.fixture_part, design_spec(q, c.design)));
                 const FixtureVerdict& v = *c.fixture->verdict;
@@ -315,7 +319,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     };
     // In rank order on `threads` threads, each taking the next design; the checks are taken in rank order
     // until `top` have passed, and those past that point are discarded: the outcome is the one-thread one.
-    detail::in_order_until<Checked>(front.size(), threads, [&](std::size_t i) { return check(front[i]); }, [&](std::size_t, Checked&& c) {
+    detail::in_order_until<Checked>(front.size(), threads, [&](std::size_t i, const std::atomic<bool>& stopped) { return check(front[i], stopped); }, [&](std::size_t, Checked&& c) {
         if (!c.miss) {
             out.pareto.push_back(std::move(c.design));
             fixture_checks.push_back(std::move(c.fixture));

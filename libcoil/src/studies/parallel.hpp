@@ -12,6 +12,7 @@
 #include <mutex>
 #include <optional>
 #include <thread>
+#include <type_traits>
 #include <vector>
 
 namespace libcoil::detail {
@@ -41,8 +42,11 @@ void parallel_chunks(std::size_t total, std::vector<State>& state, const Work& w
 
 // Items [0, total) on `threads` threads (the calling one too), taken in order from a shared counter, their
 // results handed to take(i, result) strictly in the order of i, one at a time, until take returns false.
-// Work already begun past that point is finished and discarded, so the outcome is the one-thread one. The
-// threads live for the whole loop: what they keep for their next item (solve_in_place.hpp) stays warm.
+// Work already begun past that point is discarded, so the outcome is the one-thread one. Work that takes
+// (i, stopped) may read `stopped` and give up early once it is set: its result will not be taken (the
+// design search's checks, a retarget and confirmation of 10 ... 20 ms each, had made the loop's end wait
+// for them). The threads live for the whole loop: what they keep for their next item (solve_in_place.hpp)
+// stays warm.
 template <class Result, class Work, class Take>
 void in_order_until(std::size_t total, unsigned threads, const Work& work, const Take& take) {
     std::vector<std::optional<Result>> results(total);
@@ -52,7 +56,10 @@ void in_order_until(std::size_t total, unsigned threads, const Work& work, const
     std::size_t taken = 0;  // under `taking`
     const auto run = [&] {
         for (std::size_t i; !stop.load() && (i = next.fetch_add(1)) < total;) {
-            Result r = work(i);
+            Result r = [&] {
+                if constexpr (std::is_invocable_v<const Work&, std::size_t, const std::atomic<bool>&>) return work(i, stop);
+                else return work(i);
+            }();
             const std::lock_guard<std::mutex> lock(taking);
             results[i] = std::move(r);
             for (; !stop.load() && taken < total && results[taken]; ++taken) {
