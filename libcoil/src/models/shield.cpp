@@ -252,7 +252,10 @@ void ShieldWall::currents(std::complex<double>* flux, std::size_t columns) const
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& turns, const ShieldSpec& s, double f) {
     double outer = 0;
     for (const auto& t : turns) outer = std::max(outer, t.radius);
-    const ShieldWall wall(s, outer, f);
+    return shield_wall_currents(ShieldWall(s, outer, f), turns);
+}
+
+std::vector<WallRingCurrent> shield_wall_currents(const ShieldWall& wall, const std::vector<WallRingCurrent>& turns) {
     std::vector<std::complex<double>> x;
     for (const auto& [r, z] : wall.rings()) {
         std::complex<double> sum = 0;

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <complex>
 #include <numeric>
+#include <optional>
 #include <utility>
 
 #include <Eigen/Dense>
@@ -336,6 +337,9 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     // against the finite-element reference (left out, the shielded R read 2 % high). Each dipole as two
     // rings half a wire radius apart; repeated until the coil's Z settles to 1e-9 (three or four passes).
     cd last = 0;
+    // Every pass's sources reach the same radius (the outermost turn's plus half a wire radius): one wall,
+    // built and factored once, takes them all.
+    std::optional<ShieldWall> dipole_wall;
     for (int pass = 0; pass < 8 && !wall.empty(); ++pass) {
         cd z = 0;
         for (int ri = 0; ri < H; ++ri) {
@@ -358,7 +362,12 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
             sources.push_back({Rj, zj + hd, pz / (2 * hd)});
             sources.push_back({Rj, zj - hd, -pz / (2 * hd)});
         }
-        wall = shield_wall_currents(sources, *shield_, f);
+        if (!dipole_wall) {
+            double outer = 0;
+            for (const auto& source : sources) outer = std::max(outer, source.radius);
+            dipole_wall.emplace(*shield_, outer, f);
+        }
+        wall = shield_wall_currents(*dipole_wall, sources);
         x = lu.solve(rhs + wall_rhs(wall));
     }
     cd total = 0;

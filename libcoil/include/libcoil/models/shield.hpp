@@ -106,6 +106,11 @@ private:
     std::shared_ptr<const Factor> factor_;
 };
 
+// shield_wall_currents on a wall already built for the sources (their outermost radius within `wall`'s
+// source_radius): a solver that drives the same wall again and again (the wire-harmonic solver's passes)
+// builds and factors it once.
+std::vector<WallRingCurrent> shield_wall_currents(const ShieldWall& wall, const std::vector<WallRingCurrent>& sources);
+
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
 // would touch the winding (shield.inner_diameter) or a non-positive size.
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& shield, const std::vector<double>& frequencies);
