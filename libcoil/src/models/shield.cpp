@@ -222,14 +222,15 @@ struct ShieldWall::Factor {
     Eigen::PartialPivLU<Eigen::MatrixXcd> lu;
 };
 
-ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : omega_(2 * pi * f) {
+ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : shield_(s), omega_(2 * pi * f) {
     require_positive("frequency", f);
     require_positive("shield.inner_diameter", s.inner_diameter);
     require_positive("shield.length", s.length);
     require_positive("shield.thickness", s.thickness);
     if (!(s.inner_diameter / 2 > source_radius)) throw InputError("shield.inner_diameter", "does not clear the turns");
     const double rho = s.material.resistivity_at(s.temperature);
-    const auto rings = shield_rings(s, source_radius, skin_depth(rho, f, s.material.relative_permeability));
+    delta_ = skin_depth(rho, f, s.material.relative_permeability);
+    const auto rings = shield_rings(s, source_radius, delta_);
     const auto n = static_cast<Eigen::Index>(rings.size());
     using C = std::complex<double>;
     Eigen::MatrixXcd a(n, n);
@@ -240,6 +241,16 @@ ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : om
         rings_.emplace_back(r.r, r.z);
     }
     factor_ = std::make_shared<const Factor>(Factor{a.partialPivLu()});
+}
+
+bool ShieldWall::serves(double source_radius) const {
+    if (!(shield_.inner_diameter / 2 > source_radius)) return false;
+    const auto rings = shield_rings(shield_, source_radius, delta_);
+    if (rings.size() != rings_.size()) return false;
+    for (std::size_t i = 0; i < rings.size(); ++i) {
+        if (rings[i].r != rings_[i].first || rings[i].z != rings_[i].second) return false;
+    }
+    return true;
 }
 
 void ShieldWall::currents(std::complex<double>* flux, std::size_t columns) const {

@@ -261,8 +261,21 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     const Kernel& kern = kernel(cth, sth, kept, reps);
     // A shield's wall currents, driven by the turns' net currents (the harmonics' own fields reach the
     // wall as multipoles of order (wire radius / distance)^m and are left out).
+    // Then (below) with the wall driven by the turns' dipoles too, in passes whose sources reach the same
+    // radius each time (the outermost turn's plus half a wire radius): one wall, built and factored once,
+    // takes them all, the filaments' own where it has the same rings.
     std::vector<WallRingCurrent> wall;
-    if (shield_ && frequency > 0) wall = shield_wall_currents(rings_, *shield_, f);
+    std::optional<ShieldWall> filament_wall, dipole_wall;
+    const ShieldWall* pass_wall = nullptr;
+    const double hd = a / 2;  // the dipoles' half spacing
+    if (shield_ && frequency > 0) {
+        std::vector<WallRingCurrent> turns;
+        double outer = 0;
+        for (const auto& [r, z] : rings_) turns.push_back({r, z, 1.0}), outer = std::max(outer, r);
+        filament_wall.emplace(*shield_, outer, f);
+        wall = shield_wall_currents(*filament_wall, turns);
+        pass_wall = filament_wall->serves(outer + hd) ? &*filament_wall : &dipole_wall.emplace(*shield_, outer + hd, f);
+    }
     // The mutual inductance of each wall ring with each collocation point (every solved wire's in turn, its
     // points in turn, the rings in turn).
     const auto for_each_mutual = [&](const std::vector<WallRingCurrent>& currents, const auto& take) {
@@ -347,19 +360,23 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
             rhs(row + 2 * m) = 0.0;
         }
     }
+    // The pass wall's rings' mutual inductances with the collocation points, taken once (where they fit in
+    // 16 MB; the field's sums are the same to the bit).
+    std::vector<double> pass_mutuals;
+    if (pass_wall && static_cast<std::size_t>(H) * static_cast<std::size_t>(Q) * pass_wall->rings().size() <= (std::size_t{1} << 21)) {
+        std::vector<WallRingCurrent> rings;
+        for (const auto& [r, z] : pass_wall->rings()) rings.push_back({r, z, 0.0});
+        for_each_mutual(rings, [&](double m) { pass_mutuals.push_back(m); });
+    }
+    const std::vector<double>* kept_mutuals = pass_mutuals.empty() ? nullptr : &pass_mutuals;
     const Eigen::PartialPivLU<Eigen::Ref<Eigen::MatrixXcd>> lu(A);  // in place
-    Eigen::VectorXcd x = lu.solve(wall.empty() ? rhs : Eigen::VectorXcd(rhs + wall_rhs(wall, nullptr)));
+    Eigen::VectorXcd x = lu.solve(wall.empty() ? rhs : Eigen::VectorXcd(rhs + wall_rhs(wall, filament_wall && pass_wall == &*filament_wall ? kept_mutuals : nullptr)));
     const std::vector<WallRingCurrent> wall_by_filaments = wall;
     // Then with the wall driven by the turns' dipoles too: the proximity currents shift each turn's current
     // across its wire, and the flux that shift sends to the wall halved the wires' loss change in the tube
     // against the finite-element reference (left out, the shielded R read 2 % high). Each dipole as two
     // rings half a wire radius apart; repeated until the coil's Z settles to 1e-9 (three or four passes).
     cd last = 0;
-    // Every pass's sources reach the same radius (the outermost turn's plus half a wire radius): one wall,
-    // built and factored once, takes them all, and its rings' mutual inductances with the collocation points
-    // are taken once too (where they fit in 16 MB; the field's sum is the same to the bit).
-    std::optional<ShieldWall> dipole_wall;
-    std::vector<double> pass_mutuals;
     for (int pass = 0; pass < 8 && !wall.empty(); ++pass) {
         cd z = 0;
         for (int ri = 0; ri < H; ++ri) {
@@ -369,7 +386,6 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
         if (pass > 0 && std::abs(z - last) <= 1e-9 * std::abs(z)) break;
         last = z;
         std::vector<WallRingCurrent> sources;
-        const double hd = a / 2;
         for (int j = 0; j < N; ++j) {
             const auto [Rj, zj] = rings_[static_cast<std::size_t>(j)];
             const int rj = reduced[static_cast<std::size_t>(j)];
@@ -382,18 +398,8 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
             sources.push_back({Rj, zj + hd, pz / (2 * hd)});
             sources.push_back({Rj, zj - hd, -pz / (2 * hd)});
         }
-        if (!dipole_wall) {
-            double outer = 0;
-            for (const auto& source : sources) outer = std::max(outer, source.radius);
-            dipole_wall.emplace(*shield_, outer, f);
-        }
-        wall = shield_wall_currents(*dipole_wall, sources);
-        const std::size_t entries = static_cast<std::size_t>(H) * static_cast<std::size_t>(Q) * wall.size();
-        if (pass_mutuals.empty() && entries <= (std::size_t{1} << 21)) {
-            pass_mutuals.reserve(entries);
-            for_each_mutual(wall, [&](double m) { pass_mutuals.push_back(m); });
-        }
-        x = lu.solve(rhs + wall_rhs(wall, pass_mutuals.empty() ? nullptr : &pass_mutuals));
+        wall = shield_wall_currents(*pass_wall, sources);
+        x = lu.solve(rhs + wall_rhs(wall, kept_mutuals));
     }
     cd total = 0;
     for (int ri = 0; ri < H; ++ri) {

@@ -94,6 +94,9 @@ public:
     ShieldWall(const ShieldSpec& shield, double source_radius, double frequency);
     // The rings (radius, axial position), m.
     const std::vector<std::pair<double, double>>& rings() const { return rings_; }
+    // Whether the wall built for sources out to `source_radius` would be this one, ring for ring (the rings'
+    // spacing follows the gap to the sources only where that gap is what binds it).
+    bool serves(double source_radius) const;
     // The wall's currents when the sources link `flux[k]` (Wb) with ring k: Z_w I = -j w flux. `flux` holds
     // `columns` such vectors one after another (column-major, rings() x columns) and is overwritten by the
     // currents (A).
@@ -102,7 +105,8 @@ public:
 private:
     struct Factor;
     std::vector<std::pair<double, double>> rings_;
-    double omega_ = 0;
+    ShieldSpec shield_;
+    double omega_ = 0, delta_ = 0;
     std::shared_ptr<const Factor> factor_;
 };
 
