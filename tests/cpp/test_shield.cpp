@@ -182,3 +182,28 @@ TEST(Shield, OpenEndsLeakAsTheTE01ModeBelowCutoff) {
     s.end_discs = true;
     EXPECT_TRUE(std::isinf(open_end_leakage_db(s, 18e-3)));
 }
+
+TEST(Shield, AWallServesTheSourcesItsRingsWouldBeBuiltFor) {
+    // ShieldWall::serves: a wall built for sources out to one radius is the wall for another exactly where
+    // the other would get the same rings: its spacing along the wall is min(gap / 1.5, radius / 3, length /
+    // 24), so a long tube (length / 24 binding) serves a wider range than a tight one (the gap binding). And
+    // both drive the same currents from the same sources. The library's own contract; no source.
+    const ShieldSpec wide = tube(40e-3, 0.08);  // length / 24 = 3.3 mm binds for sources out to 14 mm
+    const ShieldWall w(wide, 13e-3, 1e6);
+    EXPECT_TRUE(w.serves(13e-3));
+    EXPECT_TRUE(w.serves(13.5e-3));
+    EXPECT_FALSE(w.serves(17e-3));  // gap 3 mm: its spacing 2 mm
+    EXPECT_FALSE(w.serves(20e-3));  // not inside the bore
+    const ShieldWall same(wide, 13.5e-3, 1e6);
+    ASSERT_EQ(same.rings(), w.rings());
+    const std::vector<WallRingCurrent> sources{{13e-3, 0.0, 1.0}, {13.5e-3, 2e-3, {0.2, -0.1}}};
+    const auto a = shield_wall_currents(w, sources), b = shield_wall_currents(same, sources);
+    const auto c = shield_wall_currents(sources, wide, 1e6);
+    ASSERT_EQ(a.size(), b.size());
+    for (std::size_t i = 0; i < a.size(); ++i) {
+        EXPECT_EQ(a[i].current, b[i].current);
+        EXPECT_EQ(a[i].current, c[i].current);
+    }
+    const ShieldSpec tight = tube(30e-3, 0.08);  // gap / 1.5 binds: 1.3 mm at 13 mm, 1.0 mm at 13.5 mm
+    EXPECT_FALSE(ShieldWall(tight, 13e-3, 1e6).serves(13.5e-3));
+}
