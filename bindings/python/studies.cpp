@@ -302,9 +302,10 @@ void bind_studies(py::module_& m) {
           "The analysed coil's L at a frequency (0: its nominal one), in its shield if it has one: what a design meets its target with.");
     m.def("target_frequency", &libcoil::target_frequency, "requirement"_a);
     m.def("analyze", [](const libcoil::CoilSpec& spec, const std::string& solver, std::optional<int> layers, std::optional<int> sectors,
-                        std::optional<libcoil::Subdivision> sub) {
+                        std::optional<libcoil::Subdivision> sub, unsigned threads) {
         libcoil::AnalysisOptions o;
         o.solver = libcoil::parse_choice<libcoil::LossSolver>(solver, "solver");
+        o.threads = threads;
         if (sub) {
             o.auto_subdivision = false;
             o.subdivision = *sub;
@@ -319,8 +320,10 @@ void bind_studies(py::module_& m) {
         py::gil_scoped_release release;
         return libcoil::analyze(spec, o);
     }, "spec"_a, "solver"_a = "harmonics", "layers"_a = py::none(), "sectors"_a = py::none(), "subdivision"_a = py::none(),
+       "threads"_a = 1,
        "The analysis study of a coil spec. The filaments solver's subdivision follows the highest frequency unless layers "
-       "(and sectors, default twice the layers) or a Subdivision are given.");
+       "(and sectors, default twice the layers) or a Subdivision are given. `threads`: the wire-harmonic solver's "
+       "frequencies on this many threads (0: all cores); the figures are the same whatever the threads.");
     m.def("former", [](const libcoil::CoilSpec& spec, std::optional<std::string> out_dir, const std::string& stem,
                        std::optional<std::string> kind, std::optional<int> ribs, std::optional<double> rib_width,
                        std::optional<std::string> profile, std::optional<double> groove_depth, std::optional<double> clearance,

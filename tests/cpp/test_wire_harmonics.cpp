@@ -124,16 +124,22 @@ TEST(WireHarmonics, ManyFrequenciesAtOnceGiveEachSolveToTheBit) {
     can.material = conductor("copper");
     for (const auto& shield : {std::optional<ShieldSpec>{}, std::optional<ShieldSpec>{can}}) {
         const WireHarmonicSolver solver(c, rho, 0, shield);
-        const auto all = solver.solve(fs);
-        ASSERT_EQ(all.size(), fs.size());
-        for (std::size_t i = 0; i < fs.size(); ++i) {
-            const auto one = solver.solve(fs[i]);
-            EXPECT_EQ(all[i].resistance, one.resistance) << fs[i];
-            EXPECT_EQ(all[i].inductance, one.inductance) << fs[i];
-            EXPECT_EQ(all[i].wall_resistance, one.wall_resistance) << fs[i];
-            EXPECT_EQ(all[i].wall_inductance, one.wall_inductance) << fs[i];
+        // On one thread, and split over two, three and more threads than frequencies (each thread its own
+        // run of frequencies and its own kernels).
+        for (unsigned threads : {1u, 2u, 3u, 20u}) {
+            const auto all = solver.solve(fs, threads);
+            ASSERT_EQ(all.size(), fs.size());
+            for (std::size_t i = 0; i < fs.size(); ++i) {
+                const auto one = solver.solve(fs[i]);
+                EXPECT_EQ(all[i].resistance, one.resistance) << fs[i] << ", " << threads << " threads";
+                EXPECT_EQ(all[i].inductance, one.inductance) << fs[i] << ", " << threads << " threads";
+                EXPECT_EQ(all[i].wall_resistance, one.wall_resistance) << fs[i] << ", " << threads << " threads";
+                EXPECT_EQ(all[i].wall_inductance, one.wall_inductance) << fs[i] << ", " << threads << " threads";
+            }
         }
     }
+    EXPECT_TRUE(WireHarmonicSolver(c, rho).solve(std::vector<double>{}, 2).empty());
+    EXPECT_THROW(WireHarmonicSolver(c, rho).solve(std::vector<double>{1e6, -1.0}, 2), InputError);
 }
 
 TEST(WireHarmonics, ProximityRaisesResistanceAndFallsWithPitch) {

@@ -125,6 +125,7 @@ void print_written(const std::vector<std::string>& names) {
 int run_analyze(const Given& g) {
     libcoil::AnalysisOptions opt;
     opt.solver = *g.choice<libcoil::LossSolver>("solver");
+    opt.threads = static_cast<unsigned>(g.whole("threads", 1, 1024, 0));
     if (g.has("layers")) {
         const long layers = g.whole("layers", -1000000, 1000000);
         opt.auto_subdivision = false;

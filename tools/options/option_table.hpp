@@ -50,6 +50,8 @@ inline const std::vector<Option>& option_table() {
          D::dimensionless, &choice_names<LossSolver>, "harmonics"},
         {"analyze", "layers", "--layers", Kind::integer, "Solver: radial layers across the wire (default: enough to resolve the skin depth)"},
         {"analyze", "sectors", "--sectors", Kind::integer, "Solver: angular cells per layer (default: twice the layers)"},
+        {"analyze", "threads", "--threads", Kind::integer,
+         "Threads for the wire-harmonic solver's frequencies (default: all cores; the figures are the same whatever the threads)"},
         // coil sweep SPEC
         {"sweep", "from", "--from", Kind::quantity, "First frequency (default: half the band's low edge, or SRF / 1000)", D::frequency,
          nullptr, "", false},

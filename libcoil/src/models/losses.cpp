@@ -114,7 +114,8 @@ std::vector<CoilAtFrequency> coil_at_frequencies_numerical(const Solenoid& c, co
 }
 
 std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& c, const Conductor& cond, double temperature,
-                                                          double l_dc, const std::vector<double>& fs, const ShieldSpec* shield) {
+                                                          double l_dc, const std::vector<double>& fs, const ShieldSpec* shield,
+                                                          unsigned threads) {
     check_frequencies(fs);
     require_positive("dc_inductance", l_dc);
     if (cond.relative_permeability != 1) throw DomainError("the wire-harmonic solver takes non-magnetic wire only");
@@ -125,7 +126,7 @@ std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& c, con
     for (double f : fs) {
         if (f > 0) solved.push_back(f);
     }
-    const std::vector<RingImpedance> zs = solver.solve(solved);
+    const std::vector<RingImpedance> zs = solver.solve(solved, threads);
     const RingImpedance& dc = zs.front();
     // The rings' R relative to their DC value, applied to the helix's DC resistance (so that f = 0 gives the
     // DC resistance exactly; the torus's own curvature changes its DC R by (r / R)^2 / 8, 3e-4 at R / r = 20).
@@ -151,7 +152,7 @@ std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& c, con
 }
 
 WireLossTable::WireLossTable(const Solenoid& c, const Conductor& cond, double temperature, double l_dc, double low, double high,
-                             const ShieldSpec* shield, int per_decade) {
+                             const ShieldSpec* shield, int per_decade, unsigned threads) {
     require_positive("low", low);
     require_positive("high", high);
     if (per_decade < 1 || per_decade > 50) throw InputError("per_decade", std::to_string(per_decade) + " is outside 1 .. 50");
@@ -171,7 +172,7 @@ WireLossTable::WireLossTable(const Solenoid& c, const Conductor& cond, double te
     }
     if (f_.empty()) return;
     const int m = static_cast<int>(f_.size());
-    const auto h = coil_at_frequencies_harmonic(c, cond, temperature, l_dc, f_, shield);
+    const auto h = coil_at_frequencies_harmonic(c, cond, temperature, l_dc, f_, shield, threads);
     const auto closed = coil_at_frequencies(c, cond, temperature, l_dc, f_);
     for (int i = 0; i < m; ++i) {
         ratio_.push_back(h[static_cast<std::size_t>(i)].resistance / closed[static_cast<std::size_t>(i)].resistance);

@@ -3,8 +3,10 @@
 #include <algorithm>
 #include <cmath>
 #include <complex>
+#include <exception>
 #include <numeric>
 #include <optional>
+#include <thread>
 #include <utility>
 
 #include <Eigen/Dense>
@@ -204,12 +206,47 @@ RingImpedance WireHarmonicSolver::solve(double frequency) const {
     return solve(frequency, kept);
 }
 
-std::vector<RingImpedance> WireHarmonicSolver::solve(const std::vector<double>& frequencies) const {
-    std::vector<Kernel> kept;
-    std::vector<RingImpedance> out;
-    out.reserve(frequencies.size());
-    for (const double f : frequencies) out.push_back(solve(f, kept));
+std::vector<RingImpedance> WireHarmonicSolver::solve(const std::vector<double>& frequencies, unsigned threads) const {
+    for (const double f : frequencies) require_non_negative("frequency", f);
+    const std::size_t count = frequencies.size();
+    if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
+    threads = static_cast<unsigned>(std::min<std::size_t>(threads, count));
+    std::vector<RingImpedance> out(count);
+    // Runs of neighbouring frequencies (which mostly share their count of harmonics, and so a kernel) of
+    // about equal cost, a solve's growing as the cube of its unknowns: run k ends where the cost so far
+    // passes (k + 1) / threads of the whole.
+    std::vector<double> cost(count + 1, 0.0);
+    for (std::size_t i = 0; i < count; ++i) cost[i + 1] = cost[i] + std::pow(2.0 * harmonics_at(frequencies[i]) + 2, 3);
+    std::vector<std::size_t> start(threads + 1, count);
+    start[0] = 0;
+    for (unsigned k = 1; k < threads; ++k) {
+        start[k] = static_cast<std::size_t>(std::lower_bound(cost.begin(), cost.end(), cost[count] * k / threads) - cost.begin());
+        start[k] = std::clamp(start[k], start[k - 1], count);
+    }
+    std::vector<std::exception_ptr> failed(threads);
+    const auto run = [&](unsigned k) {
+        try {
+            std::vector<Kernel> kept;
+            for (std::size_t i = start[k]; i < start[k + 1]; ++i) out[i] = solve(frequencies[i], kept);
+        } catch (...) {
+            failed[k] = std::current_exception();
+        }
+    };
+    std::vector<std::thread> pool;
+    for (unsigned k = 1; k < threads; ++k) pool.emplace_back(run, k);
+    if (threads > 0) run(0);
+    for (auto& t : pool) t.join();
+    for (const auto& e : failed) {
+        if (e) std::rethrow_exception(e);
+    }
     return out;
+}
+
+int WireHarmonicSolver::harmonics_at(double frequency) const {
+    const double a = wire_radius_;
+    // DC as the limit: a frequency whose skin depth is 30 wire radii (R within 1e-7 of DC).
+    const double f = frequency > 0 ? frequency : resistivity_ / (pi * mu0 * 900 * a * a);
+    return harmonics_ > 0 ? harmonics_ : harmonics_for(rings_.size() > 1 ? min_gap_ : 1e3, 2 * a / skin_depth(resistivity_, f));
 }
 
 RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& kept) const {
@@ -219,7 +256,7 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     const double f = frequency > 0 ? frequency : resistivity_ / (pi * mu0 * 900 * a * a);
     const double delta = skin_depth(resistivity_, f);
     const double omega = 2 * pi * f;
-    const int M = harmonics_ > 0 ? harmonics_ : harmonics_for(rings_.size() > 1 ? min_gap_ : 1e3, 2 * a / delta);
+    const int M = harmonics_at(frequency);
     const int Q = 4 * M + 4;
     const int B = 2 * M + 1;  // unknowns and equations per turn
     const int N = static_cast<int>(rings_.size());

@@ -70,7 +70,7 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
     if (options.solver == LossSolver::harmonics) {
         a.loss_method = LossSolver::harmonics;
         a.at_frequency = coil_at_frequencies_harmonic(s, spec.conductor, op.temperature, a.inductance.recommended, op.frequencies,
-                                                      spec.shield ? &*spec.shield : nullptr);
+                                                      spec.shield ? &*spec.shield : nullptr, options.threads);
         return;
     }
     if (options.solver == LossSolver::filaments) {
@@ -373,7 +373,7 @@ Analysis analyze(const CoilSpec& spec, const AnalysisOptions& options) {
     if (a.loss_method == LossSolver::harmonics) {
         const FrequencySpan span = default_span(a);
         a.wire_table = WireLossTable(spec.solenoid, spec.conductor, a.spec.operating.temperature, a.inductance.recommended, span.low,
-                                     span.high, spec.shield ? &*spec.shield : nullptr);
+                                     span.high, spec.shield ? &*spec.shield : nullptr, 5, options.threads);
     }
     add_impedance_and_band(a);
     const Operating& op = a.spec.operating;

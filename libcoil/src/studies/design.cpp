@@ -357,7 +357,9 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     for (std::size_t i = 0; i < tries; ++i) {
         std::optional<Analysis> a;
         try {
-            a = analyze(out.specs[i]);
+            AnalysisOptions o;
+            o.threads = threads;  // the figures the same to the bit whatever the threads
+            a = analyze(out.specs[i], o);
         } catch (const std::exception& e) {  // InputError or DomainError from the full models
             out.warnings.push_back("design " + std::to_string(i + 1) + " could not be re-analysed (" + e.what() +
                                    "); the next one is taken");

@@ -39,9 +39,10 @@ struct CoilAtFrequency {
 // the leads by their isolated-wire skin ratio, L = dc_inductance + L_h(f) - L_h(0). With `shield`, the
 // wires' own R and L in the field of the shield's wall currents; the wall's own loss and change of L are
 // left out here (the shield's ring model adds them where the impedance is formed, impedance.hpp).
+// `threads`: the solves' (WireHarmonicSolver::solve; the figures the same to the bit whatever the threads).
 std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& coil, const Conductor& conductor, double temperature,
                                                           double dc_inductance, const std::vector<double>& frequencies,
-                                                          const ShieldSpec* shield = nullptr);
+                                                          const ShieldSpec* shield = nullptr, unsigned threads = 1);
 
 // The wire-harmonic solver's correction to the closed forms for any frequency, for sweeps of many points:
 // the ratio R_h / R_closed and the difference L_h - L_closed solved on a log grid of `per_decade` points a
@@ -52,8 +53,9 @@ std::vector<CoilAtFrequency> coil_at_frequencies_harmonic(const Solenoid& coil, 
 class WireLossTable {
 public:
     WireLossTable() = default;  // no correction: the closed forms as they stand
+    // `threads`: the solves' (coil_at_frequencies_harmonic).
     WireLossTable(const Solenoid& coil, const Conductor& conductor, double temperature, double dc_inductance, double low,
-                  double high, const ShieldSpec* shield = nullptr, int per_decade = 5);
+                  double high, const ShieldSpec* shield = nullptr, int per_decade = 5, unsigned threads = 1);
     // A correction found elsewhere (the design screen's fitted fall of L): R_h / R_closed and L_h - L_closed (H)
     // at each of the ascending, positive `frequencies`.
     WireLossTable(std::vector<double> frequencies, std::vector<double> resistance_ratio, std::vector<double> inductance_offset);

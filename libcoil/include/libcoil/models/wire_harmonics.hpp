@@ -81,14 +81,17 @@ public:
     RingImpedance solve(double frequency) const;
     // The same at each of `frequencies`, to the bit: the kernel's terms that depend on the geometry alone
     // (Maxwell's formula at each wire's collocation points, most of a solve's assembly) are computed once for
-    // all the frequencies that take the same number of harmonics.
-    std::vector<RingImpedance> solve(const std::vector<double>& frequencies) const;
+    // all the frequencies that take the same number of harmonics. On up to `threads` threads (0: the
+    // hardware's), each taking a run of neighbouring frequencies of about equal cost with kernels of its
+    // own: the figures the same to the bit whatever the threads.
+    std::vector<RingImpedance> solve(const std::vector<double>& frequencies, unsigned threads = 1) const;
 
     std::size_t turns() const { return rings_.size(); }
 
 private:
     struct Kernel;  // the geometric terms at one count of collocation points
     RingImpedance solve(double frequency, std::vector<Kernel>& kept) const;
+    int harmonics_at(double frequency) const;  // the harmonics a solve at `frequency` takes
     // The kernel at the collocation points whose angles have these cosines and sines: from `kept`, or computed
     // and added to it.
     const Kernel& kernel(const std::vector<double>& cth, const std::vector<double>& sth, std::vector<Kernel>& kept,

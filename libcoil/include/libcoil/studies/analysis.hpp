@@ -33,6 +33,9 @@ struct AnalysisOptions {
     Subdivision subdivision{};     // for LossSolver::filaments when auto_subdivision is false; sectors 0:
                                    // twice the layers
     std::function<void(std::size_t, std::size_t)> progress;      // (done, total) frequencies, filaments only
+    // The wire-harmonic solver's loss table (its frequencies) on this many threads, 0: the hardware's. The
+    // figures are the same to the bit whatever the threads.
+    unsigned threads = 1;
 };
 
 // The winding under its operating current (winding_heat.hpp), when the spec gives one.
