@@ -234,3 +234,47 @@ TEST(AxisymmetricCharge, BadInputNamesTheField) {
     EXPECT_THROW(tube_outline(1, 0.5, 0, 1), InputError);
     EXPECT_THROW(circle_outline(0.5, 0, 1, 12), InputError);
 }
+
+TEST(AxisymmetricCharge, FarRulesAreGaussLegendreWithinTheirRemainder) {
+    // The panels' quadrature rules (axisymmetric_panels.hpp): each n-point rule's nodes are the roots of the
+    // Legendre polynomial P_n (Boost.Math's legendre_p as the reference), and it integrates x^k over [-1, 1]
+    // exactly for k <= 2n - 1 and not for k = 2n (the Gauss-Legendre rule's defining degree; Abramowitz &
+    // Stegun 25.4.29, from memory).
+    struct Rule {
+        int n;
+        const double *x, *w;
+    };
+    const Rule rules[] = {{8, detail::gauss_x, detail::gauss_w},
+                          {4, detail::far_x + detail::far_first(4), detail::far_w + detail::far_first(4)},
+                          {3, detail::far_x + detail::far_first(3), detail::far_w + detail::far_first(3)},
+                          {2, detail::far_x + detail::far_first(2), detail::far_w + detail::far_first(2)}};
+    for (const Rule& r : rules) {
+        for (int g = 0; g < r.n; ++g) EXPECT_NEAR(boost::math::legendre_p(r.n, r.x[g]), 0.0, 1e-15) << r.n << " points";
+        for (int k = 0; k <= 2 * r.n; ++k) {
+            double sum = 0;
+            for (int g = 0; g < r.n; ++g) sum += r.w[g] * std::pow(r.x[g], k);
+            const double exact = k % 2 ? 0.0 : 2.0 / (k + 1);
+            if (k < 2 * r.n) EXPECT_NEAR(sum, exact, 1e-15) << r.n << " points, x^" << k;
+            else EXPECT_GT(std::fabs(sum - exact), 1e-8) << r.n << " points, x^" << k;
+        }
+    }
+    // far_points: each rule from where its remainder bound on a 1 / d kernel, (L / d)^2n (n!)^4 / ((2n + 1)
+    // ((2n)!)^2), falls within the four-point rule's at three lengths, and not far past it (the fewest points
+    // that hold it); the normal field's kernel, a factor 2n + 1 more, within nine times that (the four-point
+    // rule's own factor there).
+    const auto remainder = [](int n, double ratio) {
+        const double f = std::tgamma(n + 1.0), f2 = std::tgamma(2 * n + 1.0);
+        return std::pow(ratio, -2 * n) * std::pow(f, 4) / ((2 * n + 1) * f2 * f2);
+    };
+    const double budget = remainder(4, 3);
+    EXPECT_NEAR(budget, 3.46e-9, 0.01e-9);
+    for (const auto& [n, from] : {std::pair{3, 6.86}, std::pair{2, 35.7}}) {
+        EXPECT_LE(remainder(n, from), budget) << n << " points";
+        EXPECT_GT(remainder(n, 0.995 * from), budget) << n << " points";
+        EXPECT_LE((2 * n + 1) * remainder(n, from), 9 * budget) << n << " points";
+        EXPECT_EQ(detail::far_points(from * 1.0001), n);
+        EXPECT_EQ(detail::far_points(from * 0.9999), n + 1);
+    }
+    EXPECT_EQ(detail::far_points(3.01), 4);
+    EXPECT_EQ(detail::far_points(1e4), 2);
+}

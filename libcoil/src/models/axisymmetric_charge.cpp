@@ -133,15 +133,6 @@ double distance(const Panel& p, double rho, double z) { return std::sqrt((rho - 
 // Whether panel_integral takes far_integral for the point (rho, z).
 bool is_far(const Panel& p, double rho, double z) { return distance(p, rho, z) > 3 * p.length; }
 
-// The points far_integral takes for a whole panel seen from `ratio` panel lengths away (beyond three): the
-// fewest whose Gauss-Legendre remainder on a 1 / d kernel, (L / d)^2n (n!)^4 / ((2n + 1) ((2n)!)^2) of the
-// integral, stays within the four-point rule's at three lengths, 3.5e-9: four points from 3 lengths, three
-// from 6.85, two from 35.6. The normal field's kernel (1 / d^2) takes a factor 2n + 1 more in each, which
-// would let the smaller rules in sooner (6.6 and 30.7 lengths): the thresholds hold for both. On the dense
-// design grid's charge solves (2026-12-05) 14 % of the far pairs took four points, 60 % three, 26 % two:
-// 28 % fewer far points than four each, 18 % fewer ring-field evaluations in all (callgrind).
-int far_points(double ratio) { return ratio > 35.6 ? 2 : ratio > 6.85 ? 3 : 4; }
-
 // The n-point rule over the whole panel (the elliptic integrals go in pairs: an odd n takes one more point of weight 0).
 template <int n>
 Kernel far_rule(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane) {
@@ -158,7 +149,7 @@ Kernel far_rule(const Panel& p, double rho, double z, double nr, double nz, cons
 
 // The whole panel from a point beyond three panel lengths, by far_points' rule.
 Kernel far_integral(const Panel& p, double rho, double z, double nr, double nz, const std::optional<double>& plane) {
-    switch (far_points(distance(p, rho, z) / p.length)) {
+    switch (detail::far_points(distance(p, rho, z) / p.length)) {
         case 2: return far_rule<2>(p, rho, z, nr, nz, plane);
         case 3: return far_rule<3>(p, rho, z, nr, nz, plane);
         default: return far_rule<4>(p, rho, z, nr, nz, plane);
@@ -250,7 +241,7 @@ void system_row(const Panel& t, const Panel* s, Eigen::Index n, Eigen::Index own
             continue;
         }
         row(j) = 0;
-        const int points = far_points(ratio), first = detail::far_first(points);
+        const int points = detail::far_points(ratio), first = detail::far_first(points);
         for (int g = 0; g < points; ++g) {
             a[queued] = q.far_r[static_cast<std::size_t>(first + g)];
             zs[queued] = q.far_z[static_cast<std::size_t>(first + g)];
