@@ -1,6 +1,7 @@
 // Design synthesis: the requirement, the search, and the designs it returns.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <atomic>
 #include <chrono>
 #include <cmath>
@@ -16,6 +17,7 @@
 #include "libcoil/models/rosa.hpp"
 
 #include "libcoil/models/losses.hpp"
+#include "studies/design_search.hpp"
 #include "studies/inductance_fall_screen.hpp"
 #include "studies/parallel.hpp"
 #include "studies/srf_screen_bound.hpp"
@@ -355,4 +357,51 @@ TEST(DesignScreen, FallFitReadsTheTableAsTheScriptDoes) {
     EXPECT_FALSE(detail::InductanceFallFit(0.1, 1.0).ratio(1.5, 20, 10).has_value());
     EXPECT_FALSE(detail::InductanceFallFit(5.0, 0.5).ratio(1.5, 4, 10).has_value());
     EXPECT_FALSE(detail::InductanceFallFit(5.0, 0.5).ratio(1.0, 20, 10).has_value());
+}
+
+// The grid's pitch ratios of one wire and form that snap to the same turns trim to the same coil, so the
+// search checks the first and counts its outcome for the rest (Tally::repeats). Checked here against every
+// candidate checked alone, on a grid fine enough that three to five ratios share each snapped count.
+TEST(Design, CandidatesThatSnapAlikeAreCheckedOnce) {
+    const Requirement q = parse_requirement(R"(
+target: {inductance: 5 uH, tolerance: 2 %}
+band: {low: 150 kHz, ceiling: 30 MHz, srf_margin: 2.5, max_deviation: 10 %, min_impedance: 3 ohm}
+operating: {current: 6 A, ambient: 35 degC}
+limits: {max_outer_diameter: 40 mm, max_length: 60 mm, max_wire_length: 3 m}
+search:
+  wires: [AWG 16, 1.25 mm grade 2]
+  form_diameter: {min: 18 mm, max: 30 mm, step: 1.5 mm}
+  pitch_ratio: {min: 1.05, max: 2.5, step: 0.01}
+former: {material: PETG, kind: grooved-tube, wall: 3 mm}
+)");
+    const detail::Evaluator ev(q);
+    const std::vector<double> forms = q.form_diameter.values(), ratios = q.pitch_ratio.values();
+    detail::Tally alone{detail::Archive(ev.ceiling())}, once{detail::Archive(ev.ceiling())};
+    std::size_t chunk = 0;
+    for (std::size_t w = 0; w < q.wires.size(); ++w) {
+        for (const double form : forms) {
+            ++chunk;
+            for (const double ratio : ratios) {
+                ev.evaluate(detail::Candidate{w, form, ratio}, alone);
+                ev.evaluate(detail::Candidate{w, form, ratio, chunk}, once);
+            }
+        }
+    }
+    EXPECT_GT(alone.feasible, 100u);
+    EXPECT_EQ(once.feasible, alone.feasible);
+    EXPECT_EQ(once.rejected, alone.rejected);
+    // The same coils on the front (their figures to the trim's tolerance), each from the grid pitch whose
+    // solved turns lie nearest the snapped count.
+    const auto& a = alone.front.designs();
+    const auto& b = once.front.designs();
+    ASSERT_EQ(a.size(), b.size());
+    for (const DesignFigures& d : b) {
+        const auto same = std::find_if(a.begin(), a.end(), [&](const DesignFigures& e) {
+            return e.wire_index == d.wire_index && e.form_diameter == d.form_diameter && e.turns == d.turns;
+        });
+        ASSERT_NE(same, a.end());
+        EXPECT_NEAR(same->pitch / d.pitch, 1, 1e-8);
+        EXPECT_NEAR(same->self_resonance / d.self_resonance, 1, 1e-8);
+        EXPECT_LE(std::fabs(d.turns_solved - d.turns), std::fabs(same->turns_solved - same->turns) + 1e-12);
+    }
 }

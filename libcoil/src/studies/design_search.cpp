@@ -95,6 +95,7 @@ Evaluator::Evaluator(const Requirement& q) : q_(q) {
 }
 
 void Evaluator::evaluate(const Candidate& c, Tally& t) const {
+    t.repeats.recording = SIZE_MAX;
     try {
         check(c, t);
     } catch (const std::exception& e) {  // InputError, DomainError
@@ -137,8 +138,41 @@ void Evaluator::check(const Candidate& c, Tally& t) const {
     std::optional<double> field;  // the proximity field sum, when the band screen computed it
     if (!screen_band(c, s, g, d, t, field)) return;
     loss_at_reference(s, d, field);
-    ++t.feasible;
-    t.front.add(d);
+    t.pass(d);
+}
+
+// A repeat that passed is offered to the front again as what c solved before the snap: the archive keeps, of
+// such equal designs, the one whose solved turns lie nearest the snapped (pareto_archive.hpp), from whose
+// grid pitch a retarget starts.
+bool Evaluator::repeated(const Candidate& c, double turns, double solved, double grid_pitch, Tally& t) const {
+    if (c.chunk == SIZE_MAX) return false;
+    Tally::Repeats& r = t.repeats;
+    r.recording = SIZE_MAX;
+    if (r.chunk != c.chunk || r.wire != c.wire || r.form_diameter != c.form_diameter) {
+        r.chunk = c.chunk;
+        r.wire = c.wire;
+        r.form_diameter = c.form_diameter;
+        r.outcomes.clear();
+    }
+    for (std::size_t i = r.outcomes.size(); i-- > 0;) {
+        const Tally::Outcome o = r.outcomes[i];
+        if (o.turns != turns) continue;
+        if (!o.done) break;  // its check ended in neither (it cannot; then c is checked afresh)
+        if (o.feasible) {
+            ++t.feasible;
+            DesignFigures d = o.design;
+            d.turns_solved = solved;
+            d.pitch_before_trim = grid_pitch;
+            t.front.add(d);
+        } else {
+            // Never the closest miss: the first of them, counted in this tally, was at least as close.
+            t.reject(o.reason, o.excess, [&] { return what(c) + ": the same coil as a lower pitch ratio's"; });
+        }
+        return true;
+    }
+    r.outcomes.push_back({turns});
+    r.recording = r.outcomes.size() - 1;
+    return false;
 }
 
 // The shield, the outer diameter, the room for a winding.
@@ -224,6 +258,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
     try {
         if (q_.turns) {
             n = n_solved = *q_.turns;
+            if (repeated(c, n, n, p, t)) return false;
             target = aim(n, p);
             L(n, p);
             if (!solve_pitch(n, p_min, room, L, WheelerGuide(mean / 2, last, false), target, p, last)) {
@@ -306,6 +341,7 @@ bool Evaluator::solve(const Candidate& c, Geometry& g, Tally& t) const {
             // is rescaled (and matched to the slopes) at the solve's last point, beside the solution.
             const double step = q_.turns_step;
             const double nearest = std::max(fewest_turns_, std::round(n_solved / step) * step);
+            if (repeated(c, nearest, n_solved, p, t)) return false;
             const WheelerGuide guide(mean / 2, last, true);
             bool done = false;
             for (double offset : {0.0, -1.0, 1.0}) {

@@ -37,6 +37,9 @@ inline constexpr int fixture_points = 25;
 struct Candidate {
     std::size_t wire;
     double form_diameter, ratio;
+    // The chunk of the grid it was handed out in (design.cpp): outcomes repeat only within one chunk, so that
+    // how the chunks fall to threads cannot change them. None: the candidate stands alone.
+    std::size_t chunk = SIZE_MAX;
 };
 
 // Why a candidate fails, with the key the report and JSON use and the words of the binding-limit note.
@@ -87,20 +90,55 @@ struct Tally {
         double form_diameter = 0;
         bool rosa = false;
     } short_of_target{};
+    // The outcomes of one wire and form's candidates in one chunk, by the turns they snap to. The pitch ratios
+    // that snap to the same turns trim to the same pitch, whatever pitch the trim starts from (its root is
+    // unique: L falls as the pitch grows), so they are one coil: the first one's outcome stands for the
+    // rest (Evaluator::solve). On the dense grid of benchmarks/side_by_side.py four candidates share each.
+    struct Outcome {
+        double turns;
+        bool done = false, feasible = false;
+        Reason reason = Reason::count;
+        double excess = 0;
+        DesignFigures design{};  // where feasible
+    };
+    struct Repeats {
+        std::size_t chunk = SIZE_MAX, wire = SIZE_MAX;
+        double form_diameter = 0;
+        std::vector<Outcome> outcomes;
+        std::size_t recording = SIZE_MAX;  // the outcome the candidate being checked will write
+    } repeats{};
 
     // A miss known to be no closer than one already counted.
     void count(Reason reason) { ++rejected[static_cast<std::size_t>(reason)]; }
+
+    // The candidate being checked is feasible (see reject() for its misses).
+    void pass(const DesignFigures& d) {
+        ++feasible;
+        front.add(d);
+        if (Outcome* o = recording()) {
+            o->done = o->feasible = true;
+            o->design = d;
+            repeats.recording = SIZE_MAX;
+        }
+    }
 
     // `detail` is built only when this miss is the closest so far (it is text, and most misses are not).
     template <class Detail>
     void reject(Reason reason, double excess, const Detail& detail) {
         const auto r = static_cast<std::size_t>(reason);
+        if (Outcome* o = recording()) {
+            o->done = true;
+            o->reason = reason;
+            o->excess = excess;
+            repeats.recording = SIZE_MAX;
+        }
         ++rejected[r];
         best_excess[r] = std::min(best_excess[r], excess);
         if (!closest || excess < closest->excess) keep_closest(r, excess, detail);
     }
 
 private:
+    Outcome* recording() { return repeats.recording < repeats.outcomes.size() ? &repeats.outcomes[repeats.recording] : nullptr; }
     // Out of line and cold: the text is built rarely, and kept apart it leaves the search's hot code small.
     template <class Detail>
     [[gnu::noinline, gnu::cold]] void keep_closest(std::size_t r, double excess, const Detail& detail) {
@@ -166,6 +204,10 @@ private:
     void check(const Candidate& c, Tally& t) const;
     bool fit(const Candidate& c, Geometry& g, Tally& t) const;
     bool solve(const Candidate& c, Geometry& g, Tally& t) const;
+    // Whether a candidate of this chunk, wire and form that snapped to `turns` was checked before: its outcome
+    // is then counted again for c, which solved `solved` turns at its grid pitch `grid_pitch`. Else c's own
+    // outcome will be recorded.
+    bool repeated(const Candidate& c, double turns, double solved, double grid_pitch, Tally& t) const;
     DesignFigures figures(const Candidate& c, const Geometry& g, const Solenoid& s) const;
     bool screen_thermal(const Candidate& c, const Solenoid& s, DesignFigures& d, Tally& t) const;
     bool screen_band(const Candidate& c, const Solenoid& s, const Geometry& g, DesignFigures& d, Tally& t,

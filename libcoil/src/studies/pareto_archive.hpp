@@ -47,6 +47,8 @@ inline double corner_distance(const DesignFigures& d, const Box& b, double ceili
     return x * x + y * y + z * z;
 }
 
+inline double snap_of(const DesignFigures& d) { return std::fabs(d.turns - d.turns_solved); }
+
 // The boxes, one array per figure, and their designs beside them: the dominance scan reads only the
 // small integer arrays, in blocks the compiler vectorises.
 class Archive {
@@ -59,7 +61,9 @@ public:
             if (box(i) == b) {  // one design per box: the dominating one, else the nearer to the corner
                 DesignFigures& f = designs_[i];
                 if (dominates(f, d, ceiling_)) return;
-                if (dominates(d, f, ceiling_) || corner_distance(d, b, ceiling_) < corner_distance(f, b, ceiling_)) f = d;
+                const double to_d = corner_distance(d, b, ceiling_), to_f = corner_distance(f, b, ceiling_);
+                // Of one coil reached from several grid pitches, the one whose solved turns lie nearest the snapped.
+                if (dominates(d, f, ceiling_) || to_d < to_f || (to_d == to_f && snap_of(d) < snap_of(f))) f = d;
                 return;
             }
             // Dominated. Neighbouring candidates tend to fall to the same box: move it forward, so that
