@@ -205,20 +205,11 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
     require_positive("target.inductance", q.inductance);
     if (q.wires.empty()) throw InputError("search.wires", "the list is empty");
     check_conflicts(q);
-    // The grid is enumerated by index, never stored: candidate i is (wire, diameter, ratio) in row-major order.
-    const std::vector<double> diameters = q.form_diameter.values(), ratios = q.pitch_ratio.values();
-    const std::size_t per_wire = diameters.size() * ratios.size(), total = q.wires.size() * per_wire;
-    // The threads take chunks of whole wire-and-form rows where a row is short, so that the ratios of one row
-    // that snap to the same turns are checked once (Tally::repeats).
-    const std::size_t chunk = ratios.size() <= 4096 ? std::max<std::size_t>(1, 256 / ratios.size()) * ratios.size() : 256;
-    const auto candidate = [&](std::size_t i) {
-        return detail::Candidate{i / per_wire, diameters[(i % per_wire) / ratios.size()], ratios[i % ratios.size()], i / chunk};
-    };
     const detail::Evaluator ev(q);
+    const std::size_t total = detail::grid_size(q);
     unsigned threads = options.threads ? options.threads : std::max(1u, std::thread::hardware_concurrency());
     threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(1, total / 64 + 1)));
-    std::vector<detail::Tally> tallies(threads, detail::Tally{detail::Archive(ev.ceiling())});
-    detail::parallel_chunks(total, tallies, [&](std::size_t i, detail::Tally& t) { ev.evaluate(candidate(i), t); }, options.progress, chunk);
+    std::vector<detail::Tally> tallies = detail::screen_grid(q, ev, threads, options.progress);
 
     DesignResult out;
     out.candidates_evaluated = total;

@@ -94,16 +94,6 @@ Evaluator::Evaluator(const Requirement& q) : q_(q) {
     if (q.former) limit_ = std::min(limit_, q.former->material.max_service_temperature);
 }
 
-void Evaluator::evaluate(const Candidate& c, Tally& t) const {
-    t.repeats.recording = SIZE_MAX;
-    try {
-        check(c, t);
-    } catch (const std::exception& e) {  // InputError, DomainError
-        const std::string why = e.what();
-        t.reject(Reason::model_domain, 10, [&] { return q_.wires[c.wire].wire.label + " on " + mm(c.form_diameter) + ": " + why; });
-    }
-}
-
 std::string Evaluator::what(const Candidate& c) const {
     return q_.wires[c.wire].wire.label + " on " + mm(c.form_diameter) + " at pitch ratio " + fixed(c.ratio, 2);
 }
@@ -139,40 +129,6 @@ void Evaluator::check(const Candidate& c, Tally& t) const {
     if (!screen_band(c, s, g, d, t, field)) return;
     loss_at_reference(s, d, field);
     t.pass(d);
-}
-
-// A repeat that passed is offered to the front again as what c solved before the snap: the archive keeps, of
-// such equal designs, the one whose solved turns lie nearest the snapped (pareto_archive.hpp), from whose
-// grid pitch a retarget starts.
-bool Evaluator::repeated(const Candidate& c, double turns, double solved, double grid_pitch, Tally& t) const {
-    if (c.chunk == SIZE_MAX) return false;
-    Tally::Repeats& r = t.repeats;
-    r.recording = SIZE_MAX;
-    if (r.chunk != c.chunk || r.wire != c.wire || r.form_diameter != c.form_diameter) {
-        r.chunk = c.chunk;
-        r.wire = c.wire;
-        r.form_diameter = c.form_diameter;
-        r.outcomes.clear();
-    }
-    for (std::size_t i = r.outcomes.size(); i-- > 0;) {
-        const Tally::Outcome o = r.outcomes[i];
-        if (o.turns != turns) continue;
-        if (!o.done) break;  // its check ended in neither (it cannot; then c is checked afresh)
-        if (o.feasible) {
-            ++t.feasible;
-            DesignFigures d = o.design;
-            d.turns_solved = solved;
-            d.pitch_before_trim = grid_pitch;
-            t.front.add(d);
-        } else {
-            // Never the closest miss: the first of them, counted in this tally, was at least as close.
-            t.reject(o.reason, o.excess, [&] { return what(c) + ": the same coil as a lower pitch ratio's"; });
-        }
-        return true;
-    }
-    r.outcomes.push_back({turns});
-    r.recording = r.outcomes.size() - 1;
-    return false;
 }
 
 // The shield, the outer diameter, the room for a winding.

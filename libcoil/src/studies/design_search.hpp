@@ -12,6 +12,7 @@
 #include <memory>
 #include <cstddef>
 #include <cstdint>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -248,5 +249,11 @@ private:
     std::optional<double> fixed_ac_ratio_;        // the winding's R_ac / R_dc, set for one design by retarget()
     std::shared_ptr<const PortResponse> fixture_; // the fixture's port as the coil varies, at fixture_points
 };
+
+// The grid's candidate count, and the grid through the screen on `threads` threads (design_grid.cpp): one
+// tally per thread, which design() merges.
+std::size_t grid_size(const Requirement& q);
+std::vector<Tally> screen_grid(const Requirement& q, const Evaluator& ev, unsigned threads,
+                               const std::function<void(std::size_t, std::size_t)>& progress);
 
 }  // namespace libcoil::detail

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <complex>
+#include <utility>
 
 namespace libcoil::detail {
 
@@ -29,6 +30,17 @@ InductanceFallFit::InductanceFallFit(double x, double internal_ratio) : in_range
     }
 }
 
+namespace {
+
+// Each monomial as the product of its features' powers, unrolled: the powers' indices are constants, and the
+// factors of power 0 (exactly 1) drop out of the product without changing it.
+template <std::size_t... T>
+void monomials(const double (&power)[f::features][f::degree + 1], FallTerms& out, std::index_sequence<T...>) {
+    ((out[T] = power[0][f::powers[T][0]] * power[1][f::powers[T][1]] * power[2][f::powers[T][2]] * power[3][f::powers[T][3]]), ...);
+}
+
+}  // namespace
+
 std::optional<FallTerms> fall_terms(double spacing, double diameter, double turns) {
     if (!(spacing > 1) || !(diameter > 0) || !(turns > 0)) return std::nullopt;
     const double rings = std::max(1.0, std::floor(turns + 0.5));
@@ -41,10 +53,7 @@ std::optional<FallTerms> fall_terms(double spacing, double diameter, double turn
         for (int e = 1; e <= f::degree; ++e) power[k][e] = power[k][e - 1] * s;
     }
     FallTerms out;
-    for (int t = 0; t < f::terms; ++t) {
-        const unsigned char* e = f::powers[t];
-        out[static_cast<std::size_t>(t)] = power[0][e[0]] * power[1][e[1]] * power[2][e[2]] * power[3][e[3]];
-    }
+    monomials(power, out, std::make_index_sequence<f::terms>{});
     return out;
 }
 
