@@ -52,8 +52,10 @@ void BM_DesignSearchOneThread(benchmark::State& s) {
 }
 BENCHMARK(BM_DesignSearchOneThread)->Arg(0)->Arg(1)->ArgName("typical")->Unit(benchmark::kMillisecond);
 
-// The dense grid of benchmarks/side_by_side.py (117 384 candidates, every band criterion on): the screen alone,
-// as design() runs it before it confirms the ranked designs, on one thread.
+// The screen alone, as design() runs it before it confirms the ranked designs, on one thread: the dense grid of
+// benchmarks/side_by_side.py (117 384 candidates, every band criterion on; four pitch ratios of a row snap
+// to each count of turns, and the screen checks that coil once), and the two grids above (steps of 0.025 and
+// 0.05 in the pitch ratio: one to two ratios a count).
 const char* side_by_side_dense = R"(
 target: {inductance: 5 uH, tolerance: 2 %}
 band: {low: 150 kHz, ceiling: 30 MHz, srf_margin: 2.5, max_deviation: 10 %, min_impedance: 3 ohm}
@@ -67,7 +69,8 @@ former: {material: PETG, kind: grooved-tube, wall: 3 mm}
 )";
 
 void BM_DesignScreenOneThread(benchmark::State& s) {
-    const libcoil::Requirement q = libcoil::parse_requirement(side_by_side_dense);
+    const char* grids[] = {side_by_side_dense, dense, typical};
+    const libcoil::Requirement q = libcoil::parse_requirement(grids[s.range(0)]);
     std::size_t n = 0, feasible = 0;
     for (auto _ : s) {
         const libcoil::detail::Evaluator ev(q);
@@ -78,6 +81,6 @@ void BM_DesignScreenOneThread(benchmark::State& s) {
     s.SetItemsProcessed(static_cast<int64_t>(n));
     s.counters["feasible_share"] = static_cast<double>(feasible) / static_cast<double>(n / s.iterations());
 }
-BENCHMARK(BM_DesignScreenOneThread)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_DesignScreenOneThread)->Arg(0)->Arg(1)->Arg(2)->ArgName("grid")->Unit(benchmark::kMillisecond);
 
 }  // namespace
