@@ -38,7 +38,7 @@ inline constexpr int fixture_points = 25;
 struct Candidate {
     std::size_t wire;
     double form_diameter, ratio;
-    // The chunk of the grid it was handed out in (design.cpp): outcomes repeat only within one chunk, so that
+    // The chunk of the grid it was handed out in (design_grid.cpp): outcomes repeat only within one chunk, so that
     // how the chunks fall to threads cannot change them. None: the candidate stands alone.
     std::size_t chunk = SIZE_MAX;
 };
@@ -92,9 +92,10 @@ struct Tally {
         bool rosa = false;
     } short_of_target{};
     // The outcomes of one wire and form's candidates in one chunk, by the turns they snap to. The pitch ratios
-    // that snap to the same turns trim to the same pitch, whatever pitch the trim starts from (its root is
-    // unique: L falls as the pitch grows), so they are one coil: the first one's outcome stands for the
-    // rest (Evaluator::solve). On the dense grid of benchmarks/side_by_side.py four candidates share each.
+    // that snap to the same turns trim to the same pitch whatever grid pitch the trim starts from (L falls as
+    // the pitch grows), so they are one coil: the first one's outcome stands for the rest (Evaluator::solve).
+    // Where a trim stops short of its target's fixed point (58 of the 12 055 coils of the dense grid of
+    // benchmarks/side_by_side.py, where four candidates share each), the first ratio's coil is the one counted.
     struct Outcome {
         double turns;
         bool done = false, feasible = false;
