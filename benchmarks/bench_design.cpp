@@ -52,25 +52,13 @@ void BM_DesignSearchOneThread(benchmark::State& s) {
 }
 BENCHMARK(BM_DesignSearchOneThread)->Arg(0)->Arg(1)->ArgName("typical")->Unit(benchmark::kMillisecond);
 
-// The screen alone, as design() runs it before it confirms the ranked designs, on one and two threads: the dense grid of
-// benchmarks/side_by_side.py (117 384 candidates, every band criterion on; four pitch ratios of a row snap
-// to each count of turns, and the screen checks that coil once), and the two grids above (steps of 0.025 and
-// 0.05 in the pitch ratio: one to two ratios a count).
-const char* side_by_side_dense = R"(
-target: {inductance: 5 uH, tolerance: 2 %}
-band: {low: 150 kHz, ceiling: 30 MHz, srf_margin: 2.5, max_deviation: 10 %, min_impedance: 3 ohm}
-operating: {current: 6 A, ambient: 35 degC}
-limits: {max_outer_diameter: 40 mm, max_length: 60 mm, max_wire_length: 3 m}
-search:
-  wires: [AWG 14, AWG 16, AWG 18, 1.25 mm grade 2]
-  form_diameter: {min: 15 mm, max: 35 mm, step: 0.1 mm}
-  pitch_ratio: {min: 1.05, max: 2.5, step: 0.01}
-former: {material: PETG, kind: grooved-tube, wall: 3 mm}
-)";
-
+// The screen alone, as design() runs it before it confirms the ranked designs, on one and two threads: the dense grid
+// that benchmarks/side_by_side.py times whole (dense-grid-requirement.yaml: 117 384 candidates, every band criterion
+// on; four pitch ratios of a row snap to each count of turns, and the screen checks that coil once), and the two
+// grids above (steps of 0.025 and 0.05 in the pitch ratio: one to two ratios a count).
 void BM_DesignScreen(benchmark::State& s) {
-    const char* grids[] = {side_by_side_dense, dense, typical};
-    const libcoil::Requirement q = libcoil::parse_requirement(grids[s.range(0)]);
+    const libcoil::Requirement q = s.range(0) == 0 ? libcoil::load_requirement(LIBCOIL_BENCH_DIR "/dense-grid-requirement.yaml")
+                                                   : libcoil::parse_requirement(s.range(0) == 1 ? dense : typical);
     std::size_t n = 0, feasible = 0;
     for (auto _ : s) {
         const libcoil::detail::Evaluator ev(q);

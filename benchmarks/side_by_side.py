@@ -10,7 +10,8 @@ The reference chain, vectorised over coils (numpy and scipy from Debian):
 libcoil.evaluate computes the same chain (chain="light") and its full one (chain="full": the recommended L,
 R_ac with proximity effect, the recommended SRF's fast path). The script checks that the light chains agree,
 then times each at 1, 1e3 and 1e5 coils (the median of interleaved repeats) and prints the ratios; last, the
-design search's candidates per second on one and two threads (a dense grid, with every band criterion on),
+design search's candidates per second on one and two threads (dense-grid-requirement.yaml beside it: every band
+criterion on),
 through the whole call: the screen of the grid, then the ranked designs confirmed with the turn network until
 one passes, and its full analysis. The screen alone is timed by benchmarks/bench_design.cpp's BM_DesignScreen
 on the same grid.
@@ -18,6 +19,7 @@ on the same grid.
 Run:  PYTHONPATH=build/python /usr/bin/python3 benchmarks/side_by_side.py
 """
 import os
+import pathlib
 import platform
 import statistics
 import time
@@ -120,17 +122,7 @@ def main():
               f"({res.candidates_evaluated} candidates, {res.feasible} feasible)")
 
 
-DENSE = """
-target: {inductance: 5 uH, tolerance: 2 %}
-band: {low: 150 kHz, ceiling: 30 MHz, srf_margin: 2.5, max_deviation: 10 %, min_impedance: 3 ohm}
-operating: {current: 6 A, ambient: 35 degC}
-limits: {max_outer_diameter: 40 mm, max_length: 60 mm, max_wire_length: 3 m}
-search:
-  wires: [AWG 14, AWG 16, AWG 18, 1.25 mm grade 2]
-  form_diameter: {min: 15 mm, max: 35 mm, step: 0.1 mm}
-  pitch_ratio: {min: 1.05, max: 2.5, step: 0.01}
-former: {material: PETG, kind: grooved-tube, wall: 3 mm}
-"""
+DENSE = (pathlib.Path(__file__).resolve().parent / "dense-grid-requirement.yaml").read_text()
 
 if __name__ == "__main__":
     main()
