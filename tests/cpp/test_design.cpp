@@ -361,7 +361,8 @@ TEST(DesignScreen, FallFitReadsTheTableAsTheScriptDoes) {
 
 // The grid's pitch ratios of one wire and form that snap to the same turns trim to the same coil, so the
 // search checks the first and counts its outcome for the rest (Tally::repeats). Checked here against every
-// candidate checked alone, on a grid fine enough that three to five ratios share each snapped count.
+// candidate checked alone, on a grid fine enough that three to five ratios share each snapped count. The
+// library's own contract; no source.
 TEST(Design, CandidatesThatSnapAlikeAreCheckedOnce) {
     const Requirement q = parse_requirement(R"(
 target: {inductance: 5 uH, tolerance: 2 %}

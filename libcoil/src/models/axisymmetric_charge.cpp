@@ -130,8 +130,8 @@ Kernel piece_integral(const Panel& p, double u0, double u1, double rho, double z
 // care for overflow cost 6 % of a design search here).
 double distance(const Panel& p, double rho, double z) { return std::sqrt((rho - p.rc) * (rho - p.rc) + (z - p.zc) * (z - p.zc)); }
 
-// Whether panel_integral takes far_integral for the point (rho, z).
-bool is_far(const Panel& p, double rho, double z) { return distance(p, rho, z) > 3 * p.length; }
+// Whether panel_integral takes far_integral for a point `ratio` panel lengths from the panel's middle.
+bool is_far(double ratio) { return ratio > detail::far_lengths; }
 
 // The n-point rule over the whole panel (the elliptic integrals go in pairs: an odd n takes one more point of weight 0).
 template <int n>
@@ -185,7 +185,7 @@ Kernel panel_integral(const Panel& p, double rho, double z, double nr, double nz
         }
         return k;
     }
-    if (is_far(p, rho, z)) return far_integral(p, rho, z, nr, nz, plane);
+    if (is_far(distance(p, rho, z) / p.length)) return far_integral(p, rho, z, nr, nz, plane);
     if (distance(p, rho, z) > 1.5 * p.length) return piece_integral(p, 0, 1, rho, z, nr, nz, plane);
     Kernel k;
     for (int s = 0; s < 4; ++s) {
@@ -205,8 +205,11 @@ double piece_integral_area(const Panel& p) {
 
 // An entry of the system's matrix, panel `t`'s row and panel `s`'s column: conductor rows give the
 // potential (times 4 pi eps0), dielectric rows sigma - (lambda / 2 pi) E_n (times 4 pi eps0).
+// The factor a dielectric face's entry takes of the normal field (entry_of).
+double field_scale(const Panel& t) { return -t.lambda / (2 * pi); }
+
 double entry_of(const Panel& t, const Kernel& k, bool own) {
-    return t.dielectric ? (own ? 1.0 : 0.0) - t.lambda / (2 * pi) * k.e_n : k.phi;
+    return t.dielectric ? (own ? 1.0 : 0.0) + field_scale(t) * k.e_n : k.phi;
 }
 
 double system_entry(const Panel& t, const Panel& s, bool own, const std::optional<double>& plane) {
@@ -222,21 +225,21 @@ void system_row(const Panel& t, const Panel* s, Eigen::Index n, Eigen::Index own
     Eigen::Index column[8];
     int queued = 0;
     // An entry is linear in its kernel (entry_of): each point adds its share to its panel's entry.
-    const double field_scale = t.dielectric ? -t.lambda / (2 * pi) : 0.0;
+    const double scale = t.dielectric ? field_scale(t) : 0.0;
     const auto flush = [&] {
         for (int g = queued; g < 8; ++g) a[g] = a[0], zs[g] = zs[0], w[g] = 0, column[g] = column[0];  // padding, weight 0
         RingField f[8];
         ring_fields<8>(a, zs, t.rc, t.zc, f);
         for (int g = 0; g < 8; ++g) {
             const double weight = w[g] * 2 * pi * a[g];
-            row(column[g]) += weight * (t.dielectric ? field_scale * (f[g].e_rho * t.nr + f[g].e_z * t.nz) : f[g].phi);
+            row(column[g]) += weight * (t.dielectric ? scale * (f[g].e_rho * t.nr + f[g].e_z * t.nz) : f[g].phi);
         }
         queued = 0;
     };
     for (Eigen::Index j = 0; j < n; ++j) {
         const Panel& q = s[j];
         const double ratio = distance(q, t.rc, t.zc) / q.length;
-        if (plane || j == own || !(ratio > 3)) {
+        if (plane || j == own || !is_far(ratio)) {
             row(j) = system_entry(t, q, j == own, plane);
             continue;
         }

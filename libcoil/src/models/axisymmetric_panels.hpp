@@ -61,6 +61,8 @@ constexpr int far_first(int n) { return n == 4 ? 0 : n == 3 ? 4 : 7; }
 // grid's charge solves (2026-12-05) 14 % of the far pairs took four points, 60 % three, 26 % two: 28 %
 // fewer far points than four each, 18 % fewer ring-field evaluations in all (callgrind).
 constexpr int far_points(double ratio) { return ratio > 35.7 ? 2 : ratio > 6.86 ? 3 : 4; }
+// Beyond this many panel lengths from its middle a whole panel takes far_integral.
+inline constexpr double far_lengths = 3;
 
 // The panels of a scene, its dielectrics' faces first, then its conductors'; grading towards `rings` and the
 // conductors' wire circles. InputError beyond 20000 panels.

@@ -242,18 +242,20 @@ std::vector<RingImpedance> WireHarmonicSolver::solve(const std::vector<double>& 
     return out;
 }
 
-int WireHarmonicSolver::harmonics_at(double frequency) const {
-    const double a = wire_radius_;
+double WireHarmonicSolver::solved_frequency(double frequency) const {
     // DC as the limit: a frequency whose skin depth is 30 wire radii (R within 1e-7 of DC).
-    const double f = frequency > 0 ? frequency : resistivity_ / (pi * mu0 * 900 * a * a);
-    return harmonics_ > 0 ? harmonics_ : harmonics_for(rings_.size() > 1 ? min_gap_ : 1e3, 2 * a / skin_depth(resistivity_, f));
+    return frequency > 0 ? frequency : resistivity_ / (pi * mu0 * 900 * wire_radius_ * wire_radius_);
+}
+
+int WireHarmonicSolver::harmonics_at(double frequency) const {
+    const double d_over_delta = 2 * wire_radius_ / skin_depth(resistivity_, solved_frequency(frequency));
+    return harmonics_ > 0 ? harmonics_ : harmonics_for(rings_.size() > 1 ? min_gap_ : 1e3, d_over_delta);
 }
 
 RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& kept) const {
     require_non_negative("frequency", frequency);
     const double a = wire_radius_, sigma = 1 / resistivity_;
-    // DC as the limit: a frequency whose skin depth is 30 wire radii (R within 1e-7 of DC).
-    const double f = frequency > 0 ? frequency : resistivity_ / (pi * mu0 * 900 * a * a);
+    const double f = solved_frequency(frequency);
     const double delta = skin_depth(resistivity_, f);
     const double omega = 2 * pi * f;
     const int M = harmonics_at(frequency);

@@ -43,8 +43,7 @@ void Evaluator::evaluate(const Candidate& c, Tally& t) const {
 // grid pitch a retarget starts.
 bool Evaluator::repeated(const Candidate& c, double turns, double solved, double grid_pitch, Tally& t) const {
     if (c.chunk == SIZE_MAX) return false;
-    Tally::Repeats& r = t.repeats;
-    r.recording = SIZE_MAX;
+    Tally::Repeats& r = t.repeats;  // (evaluate() has cleared its recording)
     if (r.chunk != c.chunk || r.wire != c.wire || r.form_diameter != c.form_diameter) {
         r.chunk = c.chunk;
         r.wire = c.wire;

@@ -91,7 +91,8 @@ public:
 private:
     struct Kernel;  // the geometric terms at one count of collocation points
     RingImpedance solve(double frequency, std::vector<Kernel>& kept) const;
-    int harmonics_at(double frequency) const;  // the harmonics a solve at `frequency` takes
+    double solved_frequency(double frequency) const;  // `frequency`, or DC's stand-in for 0
+    int harmonics_at(double frequency) const;          // the harmonics a solve at `frequency` takes
     // The kernel at the collocation points whose angles have these cosines and sines: from `kept`, or computed
     // and added to it.
     const Kernel& kernel(const std::vector<double>& cth, const std::vector<double>& sth, std::vector<Kernel>& kept,
