@@ -229,6 +229,16 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         }
     }
     std::vector<DesignFigures> front = archive.take();
+    // Where no design is left, after the words on what bound the search: the one limit whose relaxing alone
+    // makes a design feasible (where asked), and the cautions the inputs call for.
+    const auto nothing_feasible = [&] {
+        if (options.seek_one_change) {
+            out.one_change = one_change(q, options, out.best_excess_by_reason);
+            out.binding += out.one_change.empty() ? " No single limit, relaxed alone, makes a design feasible."
+                                                  : " One change that makes a design feasible (found by searching again): " + out.one_change + ".";
+        }
+        out.cautions = safety_cautions(q.supply_voltage, q.rf_power, 0, 0);
+    };
     for (auto& d : front) d.wire_label = q.wires[d.wire_index].wire.label;
     if (front.empty()) {
         std::string top_reason;
@@ -246,12 +256,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
             out.binding += " The closest attempt, " + out.closest->detail + ", misses " + detail::reason_words(out.closest->reason) +
                            (by < 0.05 ? " by less than 0.1 %." : " by " + detail::fixed(by, 1) + " %.");
         }
-        if (options.seek_one_change) {
-            out.one_change = one_change(q, options, out.best_excess_by_reason);
-            out.binding += out.one_change.empty() ? " No single limit, relaxed alone, makes a design feasible."
-                                                  : " One change that makes a design feasible (found by searching again): " + out.one_change + ".";
-        }
-        out.cautions = safety_cautions(q.supply_voltage, q.rf_power, 0, 0);
+        nothing_feasible();
         return out;
     }
     // Score relative to the best of each figure.
@@ -334,12 +339,7 @@ DesignResult design(const Requirement& q, const DesignOptions& options) {
         out.binding = "No candidate meets the requirement: every design the search kept (" + std::to_string(front.size()) +
                       (q.fixture ? ") fails the band with the turn network's self-resonance, the recommended one, or the full fixture study."
                                  : ") fails the band with the turn network's self-resonance, the recommended one.");
-        if (options.seek_one_change) {
-            out.one_change = one_change(q, options, out.best_excess_by_reason);
-            out.binding += out.one_change.empty() ? " No single limit, relaxed alone, makes a design feasible."
-                                                  : " One change that makes a design feasible (found by searching again): " + out.one_change + ".";
-        }
-        out.cautions = safety_cautions(q.supply_voltage, q.rf_power, 0, 0);
+        nothing_feasible();
         return out;
     }
     for (std::size_t i = 0; i < std::min(out.pareto.size(), std::max<std::size_t>(options.top, 1)); ++i) {
