@@ -122,3 +122,61 @@ def test_turn_network(d, turns, pitch_ratio, wire, mounting):
     assert all(math.isfinite(x) and x > 0 for x in f)
     assert f == sorted(f)
     assert all(math.isfinite(abs(v)) for v in z)
+
+
+@st.composite
+def coil_specs(draw):
+    """A coil spec (YAML) of any buildable shape the readers take, with or without a former, a band, a current,
+    a mounting and a shield. Bounded where the analysis grows slow, not where it might fail: frequencies up to
+    300 MHz and a shield at most ten form diameters long (a tube far longer than its coil, thick-walled at GHz,
+    takes the ring model tens of seconds)."""
+    form = draw(st.floats(2, 120))
+    wire = draw(st.floats(0.05, 4))
+    grade = draw(st.sampled_from([0, 1, 2]))
+    pitch = wire * (1.12 if grade else 1.0) * draw(st.floats(1.0, 6))
+    lines = ["name: property", "coil:", f"  form_diameter: {form} mm",
+             f"  turns: {draw(st.one_of(st.integers(1, 150), st.floats(1, 150)))}", f"  pitch: {pitch} mm",
+             f"  lead_length: {draw(st.floats(0, 300))} mm", "  wire:", f"    diameter: {wire} mm"]
+    if grade:
+        lines.append(f"    enamel: grade {grade}")
+    lines.append(f"  conductor: {draw(st.sampled_from(libcoil.conductor_names()))}")
+    lines += ["operating:", f"  frequencies: [{draw(st.floats(1e3, 3e8))} Hz, {draw(st.floats(1e3, 3e8))} Hz]",
+              f"  temperature: {draw(st.floats(-40, 150))} degC"]
+    if draw(st.booleans()):
+        lines.append(f"  current: {draw(st.floats(0.001, 30))} A")
+    if draw(st.booleans()):
+        lines += ["former:", f"  material: {draw(st.sampled_from(libcoil.former_material_names()))}",
+                  "  kind: grooved-tube", f"  wall: {draw(st.floats(0.3, 10))} mm"]
+    if draw(st.booleans()):
+        low = draw(st.floats(1e3, 1e7))
+        lines += ["band:", f"  low: {low} Hz", f"  ceiling: {low * draw(st.floats(1.5, 1000))} Hz",
+                  f"  srf_margin: {draw(st.floats(1.0, 4))}"]
+        if draw(st.booleans()):
+            lines.append(f"  max_deviation: {draw(st.floats(1, 50))} %")
+    if draw(st.booleans()):
+        lines += ["surroundings:", f"  mounting: {draw(st.sampled_from(['floating', 'grounded-end']))}"]
+    if draw(st.booleans()):
+        outer = form + 2.5 * wire
+        lines += ["shield:", f"  inner_diameter: {outer * draw(st.floats(1.01, 5))} mm",
+                  f"  length: {form * draw(st.floats(0.5, 10))} mm", f"  thickness: {draw(st.floats(0.05, 2))} mm",
+                  f"  material: {draw(st.sampled_from(libcoil.conductor_names()))}"]
+    return "\n".join(lines) + "\n"
+
+
+def no_constant(text):
+    raise AssertionError("a non-finite number in the JSON report: " + text)
+
+
+@settings(max_examples=40, deadline=None)
+@given(coil_specs())
+def test_the_analysis_of_any_spec_is_finite_or_a_clear_error(text):
+    # The whole analysis, as `coil analyze --json` runs it: every figure of the report finite, or a library
+    # error. Common practice, no outside source. Run on a few hundred specs, it found a coil 0.2 mm inside its can
+    # whose shield closed form overflowed (tests/cpp/test_shield.cpp, ATubeCloseAroundTheWindingKeepsTheClosedForm).
+    try:
+        analysis = libcoil.analyze(libcoil.parse_coil_spec(text, "property"), threads=1)
+        report = libcoil.json_report(analysis)
+    except ERRORS:
+        return
+    import json
+    json.loads(report, parse_constant=no_constant)
