@@ -1,5 +1,6 @@
 """Property tests (hypothesis): for any input, a public function returns a finite number or raises
 libcoil.InputError / libcoil.DomainError. No NaN or infinity escapes."""
+import json
 import math
 
 from hypothesis import given, settings, strategies as st
@@ -178,5 +179,4 @@ def test_the_analysis_of_any_spec_is_finite_or_a_clear_error(text):
         report = libcoil.json_report(analysis)
     except ERRORS:
         return
-    import json
     json.loads(report, parse_constant=no_constant)
