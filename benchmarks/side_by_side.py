@@ -10,11 +10,10 @@ The reference chain, vectorised over coils (numpy and scipy from Debian):
 libcoil.evaluate computes the same chain (chain="light") and its full one (chain="full": the recommended L,
 R_ac with proximity effect, the recommended SRF's fast path). The script checks that the light chains agree,
 then times each at 1, 1e3 and 1e5 coils (the median of interleaved repeats) and prints the ratios; last, the
-design search's candidates per second on one and two threads (dense-grid-requirement.yaml beside it: every band
-criterion on),
-through the whole call: the screen of the grid, then the ranked designs confirmed with the turn network until
-one passes, and its full analysis. The screen alone is timed by benchmarks/bench_design.cpp's BM_DesignScreen
-on the same grid.
+design search's candidates per second on one and two threads (dense-grid-requirement.yaml beside it: every
+band criterion on), through the whole call: the screen of the grid, then the ranked designs confirmed with the
+turn network until one passes, and its full analysis. The screen alone is timed by
+benchmarks/bench_design.cpp's BM_DesignScreen on the same grid.
 
 Run:  PYTHONPATH=build/python /usr/bin/python3 benchmarks/side_by_side.py
 """

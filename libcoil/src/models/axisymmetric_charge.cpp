@@ -203,11 +203,11 @@ double piece_integral_area(const Panel& p) {
     return 2 * pi * 0.5 * p.length * sum;
 }
 
-// An entry of the system's matrix, panel `t`'s row and panel `s`'s column: conductor rows give the
-// potential (times 4 pi eps0), dielectric rows sigma - (lambda / 2 pi) E_n (times 4 pi eps0).
 // The factor a dielectric face's entry takes of the normal field (entry_of).
 double field_scale(const Panel& t) { return -t.lambda / (2 * pi); }
 
+// An entry of the system's matrix, panel `t`'s row and panel `s`'s column: conductor rows give the
+// potential (times 4 pi eps0), dielectric rows sigma - (lambda / 2 pi) E_n (times 4 pi eps0).
 double entry_of(const Panel& t, const Kernel& k, bool own) {
     return t.dielectric ? (own ? 1.0 : 0.0) + field_scale(t) * k.e_n : k.phi;
 }
