@@ -352,6 +352,9 @@ TEST(DesignScreen, FallFitReadsTheTableAsTheScriptDoes) {
         const auto ratio = fit.ratio(r[1], r[2], r[3]);
         ASSERT_TRUE(ratio.has_value()) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
         EXPECT_NEAR(*ratio / r[5], 1.0, 1e-12) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
+        // The band's path, the three polynomials taken once and weighed at each x, reads the same table.
+        const auto shapes = detail::fall_shapes(*detail::fall_terms(r[1], r[2], r[3]));
+        EXPECT_NEAR(fit.ratio(shapes, r[2]) / r[5], 1.0, 1e-12) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
     }
     // Outside the sampled range: x, D / d below the wire-harmonic solver's 6, touching turns.
     EXPECT_FALSE(detail::InductanceFallFit(0.1, 1.0).ratio(1.5, 20, 10).has_value());

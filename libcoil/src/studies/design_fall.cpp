@@ -32,6 +32,10 @@ void Evaluator::prepare_fall() {
         screen_fall_per_length_.push_back(fall);
         fall_fit_.push_back(fit);
         top_d_over_delta_.push_back(top_frequency() > 0 ? wo.wire.bare_diameter / skin_depth(rho, top_frequency(), mu) : 0.0);
+        // harmonic_unknowns_for's count, (n + 1) / 2 rings of 2 M + 2 unknowns, is largest at the closest
+        // pitch (M grows as the gap closes, to its ceiling at a gap of a hundredth of d and below).
+        const auto per_ring = static_cast<long>(2 * harmonics_for(1.001, top_d_over_delta_.back()) + 2);
+        solver_takes_any_pitch_.push_back(2 * (static_cast<long>(default_max_harmonic_unknowns) / per_ring));
         std::vector<InductanceFallFit> band;
         for (const double f : band_points_) band.emplace_back(x_at(f), skin_ratios(x_at(f)).internal_inductance);
         band_fall_fit_.push_back(std::move(band));
@@ -39,6 +43,7 @@ void Evaluator::prepare_fall() {
 }
 
 bool Evaluator::solver_takes(std::size_t wire, double turns, double pitch) const {
+    if (std::lround(turns) <= solver_takes_any_pitch_[wire]) return true;
     return harmonic_unknowns_for(turns, pitch / unlabelled_[wire].bare_diameter, top_d_over_delta_[wire]) <= default_max_harmonic_unknowns;
 }
 
@@ -57,6 +62,7 @@ WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double
     const double d = s.wire().bare_diameter;
     const auto terms = fall_terms(s.pitch_to_wire(), s.mean_diameter() / d, s.turns());
     if (!terms) return {};
+    const FallShapes shapes = fall_shapes(*terms);
     // The closed forms' L(f) at the winding's temperature (losses.hpp's coil_at_frequencies): L_dc less the
     // internal inductance the skin effect removes; the offset moves it onto L_dc (1 - the fitted ratio).
     const double rho = q_.conductor.resistivity_at(temperature), l_int_dc = dc_internal_inductance_per_length() * s.helix_length();
@@ -67,7 +73,7 @@ WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double
         const double closed = l_int_dc * (1 - wire_skin_ratios(s.wire().radius(), rho, band_points_[i]).internal_inductance);
         f.push_back(band_points_[i]);
         ratio.push_back(1.0);
-        offset.push_back(closed - fit.ratio(*terms, s.mean_diameter() / d) * l_dc);
+        offset.push_back(closed - fit.ratio(shapes, s.mean_diameter() / d) * l_dc);
     }
     return f.empty() ? WireLossTable{} : WireLossTable(std::move(f), std::move(ratio), std::move(offset));
 }

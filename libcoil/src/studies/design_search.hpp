@@ -244,6 +244,7 @@ private:
     std::vector<double> screen_fall_per_length_;
     std::vector<std::optional<InductanceFallFit>> fall_fit_;
     std::vector<double> top_d_over_delta_;
+    std::vector<long> solver_takes_any_pitch_;  // the most turns (rounded) the solver takes at any pitch
     std::vector<double> band_points_;                           // Hz, the band screen's (band_check.hpp's screen_band)
     std::vector<std::vector<InductanceFallFit>> band_fall_fit_;  // per wire option, at each band point
     std::optional<double> fixed_offset_;          // H, set for one design by retarget()

@@ -24,9 +24,9 @@ double transverse_screening(double x) {
 InductanceFallFit::InductanceFallFit(double x, double internal_ratio) : in_range_(x >= f::x_low && x <= f::x_high) {
     if (!in_range_) return;
     const double p = transverse_screening(x);
-    const double shape[f::shapes] = {1 - internal_ratio, p, p * p};
+    weights_ = {1 - internal_ratio, p, p * p};
     for (int t = 0; t < f::terms; ++t) {
-        for (int k = 0; k < f::shapes; ++k) folded_[static_cast<std::size_t>(t)] += shape[k] * f::coefficients[k][t];
+        for (int k = 0; k < f::shapes; ++k) folded_[static_cast<std::size_t>(t)] += weights_[static_cast<std::size_t>(k)] * f::coefficients[k][t];
     }
 }
 
@@ -37,6 +37,18 @@ namespace {
 template <std::size_t... T>
 void monomials(const double (&power)[f::features][f::degree + 1], FallTerms& out, std::index_sequence<T...>) {
     ((out[T] = power[0][f::powers[T][0]] * power[1][f::powers[T][1]] * power[2][f::powers[T][2]] * power[3][f::powers[T][3]]), ...);
+}
+
+// A dot product of the fit's length over four running sums: one sum's chain of dependent additions would
+// wait out each addition's latency (the screen took a tenth of its time here so).
+double dot(const double* a, const FallTerms& b) {
+    double s[4] = {0, 0, 0, 0};
+    std::size_t t = 0;
+    for (; t + 4 <= b.size(); t += 4) {
+        for (std::size_t k = 0; k < 4; ++k) s[k] += a[t + k] * b[t + k];
+    }
+    for (; t < b.size(); ++t) s[t % 4] += a[t] * b[t];
+    return (s[0] + s[1]) + (s[2] + s[3]);
 }
 
 }  // namespace
@@ -57,10 +69,16 @@ std::optional<FallTerms> fall_terms(double spacing, double diameter, double turn
     return out;
 }
 
-double InductanceFallFit::ratio(const FallTerms& terms, double diameter) const {
-    double sum = 0;
-    for (std::size_t t = 0; t < terms.size(); ++t) sum += folded_[t] * terms[t];
-    return sum / diameter;
+FallShapes fall_shapes(const FallTerms& terms) {
+    FallShapes out;
+    for (std::size_t k = 0; k < out.size(); ++k) out[k] = dot(f::coefficients[k], terms);
+    return out;
+}
+
+double InductanceFallFit::ratio(const FallTerms& terms, double diameter) const { return dot(folded_.data(), terms) / diameter; }
+
+double InductanceFallFit::ratio(const FallShapes& shapes, double diameter) const {
+    return (weights_[0] * shapes[0] + weights_[1] * shapes[1] + weights_[2] * shapes[2]) / diameter;
 }
 
 std::optional<double> InductanceFallFit::ratio(double spacing, double diameter, double turns) const {

@@ -25,6 +25,11 @@ double transverse_screening(double x);
 using FallTerms = std::array<double, inductance_fall_fit::terms>;
 std::optional<FallTerms> fall_terms(double spacing, double diameter, double turns);
 
+// The fit's three polynomials (A, B, C) at a coil's monomials, which every x weighs alike: one coil's fall at
+// several frequencies takes them once.
+using FallShapes = std::array<double, inductance_fall_fit::shapes>;
+FallShapes fall_shapes(const FallTerms& terms);
+
 // The fit at one x (one wire at one frequency): the three shapes folded into one polynomial's coefficients.
 class InductanceFallFit {
 public:
@@ -38,9 +43,12 @@ public:
     std::optional<double> ratio(double spacing, double diameter, double turns) const;
     // The same from the coil's monomials (fall_terms) and D / d; the fit in range.
     double ratio(const FallTerms& terms, double diameter) const;
+    // The same from the coil's polynomials (fall_shapes) and D / d; the fit in range.
+    double ratio(const FallShapes& shapes, double diameter) const;
 
 private:
     bool in_range_;
+    FallShapes weights_{};  // 1 - the internal inductance ratio, P, P^2
     FallTerms folded_{};
 };
 
