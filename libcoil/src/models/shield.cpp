@@ -79,8 +79,21 @@ std::vector<double> layers(double t, double delta, int max_layers) {
     return edge;
 }
 
-std::vector<Ring> shield_rings(const ShieldSpec& s, double coil_radius, double delta) {
-    const double b = s.inner_diameter / 2, t = s.thickness, len = s.length;
+// The winding's turns as the ring model takes them (turn_filaments: on the mean radius, over the winding).
+SourceReach winding_reach(const Solenoid& coil) { return {coil.mean_radius(), -coil.winding_length() / 2, coil.winding_length() / 2}; }
+
+SourceReach reach_of(const std::vector<WallRingCurrent>& sources) {
+    if (sources.empty()) return {};
+    SourceReach out{0, INFINITY, -INFINITY};
+    for (const auto& t : sources) out = {std::max(out.radius, t.radius), std::min(out.z_low, t.z), std::max(out.z_high, t.z)};
+    return out;
+}
+
+// The wall's rings: the tube's, and the end discs' where it has them; within wall_reach_radii of the
+// sources along the axis (shield.hpp), the rest left out.
+std::vector<Ring> shield_rings(const ShieldSpec& s, const SourceReach& sources, double delta) {
+    const double b = s.inner_diameter / 2, t = s.thickness, len = s.length, coil_radius = sources.radius;
+    const double from = sources.z_low - wall_reach_radii * b, to = sources.z_high + wall_reach_radii * b;
     std::vector<Ring> rings;
     const auto through = layers(t, delta, 6);
     // Along the wall: fine enough for the field's scale (the gap to the coil and the coil's radius).
@@ -88,6 +101,7 @@ std::vector<Ring> shield_rings(const ShieldSpec& s, double coil_radius, double d
     const int nz = std::clamp(static_cast<int>(std::ceil(len / step)), 24, 240);
     for (int i = 0; i < nz; ++i) {
         const double z = s.axial_offset - len / 2 + (i + 0.5) * len / nz;
+        if (z < from || z > to) continue;
         for (std::size_t k = 1; k < through.size(); ++k) {
             rings.push_back({b + 0.5 * (through[k - 1] + through[k]), z, through[k] - through[k - 1], len / nz});
         }
@@ -95,6 +109,7 @@ std::vector<Ring> shield_rings(const ShieldSpec& s, double coil_radius, double d
     if (s.end_discs) {
         const int nr = std::clamp(static_cast<int>(std::ceil((b + t) / step)), 8, 60);
         for (double side : {-1.0, 1.0}) {
+            if (const double end = s.axial_offset + side * len / 2; end < from || end > to) continue;
             for (int i = 0; i < nr; ++i) {
                 const double r = (i + 0.5) * (b + t) / nr;
                 for (std::size_t k = 1; k < through.size(); ++k) {
@@ -225,15 +240,16 @@ struct ShieldWall::Factor {
     Eigen::PartialPivLU<Eigen::MatrixXcd> lu;
 };
 
-ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : shield_(s), omega_(2 * pi * f) {
+ShieldWall::ShieldWall(const ShieldSpec& s, const SourceReach& sources, double f) : shield_(s), omega_(2 * pi * f) {
     require_positive("frequency", f);
     require_positive("shield.inner_diameter", s.inner_diameter);
     require_positive("shield.length", s.length);
     require_positive("shield.thickness", s.thickness);
-    if (!(s.inner_diameter / 2 > source_radius)) throw InputError("shield.inner_diameter", "does not clear the turns");
+    if (!(s.inner_diameter / 2 > sources.radius)) throw InputError("shield.inner_diameter", "does not clear the turns");
+    if (!(sources.z_low <= sources.z_high)) throw InputError("sources", "z_low above z_high");
     const double rho = s.material.resistivity_at(s.temperature);
     delta_ = skin_depth(rho, f, s.material.relative_permeability);
-    const auto rings = shield_rings(s, source_radius, delta_);
+    const auto rings = shield_rings(s, sources, delta_);
     const auto n = static_cast<Eigen::Index>(rings.size());
     using C = std::complex<double>;
     Eigen::MatrixXcd a(n, n);
@@ -246,9 +262,9 @@ ShieldWall::ShieldWall(const ShieldSpec& s, double source_radius, double f) : sh
     factor_ = std::make_shared<const Factor>(Factor{a.partialPivLu()});
 }
 
-bool ShieldWall::serves(double source_radius) const {
-    if (!(shield_.inner_diameter / 2 > source_radius)) return false;
-    const auto rings = shield_rings(shield_, source_radius, delta_);
+bool ShieldWall::serves(const SourceReach& sources) const {
+    if (!(shield_.inner_diameter / 2 > sources.radius)) return false;
+    const auto rings = shield_rings(shield_, sources, delta_);
     if (rings.size() != rings_.size()) return false;
     for (std::size_t i = 0; i < rings.size(); ++i) {
         if (rings[i].r != rings_[i].first || rings[i].z != rings_[i].second) return false;
@@ -264,9 +280,7 @@ void ShieldWall::currents(std::complex<double>* flux, std::size_t columns) const
 }
 
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& turns, const ShieldSpec& s, double f) {
-    double outer = 0;
-    for (const auto& t : turns) outer = std::max(outer, t.radius);
-    return shield_wall_currents(ShieldWall(s, outer, f), turns);
+    return shield_wall_currents(ShieldWall(s, reach_of(turns), f), turns);
 }
 
 std::vector<WallRingCurrent> shield_wall_currents(const ShieldWall& wall, const std::vector<WallRingCurrent>& turns) {
@@ -287,7 +301,7 @@ double shield_inductance_change(const Solenoid& coil, const ShieldSpec& s) {
     // The current of a perfect conductor is a sheet on the inner surface: one thin layer.
     ShieldSpec sheet = s;
     sheet.thickness = std::min(s.thickness, 1e-3 * s.inner_diameter / 2);
-    const System sys = assemble(shield_rings(sheet, coil.mean_radius(), INFINITY), coil, 1.0);
+    const System sys = assemble(shield_rings(sheet, winding_reach(coil), INFINITY), coil, 1.0);
     const Eigen::VectorXd x = sys.m.ldlt().solve(-sys.mc);
     return finite_result("shield", sys.mc.dot(x));
 }
@@ -296,7 +310,7 @@ std::vector<double> shield_turn_inductance_change(const Solenoid& coil, const Sh
     require_around(coil, s);
     ShieldSpec sheet = s;
     sheet.thickness = std::min(s.thickness, 1e-3 * s.inner_diameter / 2);
-    const std::vector<Ring> rings = shield_rings(sheet, coil.mean_radius(), INFINITY);
+    const std::vector<Ring> rings = shield_rings(sheet, winding_reach(coil), INFINITY);
     const System sys = assemble(rings, coil, 1.0);
     const detail::TurnFilaments turns = detail::turn_filaments(coil);
     const auto n = static_cast<Eigen::Index>(turns.z.size()), m = static_cast<Eigen::Index>(rings.size());
@@ -361,7 +375,7 @@ ShieldResult shielded_coil(const Solenoid& coil, double inductance, const Shield
     for (double f : frequencies) {
         require_positive("frequency", f);
         const double delta = skin_depth(rho, f, s.material.relative_permeability);
-        const auto rings = shield_rings(s, a, delta);
+        const auto rings = shield_rings(s, winding_reach(coil), delta);
         const System sys = assemble(rings, coil, rho);
         const double w = 2 * pi * f;
         const std::complex<double> dz = added_impedance(sys, w);

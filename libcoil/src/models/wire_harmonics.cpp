@@ -308,12 +308,19 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
     const ShieldWall* pass_wall = nullptr;
     const double hd = a / 2;  // the dipoles' half spacing
     if (shield_ && frequency > 0) {
+        // Both walls span the wires' whole sections along the axis, so that the one serves the other where
+        // only the radius differs.
         std::vector<WallRingCurrent> turns;
-        double outer = 0;
-        for (const auto& [r, z] : rings_) turns.push_back({r, z, 1.0}), outer = std::max(outer, r);
-        filament_wall.emplace(*shield_, outer, f);
+        SourceReach filaments{0, INFINITY, -INFINITY};
+        for (const auto& [r, z] : rings_) {
+            turns.push_back({r, z, 1.0});
+            filaments = {std::max(filaments.radius, r), std::min(filaments.z_low, z - a), std::max(filaments.z_high, z + a)};
+        }
+        filament_wall.emplace(*shield_, filaments, f);
         wall = shield_wall_currents(*filament_wall, turns);
-        pass_wall = filament_wall->serves(outer + hd) ? &*filament_wall : &dipole_wall.emplace(*shield_, outer + hd, f);
+        SourceReach dipoles = filaments;
+        dipoles.radius += hd;
+        pass_wall = filament_wall->serves(dipoles) ? &*filament_wall : &dipole_wall.emplace(*shield_, dipoles, f);
     }
     // The mutual inductance of each wall ring with each collocation point (every solved wire's in turn, its
     // points in turn, the rings in turn).

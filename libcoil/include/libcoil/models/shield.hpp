@@ -8,7 +8,8 @@
 //          (coaxial_mutual.hpp), a ring's self-inductance at the geometric mean distance of its rectangular
 //          section (ring_inductance.hpp) and its DC resistance 2 pi r rho / (w t); the coil's impedance
 //          gains dZ = j w M_ck I_k / I (Eigen's LU on the complex system). L(f) = L0 + Im(dZ) / w, and the
-//          shield's eddy loss R_s(f) = Re(dZ).
+//          shield's eddy loss R_s(f) = Re(dZ). The wall is modelled to wall_reach_radii (4) inner radii
+//          beyond the winding: the rings further out, and an end disc further out, are left out.
 //          Closed form, the long coil in a long shield at high frequency (the return flux confined between
 //          coil and wall): L = L0 (1 - a^2 / b^2), L0 the unshielded inductance (derived in docs/models.md).
 //          Capacitance to the shield: the coaxial C = 2 pi eps0 l / ln(b / r_outer) over the winding, seen
@@ -20,7 +21,8 @@
 // Accuracy (tests/cpp/test_shield.cpp, tests/python/test_shield.py): the long coil (l/D 20) against
 //          L0 (1 - a^2/b^2) -0.08 %; the ring model against the Fourier-Bessel closed form, dL within 1.1 %
 //          and the shielded L within 0.5 % (l/D 0.5 .. 10, b/a 1.25 .. 3); the closed form against scipy
-//          1e-9; the wall loss at 100 MHz +0.54 % from the surface-resistance form; at 1 Hz L changes 1e-6.
+//          1e-9; the wall loss at 100 MHz +0.54 % from the surface-resistance form; at 1 Hz L changes 1e-6;
+//          the wall's back-action with the rings within reach against the whole 0.4 m tube's, 1.7e-7.
 #pragma once
 
 #include <complex>
@@ -86,17 +88,30 @@ std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<do
 std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurrent>& sources, const ShieldSpec& shield,
                                                   double frequency);
 
+// Where the sources that drive a wall lie (m): out to `radius` from the axis (the bore must clear it), between
+// `z_low` and `z_high` along it, in the coil's frame (the shield's axial_offset is measured in the same).
+struct SourceReach {
+    double radius = 0, z_low = 0, z_high = 0;
+};
+
+// How far beyond its sources a wall is modelled, in inner radii of the tube: the rings further out are left
+// out, and so is an end disc further out. Inside a good conductor's tube the field beyond the winding falls as
+// exp(-3.83 z / b) (the lowest mode below cut-off, J1(x) = 0), 2e-7 at four radii; in a wall thin against the
+// skin depth the far rings see the winding's dipole field, and what they add falls as z^-6 (measured:
+// tests/cpp/test_shield.cpp, ALongTubeIsModelledNearItsWinding).
+inline constexpr double wall_reach_radii = 4;
+
 // The wall at one frequency as a linear system, for solvers that couple many sources to it (the cross-
-// section solver's cells): the ring model's rings (the same discretisation as shielded_coil) and their
-// impedance matrix Z_w, factorised once. `source_radius`: the outermost source ring, which the bore must clear.
+// section solver's cells): the ring model's rings (the same discretisation as shielded_coil, within
+// wall_reach_radii of the sources) and their impedance matrix Z_w, factorised once.
 class ShieldWall {
 public:
-    ShieldWall(const ShieldSpec& shield, double source_radius, double frequency);
+    ShieldWall(const ShieldSpec& shield, const SourceReach& sources, double frequency);
     // The rings (radius, axial position), m.
     const std::vector<std::pair<double, double>>& rings() const { return rings_; }
-    // Whether the wall built for sources out to `source_radius` would be this one, ring for ring (the rings'
-    // spacing follows the gap to the sources only where that gap is what binds it).
-    bool serves(double source_radius) const;
+    // Whether the wall built for `sources` would be this one, ring for ring (the rings' spacing follows the
+    // gap to the sources only where that gap is what binds it).
+    bool serves(const SourceReach& sources) const;
     // The wall's currents when the sources link `flux[k]` (Wb) with ring k: Z_w I = -j w flux. `flux` holds
     // `columns` such vectors one after another (column-major, rings() x columns) and is overwritten by the
     // currents (A).
@@ -110,8 +125,7 @@ private:
     std::shared_ptr<const Factor> factor_;
 };
 
-// shield_wall_currents on a wall already built for the sources (their outermost radius within `wall`'s
-// source_radius): a solver that drives the same wall again and again (the wire-harmonic solver's passes)
+// shield_wall_currents on a wall already built for the sources (within the SourceReach it was built for): a solver that drives the same wall again and again (the wire-harmonic solver's passes)
 // builds and factors it once.
 std::vector<WallRingCurrent> shield_wall_currents(const ShieldWall& wall, const std::vector<WallRingCurrent>& sources);
 
