@@ -255,4 +255,11 @@ TEST(Shield, ALongTubeIsModelledNearItsWinding) {
             EXPECT_LT(std::abs(a - b), 1e-6 * std::abs(b)) << f;
         }
     }
+    // A tube wholly beyond reach (its near end 0.1 m past the winding's): no rings, no currents, no change.
+    ShieldSpec far = tube(30e-3, 0.08);
+    far.axial_offset = 0.15;
+    const ShieldWall none(far, {c.mean_radius(), -half, half}, 1e6);
+    EXPECT_TRUE(none.rings().empty());
+    EXPECT_TRUE(shield_wall_currents(none, turns).empty());
+    EXPECT_EQ(shield_inductance_change(c, far), 0.0);
 }
