@@ -285,9 +285,7 @@ void CrossSectionSolver::wall_coupling(double frequency, std::vector<std::comple
                                        RingImpedance& out) const {
     // The wall's currents for a unit current in each cell, I_w = Z_w^-1 (-j w M_w,cell) (`drive`), act back
     // on every cell through `back` (M_cell,w). One factorisation of the wall, a right-hand side a cell.
-    SourceReach cells{0, INFINITY, -INFINITY};
-    for (const auto& [a, z] : rings_) cells = {std::max(cells.radius, a + wire_radius_), std::min(cells.z_low, z - wire_radius_), std::max(cells.z_high, z + wire_radius_)};
-    const ShieldWall wall(*shield_, cells, frequency);
+    const ShieldWall wall(*shield_, reach_of_wires(rings_, wire_radius_, wire_radius_), frequency);
     const auto W = static_cast<Eigen::Index>(wall.rings().size());
     const auto n = static_cast<Eigen::Index>(cells_.size());
     back.assign(static_cast<std::size_t>(n * W), 0.0);

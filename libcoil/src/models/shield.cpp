@@ -83,10 +83,9 @@ std::vector<double> layers(double t, double delta, int max_layers) {
 SourceReach winding_reach(const Solenoid& coil) { return {coil.mean_radius(), -coil.winding_length() / 2, coil.winding_length() / 2}; }
 
 SourceReach reach_of(const std::vector<WallRingCurrent>& sources) {
-    if (sources.empty()) return {};
-    SourceReach out{0, INFINITY, -INFINITY};
-    for (const auto& t : sources) out = {std::max(out.radius, t.radius), std::min(out.z_low, t.z), std::max(out.z_high, t.z)};
-    return out;
+    std::vector<std::pair<double, double>> centres;
+    for (const auto& t : sources) centres.emplace_back(t.radius, t.z);
+    return reach_of_wires(centres, 0, 0);
 }
 
 // The wall's rings: the tube's, and the end discs' where it has them; within wall_reach_radii of the
@@ -239,6 +238,13 @@ std::vector<WallRingCurrent> shield_wall_currents(const std::vector<std::pair<do
 struct ShieldWall::Factor {
     Eigen::PartialPivLU<Eigen::MatrixXcd> lu;
 };
+
+SourceReach reach_of_wires(const std::vector<std::pair<double, double>>& centres, double radial, double axial) {
+    if (centres.empty()) return {};
+    SourceReach out{0, INFINITY, -INFINITY};
+    for (const auto& [r, z] : centres) out = {std::max(out.radius, r + radial), std::min(out.z_low, z - axial), std::max(out.z_high, z + axial)};
+    return out;
+}
 
 ShieldWall::ShieldWall(const ShieldSpec& s, const SourceReach& sources, double f) : shield_(s), omega_(2 * pi * f) {
     require_positive("frequency", f);

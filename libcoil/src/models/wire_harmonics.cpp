@@ -311,11 +311,8 @@ RingImpedance WireHarmonicSolver::solve(double frequency, std::vector<Kernel>& k
         // Both walls span the wires' whole sections along the axis, so that the one serves the other where
         // only the radius differs.
         std::vector<WallRingCurrent> turns;
-        SourceReach filaments{0, INFINITY, -INFINITY};
-        for (const auto& [r, z] : rings_) {
-            turns.push_back({r, z, 1.0});
-            filaments = {std::max(filaments.radius, r), std::min(filaments.z_low, z - a), std::max(filaments.z_high, z + a)};
-        }
+        for (const auto& [r, z] : rings_) turns.push_back({r, z, 1.0});
+        const SourceReach filaments = reach_of_wires(rings_, 0, a);
         filament_wall.emplace(*shield_, filaments, f);
         wall = shield_wall_currents(*filament_wall, turns);
         SourceReach dipoles = filaments;

@@ -93,6 +93,9 @@ std::vector<WallRingCurrent> shield_wall_currents(const std::vector<WallRingCurr
 struct SourceReach {
     double radius = 0, z_low = 0, z_high = 0;
 };
+// The reach of round wires given by their centres (radius, axial position): each wire's sources lie out to
+// `radial` beyond its centre and `axial` either side of it. None for no wires.
+SourceReach reach_of_wires(const std::vector<std::pair<double, double>>& centres, double radial, double axial);
 
 // How far beyond its sources a wall is modelled, in inner radii of the tube: the rings further out are left
 // out, and so is an end disc further out. Inside a good conductor's tube the field beyond the winding falls as
