@@ -129,8 +129,8 @@ def test_turn_network(d, turns, pitch_ratio, wire, mounting):
 def coil_specs(draw):
     """A coil spec (YAML) of any buildable shape the readers take, with or without a former, a band, a current,
     a mounting and a shield. Bounded where the analysis grows slow, not where it might fail: frequencies up to
-    300 MHz and a shield at most ten form diameters long (a tube far longer than its coil, thick-walled at GHz,
-    takes the ring model tens of seconds)."""
+    300 MHz and a shield at most ten form diameters long (a thick wall at GHz is six layers of rings in the ring
+    model, along the winding and four bore radii beyond it, solved at every frequency)."""
     form = draw(st.floats(2, 120))
     wire = draw(st.floats(0.05, 4))
     grade = draw(st.sampled_from([0, 1, 2]))
