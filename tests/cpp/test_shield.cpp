@@ -6,6 +6,7 @@
 
 #include <cmath>
 #include <complex>
+#include <string>
 #include <vector>
 
 #include "libcoil/core/constants.hpp"
@@ -225,6 +226,12 @@ TEST(Shield, AWallServesTheSourcesItsRingsWouldBeBuiltFor) {
     }
     const ShieldSpec tight = tube(30e-3, 0.08);  // gap / 1.5 binds: 1.3 mm at 13 mm, 1.0 mm at 13.5 mm
     EXPECT_FALSE(ShieldWall(tight, at13, 1e6).serves({13.5e-3, 0, 2e-3}));
+    try {  // sources whose span is upside down: the field named
+        ShieldWall(wide, {13e-3, 2e-3, 0}, 1e6);
+        ADD_FAILURE() << "no error";
+    } catch (const InputError& e) {
+        EXPECT_NE(std::string(e.what()).find("sources.z_low"), std::string::npos) << e.what();
+    }
 }
 
 TEST(Shield, ALongTubeIsModelledNearItsWinding) {

@@ -252,7 +252,10 @@ ShieldWall::ShieldWall(const ShieldSpec& s, const SourceReach& sources, double f
     require_positive("shield.length", s.length);
     require_positive("shield.thickness", s.thickness);
     if (!(s.inner_diameter / 2 > sources.radius)) throw InputError("shield.inner_diameter", "does not clear the turns");
-    if (!(sources.z_low <= sources.z_high)) throw InputError("sources", "z_low above z_high");
+    if (!(sources.z_low <= sources.z_high)) {
+        throw InputError("sources.z_low", format_quantity(sources.z_low, Dimension::length) + " is above sources.z_high, " +
+                                              format_quantity(sources.z_high, Dimension::length) + "; expected z_low <= z_high");
+    }
     const double rho = s.material.resistivity_at(s.temperature);
     delta_ = skin_depth(rho, f, s.material.relative_permeability);
     const auto rings = shield_rings(s, sources, delta_);

@@ -128,8 +128,9 @@ private:
     std::shared_ptr<const Factor> factor_;
 };
 
-// shield_wall_currents on a wall already built for the sources (within the SourceReach it was built for): a solver that drives the same wall again and again (the wire-harmonic solver's passes)
-// builds and factors it once.
+// shield_wall_currents on a wall already built for the sources (within the SourceReach it was built for): a
+// solver that drives the same wall again and again (the wire-harmonic solver's passes) builds and factors it
+// once.
 std::vector<WallRingCurrent> shield_wall_currents(const ShieldWall& wall, const std::vector<WallRingCurrent>& sources);
 
 // `inductance`: the coil's unshielded inductance (the recommended one). Throws InputError for a shield that
