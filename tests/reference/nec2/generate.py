@@ -51,32 +51,37 @@ def deck(coil, mounting, segments_per_turn, frequency):
     return "CM libcoil self-resonance reference\nCE\n" + body + f"PT -1\nFR 0 1 0 0 {frequency / 1e6:.12g} 0\nXQ\nEN\n"
 
 
-def reactance(coil, mounting, segments_per_turn, frequency):
+def reactance_of_deck(text):
+    """X at the feed (ohm) of one NEC2 deck run by nec2c."""
     with tempfile.TemporaryDirectory() as tmp:
         inp, out = os.path.join(tmp, "c.nec"), os.path.join(tmp, "c.out")
         with open(inp, "w") as fh:
-            fh.write(deck(coil, mounting, segments_per_turn, frequency))
+            fh.write(text)
         subprocess.run(["nec2c", "-i", inp, "-o", out], check=True, timeout=3600, capture_output=True)
         text = open(out).read()
     row = re.search(r"ANTENNA INPUT PARAMETERS.*?\n.*?\n.*?\n\s+\d+\s+\d+((?:\s+\S+){8})", text, re.S)
     return float(row.group(1).split()[5])
 
 
-def first_resonance(coil, mounting, segments_per_turn, start, step=1.06):
+def reactance(coil, mounting, segments_per_turn, frequency):
+    return reactance_of_deck(deck(coil, mounting, segments_per_turn, frequency))
+
+
+def first_rising_zero(x_of, start, step, what):
     """The first rising zero of X(f) above `start` (where X is still negative, capacitive): a scan up in
     steps of `step` to the first sign change, then regula falsi in that bracket (to 1e-5)."""
-    lo, x_lo = start, reactance(coil, mounting, segments_per_turn, start)
+    lo, x_lo = start, x_of(start)
     if not x_lo < 0:
-        raise RuntimeError(f"{coil[0]} {mounting}: X is not capacitive at the scan's start, {start:.4g} Hz")
+        raise RuntimeError(f"{what}: X is not capacitive at the scan's start, {start:.4g} Hz")
     for _ in range(200):
         hi = lo * step
-        x_hi = reactance(coil, mounting, segments_per_turn, hi)
+        x_hi = x_of(hi)
         if x_hi >= 0:
             break
         lo, x_lo = hi, x_hi
     for _ in range(40):  # regula falsi (Illinois), kept in the bracket
         f = hi - x_hi * (hi - lo) / (x_hi - x_lo)
-        x = reactance(coil, mounting, segments_per_turn, f)
+        x = x_of(f)
         if x < 0:
             lo, x_lo = f, x
             x_hi /= 2
@@ -86,6 +91,10 @@ def first_resonance(coil, mounting, segments_per_turn, start, step=1.06):
         if hi - lo < 1e-5 * f:
             break
     return 0.5 * (lo + hi)
+
+
+def first_resonance(coil, mounting, segments_per_turn, start, step=1.06):
+    return first_rising_zero(lambda f: reactance(coil, mounting, segments_per_turn, f), start, step, f"{coil[0]} {mounting}")
 
 
 def reference(coil, guess_floating):
