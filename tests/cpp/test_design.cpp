@@ -352,14 +352,21 @@ TEST(DesignScreen, FallFitReadsTheTableAsTheScriptDoes) {
         const auto ratio = fit.ratio(r[1], r[2], r[3]);
         ASSERT_TRUE(ratio.has_value()) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
         EXPECT_NEAR(*ratio / r[5], 1.0, 1e-12) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
-        // The band's path, the three polynomials taken once and weighed at each x, reads the same table.
-        const auto shapes = detail::fall_shapes(*detail::fall_terms(r[1], r[2], r[3]));
-        EXPECT_NEAR(fit.ratio(shapes, r[2]) / r[5], 1.0, 1e-12) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
+        // The band's path, the three polynomials folded at D / d, taken once and weighed at each x, reads the
+        // same table; so does the search's, the fit's own polynomial folded at D / d.
+        const auto shapes = detail::fall_shapes_at(r[2]).at(r[1], r[3]);
+        ASSERT_TRUE(shapes.has_value());
+        EXPECT_NEAR(fit.ratio(*shapes, r[2]) / r[5], 1.0, 1e-12) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
+        const auto row = fit.at_diameter(r[2]).at(r[1], r[3]);
+        ASSERT_TRUE(row.has_value());
+        EXPECT_NEAR((*row)[0] / r[2] / r[5], 1.0, 1e-12) << r[0] << " " << r[1] << " " << r[2] << " " << r[3];
     }
     // Outside the sampled range: x, D / d below the wire-harmonic solver's 6, touching turns.
     EXPECT_FALSE(detail::InductanceFallFit(0.1, 1.0).ratio(1.5, 20, 10).has_value());
     EXPECT_FALSE(detail::InductanceFallFit(5.0, 0.5).ratio(1.5, 4, 10).has_value());
     EXPECT_FALSE(detail::InductanceFallFit(5.0, 0.5).ratio(1.0, 20, 10).has_value());
+    EXPECT_FALSE(detail::InductanceFallFit(5.0, 0.5).at_diameter(4).at(1.5, 10).has_value());
+    EXPECT_FALSE(detail::fall_shapes_at(20).at(1.5, std::nan("")).has_value());
 }
 
 // The grid's pitch ratios of one wire and form that snap to the same turns trim to the same coil, so the

@@ -17,7 +17,10 @@ namespace {
 double q_of(double f, double l, double r) { return f > 0 ? 2 * pi * f * l / r : 0.0; }
 
 void check_frequencies(const std::vector<double>& fs) {
-    for (std::size_t i = 0; i < fs.size(); ++i) require_non_negative("frequencies[" + std::to_string(i) + "]", fs[i]);
+    // The field's name is built only for a bad value (a design screen checks nine frequencies a coil).
+    for (std::size_t i = 0; i < fs.size(); ++i) {
+        if (!(fs[i] >= 0) || !std::isfinite(fs[i])) require_non_negative("frequencies[" + std::to_string(i) + "]", fs[i]);
+    }
 }
 
 }  // namespace
@@ -65,6 +68,7 @@ std::vector<CoilAtFrequency> coil_at_frequencies(const Solenoid& c, const Conduc
     require_non_negative("mean_square_field", field);
     const double l_int_dc = mu0 * cond.relative_permeability / (8 * pi) * c.helix_length();
     std::vector<CoilAtFrequency> out;
+    out.reserve(fs.size());
     for (double f : fs) {
         const AcResistance r = ac_resistance(c, cond, temperature, f, field);
         CoilAtFrequency p;
@@ -188,6 +192,7 @@ double interpolate_log(const std::vector<double>& f, const std::vector<double>& 
     if (x >= f.back()) return v.back();
     const auto it = std::upper_bound(f.begin(), f.end(), x);
     const std::size_t k = static_cast<std::size_t>(it - f.begin());
+    if (x == f[k - 1]) return v[k - 1];  // on a grid point (the design screen's tables): what t = 0 gives, without the logarithms
     const double t = std::log(x / f[k - 1]) / std::log(f[k] / f[k - 1]);
     return v[k - 1] + t * (v[k] - v[k - 1]);
 }

@@ -47,22 +47,43 @@ bool Evaluator::solver_takes(std::size_t wire, double turns, double pitch) const
     return harmonic_unknowns_for(turns, pitch / unlabelled_[wire].bare_diameter, top_d_over_delta_[wire]) <= default_max_harmonic_unknowns;
 }
 
+namespace {
+
+// The fit's rows a thread took last: the screen takes one wire on one form for a run of pitch ratios, and its
+// solve asks for the fall at several turns and pitches of each. A row is a function of its key alone (the
+// fit's weights and D / d), so the row found here is the row that would be built.
+struct RowMemo {
+    FallShapes weights{};
+    double diameter = -1;
+    FallAtDiameter<1> row;
+};
+struct ShapesMemo {
+    double diameter = -1;
+    FallAtDiameter<inductance_fall_fit::shapes> row;
+};
+
+}  // namespace
+
 FallEstimate Evaluator::screen_fall_estimate(std::size_t wire, double mean, double turns, double pitch) const {
     if (fixed_offset_) return {*fixed_offset_, 0};
     if (const auto& fit = fall_fit_[wire]; fit && solver_takes(wire, turns, pitch)) {
-        const double d = unlabelled_[wire].bare_diameter;
+        const double d = unlabelled_[wire].bare_diameter, diameter = mean / d;
+        thread_local RowMemo memo;
+        if (memo.diameter != diameter || memo.weights != fit->weights()) memo = {fit->weights(), diameter, fit->at_diameter(diameter)};
         // (A fall of half of L lies far outside what the sample held: the closed form then.)
-        if (const auto r = fit->ratio(pitch / d, mean / d, turns); r && *r < 0.5) return {0, *r};
+        if (const auto r = memo.row.at(pitch / d, turns); r && (*r)[0] / diameter < 0.5) return {0, (*r)[0] / diameter};
     }
     return {screen_fall_per_length_[wire] * turns * pi * mean, 0};
 }
 
 WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double temperature, double l_dc) const {
     if (band_points_.empty() || !fall_fit_[wire] || !solver_takes(wire, s.turns(), s.pitch())) return {};
-    const double d = s.wire().bare_diameter;
-    const auto terms = fall_terms(s.pitch_to_wire(), s.mean_diameter() / d, s.turns());
-    if (!terms) return {};
-    const FallShapes shapes = fall_shapes(*terms);
+    const double d = s.wire().bare_diameter, diameter = s.mean_diameter() / d;
+    thread_local ShapesMemo memo;
+    if (memo.diameter != diameter) memo = {diameter, fall_shapes_at(diameter)};
+    const auto at = memo.row.at(s.pitch_to_wire(), s.turns());
+    if (!at) return {};
+    const FallShapes& shapes = *at;
     // The closed forms' L(f) at the winding's temperature (losses.hpp's coil_at_frequencies): L_dc less the
     // internal inductance the skin effect removes; the offset moves it onto L_dc (1 - the fitted ratio).
     const double rho = q_.conductor.resistivity_at(temperature), l_int_dc = dc_internal_inductance_per_length() * s.helix_length();
@@ -73,7 +94,7 @@ WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double
         const double closed = l_int_dc * (1 - wire_skin_ratios(s.wire().radius(), rho, band_points_[i]).internal_inductance);
         f.push_back(band_points_[i]);
         ratio.push_back(1.0);
-        offset.push_back(closed - fit.ratio(shapes, s.mean_diameter() / d) * l_dc);
+        offset.push_back(closed - fit.ratio(shapes, diameter) * l_dc);
     }
     return f.empty() ? WireLossTable{} : WireLossTable(std::move(f), std::move(ratio), std::move(offset));
 }

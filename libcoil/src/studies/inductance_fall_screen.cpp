@@ -32,50 +32,90 @@ InductanceFallFit::InductanceFallFit(double x, double internal_ratio) : in_range
 
 namespace {
 
-// Each monomial as the product of its features' powers, unrolled: the powers' indices are constants, and the
-// factors of power 0 (exactly 1) drop out of the product without changing it.
-template <std::size_t... T>
-void monomials(const double (&power)[f::features][f::degree + 1], FallTerms& out, std::index_sequence<T...>) {
-    ((out[T] = power[0][f::powers[T][0]] * power[1][f::powers[T][1]] * power[2][f::powers[T][2]] * power[3][f::powers[T][3]]), ...);
+// The reduced monomials: the powers (e0, e2, e3) of log gap, 1 / n and log l / D, of degree 4 at most, and for
+// each of the fit's 70 terms the reduced monomial its powers of those three make.
+struct ReducedPowers {
+    std::array<std::array<unsigned char, 3>, fall_row_terms> of{};
+    std::array<unsigned char, f::terms> place{};
+};
+constexpr ReducedPowers reduced = [] {
+    ReducedPowers r;
+    int count = 0;
+    for (int t = 0; t < f::terms; ++t) {
+        const std::array<unsigned char, 3> e{f::powers[t][0], f::powers[t][2], f::powers[t][3]};
+        int i = 0;
+        while (i < count && r.of[static_cast<std::size_t>(i)] != e) ++i;
+        if (i == count) r.of[static_cast<std::size_t>(count++)] = e;
+        r.place[static_cast<std::size_t>(t)] = static_cast<unsigned char>(i);
+    }
+    if (count != fall_row_terms) throw "inductance_fall_fit.hpp: not a full quartic in four features";
+    return r;
+}();
+
+// Scaled to [-1, 1] over the feature's range, its powers to the degree; false outside the range (a NaN too).
+bool scaled_powers(double x, int k, double (&power)[f::degree + 1]) {
+    if (!(x >= f::low[k] && x <= f::high[k])) return false;
+    const double s = (2 * x - f::low[k] - f::high[k]) / (f::high[k] - f::low[k]);
+    power[0] = 1;
+    for (int e = 1; e <= f::degree; ++e) power[e] = power[e - 1] * s;
+    return true;
 }
 
-// A dot product of the fit's length over four running sums: one sum's chain of dependent additions would
-// wait out each addition's latency (the screen took a tenth of its time here so).
-double dot(const double* a, const FallTerms& b) {
+// The reduced monomials at one coil, unrolled: their powers' indices are constants.
+template <std::size_t... M>
+void reduced_monomials(const double (&p0)[f::degree + 1], const double (&p2)[f::degree + 1], const double (&p3)[f::degree + 1],
+                       std::array<double, fall_row_terms>& out, std::index_sequence<M...>) {
+    ((out[M] = p0[reduced.of[M][0]] * p2[reduced.of[M][1]] * p3[reduced.of[M][2]]), ...);
+}
+
+// A dot product of the row's length over four running sums: one sum's chain of dependent additions would wait
+// out each addition's latency.
+double dot(const std::array<double, fall_row_terms>& a, const std::array<double, fall_row_terms>& b) {
     double s[4] = {0, 0, 0, 0};
     std::size_t t = 0;
-    for (; t + 4 <= b.size(); t += 4) {
+    for (; t + 4 <= a.size(); t += 4) {
         for (std::size_t k = 0; k < 4; ++k) s[k] += a[t + k] * b[t + k];
     }
-    for (; t < b.size(); ++t) s[t % 4] += a[t] * b[t];
+    for (; t < a.size(); ++t) s[t % 4] += a[t] * b[t];
     return (s[0] + s[1]) + (s[2] + s[3]);
 }
 
 }  // namespace
 
-std::optional<FallTerms> fall_terms(double spacing, double diameter, double turns) {
-    if (!(spacing > 1) || !(diameter > 0) || !(turns > 0)) return std::nullopt;
-    const double rings = std::max(1.0, std::floor(turns + 0.5));
-    const double x[f::features] = {std::log(spacing - 1), std::log(diameter), 1 / rings, std::log(turns * spacing / diameter)};
-    double power[f::features][f::degree + 1];
-    for (int k = 0; k < f::features; ++k) {
-        if (!(x[k] >= f::low[k] && x[k] <= f::high[k])) return std::nullopt;
-        const double s = (2 * x[k] - f::low[k] - f::high[k]) / (f::high[k] - f::low[k]);
-        power[k][0] = 1;
-        for (int e = 1; e <= f::degree; ++e) power[k][e] = power[k][e - 1] * s;
+template <std::size_t K>
+FallAtDiameter<K>::FallAtDiameter(const std::array<const double*, K>& polynomials, double diameter) : diameter_(diameter) {
+    double p1[f::degree + 1];
+    in_range_ = diameter > 0 && scaled_powers(std::log(diameter), 1, p1);
+    if (!in_range_) return;
+    for (std::size_t k = 0; k < K; ++k) {
+        for (int t = 0; t < f::terms; ++t) c_[k][reduced.place[static_cast<std::size_t>(t)]] += polynomials[k][t] * p1[f::powers[t][1]];
     }
-    FallTerms out;
-    monomials(power, out, std::make_index_sequence<f::terms>{});
+}
+
+template <std::size_t K>
+std::optional<std::array<double, K>> FallAtDiameter<K>::at(double spacing, double turns) const {
+    if (!in_range_ || !(spacing > 1) || !(turns > 0)) return std::nullopt;
+    const double rings = std::max(1.0, std::floor(turns + 0.5));
+    double p0[f::degree + 1], p2[f::degree + 1], p3[f::degree + 1];
+    if (!scaled_powers(std::log(spacing - 1), 0, p0) || !scaled_powers(1 / rings, 2, p2) ||
+        !scaled_powers(std::log(turns * spacing / diameter_), 3, p3)) {
+        return std::nullopt;
+    }
+    std::array<double, fall_row_terms> m;
+    reduced_monomials(p0, p2, p3, m, std::make_index_sequence<fall_row_terms>{});
+    std::array<double, K> out;
+    for (std::size_t k = 0; k < K; ++k) out[k] = dot(c_[k], m);
     return out;
 }
 
-FallShapes fall_shapes(const FallTerms& terms) {
-    FallShapes out;
-    for (std::size_t k = 0; k < out.size(); ++k) out[k] = dot(f::coefficients[k], terms);
-    return out;
+template class FallAtDiameter<1>;
+template class FallAtDiameter<f::shapes>;
+
+FallAtDiameter<f::shapes> fall_shapes_at(double diameter) {
+    return FallAtDiameter<f::shapes>({f::coefficients[0], f::coefficients[1], f::coefficients[2]}, diameter);
 }
 
-double InductanceFallFit::ratio(const FallTerms& terms, double diameter) const { return dot(folded_.data(), terms) / diameter; }
+FallAtDiameter<1> InductanceFallFit::at_diameter(double diameter) const { return FallAtDiameter<1>({folded_.data()}, in_range_ ? diameter : 0.0); }
 
 double InductanceFallFit::ratio(const FallShapes& shapes, double diameter) const {
     return (weights_[0] * shapes[0] + weights_[1] * shapes[1] + weights_[2] * shapes[2]) / diameter;
@@ -83,9 +123,9 @@ double InductanceFallFit::ratio(const FallShapes& shapes, double diameter) const
 
 std::optional<double> InductanceFallFit::ratio(double spacing, double diameter, double turns) const {
     if (!in_range_) return std::nullopt;
-    const auto terms = fall_terms(spacing, diameter, turns);
-    if (!terms) return std::nullopt;
-    return ratio(*terms, diameter);
+    const auto r = at_diameter(diameter).at(spacing, turns);
+    if (!r) return std::nullopt;
+    return (*r)[0] / diameter;
 }
 
 }  // namespace libcoil::detail

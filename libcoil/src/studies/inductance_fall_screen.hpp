@@ -20,15 +20,30 @@ namespace libcoil::detail {
 // 1 when they expel the field). Backward recurrence of J_m / J_(m-1), to the rounding error for x <= 1e3.
 double transverse_screening(double x);
 
-// The fit's monomials at a coil of bare p / d `spacing`, D / d `diameter` and `turns`; nothing outside the
-// fit's range. (One coil's fall at several frequencies shares them.)
-using FallTerms = std::array<double, inductance_fall_fit::terms>;
-std::optional<FallTerms> fall_terms(double spacing, double diameter, double turns);
+// The fit's polynomials with D / d fixed (one wire on one form, as the design screen takes a row of pitch ratios):
+// each polynomial's powers of log D / d folded into the coefficients of a quartic in the other three features,
+// 35 terms where the whole polynomial has 70, and the logarithm of D / d taken once. `K` polynomials share the
+// monomials: the fit at one x (InductanceFallFit::at_diameter), or its three shapes (fall_shapes_at).
+inline constexpr int fall_row_terms = 35;
+template <std::size_t K>
+class FallAtDiameter {
+public:
+    FallAtDiameter() = default;
+    // Each of `polynomials` 70 coefficients in inductance_fall_fit's order; D / d `diameter`.
+    FallAtDiameter(const std::array<const double*, K>& polynomials, double diameter);
+    double diameter() const { return diameter_; }
+    // The K polynomials at bare p / d `spacing` and `turns` (not yet over D / d); nothing outside the fit's range.
+    std::optional<std::array<double, K>> at(double spacing, double turns) const;
 
-// The fit's three polynomials (A, B, C) at a coil's monomials, which every x weighs alike: one coil's fall at
-// several frequencies takes them once.
+private:
+    bool in_range_ = false;
+    double diameter_ = 0;
+    std::array<std::array<double, fall_row_terms>, K> c_{};
+};
+
+// The fit's three polynomials (A, B, C), which every x weighs alike, at D / d `diameter`.
 using FallShapes = std::array<double, inductance_fall_fit::shapes>;
-FallShapes fall_shapes(const FallTerms& terms);
+FallAtDiameter<inductance_fall_fit::shapes> fall_shapes_at(double diameter);
 
 // The fit at one x (one wire at one frequency): the three shapes folded into one polynomial's coefficients.
 class InductanceFallFit {
@@ -41,15 +56,17 @@ public:
     // The fall of L from DC over L_dc (positive) for a coil of bare p / d `spacing`, D / d `diameter` and
     // `turns`; nothing outside the fit's range.
     std::optional<double> ratio(double spacing, double diameter, double turns) const;
-    // The same from the coil's monomials (fall_terms) and D / d; the fit in range.
-    double ratio(const FallTerms& terms, double diameter) const;
-    // The same from the coil's polynomials (fall_shapes) and D / d; the fit in range.
+    // The same from the coil's polynomials (fall_shapes_at) and D / d; the fit in range.
     double ratio(const FallShapes& shapes, double diameter) const;
+    // The fit with D / d fixed: its polynomial (the fall over L_dc times D / d) for a row of coils; the fit in range.
+    FallAtDiameter<1> at_diameter(double diameter) const;
+    // 1 - the internal inductance ratio, P and P^2, which the fit's coefficients are a function of.
+    const FallShapes& weights() const { return weights_; }
 
 private:
     bool in_range_;
-    FallShapes weights_{};  // 1 - the internal inductance ratio, P, P^2
-    FallTerms folded_{};
+    FallShapes weights_{};
+    std::array<double, inductance_fall_fit::terms> folded_{};
 };
 
 }  // namespace libcoil::detail
