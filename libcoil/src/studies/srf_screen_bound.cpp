@@ -50,6 +50,67 @@ constexpr auto mounted_factors = factor_places(e::mounted_powers);
 
 using Offsets = double[e::turns_bins][e::spacing_bins][e::length_bins];
 
+// The features a design screen varies within one wire on one form: log l / D, 1 / N and the log gap (the
+// bare fit's order, which the former fits share); the rest (enamel over d, D / d, the former's) stay fixed.
+constexpr std::array<int, 3> varied = {1, 3, 4};
+constexpr bool is_varied(int k) { return k == varied[0] || k == varied[1] || k == varied[2]; }
+// The cubic's monomials in the three varied features: their powers, and a monomial's place by its powers.
+constexpr int folded_terms = 20;
+constexpr auto folded_powers = [] {
+    std::array<std::array<unsigned char, 3>, folded_terms> out{};
+    int i = 0;
+    for (int a = 0; a <= 3; ++a) {
+        for (int b = 0; a + b <= 3; ++b) {
+            for (int c = 0; a + b + c <= 3; ++c) out[static_cast<std::size_t>(i++)] = {static_cast<unsigned char>(a), static_cast<unsigned char>(b), static_cast<unsigned char>(c)};
+        }
+    }
+    return out;
+}();
+constexpr int folded_place(int a, int b, int c) {
+    for (int i = 0; i < folded_terms; ++i) {
+        const auto& p = folded_powers[static_cast<std::size_t>(i)];
+        if (p[0] == a && p[1] == b && p[2] == c) return i;
+    }
+    return -1;
+}
+
+// Each term of a fit as the fold takes it: the place of its varied features' monomial, and its fixed
+// features' factors as places in the table of powers (0, feature 0's zeroth power, 1: for none).
+struct FoldedTerm {
+    std::size_t place = 0;
+    std::array<unsigned char, 3> fixed{};
+};
+template <int features, int terms>
+const std::array<FoldedTerm, terms>& folded_map(const std::array<std::array<unsigned char, 3>, terms>& factors) {
+    static const std::array<FoldedTerm, terms> map = [&] {
+        std::array<FoldedTerm, terms> out{};
+        for (std::size_t t = 0; t < out.size(); ++t) {
+            int e[3] = {0, 0, 0}, slot = 0;
+            for (unsigned char place : factors[t]) {
+                const int k = place / 4, p = place % 4;
+                if (p == 0) continue;
+                if (is_varied(k)) {
+                    e[k == varied[0] ? 0 : k == varied[1] ? 1 : 2] = p;
+                } else {
+                    out[t].fixed[static_cast<std::size_t>(slot++)] = place;
+                }
+            }
+            out[t].place = static_cast<std::size_t>(folded_place(e[0], e[1], e[2]));
+        }
+        return out;
+    }();
+    return map;
+}
+
+// A fit with the fixed features folded into the coefficients of a cubic in the varied three: 20 terms where
+// the fit has up to 165.
+struct FoldedFit {
+    bool in_range = false;
+    std::array<double, folded_terms> c{};
+    const Offsets* offset = nullptr;
+    double low[3] = {}, high[3] = {};
+};
+
 // One of the generated fits: its features' range, its terms' factors, and each mounting's coefficients and
 // offsets.
 template <int features, int terms>
@@ -85,7 +146,57 @@ struct Fit {
                   j = bin_of(c.length, e::length_edges, e::length_bins);
         return std::exp(sum + offset[n][i][j]);
     }
+
+    // The fit with every feature but the varied three fixed at x's (those three of x are not read).
+    FoldedFit fold(const double (&x)[features], bool grounded_mounting) const {
+        FoldedFit out;
+        const double(&coefficients)[terms] = grounded_mounting ? grounded : floating;
+        out.offset = grounded_mounting ? &grounded_offset : &floating_offset;
+        double power[4 * features];
+        for (int k = 0; k < features; ++k) {
+            power[4 * k] = 1;
+            if (is_varied(k)) continue;
+            if (!(x[k] >= low[k] && x[k] <= high[k])) return out;
+            const double s = (2 * x[k] - low[k] - high[k]) / (high[k] - low[k]);
+            power[4 * k + 1] = s;
+            power[4 * k + 2] = s * s;
+            power[4 * k + 3] = s * s * s;
+        }
+        for (int v = 0; v < 3; ++v) {
+            out.low[v] = low[varied[static_cast<std::size_t>(v)]];
+            out.high[v] = high[varied[static_cast<std::size_t>(v)]];
+        }
+        const auto& map = folded_map<features, terms>(factors);
+        for (int t = 0; t < terms; ++t) {
+            const auto& m = map[static_cast<std::size_t>(t)];
+            out.c[m.place] += coefficients[t] * power[m.fixed[0]] * power[m.fixed[1]] * power[m.fixed[2]];
+        }
+        out.in_range = true;
+        return out;
+    }
 };
+
+// A folded fit's bound at the varied features x (l / D, 1 / N, gap as bare_features has them); 0 outside.
+double folded_bound(const FoldedFit& f, const double (&x)[3], const ScreenedCoil& c) {
+    if (!f.in_range) return 0;
+    double power[3][4];
+    for (int v = 0; v < 3; ++v) {
+        if (!(x[v] >= f.low[v] && x[v] <= f.high[v])) return 0;
+        const double s = (2 * x[v] - f.low[v] - f.high[v]) / (f.high[v] - f.low[v]);
+        power[v][0] = 1;
+        power[v][1] = s;
+        power[v][2] = s * s;
+        power[v][3] = s * s * s;
+    }
+    double sum[4] = {0, 0, 0, 0};  // four running sums: their additions need not wait on each other
+    for (int m = 0; m < folded_terms; ++m) {
+        const auto& e = folded_powers[static_cast<std::size_t>(m)];
+        sum[m % 4] += f.c[static_cast<std::size_t>(m)] * power[0][e[0]] * power[1][e[1]] * power[2][e[2]];
+    }
+    const int n = bin_of(c.turns, e::turns_edges, e::turns_bins), i = bin_of(c.spacing, e::spacing_edges, e::spacing_bins),
+              j = bin_of(c.length, e::length_edges, e::length_bins);
+    return std::exp((sum[0] + sum[1]) + (sum[2] + sum[3]) + (*f.offset)[n][i][j]);
+}
 
 constexpr Fit<e::bare_features, e::bare_terms> bare_fit{e::bare_low, e::bare_high, bare_factors, e::floating_bare_fit,
                                                        e::floating_bare_offset, e::grounded_bare_fit, e::grounded_bare_offset};
@@ -133,7 +244,19 @@ double former_shift_bound(const ScreenedCoil& c, double permittivity, double wal
 double network_over_mounted_bound(const ScreenedCoil& c, double permittivity, double wall, double fill) {
     double x[e::former_features];
     former_features(c, permittivity, wall, fill, x);
-    return mounted_fit.bound(x, c);
+    // The design screen asks for many coils of one wire on one form: the fit folded at their fixed features,
+    // kept per thread by its exact key (the fold is a function of it alone).
+    struct Memo {
+        double coat = NAN, diameter = NAN, permittivity = NAN, wall = NAN, fill = NAN;
+        bool grounded = false;
+        FoldedFit fit;
+    };
+    thread_local Memo memo;
+    if (!(memo.coat == c.coat && memo.diameter == c.diameter && memo.permittivity == permittivity && memo.wall == wall &&
+          memo.fill == fill && memo.grounded == c.grounded)) {
+        memo = {c.coat, c.diameter, permittivity, wall, fill, c.grounded, mounted_fit.fold(x, c.grounded)};
+    }
+    return folded_bound(memo.fit, {x[varied[0]], x[varied[1]], x[varied[2]]}, c);
 }
 
 }  // namespace libcoil::detail
