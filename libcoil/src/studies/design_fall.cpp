@@ -88,6 +88,9 @@ WireLossTable Evaluator::fitted_wire(std::size_t wire, const Solenoid& s, double
     // internal inductance the skin effect removes; the offset moves it onto L_dc (1 - the fitted ratio).
     const double rho = q_.conductor.resistivity_at(temperature), l_int_dc = dc_internal_inductance_per_length() * s.helix_length();
     std::vector<double> f, ratio, offset;
+    f.reserve(band_points_.size());
+    ratio.reserve(band_points_.size());
+    offset.reserve(band_points_.size());
     for (std::size_t i = 0; i < band_points_.size(); ++i) {
         const InductanceFallFit& fit = band_fall_fit_[wire][i];
         if (!fit.in_range()) continue;
