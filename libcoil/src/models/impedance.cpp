@@ -100,10 +100,9 @@ double CoilImpedance::resonance_low() const {
     const double moved = terms_.resonance > 0 ? terms_.resonance / own : 1;  // the bench terms' shift
     const double relative = (sr_.frequency_low > 0 ? sr_.frequency_low / sr_.frequency : 1) * moved;
     if (!shield_) return sr_.frequency * relative;
-    // The shield's shift, not yet checked against an outside reference: half of it more below.
-    const double shift = shield_->by_network ? std::fabs(1 - shield_->self_resonance / sr_.frequency)
-                                             : std::max(0.0, 1 - shield_->self_resonance / sr_.frequency);
-    return shield_->self_resonance * relative * (1 - 0.5 * shift);
+    // The shield's own term (self_resonance.hpp's shield_band_term).
+    return shield_->self_resonance * relative *
+           shield_band_term(shield_->self_resonance, sr_.frequency, shield_->by_network, shield_->radius_ratio).low;
 }
 
 double CoilImpedance::phase_velocity(double frequency) const {

@@ -231,6 +231,26 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
     return b;
 }
 
+ShieldBandTerm shield_band_term(double shielded, double bare, bool by_network, double radius_ratio) {
+    require_positive("shielded_self_resonance", shielded);
+    require_positive("bare_self_resonance", bare);
+    require_non_negative("radius_ratio", radius_ratio);
+    const ShieldShiftError& e = network_shield_shift_error;
+    const double shift = 1 - shielded / bare;
+    ShieldBandTerm t;
+    if (by_network && radius_ratio >= e.radius_ratio_low && radius_ratio <= e.radius_ratio_high) {
+        t.low = 1 / (1 + e.high + e.nec_grid);
+        t.high = 1 / (1 + e.low - e.nec_grid);
+        t.measured = true;
+    } else if (by_network) {
+        t.low = 1 - 0.5 * std::fabs(shift);
+        t.high = 1 + 0.5 * std::fabs(shift);
+    } else {
+        t.low = 1 - 0.5 * std::max(0.0, shift);
+    }
+    return t;
+}
+
 double sheath_helix_former_ratio(const Solenoid& s, const FormerDielectric& former, const Surroundings& surroundings) {
     return std::min(1.0, helical_line_resonance(s, former, surroundings, search_tolerance).frequency /
                              helical_line_resonance(s, FormerDielectric{}, surroundings, search_tolerance).frequency);

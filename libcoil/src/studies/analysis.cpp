@@ -19,6 +19,9 @@ namespace libcoil {
 
 namespace {
 
+// The shield's inner radius over the coil's mean radius (self_resonance.hpp's shield_band_term).
+double shield_radius_ratio(const CoilSpec& spec) { return spec.shield->inner_diameter / spec.solenoid.mean_diameter(); }
+
 std::string three_digits(double v) { return detail::significant(v, 3); }
 std::string hz(double f) { return format_quantity(f, Dimension::frequency); }
 
@@ -239,12 +242,22 @@ void add_impedance_and_band(Analysis& a) {
     a.self_resonance_low_as_mounted = zc.resonance_low();
     a.self_resonance_high_as_mounted = a.self_resonance_as_mounted * a.self_resonance.frequency_high / a.self_resonance.frequency;
     if (a.shield) {
-        const double shift = std::fabs(1 - a.shield->self_resonance / a.self_resonance.frequency);
-        if (a.shield->by_network) a.self_resonance_high_as_mounted *= 1 + 0.5 * shift;
-        a.self_resonance.band_reasons.push_back(
-            std::string("in the shield, ") + (a.shield->by_network ? "the turn network's" : "the lumped estimate's") + " shift (" +
-            detail::significant(100 * (a.shield->self_resonance / a.self_resonance.frequency - 1), 2) +
-            " %), not yet checked against an outside reference: half of it " + (a.shield->by_network ? "either side" : "more below"));
+        const double ratio = shield_radius_ratio(spec);
+        const ShieldBandTerm t = shield_band_term(a.shield->self_resonance, a.self_resonance.frequency, a.shield->by_network, ratio);
+        a.self_resonance_high_as_mounted *= t.high;
+        const ShieldShiftError& e = network_shield_shift_error;
+        std::string why = std::string("in the shield, ") + (a.shield->by_network ? "the turn network's" : "the lumped estimate's") + " shift (" +
+                          detail::significant(100 * (a.shield->self_resonance / a.self_resonance.frequency - 1), 2) + " %)";
+        const std::string range = "b/a " + detail::significant(e.radius_ratio_low, 2) + " .. " + detail::significant(e.radius_ratio_high, 2);
+        if (t.measured) {
+            why += ": its error against NEC2 in shields of " + range + ", " + detail::fixed(100 * e.low, 2) + " .. +" +
+                   detail::fixed(100 * e.high, 2) + " %, and " + detail::fixed(100 * e.nec_grid, 1) + " % for NEC's grid";
+        } else if (a.shield->by_network) {
+            why += ", its shield outside the NEC2 reference's " + range + " (here " + detail::significant(ratio, 2) + "): half of it either side";
+        } else {
+            why += ", not checked against an outside reference: half of it more below";
+        }
+        a.self_resonance.band_reasons.push_back(why);
     }
     for (const auto& p : a.at_frequency) {
         // With this analysis's R and L, which may come from the cross-section solver.
@@ -279,7 +292,7 @@ void add_impedance_and_band(Analysis& a) {
 
 ShieldLoad shield_load(const Analysis& a, ShieldTable table) {
     return ShieldLoad{std::move(table), a.shield->terminal_capacitance, a.shield->self_resonance, a.shield->result.perfect_conductor,
-                      a.shield->by_network};
+                      a.shield->by_network, shield_radius_ratio(a.spec)};
 }
 
 }  // namespace

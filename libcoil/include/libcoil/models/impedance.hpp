@@ -62,6 +62,7 @@ struct ShieldLoad {
     double self_resonance = 0;        // Hz, the shielded SRF
     double inductance = 0;            // H, the shielded L at high frequency: the coil's nominal L in its shield
     bool by_network = false;          // the SRF from the turn network in its shield (else the lumped estimate)
+    double radius_ratio = 0;          // the shield's inner radius over the coil's mean radius (shield_band_term)
 };
 
 // What a bench fit found outside the winding's models (records.hpp's BenchCorrections): the winding's R(f)

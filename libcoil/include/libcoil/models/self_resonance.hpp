@@ -126,6 +126,26 @@ struct SrfBand {
 SrfBand srf_band(double f, const std::string& method, Mounting mounting, double pitch_to_wire, const FormerDielectric& former,
                  double former_ratio, bool with_reasons = true);
 
+// The turn network's error on a shield's shift of the SRF, (f_shield / f_bare) by the network over the same by
+// NEC2, less 1: measured on helices in wire-grid cans and an open tube (tests/reference/nec2/shielded.json,
+// docs/models.md), floating and with one end on the shield, over the range of the shield's inner radius to
+// the coil's mean radius that set spans; enforced by tests/python/test_shielded_resonance.py. NEC2's grid
+// (24 against 36 wires round the wall) moved the shielded SRF by 0.1 % at most: `nec_grid`.
+struct ShieldShiftError {
+    double low, high, nec_grid, radius_ratio_low, radius_ratio_high;
+};
+inline constexpr ShieldShiftError network_shield_shift_error{-0.0133, 0.0033, 0.001, 1.4, 2.0};
+
+// The shield's term of the SRF's band, as factors on the SRF in the shield `shielded` (Hz) beside the bare
+// coil's `bare`: where the network gives it (`by_network`) and the shield's inner radius over the coil's mean
+// radius, `radius_ratio`, lies in the reference's range, its measured error on the shift (`measured`); else
+// half the shift either side (the network) or half of a fall more below (the lumped estimate), unchecked.
+struct ShieldBandTerm {
+    double low = 1, high = 1;
+    bool measured = false;
+};
+ShieldBandTerm shield_band_term(double shielded, double bare, bool by_network, double radius_ratio);
+
 // The SRF's spread from the build (one standard deviation, relative): first order, each tolerance in turn
 // moved by one standard deviation (form diameter, pitch, bare wire diameter at a fixed form, turns) and the
 // turn network (the sheath helix over max_spread_network_turns) solved again, the shifts added in
