@@ -284,6 +284,31 @@ TEST(SelfResonance, TheSearchesFastPathWritesNoWords) {
     EXPECT_EQ(quiet.high, told.high);
 }
 
+TEST(SelfResonance, TheShieldsBandTermIsMeasuredOnlyWhereTheReferenceReaches) {
+    // The shield's term of the SRF's band (shield_band_term): inside the NEC2 reference's range of b / a the
+    // network's measured error on the shift (tests/python/test_shielded_resonance.py measures it and holds the
+    // band to NEC2's values), whatever the shift; outside it half the shift either side; the lumped estimate
+    // half of a fall more below, nothing above. The library's own contract, no source.
+    const ShieldShiftError& e = network_shield_shift_error;
+    const double inside = 0.5 * (e.radius_ratio_low + e.radius_ratio_high);
+    for (const double shielded : {70e6, 95e6, 110e6}) {
+        const ShieldBandTerm t = shield_band_term(shielded, 100e6, true, inside);
+        EXPECT_TRUE(t.measured);
+        EXPECT_DOUBLE_EQ(t.low, 1 / (1 + e.high + e.nec_grid));
+        EXPECT_DOUBLE_EQ(t.high, 1 / (1 + e.low - e.nec_grid));
+    }
+    const ShieldBandTerm wide = shield_band_term(80e6, 100e6, true, e.radius_ratio_high * 1.5);
+    EXPECT_FALSE(wide.measured);
+    EXPECT_DOUBLE_EQ(wide.low, 0.9);
+    EXPECT_DOUBLE_EQ(wide.high, 1.1);
+    const ShieldBandTerm lumped = shield_band_term(80e6, 100e6, false, inside);
+    EXPECT_FALSE(lumped.measured);
+    EXPECT_DOUBLE_EQ(lumped.low, 0.9);
+    EXPECT_EQ(lumped.high, 1.0);
+    EXPECT_EQ(shield_band_term(120e6, 100e6, false, inside).low, 1.0);  // a lumped rise widens nothing
+    EXPECT_THROW(shield_band_term(0, 100e6, true, inside), InputError);
+}
+
 TEST(SelfResonance, FormersAndSurroundingsLowerTheSrf) {
     // A dielectric near the winding raises the capacitance and lowers the SRF; a solid tube more than ribs
     // of the same material, and a uniform medium by exactly 1/sqrt(e) (see UniformDielectricScales...).
