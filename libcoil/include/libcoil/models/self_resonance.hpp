@@ -134,7 +134,7 @@ SrfBand srf_band(double f, const std::string& method, Mounting mounting, double 
 struct ShieldShiftError {
     double low, high, nec_grid, radius_ratio_low, radius_ratio_high;
 };
-inline constexpr ShieldShiftError network_shield_shift_error{-0.0133, 0.0033, 0.001, 1.4, 2.0};
+inline constexpr ShieldShiftError network_shield_shift_error{-0.0133, 0.0033, 0.001, 1.4, 3.0};
 
 // The shield's term of the SRF's band, as factors on the SRF in the shield `shielded` (Hz) beside the bare
 // coil's `bare`: where the network gives it (`by_network`) and the shield's inner radius over the coil's mean
