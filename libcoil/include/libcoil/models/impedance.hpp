@@ -106,8 +106,8 @@ public:
     // The first self-resonance of the coil as mounted (in its shield, if any), Hz.
     double resonance() const { return terms_.resonance > 0 ? terms_.resonance : shield_ ? shield_->self_resonance : sr_.frequency; }
     // The lower edge of its band (self_resonance.hpp's srf_band): in a shield, scaled with the shielded SRF
-    // and lowered by half the shield's shift more (the turn network's shift either way, the lumped
-    // estimate's downward; neither yet checked against an outside reference of a coil in a shield).
+    // and lowered by the shield's own term (self_resonance.hpp's shield_band_term: the network's error on the
+    // shift measured against NEC2 where the shield lies in that reference's range, else half the shift).
     double resonance_low() const;
     const std::optional<ShieldLoad>& shield() const { return shield_; }
     double mean_square_field() const { return field_; }  // (A/m / A)^2, proximity.hpp
