@@ -85,9 +85,30 @@ TEST(Shield, CapacitanceToTheShield) {
     // Coaxial capacitance over the winding length (textbook): 2 pi eps0 l / ln(b / r_outer).
     EXPECT_NEAR(r.capacitance_to_shield, 2 * pi * eps0 * c.winding_length() / std::log(20e-3 / (c.outer_diameter() / 2)), 1e-20);
     // Seen between the terminals with the voltage linear along the winding: the energy average of v^2
-    // is V^2 / 12 floating (ends at +-V/2) and V^2 / 3 with one end on the shield.
-    EXPECT_DOUBLE_EQ(shield_terminal_capacitance(12e-12, false), 1e-12);
-    EXPECT_DOUBLE_EQ(shield_terminal_capacitance(12e-12, true), 4e-12);
+    // is V^2 / 12 floating (ends at +-V/2) and V^2 / 3 with one end on the shield (textbook).
+    const double whole = r.capacitance_to_shield;
+    EXPECT_NEAR(shield_terminal_capacitance(c, tube(40e-3, 0.2), false) / (whole / 12), 1, 1e-14);
+    EXPECT_NEAR(shield_terminal_capacitance(c, tube(40e-3, 0.2), true) / (whole / 3), 1, 1e-14);
+}
+
+TEST(Shield, ATubeOverPartOfTheWindingTakesThatPartsCapacitance) {
+    // The same integral over the part a tube covers (derived in shield.hpp, the library's own formula; the
+    // whole winding's C/12 and C/3 above are its outside check). The winding runs over -l/2 .. l/2.
+    const Solenoid c = long_coil(50);
+    const double l = c.winding_length(), whole = shield_capacitance(c, tube(40e-3, 0.2));
+    ShieldSpec upper = tube(40e-3, 0.2), lower = upper, beside = upper;
+    upper.axial_offset = 0.1;   // from the winding's middle up: its upper half
+    lower.axial_offset = -0.1;  // its lower half, where the grounded end is
+    beside.axial_offset = 0.1 + l / 2 + 1e-3;
+    EXPECT_NEAR(shield_capacitance(c, upper) / (whole / 2), 1, 1e-14);
+    // Floating, the shield at the covered half's mean potential: (l/2)^3 / (12 l^2), an eighth of C/12.
+    EXPECT_NEAR(shield_terminal_capacitance(c, upper, false) / (whole / 96), 1, 1e-14);
+    EXPECT_NEAR(shield_terminal_capacitance(c, lower, false) / (whole / 96), 1, 1e-14);
+    // One end grounded: the half at the grounded end holds an eighth of C/3, the far half seven eighths.
+    EXPECT_NEAR(shield_terminal_capacitance(c, lower, true) / (whole / 24), 1, 1e-14);
+    EXPECT_NEAR(shield_terminal_capacitance(c, upper, true) / (7 * whole / 24), 1, 1e-14);
+    EXPECT_EQ(shield_capacitance(c, beside), 0);
+    EXPECT_EQ(shield_terminal_capacitance(c, beside, true), 0);
 }
 
 TEST(Shield, EndDiscsLowerTheInductanceFurther) {

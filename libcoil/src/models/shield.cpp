@@ -350,10 +350,30 @@ double credited_magnetic_shielding_db(const ShieldSpec& s, double f, double r, d
     return std::min({magnetic_shielding(s, f, r).total_db, max_wall_db, open_end_leakage_db(s, winding_length)});
 }
 
+namespace {
+
+// The part of the winding a shield covers, in m from the winding's start (its low end, which a grounded
+// mounting grounds): from <= to, both within 0 .. l; from == to where the shield lies beside the winding.
+struct Covered {
+    double from, to;
+};
+Covered covered_winding(const Solenoid& coil, const ShieldSpec& s) {
+    const double l = coil.winding_length();  // the winding from -l/2 to l/2, the shield about its axial offset
+    const double from = std::clamp(s.axial_offset - s.length / 2 + l / 2, 0.0, l);
+    return {from, std::max(from, std::clamp(s.axial_offset + s.length / 2 + l / 2, 0.0, l))};
+}
+
+// The coaxial capacitance per metre of winding, F/m.
+double capacitance_per_length(const Solenoid& coil, const ShieldSpec& s) {
+    return 2 * pi * eps0 / std::log(s.inner_diameter / coil.outer_diameter());
+}
+
+}  // namespace
+
 double shield_capacitance(const Solenoid& coil, const ShieldSpec& s) {
     require_around(coil, s);
-    const double b = s.inner_diameter / 2, r_out = coil.outer_diameter() / 2;
-    return 2 * pi * eps0 * coil.winding_length() / std::log(b / r_out);
+    const Covered c = covered_winding(coil, s);
+    return capacitance_per_length(coil, s) * (c.to - c.from);
 }
 
 double shielded_self_resonance(double f0, double l0, double l_shielded, double c_terminal) {
@@ -365,9 +385,13 @@ double shielded_self_resonance(double f0, double l0, double l_shielded, double c
     return finite_result("shielded_self_resonance", 1 / (2 * pi * std::sqrt(l_shielded * (c_self + c_terminal))));
 }
 
-double shield_terminal_capacitance(double c, bool grounded_end) {
-    require_non_negative("capacitance_to_shield", c);
-    return grounded_end ? c / 3 : c / 12;
+double shield_terminal_capacitance(const Solenoid& coil, const ShieldSpec& s, bool grounded_end) {
+    require_around(coil, s);
+    const Covered c = covered_winding(coil, s);
+    const double l = coil.winding_length(), per_m = capacitance_per_length(coil, s);
+    if (grounded_end) return per_m * (c.to * c.to * c.to - c.from * c.from * c.from) / (3 * l * l);
+    const double covered = c.to - c.from;
+    return per_m * covered * covered * covered / (12 * l * l);
 }
 
 ShieldResult shielded_coil(const Solenoid& coil, double inductance, const ShieldSpec& s, const std::vector<double>& frequencies) {

@@ -172,7 +172,7 @@ void add_shield(Analysis& a) {
     Analysis::Shielded sh;
     const double l0 = a.inductance.recommended;
     sh.result = shielded_coil(spec.solenoid, l0, *spec.shield, f);
-    sh.terminal_capacitance = shield_terminal_capacitance(sh.result.capacitance_to_shield, spec.surroundings.mounting == Mounting::grounded_end);
+    sh.terminal_capacitance = shield_terminal_capacitance(spec.solenoid, *spec.shield, spec.surroundings.mounting == Mounting::grounded_end);
     sh.self_resonance = shielded_self_resonance(a.self_resonance.frequency, l0, sh.result.perfect_conductor, sh.terminal_capacitance);
     if (a.self_resonance.method == "network") {
         // The network holds the shield itself: its wall a grounded conductor, its currents' change to L.

@@ -103,7 +103,7 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
     std::optional<ShieldLoad> shield;
     d.self_resonance = sr.frequency;
     if (q_.shield) {
-        const double c_t = shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end);
+        const double c_t = shield_terminal_capacitance(s, *q_.shield, q_.surroundings.mounting == Mounting::grounded_end);
         bool by_network = false;
         if (sr.method == "network") {
             if (const auto n = network_resonance(s, fd, q_.surroundings, &*q_.shield)) {

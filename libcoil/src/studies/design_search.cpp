@@ -411,7 +411,7 @@ bool Evaluator::screen_band(const Candidate& c, const Solenoid& s, const Geometr
     }
     // In the shield: its capacitance between the terminals joins the coil's own, with the shielded L (the
     // lumped estimate coil analyze reports; shield.hpp).
-    const double c_t = q_.shield ? shield_terminal_capacitance(shield_capacitance(s, *q_.shield), q_.surroundings.mounting == Mounting::grounded_end) : 0;
+    const double c_t = q_.shield ? shield_terminal_capacitance(s, *q_.shield, q_.surroundings.mounting == Mounting::grounded_end) : 0;
     const auto as_mounted = [&](double f) { return q_.shield ? shielded_self_resonance(f, g.bare_inductance, d.inductance, c_t) : f; };
     d.self_resonance = as_mounted(sr.frequency);
     std::optional<ShieldLoad> shield;

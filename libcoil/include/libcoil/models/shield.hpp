@@ -12,9 +12,10 @@
 //          beyond the winding: the rings further out, and an end disc further out, are left out.
 //          Closed form, the long coil in a long shield at high frequency (the return flux confined between
 //          coil and wall): L = L0 (1 - a^2 / b^2), L0 the unshielded inductance (derived in docs/models.md).
-//          Capacitance to the shield: the coaxial C = 2 pi eps0 l / ln(b / r_outer) over the winding, seen
-//          between the terminals (voltage linear along the winding) as C/12 for a floating coil and C/3 with
-//          one end grounded to the shield, added to the coil's own self-capacitance for the shifted SRF.
+//          Capacitance to the shield: the coaxial C = 2 pi eps0 l_o / ln(b / r_outer) over the length l_o of
+//          winding the shield covers, seen between the terminals (voltage linear along the winding) as C/12
+//          for a floating coil and C/3 with one end grounded to the shield where it covers the whole winding
+//          (shield_terminal_capacitance for a part), added to the coil's own self-capacitance for the shifted SRF.
 // Source:  the ring model is the losses issue's (Maxwell 1873 art. 701; Grover 1946 for the GMD).
 // Domain:  coaxial shields around the coil (inner radius above the coil's outer radius), any thickness
 //          and frequency; nonmagnetic conductors.
@@ -160,10 +161,15 @@ private:
     double constant_change_ = 0;
 };
 
-// The coaxial capacitance from the winding to the shield, 2 pi eps0 l / ln(b / r_outer), F.
+// The coaxial capacitance from the winding to the shield over the length of winding it covers (its axial
+// offset and length taken), 2 pi eps0 l_o / ln(b / r_outer), F: 0 for a shield wholly beside the winding.
 double shield_capacitance(const Solenoid& coil, const ShieldSpec& shield);
-// The capacitance to the shield as seen between the terminals: C/12 floating, C/3 with one end grounded.
-double shield_terminal_capacitance(double capacitance_to_shield, bool grounded_end);
+// The same as seen between the terminals, F. The voltage is linear along the winding (length l) and the
+// energy c' (v - v_shield)^2 / 2 over the covered part, c' the capacitance per metre, gives (derived here,
+// as the textbook's C/12): floating, the shield at the covered part's mean potential, c' l_o^3 / (12 l^2),
+// C/12 where it covers the whole winding; one end grounded (the winding's start, joined to the shield),
+// c' (u2^3 - u1^3) / (3 l^2) for the part u1 .. u2 from that end, C/3 for the whole.
+double shield_terminal_capacitance(const Solenoid& coil, const ShieldSpec& shield, bool grounded_end);
 // The SRF in the shield, lumped: the coil's own capacitance C = 1 / ((2 pi f0)^2 L0) from its bare SRF f0
 // and inductance L0, joined by the shield's terminal capacitance, with the shielded inductance.
 double shielded_self_resonance(double bare_self_resonance, double bare_inductance, double shielded_inductance,
