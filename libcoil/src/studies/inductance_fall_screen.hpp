@@ -31,7 +31,6 @@ public:
     FallAtDiameter() = default;
     // Each of `polynomials` 70 coefficients in inductance_fall_fit's order; D / d `diameter`.
     FallAtDiameter(const std::array<const double*, K>& polynomials, double diameter);
-    double diameter() const { return diameter_; }
     // The K polynomials at bare p / d `spacing` and `turns` (not yet over D / d); nothing outside the fit's range.
     std::optional<std::array<double, K>> at(double spacing, double turns) const;
 

@@ -50,10 +50,28 @@ constexpr auto mounted_factors = factor_places(e::mounted_powers);
 
 using Offsets = double[e::turns_bins][e::spacing_bins][e::length_bins];
 
+// A feature scaled to [-1, 1] over low .. high, and its powers 0 .. 3 at p; false outside the range (a NaN too).
+bool cubic_powers(double x, double low, double high, double* p) {
+    if (!(x >= low && x <= high)) return false;
+    const double s = (2 * x - low - high) / (high - low);
+    p[0] = 1;
+    p[1] = s;
+    p[2] = s * s;
+    p[3] = s * s * s;
+    return true;
+}
+
+// The offset of the coil's bin (by N, p / d and l / D).
+double bin_offset(const Offsets& offset, const ScreenedCoil& c) {
+    return offset[bin_of(c.turns, e::turns_edges, e::turns_bins)][bin_of(c.spacing, e::spacing_edges, e::spacing_bins)]
+                 [bin_of(c.length, e::length_edges, e::length_bins)];
+}
+
 // The features a design screen varies within one wire on one form: log l / D, 1 / N and the log gap (the
 // bare fit's order, which the former fits share); the rest (enamel over d, D / d, the former's) stay fixed.
 constexpr std::array<int, 3> varied = {1, 3, 4};
 constexpr bool is_varied(int k) { return k == varied[0] || k == varied[1] || k == varied[2]; }
+static_assert(!is_varied(0), "a term's missing factors read feature 0's zeroth power, which the fold sets only for a fixed feature 0");
 // The cubic's monomials in the three varied features: their powers, and a monomial's place by its powers.
 constexpr int folded_terms = 20;
 constexpr auto folded_powers = [] {
@@ -80,7 +98,7 @@ struct FoldedTerm {
     std::size_t place = 0;
     std::array<unsigned char, 3> fixed{};
 };
-template <int features, int terms>
+template <int terms>
 const std::array<FoldedTerm, terms>& folded_map(const std::array<std::array<unsigned char, 3>, terms>& factors) {
     static const std::array<FoldedTerm, terms> map = [&] {
         std::array<FoldedTerm, terms> out{};
@@ -130,21 +148,14 @@ struct Fit {
         const Offsets& offset = c.grounded ? grounded_offset : floating_offset;
         double power[4 * features];
         for (int k = 0; k < features; ++k) {
-            if (!(x[k] >= low[k] && x[k] <= high[k])) return 0;
-            const double s = (2 * x[k] - low[k] - high[k]) / (high[k] - low[k]);
-            power[4 * k] = 1;
-            power[4 * k + 1] = s;
-            power[4 * k + 2] = s * s;
-            power[4 * k + 3] = s * s * s;
+            if (!cubic_powers(x[k], low[k], high[k], power + 4 * k)) return 0;
         }
         double sum = 0;
         for (int t = 0; t < terms; ++t) {
             const auto& f = factors[static_cast<std::size_t>(t)];
             sum += coefficients[t] * power[f[0]] * power[f[1]] * power[f[2]];
         }
-        const int n = bin_of(c.turns, e::turns_edges, e::turns_bins), i = bin_of(c.spacing, e::spacing_edges, e::spacing_bins),
-                  j = bin_of(c.length, e::length_edges, e::length_bins);
-        return std::exp(sum + offset[n][i][j]);
+        return std::exp(sum + bin_offset(offset, c));
     }
 
     // The fit with every feature but the varied three fixed at x's (those three of x are not read).
@@ -153,20 +164,14 @@ struct Fit {
         const double(&coefficients)[terms] = grounded_mounting ? grounded : floating;
         out.offset = grounded_mounting ? &grounded_offset : &floating_offset;
         double power[4 * features];
-        for (int k = 0; k < features; ++k) {
-            power[4 * k] = 1;
-            if (is_varied(k)) continue;
-            if (!(x[k] >= low[k] && x[k] <= high[k])) return out;
-            const double s = (2 * x[k] - low[k] - high[k]) / (high[k] - low[k]);
-            power[4 * k + 1] = s;
-            power[4 * k + 2] = s * s;
-            power[4 * k + 3] = s * s * s;
+        for (int k = 0; k < features; ++k) {  // the fixed ones (a missing factor reads place 0: feature 0, fixed)
+            if (!is_varied(k) && !cubic_powers(x[k], low[k], high[k], power + 4 * k)) return out;
         }
         for (int v = 0; v < 3; ++v) {
             out.low[v] = low[varied[static_cast<std::size_t>(v)]];
             out.high[v] = high[varied[static_cast<std::size_t>(v)]];
         }
-        const auto& map = folded_map<features, terms>(factors);
+        const auto& map = folded_map<terms>(factors);
         for (int t = 0; t < terms; ++t) {
             const auto& m = map[static_cast<std::size_t>(t)];
             out.c[m.place] += coefficients[t] * power[m.fixed[0]] * power[m.fixed[1]] * power[m.fixed[2]];
@@ -181,21 +186,14 @@ double folded_bound(const FoldedFit& f, const double (&x)[3], const ScreenedCoil
     if (!f.in_range) return 0;
     double power[3][4];
     for (int v = 0; v < 3; ++v) {
-        if (!(x[v] >= f.low[v] && x[v] <= f.high[v])) return 0;
-        const double s = (2 * x[v] - f.low[v] - f.high[v]) / (f.high[v] - f.low[v]);
-        power[v][0] = 1;
-        power[v][1] = s;
-        power[v][2] = s * s;
-        power[v][3] = s * s * s;
+        if (!cubic_powers(x[v], f.low[v], f.high[v], power[v])) return 0;
     }
     double sum[4] = {0, 0, 0, 0};  // four running sums: their additions need not wait on each other
     for (int m = 0; m < folded_terms; ++m) {
         const auto& e = folded_powers[static_cast<std::size_t>(m)];
         sum[m % 4] += f.c[static_cast<std::size_t>(m)] * power[0][e[0]] * power[1][e[1]] * power[2][e[2]];
     }
-    const int n = bin_of(c.turns, e::turns_edges, e::turns_bins), i = bin_of(c.spacing, e::spacing_edges, e::spacing_bins),
-              j = bin_of(c.length, e::length_edges, e::length_bins);
-    return std::exp((sum[0] + sum[1]) + (sum[2] + sum[3]) + (*f.offset)[n][i][j]);
+    return std::exp((sum[0] + sum[1]) + (sum[2] + sum[3]) + bin_offset(*f.offset, c));
 }
 
 constexpr Fit<e::bare_features, e::bare_terms> bare_fit{e::bare_low, e::bare_high, bare_factors, e::floating_bare_fit,
