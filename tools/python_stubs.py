@@ -83,8 +83,8 @@ def py_type(t):
     t = re.sub(r"\bList\[", "list[", t)
     t = re.sub(r"\bTuple\[", "tuple[", t)
     t = re.sub(r"\bDict\[", "dict[", t)
-    t = re.sub(r"Optional\[((?:[^\[\]]|\[[^\[\]]*\])+)\]", r"\1 | None", t)
-    t = t.replace("Callable[[float], float]", "Callable[[float], float]")
+    # Optional[X] as X | None, X nested two deep at most (Callable[[int, int], None]).
+    t = re.sub(r"Optional\[((?:[^\[\]]|\[(?:[^\[\]]|\[[^\[\]]*\])*\])+)\]", r"\1 | None", t)
     return t
 
 

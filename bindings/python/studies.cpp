@@ -29,21 +29,42 @@ void bind_studies(py::module_& m) {
     m.def("parse_requirement", &libcoil::parse_requirement, "yaml_text"_a, "source"_a = "requirement");
     m.def("load_requirement", &libcoil::load_requirement, "path"_a);
     m.def("design", [](const libcoil::Requirement& q, unsigned threads, std::size_t top, bool spread,
-                       std::size_t samples, std::uint64_t seed) {
+                       std::size_t samples, std::uint64_t seed,
+                       const std::optional<std::function<void(std::size_t, std::size_t)>>& progress) {
         libcoil::DesignOptions o;
         o.threads = threads;
         o.top = top;
         o.spread = spread;
         o.samples = samples;
         o.seed = seed;
+        // The screen reports (done, total) from the calling thread, about every 200 ms and once at its end
+        // (total, total), before the ranked designs are confirmed. The callable runs under the GIL; what it
+        // raises stops the reports and is raised again once the search has ended: an exception must not
+        // leave the search's loop while its threads run.
+        std::optional<py::error_already_set> raised;
+        if (progress) {
+            o.progress = [&](std::size_t done, std::size_t total) {
+                py::gil_scoped_acquire acquire;
+                if (raised) return;
+                try {
+                    (*progress)(done, total);
+                } catch (py::error_already_set& e) {
+                    raised = std::move(e);
+                }
+            };
+        }
         libcoil::DesignResult r;
         {
             py::gil_scoped_release release;
             r = libcoil::design(q, o);
         }
+        if (raised) throw std::move(*raised);
         return record("DesignResult", libcoil::python::design_dict(q, r));
     }, "requirement"_a, "threads"_a = 0, "top"_a = 10, "spread"_a = false, "samples"_a = 2000, "seed"_a = 1,
-       "The ranked designs for a requirement: a DesignResult whose `designs` holds numpy arrays over the ranking.");
+       "progress"_a = py::none(),
+       "The ranked designs for a requirement: a DesignResult whose `designs` holds numpy arrays over the ranking. "
+       "`progress`, if given, is called as progress(done, total) with the candidates screened, about every 0.2 s "
+       "and once at the screen's end, before the best-ranked designs are confirmed.");
     m.def("design_array", [](const libcoil::Requirement& q, unsigned threads, std::size_t top) {
         libcoil::DesignOptions o;
         o.threads = threads;

@@ -55,6 +55,28 @@ def test_design_json_keys(run_coil, source_dir):
     assert "coil:" in chosen["spec"] and "band:" in chosen["spec"]
 
 
+def test_python_design_reports_its_progress(source_dir):
+    # The screen's (done, total) from the calling thread, ending at (total, total) before the confirmations;
+    # a callable that raises stops the reports, the search ends, and its error reaches the caller.
+    # (Front-end behaviour, no physics: common practice for a progress callback.)
+    q = libcoil.load_requirement(str(source_dir / DEMO))
+    seen = []
+    r = libcoil.design(q, threads=2, top=1, progress=lambda done, total: seen.append((done, total)))
+    assert seen and seen[-1] == (r.candidates_evaluated, r.candidates_evaluated)
+    assert [d for d, _ in seen] == sorted(d for d, _ in seen)
+    assert r.chosen == libcoil.design(q, threads=1, top=1).chosen
+
+    calls = []
+
+    def fails(done, total):
+        calls.append(done)
+        raise KeyError("stop here")
+
+    with pytest.raises(KeyError, match="stop here"):
+        libcoil.design(q, threads=2, top=1, progress=fails)
+    assert len(calls) == 1
+
+
 def test_bad_requirement_exits_2(run_coil, tmp_path):
     bad = tmp_path / "bad.yaml"
     bad.write_text("target: {inductance: 5 uH, tolerance: 2 %}\noperating: {current: 1 A}\n"
