@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
+#include <string>
 
 #include "libcoil/core/constants.hpp"
 #include "libcoil/core/error.hpp"
@@ -131,6 +133,34 @@ void add_losses(Analysis& a, const AnalysisOptions& options) {
     a.subdivision = sub;
 }
 
+// The SRF's ratio with the former to without it, whose complement 1 - ratio^2 is the former's share of the
+// capacitance's field energy (the share its loss tangent acts on): by the sheath helix, or where the helix has
+// no slow wave on the former (steep pitch angles: the former's permittivity inside lifts the wave above the
+// light line), by the turn network, with a warning; where neither holds, none, and the former's dielectric loss
+// is left out, with a warning.
+std::optional<double> former_frequency_ratio(Analysis& a, const FormerDielectric& former) {
+    const Solenoid& s = a.spec.solenoid;
+    std::string helix_failure;
+    try {
+        return sheath_helix_former_ratio(s, former, a.spec.surroundings);
+    } catch (const DomainError& e) {
+        helix_failure = e.what();
+    }
+    try {
+        const auto on = network_resonance(s, former, a.spec.surroundings);
+        const auto bare = on ? network_resonance(s, FormerDielectric{}, a.spec.surroundings) : std::nullopt;
+        if (on && bare) {
+            a.warnings.push_back("the former's dielectric loss takes the turn network's SRF ratio with and without the former (the sheath "
+                                 "helix's does not hold: " + helix_failure + ")");
+            return std::min(1.0, on->frequency / bare->frequency);
+        }
+    } catch (const DomainError&) {
+    }
+    a.warnings.push_back("the former's dielectric loss is left out: neither the sheath helix (" + helix_failure +
+                         ") nor the turn network gives the SRF's ratio with and without the former for this coil; Q may read high");
+    return std::nullopt;
+}
+
 void add_self_resonance(Analysis& a) {
     const CoilSpec& spec = a.spec;
     const Solenoid& s = spec.solenoid;
@@ -154,8 +184,9 @@ void add_self_resonance(Analysis& a) {
     for (const auto& n : a.self_resonance.notes) a.notes.push_back(n);
     a.self_resonance_as_mounted = a.self_resonance.frequency;
     if (spec.former && spec.former->material.loss_tangent > 0) {
-        const double ratio = sheath_helix_former_ratio(s, former, spec.surroundings);
-        a.dielectric_loss_tangent = spec.former->material.loss_tangent * (1 - ratio * ratio);
+        if (const std::optional<double> ratio = former_frequency_ratio(a, former)) {
+            a.dielectric_loss_tangent = spec.former->material.loss_tangent * (1 - *ratio * *ratio);
+        }
     }
 }
 
