@@ -370,6 +370,8 @@ double capacitance_per_length(const Solenoid& coil, const ShieldSpec& s) {
 
 }  // namespace
 
+double shield_radius_ratio(const Solenoid& coil, const ShieldSpec& s) { return s.inner_diameter / coil.mean_diameter(); }
+
 double shield_capacitance(const Solenoid& coil, const ShieldSpec& s) {
     require_around(coil, s);
     const Covered c = covered_winding(coil, s);

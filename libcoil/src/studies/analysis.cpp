@@ -21,9 +21,6 @@ namespace libcoil {
 
 namespace {
 
-// The shield's inner radius over the coil's mean radius (self_resonance.hpp's shield_band_term).
-double shield_radius_ratio(const CoilSpec& spec) { return spec.shield->inner_diameter / spec.solenoid.mean_diameter(); }
-
 std::string three_digits(double v) { return detail::significant(v, 3); }
 std::string hz(double f) { return format_quantity(f, Dimension::frequency); }
 
@@ -273,7 +270,7 @@ void add_impedance_and_band(Analysis& a) {
     a.self_resonance_low_as_mounted = zc.resonance_low();
     a.self_resonance_high_as_mounted = a.self_resonance_as_mounted * a.self_resonance.frequency_high / a.self_resonance.frequency;
     if (a.shield) {
-        const double ratio = shield_radius_ratio(spec);
+        const double ratio = shield_radius_ratio(spec.solenoid, *spec.shield);
         const ShieldBandTerm t = shield_band_term(a.shield->self_resonance, a.self_resonance.frequency, a.shield->by_network, ratio);
         a.self_resonance_high_as_mounted *= t.high;
         const ShieldShiftError& e = network_shield_shift_error;
@@ -323,7 +320,7 @@ void add_impedance_and_band(Analysis& a) {
 
 ShieldLoad shield_load(const Analysis& a, ShieldTable table) {
     return ShieldLoad{std::move(table), a.shield->terminal_capacitance, a.shield->self_resonance, a.shield->result.perfect_conductor,
-                      a.shield->by_network, shield_radius_ratio(a.spec)};
+                      a.shield->by_network, shield_radius_ratio(a.spec.solenoid, *a.spec.shield)};
 }
 
 }  // namespace

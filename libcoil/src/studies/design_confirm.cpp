@@ -113,7 +113,7 @@ std::optional<BandMiss> Evaluator::confirm(DesignFigures& d, bool with_build_spr
         }
         if (!by_network) d.self_resonance = shielded_self_resonance(sr.frequency, bare_l, d.inductance, c_t);
         shield = ShieldLoad{ShieldTable::perfect(d.inductance - bare_l), c_t, d.self_resonance, d.inductance, by_network,
-                            q_.shield->inner_diameter / s.mean_diameter()};
+                            shield_radius_ratio(s, *q_.shield)};
     }
     if (!q_.band && !fixture_) return std::nullopt;
     const WireLossTable wire = fitted_wire(d.wire_index, s, d.temperature, bare_l);  // L(f) as the screen has it

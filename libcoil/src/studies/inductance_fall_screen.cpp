@@ -5,6 +5,8 @@
 #include <complex>
 #include <utility>
 
+#include "studies/fit_features.hpp"
+
 namespace libcoil::detail {
 
 namespace f = inductance_fall_fit;
@@ -52,14 +54,8 @@ constexpr ReducedPowers reduced = [] {
     return r;
 }();
 
-// Scaled to [-1, 1] over the feature's range, its powers to the degree; false outside the range (a NaN too).
-bool scaled_powers(double x, int k, double (&power)[f::degree + 1]) {
-    if (!(x >= f::low[k] && x <= f::high[k])) return false;
-    const double s = (2 * x - f::low[k] - f::high[k]) / (f::high[k] - f::low[k]);
-    power[0] = 1;
-    for (int e = 1; e <= f::degree; ++e) power[e] = power[e - 1] * s;
-    return true;
-}
+// Feature k scaled to [-1, 1] over its range, its powers to the degree; false outside the range (a NaN too).
+bool feature_powers(double x, int k, double (&power)[f::degree + 1]) { return scaled_powers<f::degree>(x, f::low[k], f::high[k], power); }
 
 // The reduced monomials at one coil, unrolled: their powers' indices are constants.
 template <std::size_t... M>
@@ -85,7 +81,7 @@ double dot(const std::array<double, fall_row_terms>& a, const std::array<double,
 template <std::size_t K>
 FallAtDiameter<K>::FallAtDiameter(const std::array<const double*, K>& polynomials, double diameter) : diameter_(diameter) {
     double p1[f::degree + 1];
-    in_range_ = diameter > 0 && scaled_powers(std::log(diameter), 1, p1);
+    in_range_ = diameter > 0 && feature_powers(std::log(diameter), 1, p1);
     if (!in_range_) return;
     for (std::size_t k = 0; k < K; ++k) {
         for (int t = 0; t < f::terms; ++t) c_[k][reduced.place[static_cast<std::size_t>(t)]] += polynomials[k][t] * p1[f::powers[t][1]];
@@ -97,8 +93,8 @@ std::optional<std::array<double, K>> FallAtDiameter<K>::at(double spacing, doubl
     if (!in_range_ || !(spacing > 1) || !(turns > 0)) return std::nullopt;
     const double rings = std::max(1.0, std::floor(turns + 0.5));
     double p0[f::degree + 1], p2[f::degree + 1], p3[f::degree + 1];
-    if (!scaled_powers(std::log(spacing - 1), 0, p0) || !scaled_powers(1 / rings, 2, p2) ||
-        !scaled_powers(std::log(turns * spacing / diameter_), 3, p3)) {
+    if (!feature_powers(std::log(spacing - 1), 0, p0) || !feature_powers(1 / rings, 2, p2) ||
+        !feature_powers(std::log(turns * spacing / diameter_), 3, p3)) {
         return std::nullopt;
     }
     std::array<double, fall_row_terms> m;

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstddef>
 
+#include "studies/fit_features.hpp"
 #include "studies/srf_screen_envelope.hpp"
 
 namespace libcoil::detail {
@@ -49,17 +50,6 @@ constexpr auto former_factors = factor_places(e::former_powers);
 constexpr auto mounted_factors = factor_places(e::mounted_powers);
 
 using Offsets = double[e::turns_bins][e::spacing_bins][e::length_bins];
-
-// A feature scaled to [-1, 1] over low .. high, and its powers 0 .. 3 at p; false outside the range (a NaN too).
-bool cubic_powers(double x, double low, double high, double* p) {
-    if (!(x >= low && x <= high)) return false;
-    const double s = (2 * x - low - high) / (high - low);
-    p[0] = 1;
-    p[1] = s;
-    p[2] = s * s;
-    p[3] = s * s * s;
-    return true;
-}
 
 // The offset of the coil's bin (by N, p / d and l / D).
 double bin_offset(const Offsets& offset, const ScreenedCoil& c) {
@@ -148,7 +138,7 @@ struct Fit {
         const Offsets& offset = c.grounded ? grounded_offset : floating_offset;
         double power[4 * features];
         for (int k = 0; k < features; ++k) {
-            if (!cubic_powers(x[k], low[k], high[k], power + 4 * k)) return 0;
+            if (!scaled_powers<3>(x[k], low[k], high[k], power + 4 * k)) return 0;
         }
         double sum = 0;
         for (int t = 0; t < terms; ++t) {
@@ -165,7 +155,7 @@ struct Fit {
         out.offset = grounded_mounting ? &grounded_offset : &floating_offset;
         double power[4 * features];
         for (int k = 0; k < features; ++k) {  // the fixed ones (a missing factor reads place 0: feature 0, fixed)
-            if (!is_varied(k) && !cubic_powers(x[k], low[k], high[k], power + 4 * k)) return out;
+            if (!is_varied(k) && !scaled_powers<3>(x[k], low[k], high[k], power + 4 * k)) return out;
         }
         for (int v = 0; v < 3; ++v) {
             out.low[v] = low[varied[static_cast<std::size_t>(v)]];
@@ -186,7 +176,7 @@ double folded_bound(const FoldedFit& f, const double (&x)[3], const ScreenedCoil
     if (!f.in_range) return 0;
     double power[3][4];
     for (int v = 0; v < 3; ++v) {
-        if (!cubic_powers(x[v], f.low[v], f.high[v], power[v])) return 0;
+        if (!scaled_powers<3>(x[v], f.low[v], f.high[v], power[v])) return 0;
     }
     double sum[4] = {0, 0, 0, 0};  // four running sums: their additions need not wait on each other
     for (int m = 0; m < folded_terms; ++m) {

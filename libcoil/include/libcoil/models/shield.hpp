@@ -161,6 +161,9 @@ private:
     double constant_change_ = 0;
 };
 
+// The shield's inner radius over the coil's mean radius, b / a (self_resonance.hpp's shield_band_term reads
+// whether the NEC2 reference's range holds it).
+double shield_radius_ratio(const Solenoid& coil, const ShieldSpec& shield);
 // The coaxial capacitance from the winding to the shield over the length of winding it covers (its axial
 // offset and length taken), 2 pi eps0 l_o / ln(b / r_outer), F: 0 for a shield wholly beside the winding.
 double shield_capacitance(const Solenoid& coil, const ShieldSpec& shield);
